@@ -1,0 +1,113 @@
+import express from "express";
+import helmet from "helmet";
+import { rateLimit } from "express-rate-limit";
+import { pinoHttp } from "pino-http";
+import { toNodeHandler } from "better-auth/node";
+import fs from "node:fs";
+import path from "node:path";
+import type { Config } from "./lib/config.ts";
+import { createAuth } from "./lib/auth.ts";
+import { createLogger } from "./lib/logger.ts";
+import type { DbHandle } from "./db/client.ts";
+import type { ErrorBody } from "../shared/schemas/errors.ts";
+import { requireAuth } from "./middleware/require-auth.ts";
+import { apiNotFound, errorHandler } from "./middleware/error-handler.ts";
+import { currentUser } from "./middleware/require-permission.ts";
+import { sessionRoutes } from "./features/session/session.routes.ts";
+import { settingsRoutes } from "./features/settings/settings.routes.ts";
+import { clientRoutes } from "./features/clients/clients.routes.ts";
+import { objectRoutes } from "./features/objects/objects.routes.ts";
+
+export type AppDeps = {
+  config: Config & { authSecret: string };
+  database: DbHandle;
+  /** Injected so tests can fix "now". */
+  clock?: () => Date;
+};
+
+export function createApp({ config, database, clock = () => new Date() }: AppDeps) {
+  const { db } = database;
+  const logger = createLogger(config.logLevel);
+  const auth = createAuth(db, config);
+  const app = express();
+
+  app.disable("x-powered-by");
+  app.set("trust proxy", "loopback");
+  app.use(
+    helmet({
+      hsts: config.secureCookies,
+      contentSecurityPolicy: {
+        useDefaults: false,
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", "data:", "blob:"],
+          fontSrc: ["'self'"],
+          connectSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          baseUri: ["'self'"],
+          formAction: ["'self'"],
+          frameAncestors: ["'none'"],
+          ...(config.secureCookies ? { upgradeInsecureRequests: [] } : {}),
+        },
+      },
+    }),
+  );
+  app.use(
+    pinoHttp({
+      logger,
+      autoLogging: { ignore: (req) => req.url === "/api/health" || !req.url?.startsWith("/api") },
+      serializers: {
+        req: (req: { method: string; url: string }) => ({ method: req.method, url: req.url }),
+        res: (res: { statusCode: number }) => ({ status: res.statusCode }),
+      },
+    }),
+  );
+
+  app.get("/api/health", (_req, res) => {
+    database.sqlite.prepare("select 1").get();
+    res.json({ status: "ok" });
+  });
+
+  const rateLimited: ErrorBody = {
+    error: { code: "rate_limited", message: "Too many sign-in attempts from this address. Wait 15 minutes, then try again." },
+  };
+  const signInLimiter = rateLimit({
+    windowMs: 15 * 60 * 1000,
+    limit: config.loginRateLimit,
+    standardHeaders: "draft-8",
+    legacyHeaders: false,
+    handler: (_req, res) => void res.status(429).json(rateLimited),
+  });
+  app.post("/api/session", signInLimiter);
+  app.post("/api/auth/sign-in/{*any}", signInLimiter);
+  // better-auth reads the raw body itself, so it is mounted before express.json().
+  app.all("/api/auth/{*any}", toNodeHandler(auth));
+
+  app.use("/api", express.json({ limit: "1mb" }));
+  app.use("/api/session", sessionRoutes(auth));
+
+  app.use("/api", requireAuth(auth));
+  app.get("/api/me", (req, res) => {
+    res.json(currentUser(req));
+  });
+  app.use("/api/settings", settingsRoutes(db));
+  app.use("/api/clients", clientRoutes(db));
+  app.use("/api/objects", objectRoutes(db, clock));
+  app.use("/api", apiNotFound);
+  app.use("/api", errorHandler);
+
+  if (config.clientDir && fs.existsSync(config.clientDir)) {
+    const dir = config.clientDir;
+    app.use(express.static(dir, { index: false, maxAge: "1h", setHeaders: (res, file) => {
+      if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader("Cache-Control", "public, max-age=31536000, immutable");
+    } }));
+    app.get("/{*spa}", (_req, res) => {
+      res.setHeader("Cache-Control", "no-cache");
+      res.sendFile(path.join(dir, "index.html"));
+    });
+  }
+  app.use(errorHandler);
+  return { app, auth, logger };
+}

@@ -1,0 +1,147 @@
+import { sql } from "drizzle-orm";
+import { index, integer, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
+
+const timestamps = {
+  createdAt: integer("created_at", { mode: "timestamp_ms" })
+    .notNull()
+    .default(sql`(cast(unixepoch('subsecond') * 1000 as integer))`),
+  updatedAt: integer("updated_at", { mode: "timestamp_ms" })
+    .notNull()
+    .default(sql`(cast(unixepoch('subsecond') * 1000 as integer))`),
+};
+
+// ── Clients: private owners and institutions ─────────────────────────────
+export const clients = sqliteTable(
+  "clients",
+  {
+    id: text("id").primaryKey(),
+    kind: text("kind", { enum: ["private", "institution"] }).notNull(),
+    name: text("name").notNull(),
+    contactName: text("contact_name"),
+    email: text("email"),
+    phone: text("phone"),
+    address: text("address"),
+    notes: text("notes"),
+    ...timestamps,
+  },
+  (t) => [index("clients_name_idx").on(t.name)],
+);
+
+// ── better-auth's four tables (user carries Reversa's role and client) ────
+export const user = sqliteTable("user", {
+  id: text("id").primaryKey(),
+  name: text("name").notNull(),
+  email: text("email").notNull().unique(),
+  emailVerified: integer("email_verified", { mode: "boolean" }).notNull().default(false),
+  image: text("image"),
+  role: text("role", { enum: ["admin", "framer", "registrar", "collector"] }).notNull().default("framer"),
+  clientId: text("client_id").references(() => clients.id, { onDelete: "restrict" }),
+  ...timestamps,
+});
+
+export const session = sqliteTable(
+  "session",
+  {
+    id: text("id").primaryKey(),
+    expiresAt: integer("expires_at", { mode: "timestamp_ms" }).notNull(),
+    token: text("token").notNull().unique(),
+    ipAddress: text("ip_address"),
+    userAgent: text("user_agent"),
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    ...timestamps,
+  },
+  (t) => [index("session_user_idx").on(t.userId)],
+);
+
+export const account = sqliteTable(
+  "account",
+  {
+    id: text("id").primaryKey(),
+    accountId: text("account_id").notNull(),
+    providerId: text("provider_id").notNull(),
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    accessToken: text("access_token"),
+    refreshToken: text("refresh_token"),
+    idToken: text("id_token"),
+    accessTokenExpiresAt: integer("access_token_expires_at", { mode: "timestamp_ms" }),
+    refreshTokenExpiresAt: integer("refresh_token_expires_at", { mode: "timestamp_ms" }),
+    scope: text("scope"),
+    password: text("password"),
+    ...timestamps,
+  },
+  (t) => [index("account_user_idx").on(t.userId)],
+);
+
+export const verification = sqliteTable("verification", {
+  id: text("id").primaryKey(),
+  identifier: text("identifier").notNull(),
+  value: text("value").notNull(),
+  expiresAt: integer("expires_at", { mode: "timestamp_ms" }).notNull(),
+  ...timestamps,
+});
+
+// ── Objects: the catalogue record (BRIEF §3). Lengths in mm. ─────────────
+export const objects = sqliteTable(
+  "objects",
+  {
+    id: text("id").primaryKey(),
+    objectNumber: text("object_number").notNull(),
+    title: text("title").notNull(),
+    maker: text("maker"),
+    dateMade: text("date_made"),
+    objectType: text("object_type").notNull(),
+    medium: text("medium"),
+    support: text("support"),
+    photoProcess: text("photo_process"),
+    edition: text("edition"),
+    inscriptions: text("inscriptions"),
+    sheetWidthMm: real("sheet_width_mm").notNull(),
+    sheetHeightMm: real("sheet_height_mm").notNull(),
+    borderLeftMm: real("border_left_mm"),
+    borderTopMm: real("border_top_mm"),
+    borderRightMm: real("border_right_mm"),
+    borderBottomMm: real("border_bottom_mm"),
+    thicknessNotes: text("thickness_notes"),
+    sensitivities: text("sensitivities", { mode: "json" }).$type<string[]>().notNull().default(sql`'[]'`),
+    clientId: text("client_id")
+      .notNull()
+      .references(() => clients.id, { onDelete: "restrict" }),
+    status: text("status").notNull(),
+    location: text("location"),
+    valuationMinor: integer("valuation_minor"),
+    valuationCurrency: text("valuation_currency"),
+    valuationDate: text("valuation_date"),
+    valuationBasis: text("valuation_basis"),
+    valuer: text("valuer"),
+    version: integer("version").notNull().default(1),
+    createdBy: text("created_by"),
+    ...timestamps,
+  },
+  (t) => [
+    uniqueIndex("objects_number_uq").on(t.objectNumber),
+    index("objects_client_idx").on(t.clientId, t.objectNumber),
+    index("objects_status_idx").on(t.status, t.objectNumber),
+    index("objects_type_idx").on(t.objectType, t.objectNumber),
+    index("objects_title_idx").on(t.title),
+    index("objects_maker_idx").on(t.maker),
+    index("objects_updated_idx").on(t.updatedAt),
+  ],
+);
+
+// ── Studio settings: one row ─────────────────────────────────────────────
+export const studioSettings = sqliteTable("studio_settings", {
+  id: integer("id").primaryKey(),
+  studioName: text("studio_name").notNull(),
+  studioAddress: text("studio_address"),
+  unit: text("unit", { enum: ["mm", "in"] }).notNull().default("mm"),
+  vocabulary: text("vocabulary", { enum: ["mount", "mat"] }).notNull().default("mount"),
+  paperSize: text("paper_size", { enum: ["A4", "Letter"] }).notNull().default("A4"),
+  currency: text("currency").notNull().default("GBP"),
+  minOverlapMm: real("min_overlap_mm").notNull().default(5),
+  rebateClearanceMm: real("rebate_clearance_mm").notNull().default(2),
+  ...timestamps,
+});

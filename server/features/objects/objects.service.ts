@@ -1,0 +1,130 @@
+import type { Db } from "../../db/client.ts";
+import type { SessionUser } from "../../../shared/schemas/auth.ts";
+import type { ObjectCreate, ObjectListQuery, ObjectRecord, ObjectUpdate } from "../../../shared/schemas/objects.ts";
+import { can, clientScope } from "../../../shared/permissions.ts";
+import { assertCan } from "../../middleware/require-permission.ts";
+import { AppError, conflict, notFound } from "../../lib/errors.ts";
+import { findClient } from "../clients/clients.repo.ts";
+import * as repo from "./objects.repo.ts";
+
+const VALUATION_KEYS = ["valuationMinor", "valuationCurrency", "valuationDate", "valuationBasis", "valuer"] as const;
+
+function toRecord(row: repo.ObjectRow, user: SessionUser): ObjectRecord {
+  const valuationVisible = can(user, "valuation:read", { clientId: row.clientId });
+  const record: ObjectRecord = {
+    id: row.id,
+    objectNumber: row.objectNumber,
+    title: row.title,
+    maker: row.maker,
+    dateMade: row.dateMade,
+    objectType: row.objectType as ObjectRecord["objectType"],
+    medium: row.medium,
+    support: row.support,
+    photoProcess: row.photoProcess as ObjectRecord["photoProcess"],
+    edition: row.edition,
+    inscriptions: row.inscriptions,
+    sheetWidthMm: row.sheetWidthMm,
+    sheetHeightMm: row.sheetHeightMm,
+    borderLeftMm: row.borderLeftMm,
+    borderTopMm: row.borderTopMm,
+    borderRightMm: row.borderRightMm,
+    borderBottomMm: row.borderBottomMm,
+    thicknessNotes: row.thicknessNotes,
+    sensitivities: row.sensitivities as ObjectRecord["sensitivities"],
+    clientId: row.clientId,
+    clientName: row.clientName,
+    status: row.status as ObjectRecord["status"],
+    location: row.location,
+    valuationMinor: row.valuationMinor,
+    valuationCurrency: row.valuationCurrency,
+    valuationDate: row.valuationDate,
+    valuationBasis: row.valuationBasis as ObjectRecord["valuationBasis"],
+    valuer: row.valuer,
+    version: row.version,
+    createdAt: row.createdAt.toISOString(),
+    updatedAt: row.updatedAt.toISOString(),
+    valuationVisible,
+  };
+  if (!valuationVisible) for (const k of VALUATION_KEYS) record[k] = null;
+  return record;
+}
+
+function duplicateNumber(objectNumber: string) {
+  return conflict(`Object number ${objectNumber} is already used by another object.`, {
+    objectNumber: `${objectNumber} is already used by another object; choose another number.`,
+  });
+}
+
+function requireClient(db: Db, clientId: string) {
+  if (!findClient(db, clientId)) {
+    throw new AppError(422, "validation_failed", "Check clientId: that owner does not exist.", { clientId: "Choose an owner from the list." });
+  }
+}
+
+export function createObjectsService(db: Db) {
+  function load(user: SessionUser, id: string): repo.ObjectRow {
+    const row = repo.findObject(db, id);
+    if (!row) throw notFound("That object");
+    assertCan(user, "object:read", { clientId: row.clientId }, { what: "That object" });
+    return row;
+  }
+
+  return {
+    list(user: SessionUser, query: ObjectListQuery) {
+      const scope = clientScope(user);
+      if (scope === "none") return { items: [], total: 0, page: query.page, pageSize: query.pageSize };
+      const { items, total } = repo.listObjects(db, query, scope);
+      return {
+        items: items.map((i) => ({ ...i, updatedAt: i.updatedAt.toISOString() })),
+        total,
+        page: query.page,
+        pageSize: query.pageSize,
+      };
+    },
+
+    get(user: SessionUser, id: string): ObjectRecord {
+      return toRecord(load(user, id), user);
+    },
+
+    create(user: SessionUser, data: ObjectCreate): ObjectRecord {
+      assertCan(user, "object:create", { clientId: data.clientId });
+      requireClient(db, data.clientId);
+      if (repo.findObjectIdByNumber(db, data.objectNumber)) throw duplicateNumber(data.objectNumber);
+      try {
+        const id = repo.insertObject(db, data, user.id);
+        return toRecord(repo.findObject(db, id)!, user);
+      } catch (e) {
+        if (String(e).includes("UNIQUE constraint failed: objects.object_number")) throw duplicateNumber(data.objectNumber);
+        throw e;
+      }
+    },
+
+    update(user: SessionUser, id: string, data: ObjectUpdate): ObjectRecord {
+      const current = load(user, id);
+      assertCan(user, "object:update", { clientId: current.clientId }, { what: "That object" });
+      const { version, ...changes } = data;
+      // Only studio staff move an object to another owner.
+      if (changes.clientId !== current.clientId) {
+        assertCan(user, "object:create", { clientId: changes.clientId });
+        requireClient(db, changes.clientId);
+      }
+      // Someone who may not see valuations cannot change them either: keep what is stored.
+      const patch: Partial<ObjectCreate> = { ...changes };
+      if (!can(user, "valuation:update", { clientId: current.clientId })) for (const k of VALUATION_KEYS) delete patch[k];
+      const other = repo.findObjectIdByNumber(db, changes.objectNumber);
+      if (other && other !== id) throw duplicateNumber(changes.objectNumber);
+      if (!repo.updateObject(db, id, version, patch)) {
+        throw conflict(
+          "Someone else saved this object while you were editing it. Your changes are still in the form: reload the record in another tab, compare, then save again.",
+        );
+      }
+      return toRecord(repo.findObject(db, id)!, user);
+    },
+
+    nextNumber(now: Date): string {
+      const year = now.getFullYear();
+      return `${year}-${String(repo.lastSequenceForYear(db, year) + 1).padStart(4, "0")}`;
+    },
+  };
+}
+export type ObjectsService = ReturnType<typeof createObjectsService>;

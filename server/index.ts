@@ -1,0 +1,40 @@
+import fs from "node:fs";
+import { createApp } from "./app.ts";
+import { loadConfig } from "./lib/config.ts";
+import { resolveAuthSecret } from "./lib/secret.ts";
+import { openDatabase } from "./db/client.ts";
+import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from "./db/seed.ts";
+
+const config = loadConfig();
+const authSecret = resolveAuthSecret(config.authSecret, config.databaseUrl);
+const database = openDatabase(config.databaseUrl);
+fs.mkdirSync(config.uploadsDir, { recursive: true });
+const seeded = config.seedDemo ? await seedDemo(database.db) : false;
+
+const { app, logger } = createApp({ config: { ...config, authSecret }, database });
+const server = app.listen(config.port, config.host, () => {
+  const address = server.address();
+  const port = typeof address === "object" && address ? address.port : config.port;
+  const url = config.clientDir ? config.publicUrl.replace(`:${config.port}`, `:${port}`) : `http://localhost:${port}/api/health`;
+  const lines = [
+    "",
+    `  Reversa is running: open ${url}`,
+    `  Database: ${config.databaseUrl}${seeded ? " (new; demo studio seeded)" : ""}`,
+  ];
+  if (config.seedDemo) {
+    lines.push(`  Demo sign-ins (password "${DEMO_PASSWORD}"):`);
+    for (const u of DEMO_USERS) lines.push(`    ${u.role.padEnd(10)} ${u.email}`);
+  }
+  console.log(lines.join("\n") + "\n");
+});
+
+function shutdown(signal: string) {
+  logger.info({ signal }, "shutting down");
+  server.close(() => {
+    database.close();
+    process.exit(0);
+  });
+  setTimeout(() => process.exit(1), 5000).unref();
+}
+process.on("SIGINT", () => shutdown("SIGINT"));
+process.on("SIGTERM", () => shutdown("SIGTERM"));

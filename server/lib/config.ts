@@ -1,0 +1,61 @@
+import { z } from "zod";
+import path from "node:path";
+
+/** Everything the server reads from the environment, with defaults that work out of the box. */
+const EnvSchema = z.object({
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  HOST: z.string().default("0.0.0.0"),
+  DATABASE_URL: z.string().default("data/reversa.db"),
+  UPLOADS_DIR: z.string().default("uploads"),
+  SEED_DEMO: z
+    .enum(["true", "false", "1", "0"])
+    .default("true")
+    .transform((v) => v === "true" || v === "1"),
+  PUBLIC_URL: z.string().url().optional(),
+  TRUSTED_ORIGINS: z.string().default(""),
+  BETTER_AUTH_SECRET: z.string().min(32).optional(),
+  LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
+  LOGIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
+  NODE_ENV: z.string().default("development"),
+});
+
+export type Config = {
+  port: number;
+  host: string;
+  databaseUrl: string;
+  uploadsDir: string;
+  seedDemo: boolean;
+  publicUrl: string;
+  trustedOrigins: string[];
+  authSecret?: string;
+  logLevel: string;
+  /** Failed and successful sign-in attempts allowed per IP address per 15 minutes. */
+  loginRateLimit: number;
+  /** Folder of the built client to serve, or null to serve the API only. */
+  clientDir: string | null;
+  secureCookies: boolean;
+};
+
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = EnvSchema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`).join("\n");
+    throw new Error(`Reversa cannot start: some settings in the environment are wrong.\n${lines}`);
+  }
+  const e = parsed.data;
+  const publicUrl = e.PUBLIC_URL ?? `http://localhost:${e.PORT}`;
+  return {
+    port: e.PORT,
+    host: e.HOST,
+    databaseUrl: e.DATABASE_URL,
+    uploadsDir: path.resolve(e.UPLOADS_DIR),
+    seedDemo: e.SEED_DEMO,
+    publicUrl,
+    trustedOrigins: [publicUrl, `http://localhost:${e.PORT}`, `http://127.0.0.1:${e.PORT}`, ...e.TRUSTED_ORIGINS.split(",").map((s) => s.trim()).filter(Boolean)],
+    authSecret: e.BETTER_AUTH_SECRET,
+    logLevel: e.LOG_LEVEL,
+    loginRateLimit: e.LOGIN_RATE_LIMIT,
+    clientDir: e.NODE_ENV === "production" ? path.resolve("dist/client") : null,
+    secureCookies: publicUrl.startsWith("https://"),
+  };
+}

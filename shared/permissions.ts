@@ -1,0 +1,71 @@
+import type { Role } from "./schemas/auth.ts";
+
+/**
+ * The one permission model. The server enforces it on every route; the client calls the same
+ * function only to hide what a user may not do.
+ */
+export const ACTIONS = [
+  "object:read",
+  "object:create",
+  "object:update",
+  "valuation:read",
+  "valuation:update",
+  "client:read",
+  "client:list",
+  "client:write",
+  "settings:read",
+  "settings:update",
+  "user:manage",
+  "planner:use",
+] as const;
+export type Action = (typeof ACTIONS)[number];
+
+export type Actor = { id: string; role: Role; clientId: string | null };
+/** What an action is about: for object and client actions, the owning client. */
+export type Resource = { clientId: string | null };
+
+const STUDIO: readonly Role[] = ["admin", "framer"];
+
+export function isStudio(actor: Actor): boolean {
+  return STUDIO.includes(actor.role);
+}
+
+/** True when the actor is a client-side user (collector or registrar) of the resource's client. */
+function ownsResource(actor: Actor, resource?: Resource): boolean {
+  return !!resource && actor.clientId !== null && resource.clientId === actor.clientId;
+}
+
+export function can(actor: Actor | null | undefined, action: Action, resource?: Resource): boolean {
+  if (!actor) return false;
+  const studio = isStudio(actor);
+  switch (action) {
+    case "settings:read":
+    case "planner:use":
+      return true;
+    case "settings:update":
+    case "user:manage":
+      return actor.role === "admin";
+    case "object:create":
+    case "client:write":
+    case "client:list":
+      return studio;
+    case "object:read":
+    case "client:read":
+    case "valuation:read":
+      // Valuations are confidential: studio staff and the owning client's users only (BRIEF §3).
+      return studio || ownsResource(actor, resource);
+    case "object:update":
+    case "valuation:update":
+      return studio || (actor.role === "registrar" && ownsResource(actor, resource));
+    default: {
+      const never: never = action;
+      return never;
+    }
+  }
+}
+
+/** For listings: null means every client, otherwise the one client the actor is limited to. */
+export function clientScope(actor: Actor): string | null | "none" {
+  if (isStudio(actor)) return null;
+  return actor.clientId ?? "none";
+}

@@ -1,0 +1,24 @@
+import { z } from "zod";
+
+export const IdParamSchema = z.object({ id: z.string().min(1).max(64) });
+
+/** Optional free text: trims, and turns an empty string into null. */
+export const optionalText = (max: number) =>
+  z
+    .string()
+    .trim()
+    .max(max, { message: `Keep this under ${max} characters.` })
+    .transform((v) => (v === "" ? null : v))
+    .nullable()
+    .optional()
+    .transform((v) => v ?? null);
+
+export const requiredText = (max: number, message: string) =>
+  z.string().trim().min(1, { message }).max(max, { message: `Keep this under ${max} characters.` });
+
+export const PageQuerySchema = z.object({
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200).default(50),
+});
+
+export type Page<T> = { items: T[]; total: number; page: number; pageSize: number };

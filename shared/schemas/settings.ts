@@ -1,0 +1,36 @@
+import { z } from "zod";
+import { requiredText, optionalText } from "./common.ts";
+import { UNITS } from "../domain/units.ts";
+import { isCurrencyCode } from "../domain/money.ts";
+
+export const VOCABULARIES = ["mount", "mat"] as const;
+export const PAPER_SIZES = ["A4", "Letter"] as const;
+
+export const StudioSettingsSchema = z.object({
+  studioName: requiredText(200, "Give the studio's name."),
+  studioAddress: optionalText(500),
+  unit: z.enum(UNITS, { message: "Choose mm or inches." }),
+  vocabulary: z.enum(VOCABULARIES, { message: "Choose mount or mat." }),
+  paperSize: z.enum(PAPER_SIZES, { message: "Choose A4 or US Letter." }),
+  currency: z
+    .string()
+    .trim()
+    .toUpperCase()
+    .refine(isCurrencyCode, { message: "Use an ISO 4217 currency code such as GBP." }),
+  minOverlapMm: z
+    .number({ message: "Enter the minimum overlap in mm." })
+    .min(1, { message: "Minimum overlap must be at least 1 mm." })
+    .max(25, { message: "Minimum overlap must be at most 25 mm." }),
+  rebateClearanceMm: z
+    .number({ message: "Enter the rebate clearance in mm." })
+    .min(0, { message: "Rebate clearance cannot be negative." })
+    .max(10, { message: "Rebate clearance must be at most 10 mm." }),
+});
+export type StudioSettings = z.infer<typeof StudioSettingsSchema>;
+
+/** Words that change with the studio's vocabulary (UK mount / US mat). */
+export function vocab(v: (typeof VOCABULARIES)[number]) {
+  return v === "mat"
+    ? { mount: "mat", Mount: "Mat", mountBoard: "mat board", rebate: "rabbet", Rebate: "Rabbet" }
+    : { mount: "mount", Mount: "Mount", mountBoard: "mount board", rebate: "rebate", Rebate: "Rebate" };
+}
