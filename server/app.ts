@@ -2,7 +2,6 @@ import express from "express";
 import helmet from "helmet";
 import { rateLimit } from "express-rate-limit";
 import { pinoHttp } from "pino-http";
-import { toNodeHandler } from "better-auth/node";
 import fs from "node:fs";
 import path from "node:path";
 import type { Config } from "./lib/config.ts";
@@ -81,9 +80,8 @@ export function createApp({ config, database, clock = () => new Date() }: AppDep
     handler: (_req, res) => void res.status(429).json(rateLimited),
   });
   app.post("/api/session", signInLimiter);
-  app.post("/api/auth/sign-in/{*any}", signInLimiter);
-  // better-auth reads the raw body itself, so it is mounted before express.json().
-  app.all("/api/auth/{*any}", toNodeHandler(auth));
+  // better-auth is called in-process (auth.api) by /api/session and requireAuth; its own HTTP
+  // routes are not mounted, so sign-up and the rest of its surface are not reachable.
 
   app.use("/api", express.json({ limit: "1mb" }));
   app.use("/api/session", sessionRoutes(auth));

@@ -30,8 +30,9 @@ export function createAuth(db: Db, config: Config & { authSecret: string }) {
     session: {
       expiresIn: 60 * 60 * 24 * 7,
       updateAge: 60 * 60 * 24,
-      // A signed cookie caches the session for a minute so most API calls skip the session lookup.
-      cookieCache: { enabled: true, maxAge: 60 },
+      // No cookie cache: with it, a signed-out (or role-changed) session stayed valid for up to its
+      // maxAge to anyone holding the cookies. One indexed SQLite lookup per call is cheap.
+      cookieCache: { enabled: false },
     },
     // Sign-in attempts are limited by express-rate-limit in front of this handler (app.ts).
     rateLimit: { enabled: false },
@@ -40,6 +41,8 @@ export function createAuth(db: Db, config: Config & { authSecret: string }) {
       defaultCookieAttributes: { httpOnly: true, sameSite: "lax" },
     },
     telemetry: { enabled: false },
+    // better-auth logs to the console on its own; keep it quiet when the app's log level is silent.
+    logger: { disabled: config.logLevel === "silent" },
   });
 }
 export type Auth = ReturnType<typeof createAuth>;

@@ -153,10 +153,11 @@ export const ObjectBaseSchema = z.object({
 function checkCross(o: z.infer<typeof ObjectBaseSchema>, ctx: z.RefinementCtx) {
   const w = o.sheetWidthMm;
   const h = o.sheetHeightMm;
-  if ((o.borderLeftMm ?? 0) + (o.borderRightMm ?? 0) >= w) {
+  // Only when the sheet size itself is valid: a zero width already has its own message.
+  if (w > 0 && (o.borderLeftMm ?? 0) + (o.borderRightMm ?? 0) >= w) {
     ctx.addIssue({ code: "custom", path: ["borderRightMm"], message: "Left and right borders together must be narrower than the sheet." });
   }
-  if ((o.borderTopMm ?? 0) + (o.borderBottomMm ?? 0) >= h) {
+  if (h > 0 && (o.borderTopMm ?? 0) + (o.borderBottomMm ?? 0) >= h) {
     ctx.addIssue({ code: "custom", path: ["borderBottomMm"], message: "Top and bottom borders together must be less than the sheet height." });
   }
   if (o.valuationMinor !== null && !o.valuationCurrency) {

@@ -100,12 +100,14 @@ export function updateObject(db: Db, id: string, version: number, data: Partial<
 
 /** The highest sequence used this year in numbers shaped YYYY-NNNN. */
 export function lastSequenceForYear(db: Db, year: number): number {
+  // The leading digits only, as SQLite's cast reads them: 2026-0009.1 (a part number) counts as 9.
+  const seq = sql<number>`cast(substr(${objects.objectNumber}, 6) as integer)`;
   const row = db
-    .select({ n: objects.objectNumber })
+    .select({ n: seq })
     .from(objects)
     .where(sql`${objects.objectNumber} glob ${`${year}-[0-9]*`}`)
-    .orderBy(desc(sql`cast(substr(${objects.objectNumber}, 6) as integer)`))
+    .orderBy(desc(seq))
     .limit(1)
     .get();
-  return row ? Number(row.n.slice(5)) || 0 : 0;
+  return row ? Number(row.n) || 0 : 0;
 }

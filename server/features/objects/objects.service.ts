@@ -3,7 +3,7 @@ import type { SessionUser } from "../../../shared/schemas/auth.ts";
 import type { ObjectCreate, ObjectListQuery, ObjectRecord, ObjectUpdate } from "../../../shared/schemas/objects.ts";
 import { can, clientScope } from "../../../shared/permissions.ts";
 import { assertCan } from "../../middleware/require-permission.ts";
-import { AppError, conflict, notFound } from "../../lib/errors.ts";
+import { AppError, conflict, forbidden, notFound } from "../../lib/errors.ts";
 import { findClient } from "../clients/clients.repo.ts";
 import * as repo from "./objects.repo.ts";
 
@@ -104,8 +104,9 @@ export function createObjectsService(db: Db) {
       assertCan(user, "object:update", { clientId: current.clientId }, { what: "That object" });
       const { version, ...changes } = data;
       // Only studio staff move an object to another owner.
+      // The user may edit this object, so a refusal here is 403 (assertCan would answer "That record was not found").
       if (changes.clientId !== current.clientId) {
-        assertCan(user, "object:create", { clientId: changes.clientId });
+        if (!can(user, "object:create", { clientId: changes.clientId })) throw forbidden("Only studio staff move an object to another owner.");
         requireClient(db, changes.clientId);
       }
       // Someone who may not see valuations cannot change them either: keep what is stored.

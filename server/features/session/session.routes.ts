@@ -4,6 +4,7 @@ import type { Auth } from "../../lib/auth.ts";
 import { SignInSchema } from "../../../shared/schemas/auth.ts";
 import { AppError } from "../../lib/errors.ts";
 import { input, validate } from "../../middleware/validate.ts";
+import { loadUser } from "../../middleware/require-auth.ts";
 
 /** Copies better-auth's cookies onto the Express response. */
 function forwardCookies(from: Response, to: ExpressResponse) {
@@ -13,10 +14,16 @@ function forwardCookies(from: Response, to: ExpressResponse) {
 
 /**
  * Sign-in and sign-out in the API's own error shape, on top of better-auth.
- * POST /api/session { email, password } · DELETE /api/session
+ * GET /api/session → { user | null } · POST /api/session { email, password } · DELETE /api/session
  */
 export function sessionRoutes(auth: Auth) {
   const r = Router();
+
+  // Public: tells the client whether it is signed in, without a 401 in the console.
+  r.get("/", async (req, res) => {
+    res.setHeader("Cache-Control", "no-store");
+    res.json({ user: await loadUser(auth, req, res) });
+  });
 
   r.post("/", validate({ body: SignInSchema }), async (req, res) => {
     const body = input(req, "body", SignInSchema);

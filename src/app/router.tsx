@@ -1,0 +1,26 @@
+import { createBrowserRouter } from "react-router";
+import { AppLayout } from "@/components/layouts/app-layout.tsx";
+import { RouteError } from "./routes/route-error.tsx";
+
+// Pages are split per route to keep the first load small.
+export const router = createBrowserRouter([
+  { path: "/sign-in", lazy: () => import("./routes/sign-in.tsx"), errorElement: <RouteError /> },
+  {
+    path: "/",
+    element: <AppLayout />,
+    errorElement: <RouteError />,
+    children: [
+      { index: true, lazy: () => import("./routes/bench.tsx") },
+      { path: "objects", lazy: () => import("./routes/register.tsx") },
+      { path: "objects/new", lazy: () => import("./routes/object-new.tsx") },
+      { path: "objects/:id", lazy: () => import("./routes/object.tsx") },
+      { path: "objects/:id/edit", lazy: () => import("./routes/object-edit.tsx") },
+      { path: "clients", lazy: () => import("./routes/clients.tsx") },
+      { path: "clients/new", lazy: () => import("./routes/client-edit.tsx") },
+      { path: "clients/:id", lazy: () => import("./routes/client.tsx") },
+      { path: "clients/:id/edit", lazy: () => import("./routes/client-edit.tsx") },
+      { path: "studio", lazy: () => import("./routes/studio.tsx") },
+      { path: "*", lazy: () => import("./routes/not-found.tsx") },
+    ],
+  },
+]);

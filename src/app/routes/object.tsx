@@ -1,0 +1,174 @@
+import type { ReactNode } from "react";
+import { Link, useParams } from "react-router";
+import {
+  OBJECT_TYPE_LABELS,
+  PHOTO_PROCESS_LABELS,
+  SENSITIVITY_LABELS,
+  VALUATION_BASIS_LABELS,
+  type ObjectRecord,
+} from "@shared/schemas/objects.ts";
+import { formatLength, formatSize, type Unit } from "@shared/domain/units.ts";
+import { can } from "@shared/permissions.ts";
+import { useMe } from "@/features/session/api/session.ts";
+import { useStudio } from "@/features/settings/api/settings.ts";
+import { useObject } from "@/features/objects/api/objects.ts";
+import { StatusBadge } from "@/features/objects/components/status-badge.tsx";
+import { ButtonLink } from "@/components/ui/button.tsx";
+import { Badge, Card, EmptyState, Notice, Skeleton } from "@/components/ui/feedback.tsx";
+import { formatDate, formatMoney } from "@/lib/format.ts";
+
+function Row({ label, children }: { label: string; children: ReactNode }) {
+  return (
+    <div className="grid grid-cols-[11rem_1fr] gap-3 border-b border-stone-light py-2 last:border-0">
+      <dt className="text-sm text-graphite">{label}</dt>
+      <dd className="text-sm">{children ?? "—"}</dd>
+    </div>
+  );
+}
+
+function imageArea(o: ObjectRecord, unit: Unit): string | null {
+  const b = [o.borderLeftMm, o.borderTopMm, o.borderRightMm, o.borderBottomMm];
+  if (b.every((v) => v === null)) return null;
+  const [l, t, r, bt] = b.map((v) => v ?? 0);
+  const size = formatSize(o.sheetWidthMm - l - r, o.sheetHeightMm - t - bt, unit);
+  const sides = `borders: left ${formatLength(l, unit)}, top ${formatLength(t, unit)}, right ${formatLength(r, unit)}, bottom ${formatLength(bt, unit)}`;
+  return `${size} (${sides})`;
+}
+
+export function Component() {
+  const { id = "" } = useParams();
+  const { data: user } = useMe();
+  const { unit, words } = useStudio();
+  const q = useObject(id);
+
+  if (q.isPending)
+    return (
+      <div className="space-y-4">
+        <Skeleton className="h-6 w-40" />
+        <Skeleton className="h-10 w-96" />
+        <Skeleton className="h-64 w-full" />
+      </div>
+    );
+  if (q.isError)
+    return (
+      <Notice tone="fail" title="Object not found">
+        {q.error.message} <Link to="/objects" className="font-medium underline">Back to the register</Link>
+      </Notice>
+    );
+  const o = q.data;
+  const area = imageArea(o, unit);
+
+  return (
+    <article className="space-y-6">
+      <header className="flex flex-wrap items-start justify-between gap-4 border-b border-stone pb-5">
+        <div className="flex gap-5">
+          <div aria-hidden="true" className="flex h-20 w-20 shrink-0 items-center justify-center rounded-card border border-stone bg-paper-sheet">
+            <div
+              className="border border-graphite-light bg-paper-deep"
+              style={{
+                width: `${(56 * Math.min(1, o.sheetWidthMm / o.sheetHeightMm)).toFixed(0)}px`,
+                height: `${(56 * Math.min(1, o.sheetHeightMm / o.sheetWidthMm)).toFixed(0)}px`,
+              }}
+            />
+          </div>
+          <div>
+            <p className="text-sm font-semibold text-accent num">{o.objectNumber}</p>
+            <h1 className="text-2xl font-bold tracking-tight">{o.title}</h1>
+            <p className="text-ink-soft">
+              {o.maker ?? "Maker unknown"}
+              {o.dateMade ? `, ${o.dateMade}` : ""}
+            </p>
+            <div className="mt-2 flex flex-wrap items-center gap-2 text-sm">
+              <StatusBadge status={o.status} />
+              {o.location && <span className="text-graphite">{o.location}</span>}
+              <span className="text-graphite">· Owner: {o.clientName}</span>
+            </div>
+            <p className="mt-2 text-sm text-graphite">Current {words.mount}: none recorded yet.</p>
+          </div>
+        </div>
+        {can(user, "object:update", { clientId: o.clientId }) && (
+          <ButtonLink to={`/objects/${o.id}/edit`} variant="secondary">
+            Edit record
+          </ButtonLink>
+        )}
+      </header>
+
+      <nav aria-label="Sections of this object" className="flex flex-wrap gap-4 text-sm font-medium">
+        {["Record", words.Mount, "History", "Condition", "Photos", "Documents"].map((s) => (
+          <a key={s} href={`#${s.toLowerCase()}`} className="text-accent hover:underline">
+            {s}
+          </a>
+        ))}
+      </nav>
+
+      <div className="grid gap-6 lg:grid-cols-2">
+        <Card title="Record" className="lg:row-span-2">
+          <dl id="record">
+            <Row label="Object type">{OBJECT_TYPE_LABELS[o.objectType]}</Row>
+            {o.photoProcess && <Row label="Photographic process">{PHOTO_PROCESS_LABELS[o.photoProcess]}</Row>}
+            <Row label="Medium and technique">{o.medium}</Row>
+            <Row label="Support">{o.support}</Row>
+            <Row label="Edition">{o.edition}</Row>
+            <Row label="Inscriptions">{o.inscriptions}</Row>
+            <Row label="Sheet">
+              <span className="num">{formatSize(o.sheetWidthMm, o.sheetHeightMm, unit)}</span>
+            </Row>
+            <Row label="Image area">{area && <span className="num">{area}</span>}</Row>
+            <Row label="Thickness and flatness">{o.thicknessNotes}</Row>
+            <Row label="Sensitivities">
+              {o.sensitivities.length ? (
+                <span className="flex flex-wrap gap-1">
+                  {o.sensitivities.map((s) => (
+                    <Badge key={s} tone="warn">
+                      {SENSITIVITY_LABELS[s]}
+                    </Badge>
+                  ))}
+                </span>
+              ) : null}
+            </Row>
+            {o.valuationVisible && (
+              <>
+                <Row label="Insured value">
+                  {o.valuationMinor !== null && o.valuationCurrency ? <span className="num">{formatMoney(o.valuationMinor, o.valuationCurrency)}</span> : null}
+                </Row>
+                <Row label="Valuation">
+                  {o.valuationDate || o.valuationBasis || o.valuer
+                    ? [formatDate(o.valuationDate), o.valuationBasis && VALUATION_BASIS_LABELS[o.valuationBasis], o.valuer].filter(Boolean).join(" · ")
+                    : null}
+                </Row>
+              </>
+            )}
+            <Row label="Last changed">{formatDate(o.updatedAt)}</Row>
+          </dl>
+        </Card>
+        <Card title={words.Mount}>
+          <div id={words.mount}>
+            <EmptyState title={`No ${words.mount} recorded`}>
+              The {words.mount} plan — window, borders, glazing and frame — and the boards and hinges used will show here once the object is mounted.
+            </EmptyState>
+          </div>
+        </Card>
+        <Card title="History">
+          <div id="history">
+            <EmptyState title="History starts with the first mounting">Every mounting, reframing, condition check and move of this object will be listed here, oldest last.</EmptyState>
+          </div>
+        </Card>
+        <Card title="Condition">
+          <div id="condition">
+            <EmptyState title="No condition report yet">Condition reports with photos record the state of the object at each hand-over.</EmptyState>
+          </div>
+        </Card>
+        <Card title="Photos">
+          <div id="photos">
+            <EmptyState title="No photos yet">Photos taken for condition reports appear here.</EmptyState>
+          </div>
+        </Card>
+        <Card title="Documents" className="lg:col-span-2">
+          <div id="documents">
+            <EmptyState title="No documents issued">Dossiers, condition reports and back labels issued for this object will be listed here with their verification codes.</EmptyState>
+          </div>
+        </Card>
+      </div>
+    </article>
+  );
+}

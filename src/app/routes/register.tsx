@@ -1,0 +1,150 @@
+import { useEffect, useState } from "react";
+import { useSearchParams } from "react-router";
+import { OBJECT_STATUSES, OBJECT_STATUS_LABELS, OBJECT_TYPES, OBJECT_TYPE_LABELS, type ObjectStatus, type ObjectType } from "@shared/schemas/objects.ts";
+import { can, isStudio } from "@shared/permissions.ts";
+import { useMe } from "@/features/session/api/session.ts";
+import { useStudio } from "@/features/settings/api/settings.ts";
+import { useObjects } from "@/features/objects/api/objects.ts";
+import { useClients } from "@/features/clients/api/clients.ts";
+import { ObjectsTable, type SortKey } from "@/features/objects/components/objects-table.tsx";
+import { FilterSelect, SearchInput } from "@/components/ui/field.tsx";
+import { ButtonLink } from "@/components/ui/button.tsx";
+import { EmptyState, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { Pagination } from "@/components/ui/pagination.tsx";
+import { useDebounced } from "@/lib/use-debounced.ts";
+
+const PAGE_SIZE = 50;
+
+export function Component() {
+  const { data: user } = useMe();
+  const studio = !!user && isStudio(user);
+  const { unit } = useStudio();
+  const [params, setParams] = useSearchParams();
+  const [q, setQ] = useState(params.get("q") ?? "");
+  const debouncedQ = useDebounced(q.trim());
+
+  const sort = (params.get("sort") as SortKey) ?? "objectNumber";
+  const dir = (params.get("dir") as "asc" | "desc") ?? "asc";
+  const page = Math.max(1, Number(params.get("page") ?? 1) || 1);
+  const status = (params.get("status") as ObjectStatus) || undefined;
+  const objectType = (params.get("type") as ObjectType) || undefined;
+  const clientId = params.get("client") || undefined;
+
+  const update = (changes: Record<string, string | undefined>, resetPage = true) => {
+    setParams(
+      (prev) => {
+        const n = new URLSearchParams(prev);
+        for (const [k, v] of Object.entries(changes)) v ? n.set(k, v) : n.delete(k);
+        if (resetPage) n.delete("page");
+        return n;
+      },
+      { replace: true },
+    );
+  };
+
+  useEffect(() => {
+    if ((params.get("q") ?? "") !== debouncedQ) update({ q: debouncedQ || undefined });
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [debouncedQ]);
+
+  const list = useObjects({ q: debouncedQ || undefined, status, objectType, clientId, sort, dir, page, pageSize: PAGE_SIZE });
+  const clients = useClients(studio);
+  const title = studio ? "Register" : user?.role === "registrar" ? "Collection" : "My collection";
+  const filtered = !!(debouncedQ || status || objectType || clientId);
+
+  return (
+    <div className="space-y-5">
+      <header className="flex flex-wrap items-end justify-between gap-4">
+        <div>
+          <h1 className="text-2xl font-bold tracking-tight">{title}</h1>
+          <p className="text-sm text-graphite">
+            {studio ? "Every object the studio has recorded. Search by object number, title or maker." : "The objects recorded for you by the studio."}
+          </p>
+        </div>
+        {can(user, "object:create") && <ButtonLink to="/objects/new">New object</ButtonLink>}
+      </header>
+
+      <div role="search" className="flex flex-wrap items-center gap-3">
+        <label className="sr-only" htmlFor="register-search">
+          Search objects
+        </label>
+        <SearchInput id="register-search" placeholder="Object number, title or maker" value={q} onChange={(e) => setQ(e.target.value)} className="max-w-sm" />
+        {studio && (
+          <FilterSelect aria-label="Owner" value={clientId ?? ""} onChange={(e) => update({ client: e.target.value || undefined })}>
+            <option value="">All owners</option>
+            {clients.data?.map((c) => (
+              <option key={c.id} value={c.id}>
+                {c.name}
+              </option>
+            ))}
+          </FilterSelect>
+        )}
+        <FilterSelect aria-label="Status" value={status ?? ""} onChange={(e) => update({ status: e.target.value || undefined })}>
+          <option value="">Any status</option>
+          {OBJECT_STATUSES.map((s) => (
+            <option key={s} value={s}>
+              {OBJECT_STATUS_LABELS[s]}
+            </option>
+          ))}
+        </FilterSelect>
+        <FilterSelect aria-label="Object type" value={objectType ?? ""} onChange={(e) => update({ type: e.target.value || undefined })}>
+          <option value="">Any type</option>
+          {OBJECT_TYPES.map((t) => (
+            <option key={t} value={t}>
+              {OBJECT_TYPE_LABELS[t]}
+            </option>
+          ))}
+        </FilterSelect>
+        {filtered && (
+          <button
+            type="button"
+            className="text-sm font-medium text-accent hover:underline"
+            onClick={() => {
+              setQ("");
+              update({ q: undefined, status: undefined, type: undefined, client: undefined });
+            }}
+          >
+            Clear filters
+          </button>
+        )}
+      </div>
+
+      <section aria-label="Objects" className="rounded-card bg-paper-sheet shadow-card" aria-busy={list.isFetching}>
+        {list.isPending ? (
+          <SkeletonRows />
+        ) : list.isError ? (
+          <div className="p-4">
+            <Notice tone="fail" title="The register could not be loaded">
+              {list.error.message}
+            </Notice>
+          </div>
+        ) : list.data.items.length === 0 ? (
+          <div className="p-4">
+            {filtered ? (
+              <EmptyState title="No object matches">Try fewer words, or clear the filters.</EmptyState>
+            ) : (
+              <EmptyState
+                title="No objects yet"
+                action={can(user, "object:create") ? <ButtonLink to="/objects/new">Record the first object</ButtonLink> : undefined}
+              >
+                The register lists every work the studio receives, with its catalogue, mount and condition history.
+              </EmptyState>
+            )}
+          </div>
+        ) : (
+          <>
+            <ObjectsTable
+              items={list.data.items}
+              unit={unit}
+              sort={sort}
+              dir={dir}
+              showOwner={studio}
+              onSort={(k) => update({ sort: k, dir: sort === k && dir === "asc" ? "desc" : "asc" })}
+            />
+            <Pagination page={page} pageSize={PAGE_SIZE} total={list.data.total} onPage={(p) => update({ page: String(p) }, false)} />
+          </>
+        )}
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,72 @@
+import { useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { StudioSettingsSchema, type StudioSettings } from "@shared/schemas/settings.ts";
+import type { z } from "zod";
+
+type SettingsInput = z.input<typeof StudioSettingsSchema>;
+import { can } from "@shared/permissions.ts";
+import { useMe } from "@/features/session/api/session.ts";
+import { useSaveSettings, useSettings } from "@/features/settings/api/settings.ts";
+import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
+import { Button } from "@/components/ui/button.tsx";
+import { Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { ApiError } from "@/lib/api-client.ts";
+
+function SettingsForm({ initial, readOnly }: { initial: StudioSettings; readOnly: boolean }) {
+  const save = useSaveSettings();
+  const form = useForm<SettingsInput, unknown, StudioSettings>({ resolver: zodResolver(StudioSettingsSchema), defaultValues: initial });
+  const e = form.formState.errors;
+  const submit = form.handleSubmit(async (values) => {
+    try {
+      await save.mutateAsync(values);
+      form.reset(values as SettingsInput);
+    } catch (err) {
+      if (err instanceof ApiError) for (const [k, m] of Object.entries(err.fields)) form.setError(k as keyof SettingsInput, { message: m });
+    }
+  });
+  return (
+    <form onSubmit={submit} noValidate className="max-w-3xl space-y-4">
+      {save.isSuccess && !form.formState.isDirty && <Notice tone="pass" title="Saved">The studio settings are saved.</Notice>}
+      {save.isError && <Notice tone="fail" title="Not saved">{save.error.message}</Notice>}
+      <fieldset disabled={readOnly} className="grid gap-4 rounded-card bg-paper-sheet p-5 shadow-card md:grid-cols-2">
+        <h2 className="col-span-full text-base font-semibold">Studio</h2>
+        <TextField label="Studio name" error={e.studioName?.message} {...form.register("studioName")} />
+        <TextAreaField label="Address" error={e.studioAddress?.message} {...form.register("studioAddress")} />
+        <h2 className="col-span-full mt-2 text-base font-semibold">Measures and words</h2>
+        <SelectField label="Unit" error={e.unit?.message} {...form.register("unit")}>
+          <option value="mm">Millimetres</option>
+          <option value="in">Inches with fractions</option>
+        </SelectField>
+        <SelectField label="Vocabulary" error={e.vocabulary?.message} hint="UK trade: mount, rebate. US trade: mat, rabbet." {...form.register("vocabulary")}>
+          <option value="mount">Mount (UK)</option>
+          <option value="mat">Mat (US)</option>
+        </SelectField>
+        <SelectField label="Paper size for documents" error={e.paperSize?.message} {...form.register("paperSize")}>
+          <option value="A4">A4 (210 × 297 mm)</option>
+          <option value="Letter">US Letter (8 1/2 × 11 in)</option>
+        </SelectField>
+        <TextField label="Currency" maxLength={3} error={e.currency?.message} hint="ISO 4217 code" {...form.register("currency")} />
+        <TextField label="Minimum overlap (mm)" type="number" step="0.5" error={e.minOverlapMm?.message} hint="How far the window must cover the sheet on each overlapped side. 5 mm is common practice." {...form.register("minOverlapMm", { valueAsNumber: true })} />
+        <TextField label="Rebate clearance (mm, in total)" type="number" step="0.5" error={e.rebateClearanceMm?.message} hint="Added to the package size to give the frame rebate; 1–3 mm is usual." {...form.register("rebateClearanceMm", { valueAsNumber: true })} />
+      </fieldset>
+      {!readOnly && <Button type="submit" disabled={form.formState.isSubmitting}>Save settings</Button>}
+    </form>
+  );
+}
+
+export function Component() {
+  const { data: user } = useMe();
+  const settings = useSettings();
+  if (settings.isPending) return <SkeletonRows />;
+  if (settings.isError) return <Notice tone="fail">{settings.error.message}</Notice>;
+  const readOnly = !can(user, "settings:update");
+  return (
+    <div className="space-y-5">
+      <header>
+        <h1 className="text-2xl font-bold tracking-tight">Studio</h1>
+        <p className="text-sm text-graphite">{readOnly ? "Only the studio admin can change these settings." : "Settings used on every screen and document."}</p>
+      </header>
+      <SettingsForm initial={settings.data} readOnly={readOnly} />
+    </div>
+  );
+}

@@ -1,0 +1,44 @@
+import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import type { ObjectCreate, ObjectListItem, ObjectListQuery, ObjectRecord, ObjectUpdate } from "@shared/schemas/objects.ts";
+import type { Page } from "@shared/schemas/common.ts";
+import { api, qs } from "@/lib/api-client.ts";
+
+export type ObjectListParams = Partial<ObjectListQuery>;
+
+export const objectListQuery = (params: ObjectListParams) =>
+  queryOptions({
+    queryKey: ["objects", "list", params],
+    queryFn: () => api.get<Page<ObjectListItem>>(`/api/objects${qs(params)}`),
+    placeholderData: keepPreviousData,
+  });
+
+export const objectQuery = (id: string) =>
+  queryOptions({ queryKey: ["objects", "one", id], queryFn: () => api.get<ObjectRecord>(`/api/objects/${encodeURIComponent(id)}`) });
+
+export const useObjects = (params: ObjectListParams) => useQuery(objectListQuery(params));
+export const useObject = (id: string) => useQuery(objectQuery(id));
+export const useNextObjectNumber = (enabled: boolean) =>
+  useQuery({ queryKey: ["objects", "next-number"], queryFn: () => api.get<{ objectNumber: string }>("/api/objects/next-number"), enabled, staleTime: 0 });
+
+export function useCreateObject() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (body: ObjectCreate) => api.post<ObjectRecord>("/api/objects", body),
+    onSuccess: (obj) => {
+      qc.invalidateQueries({ queryKey: ["objects"] });
+      qc.invalidateQueries({ queryKey: ["clients"] });
+      qc.setQueryData(objectQuery(obj.id).queryKey, obj);
+    },
+  });
+}
+
+export function useUpdateObject(id: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (body: ObjectUpdate) => api.put<ObjectRecord>(`/api/objects/${encodeURIComponent(id)}`, body),
+    onSuccess: (obj) => {
+      qc.invalidateQueries({ queryKey: ["objects", "list"] });
+      qc.setQueryData(objectQuery(obj.id).queryKey, obj);
+    },
+  });
+}

@@ -1,0 +1,51 @@
+import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
+
+export const CHROMIUM = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
+export const DEMO_PASSWORD = "reversa-demo";
+
+/** Debian's Chromium, headless, with a fresh profile and no background traffic. */
+export async function launch(): Promise<{ browser: Browser; context: BrowserContext; close: () => Promise<void> }> {
+  const userDataDir = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-chromium-"));
+  const context = await chromium.launchPersistentContext(userDataDir, {
+    executablePath: CHROMIUM,
+    headless: true,
+    viewport: { width: 1280, height: 900 },
+    args: ["--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
+  });
+  return {
+    browser: context.browser()!,
+    context,
+    close: async () => {
+      await context.close();
+      fs.rmSync(userDataDir, { recursive: true, force: true });
+    },
+  };
+}
+
+export type Watch = { consoleErrors: string[]; foreignRequests: string[] };
+
+/** Records console errors and any request that leaves the app's own origin. */
+export function watch(page: Page, baseUrl: string): Watch {
+  const w: Watch = { consoleErrors: [], foreignRequests: [] };
+  const origin = new URL(baseUrl).origin;
+  page.on("console", (m) => {
+    if (m.type() === "error") w.consoleErrors.push(m.text());
+  });
+  page.on("pageerror", (e) => w.consoleErrors.push(String(e)));
+  page.on("request", (r) => {
+    const u = r.url();
+    if (!u.startsWith(origin) && !u.startsWith("data:") && !u.startsWith("blob:")) w.foreignRequests.push(u);
+  });
+  return w;
+}
+
+export async function signIn(page: Page, baseUrl: string, email: string, password = DEMO_PASSWORD) {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByLabel("E-mail address").fill(email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL((u) => !u.pathname.startsWith("/sign-in"));
+}

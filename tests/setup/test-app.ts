@@ -1,0 +1,100 @@
+import fs from "node:fs";
+import path from "node:path";
+import { randomBytes, randomUUID } from "node:crypto";
+import { afterAll, inject } from "vitest";
+import request from "supertest";
+import { createApp } from "../../server/app.ts";
+import { openDatabase, type DbHandle } from "../../server/db/client.ts";
+import { loadConfig } from "../../server/lib/config.ts";
+import { makeClient, makeObject, makeUser } from "../../server/db/factories.ts";
+import type { Role } from "../../shared/schemas/auth.ts";
+import type { ClientRecord } from "../../shared/schemas/clients.ts";
+
+export { makeClient, makeObject, makeUser };
+export type Agent = request.Agent;
+
+export type TestApp = {
+  app: ReturnType<typeof createApp>["app"];
+  database: DbHandle;
+  db: DbHandle["db"];
+  /** A supertest agent: keeps the cookies it is given, like a browser. */
+  agent: () => Agent;
+};
+
+/** Env that every test app starts from; a test may override any of it. */
+const BASE_ENV = {
+  LOG_LEVEL: "silent",
+  SEED_DEMO: "false",
+  NODE_ENV: "test",
+  // Every supertest request comes from 127.0.0.1; the rate-limit test sets its own small limit.
+  LOGIN_RATE_LIMIT: "1000",
+};
+
+/**
+ * Copies the run's migrated template to a fresh file and builds the real app on it.
+ * Call once per test file (at module level or in beforeAll); the database is closed
+ * and deleted after the file's tests.
+ */
+export function createTestApp(opts: { env?: Record<string, string>; clock?: () => Date } = {}): TestApp {
+  const file = path.join(inject("testDbDir"), `${randomUUID()}.db`);
+  fs.copyFileSync(inject("templateDb"), file);
+  const database = openDatabase(file, { migrate: false });
+  const config = loadConfig({ ...BASE_ENV, DATABASE_URL: file, UPLOADS_DIR: path.join(inject("testDbDir"), "uploads"), ...opts.env });
+  const { app } = createApp({ config: { ...config, authSecret: randomBytes(32).toString("hex") }, database, clock: opts.clock });
+  afterAll(() => {
+    database.close();
+    for (const suffix of ["", "-wal", "-shm"]) fs.rmSync(file + suffix, { force: true });
+  });
+  return { app, database, db: database.db, agent: () => request.agent(app) };
+}
+
+/** Signs in through POST /api/session and fails loudly when that does not answer 200. */
+export async function signIn(agent: Agent, email: string, password: string): Promise<Agent> {
+  const res = await agent.post("/api/session").send({ email, password });
+  if (res.status !== 200) throw new Error(`Sign-in as ${email} answered ${res.status}: ${JSON.stringify(res.body)}`);
+  return agent;
+}
+
+export const PASSWORD = "correct horse battery";
+
+export type Person = { id: string; email: string; role: Role; clientId: string | null };
+
+/** Makes one user with PASSWORD through the shared factory. */
+export async function makePerson(t: TestApp, role: Role, clientId: string | null = null): Promise<Person> {
+  const email = `${role}-${randomUUID().slice(0, 8)}@reversa.test`;
+  const id = await makeUser(t.db, { email, name: `Test ${role}`, role, clientId, password: PASSWORD });
+  return { id, email, role, clientId };
+}
+
+/** Signs a new agent in as the person. */
+export async function agentFor(t: TestApp, person: Person): Promise<Agent> {
+  return signIn(t.agent(), person.email, PASSWORD);
+}
+
+/**
+ * A small studio: two clients (a private collector and an institution) and one user of each role.
+ * Every row comes from the shared factories, as in the demo seed.
+ */
+export async function makeStudio(t: TestApp) {
+  const collectorClient: ClientRecord = makeClient(t.db, { kind: "private", name: "Ada Collector" });
+  const institution: ClientRecord = makeClient(t.db, { kind: "institution", name: "Bramble Museum" });
+  const otherInstitution: ClientRecord = makeClient(t.db, { kind: "institution", name: "Cinder Archive" });
+  const people = {
+    admin: await makePerson(t, "admin"),
+    framer: await makePerson(t, "framer"),
+    collector: await makePerson(t, "collector", collectorClient.id),
+    registrar: await makePerson(t, "registrar", institution.id),
+  };
+  return { collectorClient, institution, otherInstitution, people };
+}
+
+/** The one error shape: `{ error: { code, message, fields? } }` with nothing else beside it. */
+export function expectErrorShape(body: unknown, code: string) {
+  const b = body as { error?: { code?: unknown; message?: unknown; fields?: unknown } };
+  if (!b || typeof b !== "object" || !b.error) throw new Error(`Not the error shape: ${JSON.stringify(body)}`);
+  if (Object.keys(b).length !== 1) throw new Error(`Error body has extra keys: ${JSON.stringify(body)}`);
+  if (b.error.code !== code) throw new Error(`Expected error code ${code}, got ${JSON.stringify(b.error.code)}`);
+  if (typeof b.error.message !== "string" || b.error.message.length === 0) throw new Error(`Error message missing: ${JSON.stringify(body)}`);
+  if (JSON.stringify(body).includes("    at ")) throw new Error(`Error body leaks a stack trace: ${JSON.stringify(body)}`);
+  return b.error as { code: string; message: string; fields?: Record<string, string> };
+}
