@@ -77,16 +77,20 @@ export function createApp({ config, database, clock = () => new Date() }: AppDep
     limit: config.loginRateLimit,
     standardHeaders: "draft-8",
     legacyHeaders: false,
+    // Count failed attempts only, so a studio behind one address is not locked out by normal use.
+    skipSuccessfulRequests: true,
     handler: (_req, res) => void res.status(429).json(rateLimited),
   });
   app.post("/api/session", signInLimiter);
   // better-auth is called in-process (auth.api) by /api/session and requireAuth; its own HTTP
   // routes are not mounted, so sign-up and the rest of its surface are not reachable.
 
-  app.use("/api", express.json({ limit: "1mb" }));
-  app.use("/api/session", sessionRoutes(auth));
+  const json = express.json({ limit: "1mb" });
+  app.use("/api/session", json, sessionRoutes(auth));
 
+  // Everything below needs a session; bodies are parsed only once the caller is known.
   app.use("/api", requireAuth(auth));
+  app.use("/api", json);
   app.get("/api/me", (req, res) => {
     res.json(currentUser(req));
   });

@@ -3,7 +3,8 @@ import { agentFor, createTestApp, expectErrorShape, makeStudio, type Agent } fro
 
 const t = createTestApp();
 
-// Every Reversa route behind sign-in, with a method the route answers to.
+// Every Reversa route behind sign-in, with a method the route answers to. Public: /api/health,
+// GET and POST /api/session, and DELETE /api/session (signing out when signed out is harmless).
 const PROTECTED: [method: "get" | "post" | "put" | "delete", path: string][] = [
   ["get", "/api/me"],
   ["get", "/api/settings"],

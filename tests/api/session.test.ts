@@ -72,6 +72,43 @@ describe("POST /api/session", () => {
   });
 });
 
+describe("GET /api/session", () => {
+  it("when signed out, then it answers 200 with no user, and is not cached", async () => {
+    const res = await t.agent().get("/api/session");
+    expect(res.status).toBe(200);
+    expect(res.body).toEqual({ user: null });
+    expect(res.headers["cache-control"]).toBe("no-store");
+  });
+
+  it("when signed in, then it answers the signed-in user", async () => {
+    const agent = await agentFor(t, collector);
+    const res = await agent.get("/api/session");
+    expect(res.status).toBe(200);
+    expect(res.body).toEqual({ user: { id: collector.id, name: "Test collector", email: collector.email, role: "collector", clientId } });
+  });
+});
+
+describe("better-auth's own HTTP routes", () => {
+  // They are not mounted (DEVELOPERS.md decision log): sign-up and the rest of better-auth's surface are unreachable.
+  it("when someone signs up or signs in through /api/auth, then nothing is there and no account is made", async () => {
+    const email = "walk-in@reversa.test";
+    const up = await t.agent().post("/api/auth/sign-up/email").send({ email, password: "a long enough password", name: "Walk-in" });
+    expect(up.status).toBe(401);
+    expectErrorShape(up.body, "unauthenticated");
+    const signInHere = await t.agent().post("/api/auth/sign-in/email").send({ email: framer.email, password: PASSWORD });
+    expect(signInHere.status).toBe(401);
+    expect(setCookies(signInHere).filter((c) => c.startsWith("better-auth.session_token="))).toEqual([]);
+    expect((await t.agent().post("/api/session").send({ email, password: "a long enough password" })).status).toBe(401);
+  });
+
+  it("when signed in, then /api/auth paths answer 404 like any unknown API path", async () => {
+    const agent = await agentFor(t, framer);
+    const res = await agent.get("/api/auth/get-session");
+    expect(res.status).toBe(404);
+    expectErrorShape(res.body, "not_found");
+  });
+});
+
 describe("GET /api/me", () => {
   it("when a framer is signed in, then it answers who they are with no client", async () => {
     const agent = await agentFor(t, framer);
@@ -94,6 +131,15 @@ describe("GET /api/me", () => {
     t.db.update(user).set({ role: "collector", clientId }).where(eq(user.id, someone.id)).run();
     expect((await agent.get("/api/me")).body).toMatchObject({ role: "collector", clientId });
     expect((await agent.get("/api/objects/next-number")).status).toBe(403);
+  });
+
+  it("when an account's role is not one of Reversa's, then it answers 403 asking for the studio admin", async () => {
+    const someone = await makePerson(t, "framer");
+    const agent = await agentFor(t, someone);
+    t.database.sqlite.prepare("update user set role = 'visitor' where id = ?").run(someone.id);
+    const res = await agent.get("/api/me");
+    expect(res.status).toBe(403);
+    expect(expectErrorShape(res.body, "forbidden").message).toBe("Your account has no role in this studio; ask the studio admin.");
   });
 });
 

@@ -22,7 +22,9 @@ function toRecord(row: Row, objectCount: number): ClientRecord {
   };
 }
 
-const objectCount = sql<number>`(select count(*) from ${objects} where ${objects.clientId} = ${clients.id})`;
+// Columns are written table-qualified: drizzle leaves them bare in a one-table select, and a bare
+// "id" inside the subquery would be objects.id, so every count came out 0.
+const objectCount = sql<number>`(select count(*) from ${objects} where ${objects}.${sql.identifier(objects.clientId.name)} = ${clients}.${sql.identifier(clients.id.name)})`;
 
 export function listClients(db: Db, onlyId: string | null): ClientRecord[] {
   const q = db.select({ row: clients, n: objectCount }).from(clients).orderBy(asc(clients.name));

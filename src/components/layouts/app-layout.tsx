@@ -29,7 +29,7 @@ export function AppLayout() {
   const location = useLocation();
   const navigate = useNavigate();
   const signOut = useSignOut();
-  const settings = useSettings();
+  const settings = useSettings(!!me.data);
   const [open, setOpen] = useState(false);
 
   if (me.isPending) {

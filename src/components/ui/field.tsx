@@ -1,7 +1,7 @@
 import { forwardRef, useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes, type TextareaHTMLAttributes } from "react";
 
 const CONTROL =
-  "block rounded-card border bg-paper-sheet px-3 py-2 text-sm text-ink placeholder:text-graphite-light focus:border-accent focus:outline-none focus:ring-2 focus:ring-accent/30";
+  "block rounded-card border bg-paper-sheet px-3 py-2 text-sm text-ink placeholder:text-graphite focus:border-accent focus:outline-none focus:ring-2 focus:ring-accent/30";
 const controlClass = (error?: string, width = "w-full") => `${CONTROL} ${width} ${error ? "border-fail" : "border-stone"}`;
 
 type FieldProps = { label: string; error?: string; hint?: ReactNode; className?: string; children: (ids: { id: string; describedBy?: string }) => ReactNode };

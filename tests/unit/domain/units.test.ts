@@ -53,6 +53,13 @@ describe("parseLength", () => {
     expect(mmOf("7.625", "in")).toBeCloseTo(SEVEN_FIVE_EIGHTHS_MM, 9);
   });
 
+  it("when a comma stands before three digits, then it groups thousands; otherwise it is a decimal point", () => {
+    // 1120 × 815 mm is a standard full board sheet: common practice (no source). "1,120" must never read as 1.12 mm.
+    expect(mmOf("1,120", "mm")).toBe(1120);
+    expect(mmOf("1,120.5", "mm")).toBe(1120.5);
+    expect(mmOf("12,5", "mm")).toBe(12.5);
+  });
+
   it("when a bare fraction is written, then it reads as that part of an inch", () => {
     // 5/8 in = 15.875 mm.
     expect(mmOf("5/8", "in")).toBeCloseTo(15.875, 9);

@@ -9,7 +9,7 @@ export const settingsQuery = queryOptions({
   staleTime: 5 * 60_000,
 });
 
-export const useSettings = () => useQuery(settingsQuery);
+export const useSettings = (enabled = true) => useQuery({ ...settingsQuery, enabled });
 
 /** The studio's unit and vocabulary, with safe defaults while settings load. */
 export function useStudio() {
