@@ -126,9 +126,12 @@ export const objects = sqliteTable(
     index("objects_client_idx").on(t.clientId, t.objectNumber),
     index("objects_status_idx").on(t.status, t.objectNumber),
     index("objects_type_idx").on(t.objectType, t.objectNumber),
-    index("objects_title_idx").on(t.title),
-    index("objects_maker_idx").on(t.maker),
-    index("objects_updated_idx").on(t.updatedAt),
+    index("objects_status_type_idx").on(t.status, t.objectType, t.objectNumber),
+    // Sorts carry the id as tie-breaker (stable pages), so the sort indexes do too.
+    index("objects_title_idx").on(t.title, t.id),
+    index("objects_maker_idx").on(t.maker, t.id),
+    index("objects_updated_idx").on(t.updatedAt, t.id),
+    index("objects_status_sort_idx").on(t.status, t.id),
   ],
 );
 

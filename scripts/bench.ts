@@ -1,0 +1,94 @@
+// npm run bench — measures Reversa's speed targets on a large database it seeds in a temporary folder.
+// Nothing here is asserted by the test suite; the numbers go into the closing notes of issues.
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import { randomUUID } from "node:crypto";
+import type { AddressInfo } from "node:net";
+import { createApp } from "../server/app.ts";
+import { loadConfig } from "../server/lib/config.ts";
+import { openDatabase } from "../server/db/client.ts";
+import { makeClient, makeUser } from "../server/db/factories.ts";
+
+const OBJECTS = Number(process.env.BENCH_OBJECTS ?? 100_000);
+const RUNS = Number(process.env.BENCH_RUNS ?? 200);
+
+const dir = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-bench-"));
+const file = path.join(dir, "bench.db");
+const database = openDatabase(file);
+const { db, sqlite } = database;
+
+console.log(`Seeding ${OBJECTS.toLocaleString("en-GB")} objects into ${file} …`);
+const t0 = performance.now();
+const clients = Array.from({ length: 40 }, (_, i) => makeClient(db, { kind: i % 4 === 0 ? "institution" : "private", name: `Bench client ${i + 1}` }));
+await makeUser(db, { email: "framer@bench.test", name: "Bench framer", role: "framer", password: "bench-password" });
+await makeUser(db, { email: "collector@bench.test", name: "Bench collector", role: "collector", clientId: clients[3].id, password: "bench-password" });
+const WORDS = "estuary harbour garden pear fern heron meadow lake map rose hawthorn sampler hands orchard tram birch pebbles poster deed crew tide fleet nets quay".split(" ");
+const MAKERS = ["Ilse Korrow", "Amadou Fenn", "Hollis Dray", "Cordelia Vane", "Anselm Toller", "Odran Keyes", "Unknown maker", "Ruth Calloway-Ng"];
+const TYPES = ["print", "drawing", "watercolour", "pastel", "photograph", "document"];
+const STATUSES = ["in-studio", "with-owner", "on-loan", "with-conservator"];
+const insert = sqlite.prepare(
+  `insert into objects (id, object_number, title, maker, object_type, sheet_width_mm, sheet_height_mm, client_id, status, sensitivities, valuation_minor, valuation_currency)
+   values (?, ?, ?, ?, ?, ?, ?, ?, ?, '[]', ?, 'GBP')`,
+);
+sqlite.transaction(() => {
+  for (let i = 0; i < OBJECTS; i++) {
+    const w = (k: number) => WORDS[(i * 7 + k * 13) % WORDS.length];
+    insert.run(
+      randomUUID(),
+      `${2000 + (i % 27)}-${String(i).padStart(6, "0")}`,
+      `${w(1)} ${w(2)} study ${i}`,
+      MAKERS[i % MAKERS.length],
+      TYPES[i % TYPES.length],
+      150 + (i % 600),
+      200 + (i % 700),
+      clients[i % clients.length].id,
+      STATUSES[i % STATUSES.length],
+      (i % 1000) * 1000,
+    );
+  }
+})();
+sqlite.pragma("optimize");
+console.log(`Seeded in ${((performance.now() - t0) / 1000).toFixed(1)} s.`);
+
+const config = { ...loadConfig({ LOG_LEVEL: "silent", LOGIN_RATE_LIMIT: "1000", DATABASE_URL: file, NODE_ENV: "test" }), authSecret: "bench-secret-bench-secret-bench-secret-0000" };
+const { app } = createApp({ config, database });
+const server = app.listen(0, "127.0.0.1");
+await new Promise((r) => server.once("listening", r));
+const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+
+async function cookieFor(email: string) {
+  const r = await fetch(`${base}/api/session`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ email, password: "bench-password" }) });
+  if (!r.ok) throw new Error(`sign-in failed: ${r.status}`);
+  return r.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+}
+
+async function measure(label: string, url: string, cookie: string) {
+  const times: number[] = [];
+  for (let i = 0; i < RUNS + 10; i++) {
+    const t = performance.now();
+    const r = await fetch(base + url, { headers: { cookie } });
+    await r.arrayBuffer();
+    if (!r.ok) throw new Error(`${url} answered ${r.status}`);
+    if (i >= 10) times.push(performance.now() - t);
+  }
+  times.sort((a, b) => a - b);
+  const p = (q: number) => times[Math.min(times.length - 1, Math.floor(q * times.length))].toFixed(1);
+  console.log(`${label.padEnd(44)} p50 ${p(0.5).padStart(6)} ms   p95 ${p(0.95).padStart(6)} ms`);
+}
+
+const framer = await cookieFor("framer@bench.test");
+const collector = await cookieFor("collector@bench.test");
+const firstId = (sqlite.prepare("select id from objects limit 1 offset 5000").get() as { id: string }).id;
+console.log(`\nAPI on loopback, ${RUNS} sequential requests each:`);
+await measure("register, first page (50)", "/api/objects", framer);
+await measure("register, search 'harbour hero'", "/api/objects?q=harbour%20hero", framer);
+await measure("register, search by object number", "/api/objects?q=2013-004321", framer);
+await measure("register, filter status + type", "/api/objects?status=on-loan&objectType=pastel", framer);
+await measure("register, sort by title desc, page 100", "/api/objects?sort=title&dir=desc&page=100", framer);
+await measure("register, collector's own objects", "/api/objects", collector);
+await measure("object page: GET /api/objects/:id", `/api/objects/${firstId}`, framer);
+
+server.close();
+database.close();
+fs.rmSync(dir, { recursive: true, force: true });
