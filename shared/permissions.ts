@@ -17,6 +17,7 @@ export const ACTIONS = [
   "settings:update",
   "user:manage",
   "planner:use",
+  "plan:write",
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 
@@ -46,6 +47,7 @@ export function can(actor: Actor | null | undefined, action: Action, resource?: 
     case "user:manage":
       return actor.role === "admin";
     case "object:create":
+    case "plan:write":
     case "client:write":
     case "client:list":
       return studio;

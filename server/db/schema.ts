@@ -148,3 +148,22 @@ export const studioSettings = sqliteTable("studio_settings", {
   rebateClearanceMm: real("rebate_clearance_mm").notNull().default(2),
   ...timestamps,
 });
+
+// ── Mount plans: the saved input of the planner; the plan itself is always recomputed from it ──
+export const mountPlans = sqliteTable(
+  "mount_plans",
+  {
+    id: text("id").primaryKey(),
+    objectId: text("object_id")
+      .notNull()
+      .references(() => objects.id, { onDelete: "restrict" }),
+    status: text("status", { enum: ["draft"] }).notNull().default("draft"),
+    schemaVersion: integer("schema_version").notNull(),
+    input: text("input", { mode: "json" }).notNull(),
+    version: integer("version").notNull().default(1),
+    createdBy: text("created_by"),
+    updatedBy: text("updated_by"),
+    ...timestamps,
+  },
+  (t) => [index("mount_plans_object_idx").on(t.objectId, t.status)],
+);

@@ -35,6 +35,7 @@ const STUDIO_AND_REGISTRAR: Row = { admin: [Y, Y, Y], framer: [Y, Y, Y], registr
 const EXPECTED: Record<Action, Row> = {
   "object:read": STUDIO_AND_OWNER,
   "object:create": STUDIO_ONLY,
+  "plan:write": STUDIO_ONLY,
   "object:update": STUDIO_AND_REGISTRAR,
   // BRIEF §3: valuations are confidential — admin, framers and the owning client's users only.
   "valuation:read": STUDIO_AND_OWNER,

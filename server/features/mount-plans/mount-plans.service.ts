@@ -1,0 +1,93 @@
+import type { Db } from "../../db/client.ts";
+import type { SessionUser } from "../../../shared/schemas/auth.ts";
+import { MountPlanInputSchema, type CuttingListRequest, type MountPlanParsed, type SavedPlan, type SavePlan } from "../../../shared/schemas/mount-plan.ts";
+import { computePlan, cuttingList } from "../../../shared/domain/mount-plan/index.ts";
+import { parseLength } from "../../../shared/domain/units.ts";
+import { DEFAULT_KERF_MM } from "../../../shared/domain/mount-plan/constants.ts";
+import { AppError, conflict, notFound } from "../../lib/errors.ts";
+import { assertCan } from "../../middleware/require-permission.ts";
+import { getSettings } from "../settings/settings.repo.ts";
+import { findObject } from "../objects/objects.repo.ts";
+import * as repo from "./mount-plans.repo.ts";
+
+function impossible(fields: Record<string, string>) {
+  const first = Object.entries(fields)[0];
+  return new AppError(422, "validation_failed", first ? `Check ${first[0]}: ${first[1]}` : "The plan cannot be computed.", fields);
+}
+
+export function createMountPlansService(db: Db) {
+  function calculate(input: MountPlanParsed) {
+    const s = getSettings(db);
+    const result = computePlan(input, { minOverlapMm: s.minOverlapMm, rebateClearanceMm: s.rebateClearanceMm });
+    if (!result.ok) throw impossible(result.fields);
+    return result.plan;
+  }
+
+  function toSaved(row: repo.PlanRow): SavedPlan {
+    // A saved plan is recomputed from its input every time it is shown, never stored as numbers.
+    const input = MountPlanInputSchema.parse(row.input);
+    return {
+      id: row.id,
+      objectId: row.objectId,
+      status: "draft",
+      version: row.version,
+      input: row.input as SavedPlan["input"],
+      plan: calculate(input),
+      updatedAt: row.updatedAt.toISOString(),
+      updatedBy: row.updatedBy,
+    };
+  }
+
+  function loadObject(user: SessionUser, objectId: string) {
+    const o = findObject(db, objectId);
+    if (!o) throw notFound("That object");
+    assertCan(user, "object:read", { clientId: o.clientId }, { what: "That object" });
+    return o;
+  }
+
+  return {
+    calculate,
+
+    cuttingList(req: CuttingListRequest) {
+      const fields: Record<string, string> = {};
+      const mm = (v: string | number, path: string, label: string) => {
+        const r = parseLength(v, req.unit);
+        if (!r.ok) fields[path] = `${label}: ${r.message}`;
+        else if (!(r.mm > 0)) fields[path] = `${label} must be greater than 0.`;
+        return r.ok ? r.mm : NaN;
+      };
+      const sheet = { width: mm(req.boardSheet.width, "boardSheet.width", "Board sheet width"), height: mm(req.boardSheet.height, "boardSheet.height", "Board sheet height") };
+      const kerfR = req.kerf !== undefined ? parseLength(req.kerf, req.unit) : { ok: true as const, mm: DEFAULT_KERF_MM };
+      if (!kerfR.ok || kerfR.mm < 0) fields.kerf = "Kerf must be a length of 0 or more.";
+      const pieces = req.pieces.map((p, i) => ({
+        id: p.id,
+        label: p.label,
+        quantity: p.quantity,
+        width: mm(p.width, `pieces.${i}.width`, "Board width"),
+        height: mm(p.height, `pieces.${i}.height`, "Board height"),
+      }));
+      if (Object.keys(fields).length) throw impossible(fields);
+      return cuttingList(pieces, sheet, kerfR.ok ? kerfR.mm : 0);
+    },
+
+    getDraft(user: SessionUser, objectId: string): SavedPlan | null {
+      loadObject(user, objectId);
+      const row = repo.findDraft(db, objectId);
+      return row ? toSaved(row) : null;
+    },
+
+    saveDraft(user: SessionUser, objectId: string, body: SavePlan): SavedPlan {
+      const o = loadObject(user, objectId);
+      assertCan(user, "plan:write", { clientId: o.clientId }, { what: "That object" });
+      calculate(body.input); // refuse impossible plans before anything is written
+      const existing = repo.findDraft(db, objectId);
+      if (!existing) return toSaved(repo.insertDraft(db, objectId, body.input, user.id));
+      if (body.version === undefined || body.version !== existing.version) {
+        throw conflict("Someone else saved this plan while you were working on it. Your plan is still on screen: reload to see theirs, then save again.");
+      }
+      const updated = repo.updateDraft(db, existing.id, existing.version, body.input, user.id);
+      if (!updated) throw conflict("Someone else saved this plan while you were working on it. Your plan is still on screen: reload to see theirs, then save again.");
+      return toSaved(updated);
+    },
+  };
+}

@@ -1,0 +1,368 @@
+/**
+ * Board yield and cutting list (BRIEF §4): how many blanks a full board sheet gives, and how a
+ * batch of blanks packs onto the fewest sheets, with guillotine (edge-to-edge) cuts and blade kerf.
+ *
+ * One idea carries both: a cut removes `kerf` mm and blanks need no kerf at the sheet's outer edge,
+ * so if every blank is grown by `kerf` on its right and bottom and the sheet is grown by `kerf` too,
+ * the kerf problem becomes the kerf-free one. n blanks of width w fit across W exactly when
+ * n·(w + k) ≤ W + k, i.e. n·w + (n − 1)·k ≤ W. All the packing below works in that grown space;
+ * a placement's x, y are the same in both spaces and its width and height are the real blank's.
+ */
+import { MM_PER_INCH, formatMm } from "../units.ts";
+
+export type Size = { width: number; height: number };
+export type Placement = { pieceId: string; x: number; y: number; width: number; height: number; rotated: boolean };
+export type CutPiece = { id: string; label?: string; width: number; height: number; quantity: number };
+export type CuttingSheet = { index: number; placements: Placement[]; utilisation: number };
+export type CuttingList = { sheets: CuttingSheet[]; sheetCount: number; utilisation: number; unplaced: { id: string; reason: string }[] };
+
+/** Float noise allowance on lengths in mm (values here are at most a few thousand mm). */
+const EPS = 1e-9;
+
+/**
+ * The guillotine search below visits at most this many sub-rectangles. Typical blanks (≥ 50 mm on
+ * sheets up to 1524 × 1016 mm) stay far below it; past it, a sub-rectangle not yet solved is
+ * filled as a plain grid, so the answer is still valid and never worse than the best grid. A count,
+ * not a clock, so the result depends on the input alone.
+ */
+const MAX_STATES = 20_000;
+
+/** Standard full board sheets (BRIEF §4). */
+export const STANDARD_BOARD_SHEETS: { id: string; label: string; width: number; height: number }[] = [
+  // 32 × 40 in and 40 × 60 in: suppliers' sizes; 1 in = 25.4 mm exactly (1959 agreement; NIST HB 44 App. C).
+  { id: "32x40in", label: "32 × 40 in", width: 32 * MM_PER_INCH, height: 40 * MM_PER_INCH },
+  { id: "40x60in", label: "40 × 60 in", width: 40 * MM_PER_INCH, height: 60 * MM_PER_INCH },
+  // 1120 × 815 mm: common practice (no source).
+  { id: "1120x815mm", label: "1120 × 815 mm", width: 1120, height: 815 },
+];
+
+function requirePositive(name: string, value: number): void {
+  if (typeof value !== "number" || !Number.isFinite(value) || value <= 0) {
+    throw new RangeError(`${name} must be a positive length in mm; got ${String(value)}.`);
+  }
+}
+
+function requireKerf(kerf: number): void {
+  if (typeof kerf !== "number" || !Number.isFinite(kerf) || kerf < 0) {
+    throw new RangeError(`kerf must be zero or a positive length in mm; got ${String(kerf)}.`);
+  }
+}
+
+/** How many of `item` fit along `length`, both already grown by the kerf. */
+function fitCount(length: number, item: number): number {
+  return Math.floor((length + EPS) / item);
+}
+
+// ── blanksPerSheet ──────────────────────────────────────────────────────────
+
+/** How a sub-rectangle is filled: a grid of upright or turned blanks, or a cut and two parts. */
+type Choice = { kind: "grid"; rotated: boolean } | { kind: "cut"; vertical: boolean; at: number };
+
+/** How many blanks of one size a full board sheet gives with guillotine cuts (edge-to-edge straight cuts), trying both orientations and mixed layouts. */
+export function blanksPerSheet(blank: Size, sheet: Size, kerf: number): { perSheet: number; placements: Placement[]; utilisation: number } {
+  requirePositive("blank.width", blank.width);
+  requirePositive("blank.height", blank.height);
+  requirePositive("sheet.width", sheet.width);
+  requirePositive("sheet.height", sheet.height);
+  requireKerf(kerf);
+
+  const bw = blank.width + kerf;
+  const bh = blank.height + kerf;
+  const sw = sheet.width + kerf;
+  const sh = sheet.height + kerf;
+  const square = Math.abs(blank.width - blank.height) <= EPS;
+  const fitsUpright = bw <= sw + EPS && bh <= sh + EPS;
+  const fitsTurned = !square && bh <= sw + EPS && bw <= sh + EPS;
+  if (!fitsUpright && !fitsTurned) return { perSheet: 0, placements: [], utilisation: 0 };
+
+  // Every cut can be slid to a "normal pattern" (a sum of grown blank sides) without losing a
+  // blank, so those sums are the only cut positions and the only part sizes worth trying.
+  const patterns = normalPatterns(square ? [bw] : [bw, bh], Math.max(sw, sh));
+  /** The largest pattern ≤ length, as an index into `patterns`. */
+  const floorIndex = (length: number): number => {
+    let lo = 0;
+    let hi = patterns.length - 1;
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >> 1;
+      if (patterns[mid] <= length + EPS) lo = mid;
+      else hi = mid - 1;
+    }
+    return lo;
+  };
+  const cellArea = bw * bh;
+  const bound = (a: number, b: number) => Math.floor((patterns[a] * patterns[b]) / cellArea + EPS);
+  const grid = (a: number, b: number, rotated: boolean): number =>
+    rotated ? fitCount(patterns[a], bh) * fitCount(patterns[b], bw) : fitCount(patterns[a], bw) * fitCount(patterns[b], bh);
+
+  const n = patterns.length;
+  const best = new Map<number, number>();
+  const choice = new Map<number, Choice>();
+
+  const solve = (a: number, b: number): number => {
+    const key = a * n + b;
+    const known = best.get(key);
+    if (known !== undefined) return known;
+    let value = grid(a, b, false);
+    let pick: Choice = { kind: "grid", rotated: false };
+    if (!square) {
+      const turned = grid(a, b, true);
+      if (turned > value) {
+        value = turned;
+        pick = { kind: "grid", rotated: true };
+      }
+    }
+    const upper = bound(a, b);
+    // Past the budget, a new sub-rectangle keeps its best grid and is not cut further.
+    if (value < upper && best.size < MAX_STATES) {
+      best.set(key, value); // provisional; parts are always smaller, so no cycle reads it
+      // A cut at p and one at (length − p) give the same two parts, so only p ≤ half is tried.
+      cuts: for (const vertical of [true, false]) {
+        const along = vertical ? a : b;
+        const half = patterns[along] / 2 + EPS;
+        for (let p = 1; p < n && patterns[p] <= half; p++) {
+          const q = floorIndex(patterns[along] - patterns[p]);
+          const boundSum = vertical ? bound(p, b) + bound(q, b) : bound(a, p) + bound(a, q);
+          if (boundSum <= value) continue;
+          const first = vertical ? solve(p, b) : solve(a, p);
+          const rest = vertical ? bound(q, b) : bound(a, q);
+          if (first + rest <= value) continue;
+          const total = first + (vertical ? solve(q, b) : solve(a, q));
+          if (total > value) {
+            value = total;
+            pick = { kind: "cut", vertical, at: p };
+            if (value >= upper) break cuts;
+          }
+        }
+      }
+    }
+    best.set(key, value);
+    choice.set(key, pick);
+    return value;
+  };
+
+  const a0 = floorIndex(sw);
+  const b0 = floorIndex(sh);
+  const perSheet = solve(a0, b0);
+
+  const placements: Placement[] = [];
+  const place = (x: number, y: number, a: number, b: number): void => {
+    const pick = choice.get(a * n + b);
+    if (!pick) throw new Error("yield: a sub-rectangle was left unsolved"); // cannot happen: solve() records every state it returns
+    if (pick.kind === "grid") {
+      const cw = pick.rotated ? bh : bw;
+      const ch = pick.rotated ? bw : bh;
+      const across = fitCount(patterns[a], cw);
+      const down = fitCount(patterns[b], ch);
+      for (let j = 0; j < down; j++) {
+        for (let i = 0; i < across; i++) {
+          placements.push({
+            pieceId: "blank",
+            x: x + i * cw,
+            y: y + j * ch,
+            width: pick.rotated ? blank.height : blank.width,
+            height: pick.rotated ? blank.width : blank.height,
+            rotated: pick.rotated,
+          });
+        }
+      }
+    } else if (pick.vertical) {
+      place(x, y, pick.at, b);
+      place(x + patterns[pick.at], y, floorIndex(patterns[a] - patterns[pick.at]), b);
+    } else {
+      place(x, y, a, pick.at);
+      place(x, y + patterns[pick.at], a, floorIndex(patterns[b] - patterns[pick.at]));
+    }
+  };
+  place(0, 0, a0, b0);
+  placements.sort((p, q) => p.y - q.y || p.x - q.x);
+
+  return { perSheet, placements, utilisation: (perSheet * blank.width * blank.height) / (sheet.width * sheet.height) };
+}
+
+/** All sums i·s₀ + j·s₁ ≤ limit (0 included), sorted, with float twins merged. */
+function normalPatterns(sides: number[], limit: number): number[] {
+  const values: number[] = [];
+  const [s0, s1] = sides;
+  for (let i = 0; i * s0 <= limit + EPS; i++) {
+    if (s1 === undefined) {
+      values.push(i * s0);
+      continue;
+    }
+    for (let j = 0; i * s0 + j * s1 <= limit + EPS; j++) values.push(i * s0 + j * s1);
+  }
+  values.sort((x, y) => x - y);
+  const out: number[] = [];
+  for (const v of values) if (out.length === 0 || v - out[out.length - 1] > EPS) out.push(v);
+  return out;
+}
+
+// ── cuttingList ─────────────────────────────────────────────────────────────
+
+type Rect = { x: number; y: number; w: number; h: number };
+type Unit = { id: string; order: number; w: number; h: number };
+type Fit = "area" | "short-side";
+type Split = "shorter-leftover" | "longer-leftover" | "big-offcut" | "even-offcuts";
+type Order = "area" | "long-side" | "perimeter";
+type Packed = { placements: Placement[][] };
+
+const ORDERS: Order[] = ["area", "long-side", "perimeter"];
+const FITS: Fit[] = ["area", "short-side"];
+const SPLITS: Split[] = ["shorter-leftover", "longer-leftover", "big-offcut", "even-offcuts"];
+
+/** Packs a batch of blanks onto the fewest full sheets it can find with guillotine cuts and kerf, rotating pieces when that helps. Pieces larger than the sheet in both orientations are returned in `unplaced` with a sentence naming the piece and the sheet size. */
+export function cuttingList(pieces: CutPiece[], sheet: Size, kerf: number): CuttingList {
+  requirePositive("sheet.width", sheet.width);
+  requirePositive("sheet.height", sheet.height);
+  requireKerf(kerf);
+  pieces.forEach((p, i) => {
+    requirePositive(`pieces[${i}].width`, p.width);
+    requirePositive(`pieces[${i}].height`, p.height);
+    if (!Number.isInteger(p.quantity) || p.quantity < 1) {
+      throw new RangeError(`pieces[${i}].quantity must be a whole number of at least 1; got ${String(p.quantity)}.`);
+    }
+  });
+
+  const unplaced: { id: string; reason: string }[] = [];
+  const units: Unit[] = [];
+  for (const p of pieces) {
+    const fits = (p.width <= sheet.width + EPS && p.height <= sheet.height + EPS) || (p.height <= sheet.width + EPS && p.width <= sheet.height + EPS);
+    if (!fits) {
+      unplaced.push({ id: p.id, reason: tooLargeReason(p, sheet) });
+      continue;
+    }
+    for (let c = 0; c < p.quantity; c++) units.push({ id: p.id, order: units.length, w: p.width, h: p.height });
+  }
+
+  // Several deterministic heuristics; the one that needs the fewest sheets wins, the first on a tie.
+  let chosen: Packed | null = uniformPacking(units, sheet, kerf);
+  for (const order of ORDERS) {
+    for (const fit of FITS) {
+      for (const split of SPLITS) {
+        const packed = guillotinePack(sortUnits(units, order), sheet, kerf, fit, split);
+        if (chosen === null || packed.placements.length < chosen.placements.length) chosen = packed;
+      }
+    }
+  }
+
+  const sheetArea = sheet.width * sheet.height;
+  const sheets: CuttingSheet[] = (chosen?.placements ?? []).map((placements, index) => ({
+    index,
+    placements,
+    utilisation: placements.reduce((s, p) => s + p.width * p.height, 0) / sheetArea,
+  }));
+  const placedArea = units.reduce((s, u) => s + u.w * u.h, 0);
+  return {
+    sheets,
+    sheetCount: sheets.length,
+    utilisation: sheets.length === 0 ? 0 : placedArea / (sheets.length * sheetArea),
+    unplaced,
+  };
+}
+
+function tooLargeReason(p: CutPiece, sheet: Size): string {
+  const name = p.label ? `"${p.label}" (${p.id})` : `"${p.id}"`;
+  const size = (w: number, h: number) => `${formatMm(w, "nearest", 0.1)} × ${formatMm(h, "nearest", 0.1)} mm`;
+  return `${name}, ${size(p.width, p.height)}, is larger than the ${size(sheet.width, sheet.height)} sheet whichever way round it is turned, so it cannot be cut from it.`;
+}
+
+/** A stable sort, largest first; copies of a piece keep their input order. */
+function sortUnits(units: Unit[], order: Order): Unit[] {
+  const key = (u: Unit): [number, number] =>
+    order === "area" ? [u.w * u.h, Math.max(u.w, u.h)] : order === "long-side" ? [Math.max(u.w, u.h), Math.min(u.w, u.h)] : [u.w + u.h, u.w * u.h];
+  return [...units].sort((p, q) => {
+    const [p1, p2] = key(p);
+    const [q1, q2] = key(q);
+    return q1 - p1 || q2 - p2 || p.order - q.order;
+  });
+}
+
+/**
+ * When every blank in the batch is the same size, the best single-sheet layout repeated is at
+ * least as good as any greedy packing, and it keeps the cutting list in step with blanksPerSheet.
+ */
+function uniformPacking(units: Unit[], sheet: Size, kerf: number): Packed | null {
+  if (units.length === 0) return { placements: [] };
+  const first = units[0];
+  const same = units.every((u) => (Math.abs(u.w - first.w) <= EPS && Math.abs(u.h - first.h) <= EPS) || (Math.abs(u.w - first.h) <= EPS && Math.abs(u.h - first.w) <= EPS));
+  if (!same) return null;
+  const layout = blanksPerSheet({ width: first.w, height: first.h }, sheet, kerf);
+  const sheets: Placement[][] = [];
+  units.forEach((u, i) => {
+    const slot = layout.placements[i % layout.perSheet];
+    if (i % layout.perSheet === 0) sheets.push([]);
+    // A copy entered turned (w and h swapped) is the same blank; its flag is relative to its own entry.
+    const rotated = !(Math.abs(slot.width - u.w) <= EPS && Math.abs(slot.height - u.h) <= EPS);
+    sheets[sheets.length - 1].push({ ...slot, pieceId: u.id, rotated });
+  });
+  return { placements: sheets };
+}
+
+/**
+ * Guillotine packing over free rectangles: each unit goes into the free rectangle (on any open
+ * sheet, either way round) that fits it best; the rest of that rectangle is split in two by one
+ * straight cut. A new sheet opens only when nothing fits.
+ */
+function guillotinePack(units: Unit[], sheet: Size, kerf: number, fit: Fit, split: Split): Packed {
+  const sheets: { free: Rect[]; placements: Placement[] }[] = [];
+  const fresh = (): Rect => ({ x: 0, y: 0, w: sheet.width + kerf, h: sheet.height + kerf });
+
+  for (const u of units) {
+    let bestScore: [number, number] | null = null;
+    let at: { s: number; r: number; rotated: boolean } | null = null;
+    for (let s = 0; s < sheets.length; s++) {
+      const free = sheets[s].free;
+      for (let r = 0; r < free.length; r++) {
+        for (const rotated of u.w === u.h ? [false] : [false, true]) {
+          const w = (rotated ? u.h : u.w) + kerf;
+          const h = (rotated ? u.w : u.h) + kerf;
+          const f = free[r];
+          if (w > f.w + EPS || h > f.h + EPS) continue;
+          const dw = f.w - w;
+          const dh = f.h - h;
+          const score: [number, number] = fit === "area" ? [f.w * f.h - w * h, Math.min(dw, dh)] : [Math.min(dw, dh), Math.max(dw, dh)];
+          if (bestScore === null || score[0] < bestScore[0] - EPS || (Math.abs(score[0] - bestScore[0]) <= EPS && score[1] < bestScore[1] - EPS)) {
+            bestScore = score;
+            at = { s, r, rotated };
+          }
+        }
+      }
+    }
+    if (at === null) {
+      sheets.push({ free: [fresh()], placements: [] });
+      const f = sheets[sheets.length - 1].free[0];
+      const upright = u.w + kerf <= f.w + EPS && u.h + kerf <= f.h + EPS;
+      at = { s: sheets.length - 1, r: 0, rotated: !upright };
+    }
+    const target = sheets[at.s];
+    const f = target.free[at.r];
+    const w = (at.rotated ? u.h : u.w) + kerf;
+    const h = (at.rotated ? u.w : u.h) + kerf;
+    target.placements.push({ pieceId: u.id, x: f.x, y: f.y, width: w - kerf, height: h - kerf, rotated: at.rotated });
+    target.free.splice(at.r, 1, ...splitFree(f, w, h, split));
+  }
+  return { placements: sheets.map((s) => s.placements) };
+}
+
+/** The two rectangles left when a w × h block is taken from the top-left of f, by one straight cut. */
+function splitFree(f: Rect, w: number, h: number, split: Split): Rect[] {
+  const dw = f.w - w;
+  const dh = f.h - h;
+  let horizontal: boolean; // true: the cut runs the full width of f below the block
+  switch (split) {
+    case "shorter-leftover":
+      horizontal = dw <= dh;
+      break;
+    case "longer-leftover":
+      horizontal = dw > dh;
+      break;
+    case "big-offcut": // the larger offcut also takes the corner, leaving one big rectangle
+      horizontal = w * dh > dw * h;
+      break;
+    case "even-offcuts":
+      horizontal = w * dh <= dw * h;
+      break;
+  }
+  const right: Rect = { x: f.x + w, y: f.y, w: dw, h: horizontal ? h : f.h };
+  const below: Rect = { x: f.x, y: f.y + h, w: horizontal ? f.w : w, h: dh };
+  return [below, right].filter((r) => r.w > EPS && r.h > EPS);
+}
