@@ -12,7 +12,7 @@ const list = (items: string[]) => (items.length <= 1 ? items.join("") : `${items
 
 const SOURCES = {
   overlap: "Common practice (no source); the minimum is a studio setting",
-  nedcc: "NEDCC Preservation Leaflet 4.10, Storage Solutions / matting and framing",
+  nedcc: "NEDCC Preservation Leaflet 4.10",
   photo: "ISO 18916 (Photographic Activity Test); ISO 18902; CCAHA, “ISO standards for housing photographs”",
   friable: "State Archives of Florida, framing guidance for pastels and charcoal",
   loc: "Library of Congress, “Matting and Hinging Works of Art on Paper”",

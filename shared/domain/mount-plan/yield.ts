@@ -20,12 +20,14 @@ export type CuttingList = { sheets: CuttingSheet[]; sheetCount: number; utilisat
 const EPS = 1e-9;
 
 /**
- * The guillotine search below visits at most this many sub-rectangles. Typical blanks (≥ 50 mm on
- * sheets up to 1524 × 1016 mm) stay far below it; past it, a sub-rectangle not yet solved is
- * filled as a plain grid, so the answer is still valid and never worse than the best grid. A count,
- * not a clock, so the result depends on the input alone.
+ * The guillotine search below is bounded by a count of cut positions tried, not a clock, so the
+ * result depends on the input alone. Typical blanks (≥ 50 mm on sheets up to 1524 × 1016 mm) stay
+ * below it; past it, sub-rectangles not yet solved keep their best grid and are not cut further,
+ * so the answer is still a real layout and never worse than the best grid.
  */
-const MAX_STATES = 20_000;
+const MAX_CUTS_TRIED = 30_000;
+/** Above this many cut positions (only with blanks tiny beside the sheet), cuts fall on whole rows and columns only. */
+const MAX_PATTERNS = 3_000;
 
 /** Standard full board sheets (BRIEF §4). */
 export const STANDARD_BOARD_SHEETS: { id: string; label: string; width: number; height: number }[] = [
@@ -77,7 +79,8 @@ export function blanksPerSheet(blank: Size, sheet: Size, kerf: number): { perShe
 
   // Every cut can be slid to a "normal pattern" (a sum of grown blank sides) without losing a
   // blank, so those sums are the only cut positions and the only part sizes worth trying.
-  const patterns = normalPatterns(square ? [bw] : [bw, bh], Math.max(sw, sh));
+  const limit = Math.max(sw, sh);
+  const patterns = normalPatterns(square ? [bw] : [bw, bh], limit) ?? wholeRowsAndColumns(bw, bh, limit) ?? gridsOnly(bw, bh, sw, sh);
   /** The largest pattern ≤ length, as an index into `patterns`. */
   const floorIndex = (length: number): number => {
     let lo = 0;
@@ -97,6 +100,7 @@ export function blanksPerSheet(blank: Size, sheet: Size, kerf: number): { perShe
   const n = patterns.length;
   const best = new Map<number, number>();
   const choice = new Map<number, Choice>();
+  let cutsTried = 0;
 
   const solve = (a: number, b: number): number => {
     const key = a * n + b;
@@ -112,20 +116,19 @@ export function blanksPerSheet(blank: Size, sheet: Size, kerf: number): { perShe
       }
     }
     const upper = bound(a, b);
-    // Past the budget, a new sub-rectangle keeps its best grid and is not cut further.
-    if (value < upper && best.size < MAX_STATES) {
-      best.set(key, value); // provisional; parts are always smaller, so no cycle reads it
+    if (value < upper && cutsTried < MAX_CUTS_TRIED) {
       // A cut at p and one at (length − p) give the same two parts, so only p ≤ half is tried.
       cuts: for (const vertical of [true, false]) {
         const along = vertical ? a : b;
         const half = patterns[along] / 2 + EPS;
+        let q = along; // the far part, reduced to a pattern; it only shrinks as p grows
         for (let p = 1; p < n && patterns[p] <= half; p++) {
-          const q = floorIndex(patterns[along] - patterns[p]);
+          if (++cutsTried > MAX_CUTS_TRIED) break cuts;
+          while (patterns[q] > patterns[along] - patterns[p] + EPS) q--;
           const boundSum = vertical ? bound(p, b) + bound(q, b) : bound(a, p) + bound(a, q);
           if (boundSum <= value) continue;
           const first = vertical ? solve(p, b) : solve(a, p);
-          const rest = vertical ? bound(q, b) : bound(a, q);
-          if (first + rest <= value) continue;
+          if (first + (vertical ? bound(q, b) : bound(a, q)) <= value) continue;
           const total = first + (vertical ? solve(q, b) : solve(a, q));
           if (total > value) {
             value = total;
@@ -179,17 +182,33 @@ export function blanksPerSheet(blank: Size, sheet: Size, kerf: number): { perShe
   return { perSheet, placements, utilisation: (perSheet * blank.width * blank.height) / (sheet.width * sheet.height) };
 }
 
-/** All sums i·s₀ + j·s₁ ≤ limit (0 included), sorted, with float twins merged. */
-function normalPatterns(sides: number[], limit: number): number[] {
+/** All sums i·s₀ + j·s₁ ≤ limit (0 included), sorted, with float twins merged; null when there are too many. */
+function normalPatterns(sides: number[], limit: number): number[] | null {
   const values: number[] = [];
   const [s0, s1] = sides;
   for (let i = 0; i * s0 <= limit + EPS; i++) {
-    if (s1 === undefined) {
-      values.push(i * s0);
-      continue;
-    }
-    for (let j = 0; i * s0 + j * s1 <= limit + EPS; j++) values.push(i * s0 + j * s1);
+    if (s1 === undefined) values.push(i * s0);
+    else for (let j = 0; i * s0 + j * s1 <= limit + EPS; j++) values.push(i * s0 + j * s1);
+    if (values.length > MAX_PATTERNS) return null;
   }
+  return mergeSorted(values);
+}
+
+/** Multiples of either side alone: fewer cut positions, still every grid; null when there are too many. */
+function wholeRowsAndColumns(s0: number, s1: number, limit: number): number[] | null {
+  if (fitCount(limit, s0) + fitCount(limit, s1) > MAX_PATTERNS) return null;
+  const values: number[] = [];
+  for (let i = 0; i * s0 <= limit + EPS; i++) values.push(i * s0);
+  for (let j = 1; j * s1 <= limit + EPS; j++) values.push(j * s1);
+  return mergeSorted(values);
+}
+
+/** Just the lengths the two full-sheet grids need: no cuts worth trying (blanks minute beside the sheet). */
+function gridsOnly(s0: number, s1: number, sw: number, sh: number): number[] {
+  return mergeSorted([0, ...[sw, sh].flatMap((l) => [fitCount(l, s0) * s0, fitCount(l, s1) * s1])]);
+}
+
+function mergeSorted(values: number[]): number[] {
   values.sort((x, y) => x - y);
   const out: number[] = [];
   for (const v of values) if (out.length === 0 || v - out[out.length - 1] > EPS) out.push(v);
@@ -305,12 +324,15 @@ function uniformPacking(units: Unit[], sheet: Size, kerf: number): Packed | null
 function guillotinePack(units: Unit[], sheet: Size, kerf: number, fit: Fit, split: Split): Packed {
   const sheets: { free: Rect[]; placements: Placement[] }[] = [];
   const fresh = (): Rect => ({ x: 0, y: 0, w: sheet.width + kerf, h: sheet.height + kerf });
+  // The shortest side among the units still to place: an offcut narrower than that is dropped for good.
+  const shortestLeft: number[] = new Array(units.length);
+  for (let i = units.length - 1, m = Infinity; i >= 0; i--) shortestLeft[i] = m = Math.min(m, units[i].w + kerf, units[i].h + kerf);
 
-  for (const u of units) {
+  units.forEach((u, i) => {
     let bestScore: [number, number] | null = null;
     let at: { s: number; r: number; rotated: boolean } | null = null;
     for (let s = 0; s < sheets.length; s++) {
-      const free = sheets[s].free;
+      const free = (sheets[s].free = sheets[s].free.filter((f) => Math.min(f.w, f.h) + EPS >= shortestLeft[i]));
       for (let r = 0; r < free.length; r++) {
         for (const rotated of u.w === u.h ? [false] : [false, true]) {
           const w = (rotated ? u.h : u.w) + kerf;
@@ -339,7 +361,7 @@ function guillotinePack(units: Unit[], sheet: Size, kerf: number, fit: Fit, spli
     const h = (at.rotated ? u.w : u.h) + kerf;
     target.placements.push({ pieceId: u.id, x: f.x, y: f.y, width: w - kerf, height: h - kerf, rotated: at.rotated });
     target.free.splice(at.r, 1, ...splitFree(f, w, h, split));
-  }
+  });
   return { placements: sheets.map((s) => s.placements) };
 }
 

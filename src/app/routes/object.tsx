@@ -15,7 +15,8 @@ import { useObject } from "@/features/objects/api/objects.ts";
 import { StatusBadge } from "@/features/objects/components/status-badge.tsx";
 import { ButtonLink } from "@/components/ui/button.tsx";
 import { Badge, Card, EmptyState, Notice, Skeleton } from "@/components/ui/feedback.tsx";
-import { formatDate, formatMoney } from "@/lib/format.ts";
+import { formatDate, formatDateTime, formatMoney } from "@/lib/format.ts";
+import { useObjectPlan } from "@/features/planner/api/plans.ts";
 
 function Row({ label, children }: { label: string; children: ReactNode }) {
   return (
@@ -40,6 +41,7 @@ export function Component() {
   const { data: user } = useMe();
   const { unit, words } = useStudio();
   const q = useObject(id);
+  const draft = useObjectPlan(id);
 
   if (q.isPending)
     return (
@@ -142,10 +144,25 @@ export function Component() {
           </dl>
         </Card>
         <Card title={words.Mount}>
-          <div id={words.mount}>
-            <EmptyState title={`No ${words.mount} recorded`}>
-              The {words.mount} plan — window, borders, glazing and frame — and the boards and hinges used will show here once the object is mounted.
-            </EmptyState>
+          <div id={words.mount} className="space-y-3">
+            {draft.data ? (
+              <div className="text-sm">
+                <p className="font-medium">Draft {words.mount} plan <span className="font-normal text-graphite">· saved {formatDateTime(draft.data.updatedAt)}</span></p>
+                <p className="mt-1 num">Window {draft.data.plan.display.aperture} · outer {draft.data.plan.display.outer} · glazing {draft.data.plan.display.glazing}</p>
+                <p className="mt-1 text-graphite">{draft.data.plan.level === "pass" ? "✓ Conservation checks pass." : draft.data.plan.level === "warn" ? "▲ Some checks need a decision." : "✕ A conservation check fails."}</p>
+              </div>
+            ) : (
+              <EmptyState title={`No ${words.mount} recorded`}>
+                Plan the window, borders, glazing and frame from this object's sheet; the boards and hinges used will show here once it is mounted.
+              </EmptyState>
+            )}
+            {can(user, "plan:write", { clientId: o.clientId }) ? (
+              <ButtonLink to={`/objects/${o.id}/plan`} variant={draft.data ? "secondary" : "primary"}>
+                {draft.data ? `Open the ${words.mount} plan` : `Plan the ${words.mount}`}
+              </ButtonLink>
+            ) : draft.data ? (
+              <ButtonLink to={`/objects/${o.id}/plan`} variant="secondary">See the plan</ButtonLink>
+            ) : null}
           </div>
         </Card>
         <Card title="History">

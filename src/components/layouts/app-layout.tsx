@@ -16,6 +16,7 @@ export function navFor(user: SessionUser): NavItem[] {
     return [
       { to: "/", label: "Bench", end: true },
       { to: "/objects", label: "Register" },
+      { to: "/planner", label: "Planner" },
       { to: "/clients", label: "Clients" },
       { to: "/studio", label: "Studio" },
     ];
@@ -57,7 +58,7 @@ export function AppLayout() {
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-paper-sheet focus:px-3 focus:py-2">
         Skip to content
       </a>
-      <aside className="border-b border-stone bg-paper-deep md:sticky md:top-0 md:flex md:h-screen md:w-60 md:flex-col md:border-b-0 md:border-r">
+      <aside className="print:hidden border-b border-stone bg-paper-deep md:sticky md:top-0 md:flex md:h-screen md:w-60 md:flex-col md:border-b-0 md:border-r">
         <div className="flex items-center justify-between px-5 py-4">
           <NavLink to={items[0].to} aria-label="Reversa, home">
             <Logo />
@@ -103,7 +104,7 @@ export function AppLayout() {
           </button>
         </div>
       </aside>
-      <main id="main" className="min-w-0 flex-1 px-4 py-6 md:px-10 md:py-8">
+      <main id="main" className="min-w-0 flex-1 px-4 py-6 md:px-10 md:py-8 print:p-0">
         <Outlet />
       </main>
     </div>
