@@ -14,6 +14,7 @@ export type Size = { width: number; height: number };
 export type Placement = { pieceId: string; x: number; y: number; width: number; height: number; rotated: boolean };
 export type CutPiece = { id: string; label?: string; width: number; height: number; quantity: number };
 export type CuttingSheet = { index: number; placements: Placement[]; utilisation: number };
+/** `utilisation`: area of the pieces cut / (sheetCount × sheet area); unplaced pieces do not count. 0 when no sheet is used. */
 export type CuttingList = { sheets: CuttingSheet[]; sheetCount: number; utilisation: number; unplaced: { id: string; reason: string }[] };
 
 /** Float noise allowance on lengths in mm (values here are at most a few thousand mm). */
@@ -57,10 +58,11 @@ function fitCount(length: number, item: number): number {
 
 // ── blanksPerSheet ──────────────────────────────────────────────────────────
 
-/** How a sub-rectangle is filled: a grid of upright or turned blanks, or a cut and two parts. */
-type Choice = { kind: "grid"; rotated: boolean } | { kind: "cut"; vertical: boolean; at: number };
-
-/** How many blanks of one size a full board sheet gives with guillotine cuts (edge-to-edge straight cuts), trying both orientations and mixed layouts. */
+/**
+ * How many blanks of one size a full board sheet gives with guillotine cuts (edge-to-edge straight cuts), trying both orientations and mixed layouts.
+ * Placements carry pieceId "blank", are sorted top to bottom then left to right, and `rotated` means turned a quarter from `blank`.
+ * `utilisation` is the blanks' area over the sheet's (0..1).
+ */
 export function blanksPerSheet(blank: Size, sheet: Size, kerf: number): { perSheet: number; placements: Placement[]; utilisation: number } {
   requirePositive("blank.width", blank.width);
   requirePositive("blank.height", blank.height);
@@ -97,32 +99,37 @@ export function blanksPerSheet(blank: Size, sheet: Size, kerf: number): { perShe
   const grid = (a: number, b: number, rotated: boolean): number =>
     rotated ? fitCount(patterns[a], bh) * fitCount(patterns[b], bw) : fitCount(patterns[a], bw) * fitCount(patterns[b], bh);
 
-  const n = patterns.length;
-  const best = new Map<number, number>();
-  const choice = new Map<number, Choice>();
+  const a0 = floorIndex(sw);
+  const b0 = floorIndex(sh);
+  // Sub-rectangles are (a, b) with a ≤ a0, b ≤ b0. Each holds its best count (−1: not solved yet) and
+  // how it was reached: 0 upright grid, 1 turned grid, 2 + 2p a cut down at pattern p, 3 + 2p a cut across.
+  const rows = b0 + 1;
+  const best = new Int32Array((a0 + 1) * rows).fill(-1);
+  const choice = new Int32Array((a0 + 1) * rows);
   let cutsTried = 0;
 
   const solve = (a: number, b: number): number => {
-    const key = a * n + b;
-    const known = best.get(key);
-    if (known !== undefined) return known;
+    const key = a * rows + b;
+    const known = best[key];
+    if (known >= 0) return known;
     let value = grid(a, b, false);
-    let pick: Choice = { kind: "grid", rotated: false };
+    let pick = 0;
     if (!square) {
       const turned = grid(a, b, true);
       if (turned > value) {
         value = turned;
-        pick = { kind: "grid", rotated: true };
+        pick = 1;
       }
     }
     const upper = bound(a, b);
     if (value < upper && cutsTried < MAX_CUTS_TRIED) {
       // A cut at p and one at (length − p) give the same two parts, so only p ≤ half is tried.
-      cuts: for (const vertical of [true, false]) {
+      cuts: for (let dir = 0; dir < 2; dir++) {
+        const vertical = dir === 0;
         const along = vertical ? a : b;
         const half = patterns[along] / 2 + EPS;
         let q = along; // the far part, reduced to a pattern; it only shrinks as p grows
-        for (let p = 1; p < n && patterns[p] <= half; p++) {
+        for (let p = 1; patterns[p] <= half; p++) {
           if (++cutsTried > MAX_CUTS_TRIED) break cuts;
           while (patterns[q] > patterns[along] - patterns[p] + EPS) q--;
           const boundSum = vertical ? bound(p, b) + bound(q, b) : bound(a, p) + bound(a, q);
@@ -132,28 +139,26 @@ export function blanksPerSheet(blank: Size, sheet: Size, kerf: number): { perShe
           const total = first + (vertical ? solve(q, b) : solve(a, q));
           if (total > value) {
             value = total;
-            pick = { kind: "cut", vertical, at: p };
+            pick = 2 + 2 * p + dir;
             if (value >= upper) break cuts;
           }
         }
       }
     }
-    best.set(key, value);
-    choice.set(key, pick);
+    best[key] = value;
+    choice[key] = pick;
     return value;
   };
 
-  const a0 = floorIndex(sw);
-  const b0 = floorIndex(sh);
   const perSheet = solve(a0, b0);
 
   const placements: Placement[] = [];
   const place = (x: number, y: number, a: number, b: number): void => {
-    const pick = choice.get(a * n + b);
-    if (!pick) throw new Error("yield: a sub-rectangle was left unsolved"); // cannot happen: solve() records every state it returns
-    if (pick.kind === "grid") {
-      const cw = pick.rotated ? bh : bw;
-      const ch = pick.rotated ? bw : bh;
+    const pick = choice[a * rows + b];
+    if (pick < 2) {
+      const rotated = pick === 1;
+      const cw = rotated ? bh : bw;
+      const ch = rotated ? bw : bh;
       const across = fitCount(patterns[a], cw);
       const down = fitCount(patterns[b], ch);
       for (let j = 0; j < down; j++) {
@@ -162,18 +167,21 @@ export function blanksPerSheet(blank: Size, sheet: Size, kerf: number): { perShe
             pieceId: "blank",
             x: x + i * cw,
             y: y + j * ch,
-            width: pick.rotated ? blank.height : blank.width,
-            height: pick.rotated ? blank.width : blank.height,
-            rotated: pick.rotated,
+            width: rotated ? blank.height : blank.width,
+            height: rotated ? blank.width : blank.height,
+            rotated,
           });
         }
       }
-    } else if (pick.vertical) {
-      place(x, y, pick.at, b);
-      place(x + patterns[pick.at], y, floorIndex(patterns[a] - patterns[pick.at]), b);
+      return;
+    }
+    const at = (pick - 2) >> 1;
+    if ((pick & 1) === 0) {
+      place(x, y, at, b);
+      place(x + patterns[at], y, floorIndex(patterns[a] - patterns[at]), b);
     } else {
-      place(x, y, a, pick.at);
-      place(x, y + patterns[pick.at], a, floorIndex(patterns[b] - patterns[pick.at]));
+      place(x, y, a, at);
+      place(x, y + patterns[at], a, floorIndex(patterns[b] - patterns[at]));
     }
   };
   place(0, 0, a0, b0);
@@ -228,7 +236,10 @@ const ORDERS: Order[] = ["area", "long-side", "perimeter"];
 const FITS: Fit[] = ["area", "short-side"];
 const SPLITS: Split[] = ["shorter-leftover", "longer-leftover", "big-offcut", "even-offcuts"];
 
-/** Packs a batch of blanks onto the fewest full sheets it can find with guillotine cuts and kerf, rotating pieces when that helps. Pieces larger than the sheet in both orientations are returned in `unplaced` with a sentence naming the piece and the sheet size. */
+/**
+ * Packs a batch of blanks onto the fewest full sheets it can find with guillotine cuts and kerf, rotating pieces when that helps. Pieces larger than the sheet in both orientations are returned in `unplaced` with a sentence naming the piece and the sheet size.
+ * Each of a piece's `quantity` copies is one placement with pieceId = id; on each sheet placements are listed in cutting order (largest first).
+ */
 export function cuttingList(pieces: CutPiece[], sheet: Size, kerf: number): CuttingList {
   requirePositive("sheet.width", sheet.width);
   requirePositive("sheet.height", sheet.height);
@@ -359,7 +370,7 @@ function guillotinePack(units: Unit[], sheet: Size, kerf: number, fit: Fit, spli
     const f = target.free[at.r];
     const w = (at.rotated ? u.h : u.w) + kerf;
     const h = (at.rotated ? u.w : u.h) + kerf;
-    target.placements.push({ pieceId: u.id, x: f.x, y: f.y, width: w - kerf, height: h - kerf, rotated: at.rotated });
+    target.placements.push({ pieceId: u.id, x: f.x, y: f.y, width: at.rotated ? u.h : u.w, height: at.rotated ? u.w : u.h, rotated: at.rotated });
     target.free.splice(at.r, 1, ...splitFree(f, w, h, split));
   });
   return { placements: sheets.map((s) => s.placements) };

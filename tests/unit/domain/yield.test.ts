@@ -80,8 +80,9 @@ function referenceGuillotine(blank: Size, sheet: Size, kerf: number): number {
     const known = memo.get(key);
     if (known !== undefined) return known;
     let v = Math.max(bestGrid(blank, { width: W, height: H }, kerf), f(W - 1, H), f(W, H - 1));
-    for (let x = 1; W - x - kerf >= 1; x++) v = Math.max(v, f(x, H) + f(W - x - kerf, H));
-    for (let y = 1; H - y - kerf >= 1; y++) v = Math.max(v, f(W, y) + f(W, H - y - kerf));
+    // Cutting at x or at W − x − kerf gives the same two parts.
+    for (let x = 1; x <= W - x - kerf; x++) v = Math.max(v, f(x, H) + f(W - x - kerf, H));
+    for (let y = 1; y <= H - y - kerf; y++) v = Math.max(v, f(W, y) + f(W, H - y - kerf));
     memo.set(key, v);
     return v;
   };
@@ -168,10 +169,13 @@ describe("blanksPerSheet: check values", () => {
     // Turned: 1 across (2 × 508 + 3 = 1019 > 1016), 3 down (3 × 406.4 + 6 = 1225.2 ≤ 1524) → 3.
     // Mixed: the 2 × 2 upright block is 1019 tall; after a 3 mm cut, 1524 − 1022 = 502 mm is left,
     // which holds one turned blank (406.4 tall, 508 wide; two would need 1019 across) → 5.
-    // 6 is not reachable with guillotine cuts: a first cut down the sheet leaves a part under 812.8 wide,
-    // one blank per row, at most 3 (three stacked need ≥ 1225.2) beside a part at most 606.6 wide; a first cut
-    // across leaves at most 2 in the smaller part and at most 4 in the larger; the unpruned reference search
-    // below agrees on a copy of the problem at whole-mm scale (see the property test) — here we assert 5.
+    // 6 is out with guillotine cuts. A first cut down the sheet leaves one part ≤ 506.5 wide (upright only,
+    // ≤ 2 stacked) and one ≤ 606.6 wide (one column, ≤ 3 stacked) → ≤ 5. A first cut across leaves a smaller
+    // part < 815.8 tall: one row, ≤ 2 blanks. If it holds 1, the other part (≤ 1114.6 tall) holds ≤ 4: with each
+    // blank and the sheet grown by the kerf, any line across or down meets ≤ 2 blanks, so summing over both
+    // directions 920.4 × n ≤ 2 × 1117.6 + 2 × 1019, n ≤ 4. If it holds 2, one of them is upright (two turned
+    // need 1019 across), so the other part is ≤ 1013 tall, and any first cut in it leaves pieces holding ≤ 1
+    // and ≤ 2 → ≤ 3. Either way ≤ 5.
     const r = blanksPerSheet(BLANK_16x20, SHEET_40x60, 3);
     expect(bestGrid(BLANK_16x20, SHEET_40x60, 3)).toBe(4);
     expect(r.perSheet).toBe(5);
@@ -281,9 +285,10 @@ describe("blanksPerSheet: properties", () => {
     );
   });
 
-  it("when the 40 × 60 in case is scaled to whole millimetres, then the unpruned search also finds no more than 5", () => {
-    // The 16 × 20 in / 40 × 60 in / 3 mm case at 1/4 scale rounded to whole mm: blank 102 × 127, sheet 254 × 381,
-    // kerf 1 keeps the same arithmetic (2 × 102 + 1 = 205 ≤ 254; 2 × 127 + 1 = 255 > 254; 3 × 127 + 2 = 383 > 381).
+  it("when a whole-mm analogue of the 40 × 60 in case is cut, then the unpruned search agrees on 5", () => {
+    // 16 × 20 in on 40 × 60 in with 3 mm kerf at about 1/4 scale: blank 102 × 127, sheet 254 × 381, kerf 1. The
+    // same fits hold: 2 upright across (2 × 102 + 1 = 205 ≤ 254), not 2 turned (255 > 254), not 3 upright down
+    // (3 × 127 + 2 = 383 > 381), and a turned blank below the 2 × 2 block (381 − 256 = 125 ≥ 102).
     const blank = { width: 102, height: 127 };
     const sheet = { width: 254, height: 381 };
     expect(referenceGuillotine(blank, sheet, 1)).toBe(5);

@@ -9,7 +9,7 @@ import { formatLength, lengthInputValue, type Unit } from "@shared/domain/units.
 import { SelectField, TextField } from "@/components/ui/field.tsx";
 import { Button } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
-import { convertLength, defaultValues, fieldForPath, LENGTH_FIELDS, toInput, type PlannerValues } from "../lib/planner-values.ts";
+import { convertLength, defaultValues, fieldForPath, LENGTH_FIELDS, ROUND_UP_FIELDS, toInput, type PlannerValues } from "../lib/planner-values.ts";
 import { PlanDrawing } from "./plan-drawing.tsx";
 
 export type PlannerSettings = { unit: Unit; minOverlapMm: number; rebateClearanceMm: number; words: { mount: string; Mount: string; rebate: string; Rebate: string } };
@@ -75,7 +75,7 @@ export function Planner({ settings, initial, context, onSave, saveState }: Props
   const { register, control, setValue, getValues } = form;
   const values = useWatch({ control }) as PlannerValues;
   const unit = values.unit;
-  const canonical = useRef<Record<string, number>>({});
+  const canonical = useRef<Record<string, { text: string; mm: number }>>({});
   const [saving, setSaving] = useState(false);
   const [saveError, setSaveError] = useState<string | null>(null);
 
@@ -92,8 +92,8 @@ export function Planner({ settings, initial, context, onSave, saveState }: Props
     if (from === next) return;
     for (const f of LENGTH_FIELDS) {
       const text = getValues(f as Path<PlannerValues>) as string;
-      const r = convertLength(text, from, next, canonical.current[f]);
-      if (r.mm !== null) canonical.current[f] = r.mm;
+      const r = convertLength(text, from, next, canonical.current[f], ROUND_UP_FIELDS.includes(f) ? "up" : "nearest");
+      if (r.mm !== null) canonical.current[f] = { text: r.text, mm: r.mm };
       setValue(f as Path<PlannerValues>, r.text as never);
     }
     setValue("unit", next);
@@ -104,8 +104,9 @@ export function Planner({ settings, initial, context, onSave, saveState }: Props
     const p = list.find((x) => x.id === id);
     if (!p) return;
     const put = (field: string, mm: number) => {
-      canonical.current[field] = mm;
-      setValue(field as Path<PlannerValues>, lengthInputValue(mm, getValues("unit")) as never);
+      const text = lengthInputValue(mm, getValues("unit"));
+      canonical.current[field] = { text, mm };
+      setValue(field as Path<PlannerValues>, text as never);
     };
     if (which === "sheet") (put("sheetW", p.width), put("sheetH", p.height));
     if (which === "fit") (put("fit.width", p.width), put("fit.height", p.height), setValue("bordersMode", "fit"));
@@ -181,7 +182,7 @@ export function Planner({ settings, initial, context, onSave, saveState }: Props
           ) : (
             (values.windowMode === "all" ? (["all"] as const) : SIDES).map((s) => <SideEditor key={s} name={s} label={s === "all" ? "Every side" : SIDE_LABEL[s]} mode={values[s].mode} register={register} L={L} u={u} />)
           )}
-          {L("minOverlap", `Minimum overlap (${u})`, "The studio's minimum; a side below it fails the check.")}
+          {L("minOverlap", `Minimum overlap (${u})`, `Leave empty for the studio minimum (${formatLength(settings.minOverlapMm, unit, { rounding: "up", denominator: 32 })}); a side below it fails the check.`)}
         </Group>
 
         <Group title="Borders">

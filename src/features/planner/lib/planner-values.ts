@@ -1,5 +1,5 @@
 import type { MountPlanInput, Side } from "@shared/schemas/mount-plan.ts";
-import { lengthInputValue, parseLength, type Unit } from "@shared/domain/units.ts";
+import { formatInches, formatMm, lengthInputValue, parseLength, type Rounding, type Unit } from "@shared/domain/units.ts";
 
 /** What the planner form holds: lengths as typed text in the form's unit. */
 export type SideValues = { mode: Side["mode"]; overlap: string; border: string; into: string; reveal: string };
@@ -62,7 +62,8 @@ export function defaultValues(unit: Unit, minOverlapMm: number): PlannerValues {
     right: side(L(minOverlapMm)),
     bottom: side(L(minOverlapMm)),
     custom: { width: "", height: "", left: "", top: "" },
-    minOverlap: L(minOverlapMm),
+    // Empty means "the studio minimum", used exactly; a converted copy could round it down.
+    minOverlap: "",
     bordersMode: "all",
     b: { all: L(unit === "in" ? 50.8 : 50), top: "", side: "", bottom: "", left: "", right: "" },
     fit: { preset: "", width: "", height: "" },
@@ -238,11 +239,25 @@ export function fieldForPath(path: string, v: PlannerValues): string {
   return path;
 }
 
-/** Converts a length text from one unit to the other; `canonical` is the exact mm it came from, when unchanged. */
-export function convertLength(text: string, from: Unit, to: Unit, canonicalMm?: number): { text: string; mm: number | null } {
+/**
+ * Converts a length text from one unit to the other. `last` is what the previous conversion wrote into the field and
+ * the exact mm it stood for: while the text is still that, the exact mm is used, so toggling back and forth never drifts.
+ * Overlaps convert rounding up, so a conversion never weakens them.
+ */
+export function convertLength(
+  text: string,
+  from: Unit,
+  to: Unit,
+  last?: { text: string; mm: number },
+  rounding: Rounding = "nearest",
+): { text: string; mm: number | null } {
   if (text.trim() === "") return { text, mm: null };
   const r = parseLength(text, from);
   if (!r.ok) return { text, mm: null };
-  const mm = canonicalMm !== undefined && Math.abs(canonicalMm - r.mm) < 1e-6 + (from === "in" ? 25.4 / 64 : 0.05) ? canonicalMm : r.mm;
-  return { text: lengthInputValue(mm, to), mm };
+  const mm = last && last.text === text ? last.mm : r.mm;
+  const out = rounding === "nearest" ? lengthInputValue(mm, to) : to === "in" ? formatInches(mm, 32, rounding) : formatMm(mm, rounding, 0.1);
+  return { text: out, mm };
 }
+
+/** Fields whose conversion must not make them smaller. */
+export const ROUND_UP_FIELDS: readonly string[] = ["minOverlap", "all.overlap", "left.overlap", "top.overlap", "right.overlap", "bottom.overlap", "all.into", "left.into", "top.into", "right.into", "bottom.into"];
