@@ -9,6 +9,11 @@ import { createApp } from "../server/app.ts";
 import { loadConfig } from "../server/lib/config.ts";
 import { openDatabase } from "../server/db/client.ts";
 import { makeClient, makeUser } from "../server/db/factories.ts";
+import { spawn } from "node:child_process";
+import http from "node:http";
+import net from "node:net";
+import { computePlan } from "../shared/domain/mount-plan/index.ts";
+import { MountPlanInputSchema } from "../shared/schemas/mount-plan.ts";
 
 const OBJECTS = Number(process.env.BENCH_OBJECTS ?? 100_000);
 const RUNS = Number(process.env.BENCH_RUNS ?? 200);
@@ -90,5 +95,81 @@ await measure("register, collector's own objects", "/api/objects", collector);
 await measure("object page: GET /api/objects/:id", `/api/objects/${firstId}`, framer);
 
 server.close();
+
+// ── Mount planner: the pure computation ────────────────────────────────────
+const PLAN_INPUTS = [
+  { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 50 } },
+  { unit: "in", sheet: { width: "8", height: "10" }, window: { all: { mode: "overlap", overlap: "3/16" } }, fitOuter: { width: 16, height: 20 }, bottomWeightPercent: 12, glazing: { material: "glass", thickness: "3/32", uvFiltering: true } },
+  { unit: "mm", sheet: { width: 560, height: 760 }, imageBorders: { left: 25, top: 25, right: 25, bottom: 25 }, window: { left: { mode: "hide-border", border: 25, into: 3 }, top: { mode: "hide-border", border: 25, into: 3 }, right: { mode: "hide-border", border: 25, into: 3 }, bottom: { mode: "float", reveal: 10 } }, borders: { top: 80, side: 80, bottom: 95 }, doubleMount: { reveal: 5 }, glazing: { material: "acrylic", thickness: 3 }, boardSheet: { width: 1120, height: 815 }, materials: { boardGrade: "museum", attachment: "v-hinge", adhesive: "wheat-starch-paste", hingeCount: 3 }, object: { objectType: "watercolour", sensitivities: ["light-sensitive"] } },
+].map((i) => MountPlanInputSchema.parse(i));
+const ctx = { minOverlapMm: 5, rebateClearanceMm: 2 };
+for (let i = 0; i < 2000; i++) computePlan(PLAN_INPUTS[i % 3], ctx);
+const N = 30_000;
+const tp = performance.now();
+for (let i = 0; i < N; i++) computePlan(PLAN_INPUTS[i % 3], ctx);
+const perSec = N / ((performance.now() - tp) / 1000);
+console.log(`\nMount plan computation (pure, 3 kinds of plan, one with board yield): ${Math.round(perSec).toLocaleString("en-GB")} plans/s`);
+
+// ── Mount planner: the calculate route under 16 concurrent requests ────────
+// The server runs in its own process, so the load generator does not share its event loop.
+const port = await new Promise<number>((resolve) => {
+  const s = net.createServer().listen(0, "127.0.0.1", () => {
+    const p = (s.address() as AddressInfo).port;
+    s.close(() => resolve(p));
+  });
+});
+const child = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], {
+  env: { ...process.env, NODE_ENV: "test", PORT: String(port), HOST: "127.0.0.1", DATABASE_URL: file, SEED_DEMO: "false", LOG_LEVEL: "silent", LOGIN_RATE_LIMIT: "1000", BETTER_AUTH_SECRET: config.authSecret },
+  stdio: ["ignore", "ignore", "inherit"],
+});
+const childBase = `http://127.0.0.1:${port}`;
+for (let i = 0; ; i++) {
+  try {
+    if ((await fetch(`${childBase}/api/health`)).ok) break;
+  } catch {
+    /* starting */
+  }
+  if (i > 150) throw new Error("bench server did not start");
+  await new Promise((r) => setTimeout(r, 100));
+}
+const childCookie = await (async () => {
+  const r = await fetch(`${childBase}/api/session`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ email: "framer@bench.test", password: "bench-password" }) });
+  return r.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+})();
+const agent = new http.Agent({ keepAlive: true, maxSockets: 16 });
+const bodies = PLAN_INPUTS.map((_, i) => JSON.stringify([
+  { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 50 } },
+  { unit: "in", sheet: { width: "8", height: "10" }, window: { all: { mode: "overlap", overlap: "3/16" } }, fitOuter: { width: 16, height: 20 }, bottomWeightPercent: 12, glazing: { material: "glass", thickness: "3/32", uvFiltering: true } },
+  { unit: "mm", sheet: { width: 560, height: 760 }, window: { all: { mode: "overlap", overlap: 6 } }, borders: { top: 80, side: 80, bottom: 95 }, doubleMount: { reveal: 5 }, glazing: { material: "acrylic", thickness: 3 }, boardSheet: { width: 1120, height: 815 } },
+][i]));
+function post(body: string): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const t = performance.now();
+    const req = http.request(`${childBase}/api/mount-plans/calculate`, { method: "POST", agent, headers: { "content-type": "application/json", cookie: childCookie, "content-length": Buffer.byteLength(body) } }, (res) => {
+      res.resume();
+      res.on("end", () => (res.statusCode === 200 ? resolve(performance.now() - t) : reject(new Error(`calculate answered ${res.statusCode}`))));
+    });
+    req.on("error", reject);
+    req.end(body);
+  });
+}
+const CONCURRENCY = 16;
+const PER_WORKER = 250;
+for (let i = 0; i < 200; i++) await post(bodies[i % 3]);
+const latencies: number[] = [];
+const tl = performance.now();
+await Promise.all(
+  Array.from({ length: CONCURRENCY }, async (_, w) => {
+    for (let i = 0; i < PER_WORKER; i++) latencies.push(await post(bodies[(w + i) % 3]));
+  }),
+);
+const elapsed = (performance.now() - tl) / 1000;
+latencies.sort((a, b) => a - b);
+const q = (x: number) => latencies[Math.min(latencies.length - 1, Math.floor(x * latencies.length))].toFixed(2);
+console.log(`POST /api/mount-plans/calculate, ${CONCURRENCY} concurrent, ${latencies.length} requests: p50 ${q(0.5)} ms   p95 ${q(0.95)} ms   (${Math.round(latencies.length / elapsed)} req/s)`);
+agent.destroy();
+child.kill("SIGTERM");
+await new Promise((r) => child.once("exit", r));
+
 database.close();
 fs.rmSync(dir, { recursive: true, force: true });

@@ -9,7 +9,7 @@ import { createAuth } from "./lib/auth.ts";
 import { createLogger } from "./lib/logger.ts";
 import type { DbHandle } from "./db/client.ts";
 import type { ErrorBody } from "../shared/schemas/errors.ts";
-import { requireAuth } from "./middleware/require-auth.ts";
+import { createSessionResolver, requireAuth } from "./middleware/require-auth.ts";
 import { apiNotFound, errorHandler } from "./middleware/error-handler.ts";
 import { currentUser } from "./middleware/require-permission.ts";
 import { sessionRoutes } from "./features/session/session.routes.ts";
@@ -29,6 +29,7 @@ export function createApp({ config, database, clock = () => new Date() }: AppDep
   const { db } = database;
   const logger = createLogger(config.logLevel);
   const auth = createAuth(db, config);
+  const sessions = createSessionResolver(auth, db);
   const app = express();
 
   app.disable("x-powered-by");
@@ -87,10 +88,10 @@ export function createApp({ config, database, clock = () => new Date() }: AppDep
   // routes are not mounted, so sign-up and the rest of its surface are not reachable.
 
   const json = express.json({ limit: "1mb" });
-  app.use("/api/session", json, sessionRoutes(auth));
+  app.use("/api/session", json, sessionRoutes(auth, sessions));
 
   // Everything below needs a session; bodies are parsed only once the caller is known.
-  app.use("/api", requireAuth(auth));
+  app.use("/api", requireAuth(sessions));
   app.use("/api", json);
   app.get("/api/me", (req, res) => {
     res.json(currentUser(req));

@@ -146,6 +146,8 @@ export const studioSettings = sqliteTable("studio_settings", {
   currency: text("currency").notNull().default("GBP"),
   minOverlapMm: real("min_overlap_mm").notNull().default(5),
   rebateClearanceMm: real("rebate_clearance_mm").notNull().default(2),
+  /** The studio's own ready-made frame sizes, in mm. */
+  framePresets: text("frame_presets", { mode: "json" }).$type<{ label: string; widthMm: number; heightMm: number }[]>().notNull().default(sql`'[]'`),
   ...timestamps,
 });
 

@@ -6,7 +6,7 @@ export const MM_PER_INCH = 25.4;
 export const UNITS = ["mm", "in"] as const;
 export type Unit = (typeof UNITS)[number];
 export type Rounding = "nearest" | "down" | "up";
-export type Denominator = 8 | 16 | 32;
+export type Denominator = 8 | 16 | 32 | 64;
 
 export type ParseResult = { ok: true; mm: number } | { ok: false; message: string };
 
@@ -32,7 +32,8 @@ export function parseLength(input: number | string, unit: Unit): ParseResult {
     u = suffix[1] === "mm" ? "mm" : "in";
     text = text.slice(0, text.length - suffix[0].length).trim();
   }
-  const negative = text.startsWith("-");
+  // formatInches and formatMm write a true minus (U+2212); read it back as well as a hyphen.
+  const negative = text.startsWith("-") || text.startsWith("\u2212");
   if (negative) text = text.slice(1).trim();
   let value: number | null = null;
   let m: RegExpMatchArray | null;
@@ -71,11 +72,12 @@ function gcd(a: number, b: number): number {
 /** Inches as a whole number and a reduced fraction: `7 5/8`, `5/8`, `8`. */
 export function formatInches(mm: number, denominator: Denominator = 16, rounding: Rounding = "nearest"): string {
   const inches = mm / MM_PER_INCH;
-  const sign = inches < 0 ? "−" : "";
   // Rounding "down" on a negative value means toward −∞ in length terms; apply it to the magnitude mirrored.
   const mag = Math.abs(inches);
   const dir: Rounding = inches < 0 ? (rounding === "down" ? "up" : rounding === "up" ? "down" : "nearest") : rounding;
   const ticks = Math.round(roundTo(mag, 1 / denominator, dir) * denominator);
+  // A negative length that rounds to nothing is 0, not −0 (as formatMm does).
+  const sign = inches < 0 && ticks > 0 ? "−" : "";
   const whole = Math.floor(ticks / denominator);
   const rest = ticks % denominator;
   if (rest === 0) return `${sign}${whole}`;

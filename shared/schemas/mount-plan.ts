@@ -199,6 +199,7 @@ export const CuttingListRequestSchema = z.object({
       }),
     )
     .min(1, { message: "Add at least one board to cut." })
-    .max(200, { message: "Keep a batch to at most 200 lines." }),
+    .max(200, { message: "Keep a batch to at most 200 lines." })
+    .refine((pieces) => pieces.reduce((n, p) => n + p.quantity, 0) <= 2000, { message: "Keep a batch to at most 2,000 boards in all; split larger orders." }),
 });
 export type CuttingListRequest = z.infer<typeof CuttingListRequestSchema>;

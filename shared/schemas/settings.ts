@@ -25,7 +25,22 @@ export const StudioSettingsSchema = z.object({
     .number({ message: "Enter the rebate clearance in mm." })
     .min(0, { message: "Rebate clearance cannot be negative." })
     .max(10, { message: "Rebate clearance must be at most 10 mm." }),
+  framePresets: z
+    .array(
+      z.object({
+        label: z.string().trim().min(1, { message: "Name the size." }).max(60, { message: "Keep the name under 60 characters." }),
+        widthMm: z.number({ message: "Enter the width." }).positive({ message: "Width must be greater than 0." }).max(5000),
+        heightMm: z.number({ message: "Enter the height." }).positive({ message: "Height must be greater than 0." }).max(5000),
+      }),
+    )
+    .max(30, { message: "Keep at most 30 sizes." })
+    .optional(),
 });
+/** Settings as stored and returned: the frame sizes are always there. */
+export type StudioSettingsRecord = Omit<z.infer<typeof StudioSettingsSchema>, "framePresets"> & {
+  framePresets: NonNullable<z.infer<typeof StudioSettingsSchema>["framePresets"]>;
+};
+/** An update: leaving out `framePresets` keeps the stored ones. */
 export type StudioSettings = z.infer<typeof StudioSettingsSchema>;
 
 /** Words that change with the studio's vocabulary (UK mount / US mat). */

@@ -16,6 +16,7 @@ const SETTINGS: StudioSettings = {
   minOverlapMm: 5,
   // 2 mm total rebate clearance: common practice (no source).
   rebateClearanceMm: 2,
+  framePresets: [{ label: "Stock 30 × 40 cm", widthMm: 300, heightMm: 400 }],
 };
 
 beforeAll(async () => {

@@ -4,7 +4,7 @@ import type { Auth } from "../../lib/auth.ts";
 import { SignInSchema } from "../../../shared/schemas/auth.ts";
 import { AppError } from "../../lib/errors.ts";
 import { input, validate } from "../../middleware/validate.ts";
-import { loadUser } from "../../middleware/require-auth.ts";
+import type { SessionResolver } from "../../middleware/require-auth.ts";
 
 /** Copies better-auth's cookies onto the Express response. */
 function forwardCookies(from: Response, to: ExpressResponse) {
@@ -16,13 +16,13 @@ function forwardCookies(from: Response, to: ExpressResponse) {
  * Sign-in and sign-out in the API's own error shape, on top of better-auth.
  * GET /api/session → { user | null } · POST /api/session { email, password } · DELETE /api/session
  */
-export function sessionRoutes(auth: Auth) {
+export function sessionRoutes(auth: Auth, sessions: SessionResolver) {
   const r = Router();
 
   // Public: tells the client whether it is signed in, without a 401 in the console.
   r.get("/", async (req, res) => {
     res.setHeader("Cache-Control", "no-store");
-    res.json({ user: await loadUser(auth, req, res) });
+    res.json({ user: await sessions.resolve(req, res) });
   });
 
   r.post("/", validate({ body: SignInSchema }), async (req, res) => {
@@ -46,6 +46,7 @@ export function sessionRoutes(auth: Auth) {
   });
 
   r.delete("/", async (req, res) => {
+    sessions.forget(req);
     const response = await auth.api.signOut({ headers: fromNodeHeaders(req.headers), asResponse: true });
     forwardCookies(response, res);
     res.status(204).end();

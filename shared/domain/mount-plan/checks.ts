@@ -24,7 +24,10 @@ const FLOAT_METHODS = ["v-hinge", "pass-through-hinge", "edge-strips", "polyeste
 const SENSITIVE_PROCESSES = ["albumen", "salted-paper", "platinum-palladium", "dye-transfer", "collodion"];
 
 /** The eight conservation-level rules of the plan (BRIEF §4), each with a verdict, a reason in the framer's words and its source. */
-export function conservationChecks(g: PlanGeometry, input: MountPlanParsed, fmt: (mm: number, r?: "nearest" | "down" | "up") => string): Check[] {
+export type Formatters = { length: (mm: number, r?: "nearest" | "down" | "up") => string; overlap: (mm: number) => string; minimum: (mm: number) => string };
+
+export function conservationChecks(g: PlanGeometry, input: MountPlanParsed, f: Formatters): Check[] {
+  const fmt = f.length;
   const m = input.materials ?? {};
   const obj = input.object ?? {};
   const sens = obj.sensitivities ?? [];
@@ -39,9 +42,9 @@ export function conservationChecks(g: PlanGeometry, input: MountPlanParsed, fmt:
     rule: "Every overlapped side covers the sheet by at least the studio minimum",
     verdict: short.length ? "fail" : "pass",
     reason: short.length
-      ? `The window covers ${list(short.map((s) => `${fmt(Math.max(0, g.overlap[s]), "down")} on the ${SIDE_WORD[s]}`))}; each overlapped side needs at least ${fmt(g.minOverlapMm)}.`
+      ? `The window covers ${list(short.map((s) => `${f.overlap(Math.max(0, g.overlap[s]))} on the ${SIDE_WORD[s]}`))}; each overlapped side needs at least ${f.minimum(g.minOverlapMm)}.`
       : heldSides.length
-        ? `Each overlapped side (${list(heldSides.map((s) => SIDE_WORD[s]))}) covers the sheet by at least ${fmt(g.minOverlapMm)}.`
+        ? `Each overlapped side (${list(heldSides.map((s) => SIDE_WORD[s]))}) covers the sheet by at least ${f.minimum(g.minOverlapMm)}.`
         : "The sheet floats on every side; no side is held by the window.",
     source: SOURCES.overlap,
   });

@@ -58,6 +58,9 @@ export function computePlan(input: MountPlanParsed, ctx: PlanContext): PlanResul
   }
   const fmt = (mm: number, rounding: "nearest" | "down" | "up" = "nearest") =>
     unit === "in" ? `${formatInches(mm, (precision as Denominator) || 16, rounding)} in` : `${formatMm(mm, rounding, stepMm)} mm`;
+  // Overlaps are small: messages about them give inches to 1/64 and the minimum also in mm, so 4.8 mm and 5 mm never read alike.
+  const fmtOverlap = (mm: number) => (unit === "in" ? `${formatInches(mm, 64, "down")} in` : `${formatMm(mm, "down", 0.1)} mm`);
+  const fmtMin = (mm: number) => (unit === "in" ? `${formatInches(mm, 64, "up")} in (${formatMm(mm, "up", 0.1)} mm)` : `${formatMm(mm, "up", 0.1)} mm`);
 
   /** Reads a length into mm; records a field error and returns NaN when it is not one. */
   function len(v: string | number | undefined, path: string, opts: { min?: number; positive?: boolean; label: string }): number {
@@ -125,12 +128,14 @@ export function computePlan(input: MountPlanParsed, ctx: PlanContext): PlanResul
   if (Object.keys(fields).length) return { ok: false, fields };
 
   const exact = { width: sheet.width - overlap.left - overlap.right, height: sheet.height - overlap.top - overlap.bottom };
-  if (!(exact.width > 0)) fields[custom ? "window.width" : "window"] = `The overlaps leave no window across: the sheet is ${fmt(sheet.width)} wide and the left and right overlaps take ${fmt(overlap.left + overlap.right)}.`;
-  if (!(exact.height > 0)) fields[custom ? "window.height" : "window"] = `The overlaps leave no window down: the sheet is ${fmt(sheet.height)} high and the top and bottom overlaps take ${fmt(overlap.top + overlap.bottom)}.`;
+  // Round toward safety: the aperture rounds down (more overlap). A window narrower than one
+  // cutting step rounds to nothing, so the check is on the rounded aperture.
+  const aperture = { width: roundTo(exact.width, stepMm, "down"), height: roundTo(exact.height, stepMm, "down") };
+  if (!(aperture.width > 0)) fields[custom ? "window.width" : "window"] = `The overlaps leave no window across: the sheet is ${fmt(sheet.width)} wide and the left and right overlaps take ${fmt(overlap.left + overlap.right)}.`;
+  if (!(aperture.height > 0)) fields[custom ? "window.height" : "window"] = `The overlaps leave no window down: the sheet is ${fmt(sheet.height)} high and the top and bottom overlaps take ${fmt(overlap.top + overlap.bottom)}.`;
   if (Object.keys(fields).length) return { ok: false, fields };
 
-  // Round toward safety: the aperture rounds down; what it loses goes to the overlaps, half each side.
-  const aperture = { width: roundTo(exact.width, stepMm, "down"), height: roundTo(exact.height, stepMm, "down") };
+  // What the aperture loses to rounding goes to the overlaps, half each side.
   const dW = exact.width - aperture.width;
   const dH = exact.height - aperture.height;
   overlap.left += dW / 2;
@@ -267,7 +272,7 @@ export function computePlan(input: MountPlanParsed, ctx: PlanContext): PlanResul
         code: "overlap-below-minimum",
         severity: "error",
         side: s,
-        message: `${word}: the window covers ${fmt(Math.max(0, o), "down")} of the sheet; the studio minimum is ${fmt(minOverlapMm)}.`,
+        message: `${word}: the window covers ${fmtOverlap(Math.max(0, o))} of the sheet; the studio minimum is ${fmtMin(minOverlapMm)}.`,
       });
     }
     if (mode === "custom" && o < 0) {
@@ -335,7 +340,7 @@ export function computePlan(input: MountPlanParsed, ctx: PlanContext): PlanResul
     yield: yieldResult,
     spacerDepth,
   };
-  const checks: Check[] = conservationChecks(geometry, input, fmt);
+  const checks: Check[] = conservationChecks(geometry, input, { length: fmt, overlap: fmtOverlap, minimum: fmtMin });
   for (const f of findings) if (f.code === "float" && input.materials?.attachment === "t-hinge") {
     f.severity = "error";
     f.code = "float-needs-float-hinge";

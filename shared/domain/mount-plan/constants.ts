@@ -19,7 +19,7 @@ export const DEFAULT_BORDER_MM = 50;
 export const DEFAULT_REBATE_LIP_MM = 6;
 export const DEFAULT_FACE_WIDTH_MM = 20;
 export const DEFAULT_WASTE_PERCENT = 10;
-/** Blade kerf for board cutting, common practice (no source). */
-export const DEFAULT_KERF_MM = 1;
+/** A knife or wall cutter removes next to no board, so the kerf is 0 unless given (common practice, no source). */
+export const DEFAULT_KERF_MM = 0;
 /** Package weight above which two people should lift it: common practice (no source). */
 export const HEAVY_PACKAGE_KG = 10;

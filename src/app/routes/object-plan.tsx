@@ -55,7 +55,7 @@ export function Component() {
       </header>
       <Planner
         key={draft.data?.version ?? 0}
-        settings={{ unit: settings.unit, minOverlapMm: settings.minOverlapMm, rebateClearanceMm: settings.rebateClearanceMm, words }}
+        settings={{ unit: settings.unit, minOverlapMm: settings.minOverlapMm, rebateClearanceMm: settings.rebateClearanceMm, framePresets: settings.framePresets, words }}
         initial={initial}
         onSave={writable ? async (input) => void (await save.mutateAsync({ input, version: draft.data?.version })) : undefined}
         saveState={save.isSuccess ? <Notice tone="pass" title="Draft saved">The plan is kept on the object as a draft.</Notice> : undefined}

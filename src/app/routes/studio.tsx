@@ -1,6 +1,8 @@
+import { useState } from "react";
 import { useForm } from "react-hook-form";
+import { lengthInputValue, parseLength } from "@shared/domain/units.ts";
 import { zodResolver } from "@hookform/resolvers/zod";
-import { StudioSettingsSchema, type StudioSettings } from "@shared/schemas/settings.ts";
+import { StudioSettingsSchema, type StudioSettings, type StudioSettingsRecord } from "@shared/schemas/settings.ts";
 import type { z } from "zod";
 
 type SettingsInput = z.input<typeof StudioSettingsSchema>;
@@ -16,7 +18,7 @@ function SettingsForm({ initial, readOnly }: { initial: StudioSettings; readOnly
   const save = useSaveSettings();
   const form = useForm<SettingsInput, unknown, StudioSettings>({ resolver: zodResolver(StudioSettingsSchema), defaultValues: initial });
   const e = form.formState.errors;
-  const submit = form.handleSubmit(async (values) => {
+  const submit = form.handleSubmit(async ({ framePresets: _kept, ...values }) => {
     try {
       await save.mutateAsync(values);
       form.reset(values as SettingsInput);
@@ -54,6 +56,53 @@ function SettingsForm({ initial, readOnly }: { initial: StudioSettings; readOnly
   );
 }
 
+type PresetRow = { label: string; width: string; height: string };
+
+/** The studio's own frame sizes, typed in the studio's unit and kept in mm. */
+function FramePresets({ settings, readOnly }: { settings: StudioSettingsRecord; readOnly: boolean }) {
+  const save = useSaveSettings();
+  const u = settings.unit;
+  const [rows, setRows] = useState<PresetRow[]>(settings.framePresets.map((p) => ({ label: p.label, width: lengthInputValue(p.widthMm, u), height: lengthInputValue(p.heightMm, u) })));
+  const [errors, setErrors] = useState<Record<string, string>>({});
+  const set = (i: number, k: keyof PresetRow, v: string) => setRows((r) => r.map((row, j) => (j === i ? { ...row, [k]: v } : row)));
+  function submit() {
+    const errs: Record<string, string> = {};
+    const presets = rows.map((r, i) => {
+      const w = parseLength(r.width, u);
+      const h = parseLength(r.height, u);
+      if (!r.label.trim()) errs[`${i}.label`] = "Name the size.";
+      if (!w.ok || w.mm <= 0) errs[`${i}.width`] = w.ok ? "Width must be greater than 0." : w.message;
+      if (!h.ok || h.mm <= 0) errs[`${i}.height`] = h.ok ? "Height must be greater than 0." : h.message;
+      return { label: r.label.trim(), widthMm: w.ok ? w.mm : 0, heightMm: h.ok ? h.mm : 0 };
+    });
+    setErrors(errs);
+    if (Object.keys(errs).length === 0) save.mutate({ ...settings, framePresets: presets });
+  }
+  return (
+    <section className="max-w-3xl space-y-3 rounded-card bg-paper-sheet p-5 shadow-card" aria-label="The studio's frame sizes">
+      <h2 className="text-base font-semibold">The studio's frame sizes</h2>
+      <p className="text-sm text-graphite">Ready-made sizes the studio stocks; the planner offers them beside the standard ones. Sizes in {u === "in" ? "inches" : "mm"}.</p>
+      {save.isSuccess && <Notice tone="pass" title="Saved">The frame sizes are saved.</Notice>}
+      {save.isError && <Notice tone="fail" title="Not saved">{save.error.message}</Notice>}
+      {rows.length === 0 && <p className="text-sm text-graphite">No sizes yet.</p>}
+      {rows.map((r, i) => (
+        <div key={i} className="grid grid-cols-[1fr_7rem_7rem_auto] items-end gap-2">
+          <TextField label="Name" disabled={readOnly} value={r.label} error={errors[`${i}.label`]} onChange={(e) => set(i, "label", e.target.value)} />
+          <TextField label={`Width (${u})`} disabled={readOnly} className="num" value={r.width} error={errors[`${i}.width`]} onChange={(e) => set(i, "width", e.target.value)} />
+          <TextField label={`Height (${u})`} disabled={readOnly} className="num" value={r.height} error={errors[`${i}.height`]} onChange={(e) => set(i, "height", e.target.value)} />
+          {!readOnly && <Button variant="quiet" onClick={() => setRows((x) => x.filter((_, j) => j !== i))} aria-label={`Remove ${r.label || "this size"}`}>Remove</Button>}
+        </div>
+      ))}
+      {!readOnly && (
+        <div className="flex gap-2">
+          <Button variant="secondary" onClick={() => setRows((x) => [...x, { label: "", width: "", height: "" }])}>Add a size</Button>
+          <Button onClick={submit} disabled={save.isPending}>Save sizes</Button>
+        </div>
+      )}
+    </section>
+  );
+}
+
 export function Component() {
   const { data: user } = useMe();
   const settings = useSettings();
@@ -67,6 +116,7 @@ export function Component() {
         <p className="text-sm text-graphite">{readOnly ? "Only the studio admin can change these settings." : "Settings used on every screen and document."}</p>
       </header>
       <SettingsForm initial={settings.data} readOnly={readOnly} />
+      <FramePresets settings={settings.data} readOnly={readOnly} />
     </div>
   );
 }

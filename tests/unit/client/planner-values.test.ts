@@ -16,7 +16,7 @@ describe("the planner's unit toggle", () => {
         let unit: "mm" | "in" = "mm";
         let last: { text: string; mm: number } | undefined;
         for (let i = 0; i < toggles * 2; i++) {
-          const next = unit === "mm" ? "in" : "mm";
+          const next: "mm" | "in" = unit === "mm" ? "in" : "mm";
           const r = convertLength(text, unit, next, last);
           const mm = parseLength(r.text, next);
           expect(mm.ok).toBe(true);

@@ -39,21 +39,18 @@ function bestGrid(blank: Size, sheet: Size, kerf: number): number {
 /** Every placement lies on the sheet, and any two are apart by at least the kerf along x or along y. */
 function expectValidLayout(placements: Placement[], sheet: Size, kerf: number): void {
   for (const p of placements) {
-    expect(p.x).toBeGreaterThanOrEqual(-EPS);
-    expect(p.y).toBeGreaterThanOrEqual(-EPS);
-    expect(p.x + p.width).toBeLessThanOrEqual(sheet.width + EPS);
-    expect(p.y + p.height).toBeLessThanOrEqual(sheet.height + EPS);
+    if (p.x < -EPS || p.y < -EPS || p.x + p.width > sheet.width + EPS || p.y + p.height > sheet.height + EPS) {
+      throw new Error(`placement off the ${sheet.width} × ${sheet.height} sheet: ${JSON.stringify(p)}`);
+    }
   }
-  for (let i = 0; i < placements.length; i++) {
-    for (let j = i + 1; j < placements.length; j++) {
-      const a = placements[i];
-      const b = placements[j];
-      const apart =
-        a.x + a.width + kerf <= b.x + EPS ||
-        b.x + b.width + kerf <= a.x + EPS ||
-        a.y + a.height + kerf <= b.y + EPS ||
-        b.y + b.height + kerf <= a.y + EPS;
-      if (!apart) throw new Error(`placements ${i} and ${j} overlap or sit closer than the ${kerf} mm kerf: ${JSON.stringify([a, b])}`);
+  // Sweep left to right: only placements starting before a's right edge plus the kerf can be too close to it.
+  const byX = [...placements].sort((p, q) => p.x - q.x);
+  for (let i = 0; i < byX.length; i++) {
+    const a = byX[i];
+    for (let j = i + 1; j < byX.length && byX[j].x < a.x + a.width + kerf - EPS; j++) {
+      const b = byX[j];
+      const apart = a.y + a.height + kerf <= b.y + EPS || b.y + b.height + kerf <= a.y + EPS;
+      if (!apart) throw new Error(`placements overlap or sit closer than the ${kerf} mm kerf: ${JSON.stringify([a, b])}`);
     }
   }
 }
@@ -295,6 +292,20 @@ describe("blanksPerSheet: properties", () => {
     expect(blanksPerSheet(blank, sheet, 1).perSheet).toBe(5);
   });
 
+  it("when blanks are tiny beside the sheet, then the bounded search still gives a real layout at least as good as the best grid", () => {
+    // Too many cut positions for the full search: 1 × 1.5 mm cuts on whole rows and columns only;
+    // 0.3 × 0.4 mm tries the grids alone. Not trade sizes; they only exercise the fallbacks.
+    const small = { width: 1, height: 1.5 };
+    const r = blanksPerSheet(small, { width: 200, height: 200 }, 0.2);
+    expect(r.perSheet).toBeGreaterThanOrEqual(bestGrid(small, { width: 200, height: 200 }, 0.2));
+    expect(r.placements).toHaveLength(r.perSheet);
+    expectValidLayout(r.placements, { width: 200, height: 200 }, 0.2);
+    const tiny = { width: 0.3, height: 0.4 };
+    const t = blanksPerSheet(tiny, { width: 200, height: 200 }, 0);
+    expect(t.perSheet).toBe(bestGrid(tiny, { width: 200, height: 200 }, 0));
+    expect(t.placements).toHaveLength(t.perSheet);
+  });
+
   it("when 30 typical blanks are sized against sheets up to 1524 × 1016 mm, then each returns a layout", () => {
     // No timing assertion: the search is bounded by a count of cuts tried, so it always finishes.
     const samples = fc.sample(
@@ -329,6 +340,17 @@ describe("cuttingList: check values", () => {
     const a4 = (quantity: number): CutPiece[] => [{ id: "a4", width: 210, height: 297, quantity }];
     expect(cuttingList(a4(26), SHEET_1120x815, 0).sheetCount).toBe(2);
     expect(cuttingList(a4(27), SHEET_1120x815, 0).sheetCount).toBe(3);
+  });
+
+  it("when the same size is entered both ways round, then it is cut as one size and each flag is relative to its own entry", () => {
+    // 13 portrait + 13 landscape A4 are 26 of one blank: 2 sheets at 13 a sheet (the A4 check above).
+    const portrait: CutPiece = { id: "portrait", width: 210, height: 297, quantity: 13 };
+    const landscape: CutPiece = { id: "landscape", width: 297, height: 210, quantity: 13 };
+    const list = cuttingList([portrait, landscape], SHEET_1120x815, 0);
+    expect(list.sheetCount).toBe(2);
+    const all = list.sheets.flatMap((s) => s.placements);
+    expectBlankShape(all.filter((p) => p.pieceId === "portrait"), portrait);
+    expectBlankShape(all.filter((p) => p.pieceId === "landscape"), landscape);
   });
 
   it("when two 16 × 20 in and four 8 × 10 in blanks are batched on one 32 × 40 in sheet, then one sheet at 75 % holds them", () => {
@@ -437,6 +459,15 @@ describe("cuttingList: properties", () => {
       }),
       { numRuns: 20 },
     );
+  });
+
+  it("when a batch is far larger than a studio's (8,000 blanks), then every blank is still cut once on valid sheets", () => {
+    // Past its work budget the packer looks only at the newest open sheets; the list must stay complete and real.
+    const pieces: CutPiece[] = Array.from({ length: 80 }, (_, i) => ({ id: `p${i}`, width: 100 + ((i * 137) % 700), height: 100 + ((i * 251) % 700), quantity: 100 }));
+    const list = cuttingList(pieces, SHEET_40x60, 1);
+    expect(list.unplaced).toEqual([]);
+    expect(list.sheets.reduce((n, s) => n + s.placements.length, 0)).toBe(8000);
+    for (const s of list.sheets) expectValidLayout(s.placements, SHEET_40x60, 1);
   });
 
   it("when a batch is all one size, then it takes no more sheets than the single-sheet yield implies", () => {

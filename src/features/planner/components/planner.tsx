@@ -12,7 +12,13 @@ import { Notice } from "@/components/ui/feedback.tsx";
 import { convertLength, defaultValues, fieldForPath, LENGTH_FIELDS, ROUND_UP_FIELDS, toInput, type PlannerValues } from "../lib/planner-values.ts";
 import { PlanDrawing } from "./plan-drawing.tsx";
 
-export type PlannerSettings = { unit: Unit; minOverlapMm: number; rebateClearanceMm: number; words: { mount: string; Mount: string; rebate: string; Rebate: string } };
+export type PlannerSettings = {
+  unit: Unit;
+  minOverlapMm: number;
+  rebateClearanceMm: number;
+  framePresets: { label: string; widthMm: number; heightMm: number }[];
+  words: { mount: string; Mount: string; rebate: string; Rebate: string };
+};
 
 type Props = {
   settings: PlannerSettings;
@@ -100,7 +106,8 @@ export function Planner({ settings, initial, context, onSave, saveState }: Props
   }
 
   function applyPreset(which: "sheet" | "fit" | "board", id: string) {
-    const list = which === "board" ? STANDARD_BOARD_SHEETS : which === "sheet" ? SHEET_PRESETS : FRAME_PRESETS;
+    const studio = settings.framePresets.map((p, i) => ({ id: `studio-${i}`, label: p.label, width: p.widthMm, height: p.heightMm }));
+    const list = which === "board" ? STANDARD_BOARD_SHEETS : which === "sheet" ? SHEET_PRESETS : [...studio, ...FRAME_PRESETS];
     const p = list.find((x) => x.id === id);
     if (!p) return;
     const put = (field: string, mm: number) => {
@@ -199,7 +206,16 @@ export function Planner({ settings, initial, context, onSave, saveState }: Props
             <>
               <SelectField label="Frame size" value="" onChange={(e) => applyPreset("fit", e.target.value)}>
                 <option value="">Choose a standard size…</option>
-                {FRAME_PRESETS.map((p) => <option key={p.id} value={p.id}>{p.label}</option>)}
+                {settings.framePresets.length > 0 && (
+                  <optgroup label="The studio's sizes">
+                    {settings.framePresets.map((p, i) => <option key={i} value={`studio-${i}`}>{p.label}</option>)}
+                  </optgroup>
+                )}
+                {[...new Set(FRAME_PRESETS.map((p) => p.group))].map((g) => (
+                  <optgroup key={g} label={g}>
+                    {FRAME_PRESETS.filter((p) => p.group === g).map((p) => <option key={p.id} value={p.id}>{p.label}</option>)}
+                  </optgroup>
+                ))}
               </SelectField>
               <div className="grid grid-cols-2 gap-3">{L("fit.width", `Outer width (${u})`)}{L("fit.height", `Outer height (${u})`)}</div>
             </>

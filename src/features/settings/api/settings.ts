@@ -1,11 +1,11 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import type { StudioSettings } from "@shared/schemas/settings.ts";
+import type { StudioSettings, StudioSettingsRecord } from "@shared/schemas/settings.ts";
 import { vocab } from "@shared/schemas/settings.ts";
 import { api } from "@/lib/api-client.ts";
 
 export const settingsQuery = queryOptions({
   queryKey: ["settings"],
-  queryFn: () => api.get<StudioSettings>("/api/settings"),
+  queryFn: () => api.get<StudioSettingsRecord>("/api/settings"),
   staleTime: 5 * 60_000,
 });
 
@@ -21,7 +21,7 @@ export function useStudio() {
 export function useSaveSettings() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: StudioSettings) => api.put<StudioSettings>("/api/settings", body),
+    mutationFn: (body: StudioSettings) => api.put<StudioSettingsRecord>("/api/settings", body),
     onSuccess: (data) => qc.setQueryData(settingsQuery.queryKey, data),
   });
 }

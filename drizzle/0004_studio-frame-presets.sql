@@ -1,0 +1,1 @@
+ALTER TABLE `studio_settings` ADD `frame_presets` text DEFAULT '[]' NOT NULL;
