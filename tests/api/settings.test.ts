@@ -44,6 +44,7 @@ describe("GET /api/settings", () => {
         currency: "GBP",
         minOverlapMm: 5,
         rebateClearanceMm: 2,
+        framePresets: [],
       });
     }
   });

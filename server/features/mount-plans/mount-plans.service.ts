@@ -16,10 +16,11 @@ function impossible(fields: Record<string, string>) {
 }
 
 export function createMountPlansService(db: Db) {
-  function calculate(input: MountPlanParsed) {
+  /** `at` is where the plan input sits in the request body, so that field paths name the body's own fields. */
+  function calculate(input: MountPlanParsed, at = "") {
     const s = getSettings(db);
     const result = computePlan(input, { minOverlapMm: s.minOverlapMm, rebateClearanceMm: s.rebateClearanceMm });
-    if (!result.ok) throw impossible(result.fields);
+    if (!result.ok) throw impossible(Object.fromEntries(Object.entries(result.fields).map(([path, message]) => [at + path, message])));
     return result.plan;
   }
 
@@ -79,7 +80,7 @@ export function createMountPlansService(db: Db) {
     saveDraft(user: SessionUser, objectId: string, body: SavePlan): SavedPlan {
       const o = loadObject(user, objectId);
       assertCan(user, "plan:write", { clientId: o.clientId }, { what: "That object" });
-      calculate(body.input); // refuse impossible plans before anything is written
+      calculate(body.input, "input."); // refuse impossible plans before anything is written
       const existing = repo.findDraft(db, objectId);
       if (!existing) return toSaved(repo.insertDraft(db, objectId, body.input, user.id));
       if (body.version === undefined || body.version !== existing.version) {

@@ -63,7 +63,8 @@ export function conservationChecks(g: PlanGeometry, input: MountPlanParsed, f: F
   });
 
   // 3. Archival boards, nothing harmful near the object
-  const bad = m.present ?? [];
+  const bad = [...(m.present ?? [])];
+  if (m.attachment === "pressure-sensitive-tape" && !bad.includes("pressure-sensitive-tape")) bad.push("pressure-sensitive-tape");
   let v3: Verdict;
   let r3: string;
   if (bad.length) {

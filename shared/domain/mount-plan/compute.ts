@@ -341,12 +341,23 @@ export function computePlan(input: MountPlanParsed, ctx: PlanContext): PlanResul
     spacerDepth,
   };
   const checks: Check[] = conservationChecks(geometry, input, { length: fmt, overlap: fmtOverlap, minimum: fmtMin });
-  for (const f of findings) if (f.code === "float" && input.materials?.attachment === "t-hinge") {
-    f.severity = "error";
-    f.code = "float-needs-float-hinge";
-    f.message += " T-hinges need the window to cover the edge; use V-hinges, pass-through hinges or edge strips.";
+  if (input.materials?.attachment === "t-hinge") {
+    for (const s of SIDES) {
+      const floats = modes[s] === "float" || (modes[s] === "custom" && overlap[s] < 0);
+      if (floats) {
+        const info = findings.findIndex((f) => f.code === "float" && f.side === s);
+        if (info >= 0) findings.splice(info, 1);
+        findings.push({
+          code: "float-needs-float-hinge",
+          severity: "error",
+          side: s,
+          message: `${SIDE_WORD[s]}: the window does not cover the sheet here, and T-hinges need it to; use V-hinges, pass-through hinges or edge strips.`,
+        });
+      }
+    }
   }
-  const level: Verdict = worstVerdict(checks.map((c) => c.verdict).concat(findings.some((f) => f.severity === "error") ? ["fail"] : []));
+  const fromFindings: Verdict[] = findings.map((f) => (f.severity === "error" ? "fail" : f.severity === "warn" ? "warn" : "pass"));
+  const level: Verdict = worstVerdict([...checks.map((c) => c.verdict), ...fromFindings]);
   return { ok: true, geometry, plan: toPlan(geometry, findings, checks, level, precision, fmt) };
 }
 

@@ -776,3 +776,38 @@ describe("units of the computed plan", () => {
     expect(plan.display.outer).toBe("11 1/2 × 13 1/2 in");
   });
 });
+
+describe("the plan's level and cross-checks", () => {
+  it("when a warning finding is the worst thing, then the plan's level is warn", () => {
+    // A 6 mm overlap over a 4 mm white border covers 2 mm of the image (common practice (no source): warn, not fail).
+    const { plan } = planOf({
+      unit: "mm",
+      sheet: { width: 210, height: 297 },
+      imageBorders: { left: 4, top: 4, right: 4, bottom: 4 },
+      window: { all: { mode: "overlap", overlap: 6 } },
+      glazing: { material: "glass", thickness: 2, uvFiltering: true },
+      materials: { boardGrade: "museum", attachment: "t-hinge", adhesive: "wheat-starch-paste", hingeCount: 2, hingeEdge: "top" },
+    });
+    expect(plan.findings.some((f) => f.code === "window-covers-image" && f.severity === "warn")).toBe(true);
+    expect(plan.checks.every((c) => c.verdict === "pass")).toBe(true);
+    expect(plan.level).toBe("warn");
+  });
+
+  it("when a custom window opens past the sheet and the sheet is T-hinged, then that side is an error", () => {
+    const { plan } = planOf({
+      unit: "mm",
+      sheet: { width: 210, height: 297 },
+      window: { mode: "custom", width: 210, height: 280, left: 5, top: 8 },
+      materials: { attachment: "t-hinge", adhesive: "wheat-starch-paste" },
+    });
+    const errors = plan.findings.filter((f) => f.code === "float-needs-float-hinge");
+    expect(errors.map((f) => f.side)).toEqual(["right"]);
+    expect(plan.level).toBe("fail");
+  });
+
+  it("when the attachment is pressure-sensitive tape, then the archival check fails too (NEDCC leaflet 4.10)", () => {
+    const { plan } = planOf({ unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } }, materials: { boardGrade: "museum", attachment: "pressure-sensitive-tape" } });
+    expect(plan.checks.find((c) => c.id === "archival-boards")?.verdict).toBe("fail");
+    expect(plan.checks.find((c) => c.id === "reversible-attachment")?.verdict).toBe("fail");
+  });
+});
