@@ -9,7 +9,7 @@ import { createApp } from "../server/app.ts";
 import { loadConfig } from "../server/lib/config.ts";
 import { openDatabase } from "../server/db/client.ts";
 import { makeClient, makeUser } from "../server/db/factories.ts";
-import { spawn } from "node:child_process";
+import { spawn, spawnSync } from "node:child_process";
 import http from "node:http";
 import net from "node:net";
 import { computePlan } from "../shared/domain/mount-plan/index.ts";
@@ -168,6 +168,20 @@ latencies.sort((a, b) => a - b);
 const q = (x: number) => latencies[Math.min(latencies.length - 1, Math.floor(x * latencies.length))].toFixed(2);
 console.log(`POST /api/mount-plans/calculate, ${CONCURRENCY} concurrent, ${latencies.length} requests: p50 ${q(0.5)} ms   p95 ${q(0.95)} ms   (${Math.round(latencies.length / elapsed)} req/s)`);
 agent.destroy();
+
+// The same load from wrk (Debian's package), a much lighter load generator, when it is installed.
+const wrk = spawnSync("sh", ["-c", "command -v wrk"], { encoding: "utf8" }).stdout.trim();
+if (wrk) {
+  const lua = path.join(dir, "calc.lua");
+  fs.writeFileSync(
+    lua,
+    `wrk.method = "POST"\nwrk.body = [[${bodies[2]}]]\nwrk.headers["content-type"] = "application/json"\nwrk.headers["cookie"] = [[${childCookie}]]\n` +
+      `done = function(s, l, r) io.write(string.format("RESULT %.2f %.2f %.0f %d\\n", l:percentile(50)/1000, l:percentile(95)/1000, s.requests/(s.duration/1e6), s.errors.status)) end\n`,
+  );
+  const out = spawnSync(wrk, ["-t1", `-c${CONCURRENCY}`, "-d8s", "-s", lua, `${childBase}/api/mount-plans/calculate`], { encoding: "utf8" }).stdout;
+  const m = out.match(/RESULT ([\d.]+) ([\d.]+) (\d+) (\d+)/);
+  if (m) console.log(`  same route under wrk, ${CONCURRENCY} connections, 8 s: p50 ${m[1]} ms   p95 ${m[2]} ms   (${m[3]} req/s, ${m[4]} non-2xx)`);
+} else console.log("  (install Debian's wrk for a lighter load generator: apt-get install wrk)");
 child.kill("SIGTERM");
 await new Promise((r) => child.once("exit", r));
 

@@ -33,6 +33,8 @@ export function createApp({ config, database, clock = () => new Date() }: AppDep
   const app = express();
 
   app.disable("x-powered-by");
+  // API answers are not cached by validators; skipping the ETag hash saves work on every response.
+  app.set("etag", false);
   app.set("trust proxy", "loopback");
   app.use(
     helmet({
@@ -55,7 +57,8 @@ export function createApp({ config, database, clock = () => new Date() }: AppDep
       },
     }),
   );
-  app.use(
+  // Request logs at "info"; with a quieter level the middleware is left out altogether.
+  if (logger.isLevelEnabled("info")) app.use(
     pinoHttp({
       logger,
       autoLogging: { ignore: (req) => req.url === "/api/health" || !req.url?.startsWith("/api") },

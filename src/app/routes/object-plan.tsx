@@ -42,12 +42,13 @@ export function Component() {
   const writable = can(user, "plan:write", { clientId: o.clientId });
 
   return (
-    <div className="space-y-5">
+    <div className="space-y-5 print:space-y-2">
       <header className="flex flex-wrap items-end justify-between gap-3">
         <div>
+          <p className="hidden text-xs text-graphite print:block">{settings.studioName} · printed {formatDateTime(new Date().toISOString())}</p>
           <p className="text-sm font-semibold text-accent num"><Link to={`/objects/${o.id}`} className="hover:underline">{o.objectNumber}</Link></p>
-          <h1 className="text-2xl font-bold tracking-tight">{words.Mount} plan · {o.title}</h1>
-          <p className="text-sm text-graphite">
+          <h1 className="text-2xl font-bold tracking-tight print:text-lg">{words.Mount} plan · {o.title}</h1>
+          <p className="text-sm text-graphite print:hidden">
             {draft.data ? `Draft saved ${formatDateTime(draft.data.updatedAt)}.` : "No draft saved yet: the sheet and its border come from the object record."}
             {" "}The mounting record that uses this plan comes next.
           </p>

@@ -23,7 +23,7 @@ const STYLE: Record<Role, { fill?: string; stroke?: string; width?: number; dash
 export function PlanDrawing({ model, title }: { model: DrawingModel; title: string }) {
   const [x, y, w, h] = model.viewBox;
   return (
-    <svg viewBox={`${x} ${y} ${w} ${h}`} role="img" aria-label={title} className="h-auto w-full" style={{ maxHeight: "70vh" }} data-testid="plan-drawing">
+    <svg viewBox={`${x} ${y} ${w} ${h}`} role="img" aria-label={title} className="h-auto max-h-[70vh] w-full print:max-h-[76mm]" data-testid="plan-drawing">
       <title>{title}</title>
       <defs>
         <pattern id="rv-hatch" width={model.fontSize * 0.6} height={model.fontSize * 0.6} patternUnits="userSpaceOnUse" patternTransform="rotate(45)">

@@ -307,7 +307,7 @@ export function Planner({ settings, initial, context, onSave, saveState }: Props
         </Group>
       </form>
 
-      <section aria-label="Result" className="space-y-4 xl:sticky xl:top-6 xl:self-start">
+      <section aria-label="Result" className="space-y-4 xl:sticky xl:top-6 xl:self-start print:space-y-2 print:text-[11px]">
         {!plan ? (
           <Notice tone="warn" title="Not computed yet">
             <ul className="list-disc pl-5">
@@ -328,14 +328,17 @@ export function Planner({ settings, initial, context, onSave, saveState }: Props
             </div>
             {saveError && <Notice tone="fail" title="Not saved">{saveError}</Notice>}
             {saveState}
-            <div className="rounded-card bg-paper-sheet p-4 shadow-card">
+            <div className="rounded-card bg-paper-sheet p-4 shadow-card print:p-0 print:shadow-none">
               {model && <PlanDrawing model={model} title={`${settings.words.Mount} drawn to scale: window ${plan.display.aperture}, outer ${plan.display.outer}`} />}
             </div>
             <div className="grid gap-4 md:grid-cols-2">
-              <dl className="rounded-card bg-paper-sheet p-4 text-sm shadow-card" data-testid="plan-numbers">
+              <dl className="rounded-card bg-paper-sheet p-4 text-sm shadow-card print:p-2 print:text-[11px] print:shadow-none" data-testid="plan-numbers">
                 {([
                   ["Window (aperture)", plan.display.aperture],
-                  ["Overlap L · T · R · B", SIDES.map((s) => plan.display[`overlap.${s}`]).join(" · ")],
+                  ...SIDES.map((s) => [
+                    `${SIDE_LABEL[s]} ${plan.overlap[s] < 0 ? "reveal" : "overlap"}`,
+                    plan.overlap[s] < 0 ? plan.display[`overlap.${s}`].replace("−", "") : plan.display[`overlap.${s}`],
+                  ]),
                   ["Borders L · T · R · B", SIDES.map((s) => plan.display[`borders.${s}`]).join(" · ")],
                   ...(plan.display.topWindow ? [["Top board window", plan.display.topWindow]] : []),
                   [`Outer = glazing = backing`, plan.display.outer],
@@ -346,13 +349,13 @@ export function Planner({ settings, initial, context, onSave, saveState }: Props
                   ...(plan.package.weightKg !== undefined ? [["Glazing and boards", `about ${plan.package.weightKg.toFixed(1)} kg`]] : []),
                   ...(plan.yield ? [["Blanks per full sheet", `${plan.yield.perSheet} (${Math.round(plan.yield.utilisation * 100)} % used)`]] : []),
                 ] as [string, string][]).map(([k, v]) => (
-                  <div key={k} className="flex justify-between gap-3 border-b border-stone-light py-1.5 last:border-0">
+                  <div key={k} className="flex justify-between gap-3 border-b border-stone-light py-1.5 last:border-0 print:py-0.5">
                     <dt className="text-graphite">{k}</dt>
                     <dd className="text-right font-medium num" data-testid={`num-${k}`}>{v}</dd>
                   </div>
                 ))}
               </dl>
-              <div className="space-y-2 rounded-card bg-paper-sheet p-4 text-sm shadow-card">
+              <div className="space-y-2 rounded-card bg-paper-sheet p-4 text-sm shadow-card print:p-2 print:text-[11px] print:shadow-none">
                 <h3 className="font-semibold">Findings</h3>
                 {plan.findings.length === 0 ? <p className="text-graphite">Nothing to report.</p> : (
                   <ul className="space-y-1.5" data-testid="plan-findings">
@@ -366,23 +369,23 @@ export function Planner({ settings, initial, context, onSave, saveState }: Props
                 )}
               </div>
             </div>
-            <div className="rounded-card bg-paper-sheet p-4 text-sm shadow-card">
+            <div className="rounded-card bg-paper-sheet p-4 text-sm shadow-card print:p-2 print:text-[10px] print:shadow-none">
               <h3 className="mb-2 font-semibold">Conservation checks</h3>
               <ul className="divide-y divide-stone-light" data-testid="plan-checks">
                 {plan.checks.map((c) => (
-                  <li key={c.id} className="flex gap-3 py-2">
-                    <span className={`mt-0.5 inline-flex h-6 min-w-14 items-center justify-center gap-1 rounded px-1.5 text-xs font-semibold ${VERDICT[c.verdict].cls}`}>
+                  <li key={c.id} className="flex gap-3 py-2 print:py-0.5">
+                    <span className={`mt-0.5 inline-flex h-6 min-w-14 items-center justify-center gap-1 rounded px-1.5 text-xs font-semibold print:h-4 print:text-[9px] ${VERDICT[c.verdict].cls}`}>
                       <span aria-hidden="true">{VERDICT[c.verdict].mark}</span>{VERDICT[c.verdict].word}
                     </span>
                     <div>
                       <p className="font-medium">{c.rule}</p>
                       <p className="text-ink-soft">{c.reason}</p>
-                      <p className="mt-0.5 text-xs text-graphite">Source: {c.source}</p>
+                      <p className="mt-0.5 text-xs text-graphite print:hidden">Source: {c.source}</p>
                     </div>
                   </li>
                 ))}
               </ul>
-              <p className="mt-3 text-xs text-graphite">These checks are planning aids, not conservation treatment advice; for a damaged or unstable object, consult a qualified conservator.</p>
+              <p className="mt-3 text-xs text-graphite print:mt-1 print:text-[9px]">These checks are planning aids, not conservation treatment advice; for a damaged or unstable object, consult a qualified conservator.</p>
             </div>
           </>
         )}
