@@ -17,6 +17,7 @@ import { settingsRoutes } from "./features/settings/settings.routes.ts";
 import { clientRoutes } from "./features/clients/clients.routes.ts";
 import { objectRoutes } from "./features/objects/objects.routes.ts";
 import { mountPlanRoutes } from "./features/mount-plans/mount-plans.routes.ts";
+import { historyRoutes } from "./features/history/history.routes.ts";
 
 export type AppDeps = {
   config: Config & { authSecret: string };
@@ -102,6 +103,7 @@ export function createApp({ config, database, clock = () => new Date() }: AppDep
   app.use("/api/settings", settingsRoutes(db));
   app.use("/api/clients", clientRoutes(db));
   app.use("/api", mountPlanRoutes(db));
+  app.use("/api", historyRoutes(db));
   app.use("/api/objects", objectRoutes(db, clock));
   app.use("/api", apiNotFound);
   app.use("/api", errorHandler);

@@ -18,6 +18,12 @@ export const ACTIONS = [
   "user:manage",
   "planner:use",
   "plan:write",
+  "mounting:read",
+  "mounting:write",
+  "history:read",
+  "history:verify",
+  "custody:read",
+  "custody:write",
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 
@@ -48,10 +54,16 @@ export function can(actor: Actor | null | undefined, action: Action, resource?: 
       return actor.role === "admin";
     case "object:create":
     case "plan:write":
+    case "mounting:write":
+    case "custody:write":
+    case "history:verify":
     case "client:write":
     case "client:list":
       return studio;
     case "object:read":
+    case "mounting:read":
+    case "history:read":
+    case "custody:read":
     case "client:read":
     case "valuation:read":
       // Valuations are confidential: studio staff and the owning client's users only (BRIEF §3).

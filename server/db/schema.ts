@@ -119,9 +119,22 @@ export const objects = sqliteTable(
     valuer: text("valuer"),
     version: integer("version").notNull().default(1),
     createdBy: text("created_by"),
+    // The current mounting, kept in step by the mountings service for the register's columns and filters.
+    currentMountingId: text("current_mounting_id"),
+    currentMethod: text("current_method"),
+    currentBoardGrade: text("current_board_grade"),
+    currentGlazing: text("current_glazing"),
+    lastMountedOn: text("last_mounted_on"),
+    lastConditionOn: text("last_condition_on"),
+    checkDueOn: text("check_due_on"),
     ...timestamps,
   },
   (t) => [
+    index("objects_method_idx").on(t.currentMethod, t.objectNumber),
+    index("objects_board_idx").on(t.currentBoardGrade, t.objectNumber),
+    index("objects_glazing_idx").on(t.currentGlazing, t.objectNumber),
+    index("objects_last_mounted_idx").on(t.lastMountedOn, t.id),
+    index("objects_check_due_idx").on(t.checkDueOn, t.id),
     uniqueIndex("objects_number_uq").on(t.objectNumber),
     index("objects_client_idx").on(t.clientId, t.objectNumber),
     index("objects_status_idx").on(t.status, t.objectNumber),
@@ -168,4 +181,114 @@ export const mountPlans = sqliteTable(
     ...timestamps,
   },
   (t) => [index("mount_plans_object_idx").on(t.objectId, t.status)],
+);
+
+// ── Mounting records: one per mounting or framing of an object; revisions keep every correction ──
+export const mountings = sqliteTable(
+  "mountings",
+  {
+    id: text("id").primaryKey(),
+    objectId: text("object_id")
+      .notNull()
+      .references(() => objects.id, { onDelete: "restrict" }),
+    status: text("status", { enum: ["draft", "completed", "superseded", "removed"] }).notNull().default("draft"),
+    reason: text("reason").notNull(),
+    mountedOn: text("mounted_on").notNull(),
+    framerId: text("framer_id"),
+    framerName: text("framer_name").notNull(),
+    currentRevision: integer("current_revision").notNull().default(1),
+    // Columns copied from the current revision for the mountings register's filters.
+    method: text("method"),
+    boardGrade: text("board_grade"),
+    glazing: text("glazing"),
+    supersededById: text("superseded_by_id"),
+    completedAt: integer("completed_at", { mode: "timestamp_ms" }),
+    completedBy: text("completed_by"),
+    endedOn: text("ended_on"),
+    endReason: text("end_reason"),
+    version: integer("version").notNull().default(1),
+    createdBy: text("created_by"),
+    ...timestamps,
+  },
+  (t) => [
+    index("mountings_object_idx").on(t.objectId, t.mountedOn),
+    index("mountings_date_idx").on(t.mountedOn, t.id),
+    index("mountings_framer_idx").on(t.framerId, t.mountedOn),
+    index("mountings_method_idx").on(t.method, t.mountedOn),
+    index("mountings_status_idx").on(t.status, t.mountedOn),
+  ],
+);
+
+export const mountingRevisions = sqliteTable(
+  "mounting_revisions",
+  {
+    id: text("id").primaryKey(),
+    mountingId: text("mounting_id")
+      .notNull()
+      .references(() => mountings.id, { onDelete: "restrict" }),
+    revision: integer("revision").notNull(),
+    /** The whole record as entered: plan input, boards, attachment, hinges, glazing, frame, undo notes. */
+    data: text("data", { mode: "json" }).notNull(),
+    correctionReason: text("correction_reason"),
+    createdBy: text("created_by"),
+    createdByName: text("created_by_name"),
+    ...timestamps,
+  },
+  (t) => [uniqueIndex("mounting_revisions_uq").on(t.mountingId, t.revision)],
+);
+
+/** Maker's batch numbers of the boards of each mounting revision, to answer "which objects used batch X?". */
+export const mountingBatches = sqliteTable(
+  "mounting_batches",
+  {
+    mountingId: text("mounting_id")
+      .notNull()
+      .references(() => mountings.id, { onDelete: "restrict" }),
+    revision: integer("revision").notNull(),
+    role: text("role").notNull(),
+    batch: text("batch").notNull(),
+  },
+  (t) => [index("mounting_batches_batch_idx").on(t.batch), index("mounting_batches_mounting_idx").on(t.mountingId, t.revision)],
+);
+
+// ── History: an append-only, hash-chained event log per object ────────────
+export const events = sqliteTable(
+  "events",
+  {
+    seq: integer("seq").primaryKey({ autoIncrement: true }),
+    objectId: text("object_id")
+      .notNull()
+      .references(() => objects.id, { onDelete: "restrict" }),
+    type: text("type").notNull(),
+    at: integer("at", { mode: "timestamp_ms" }).notNull(),
+    actorId: text("actor_id"),
+    actorName: text("actor_name").notNull(),
+    summary: text("summary").notNull(),
+    data: text("data", { mode: "json" }).notNull(),
+    prevHash: text("prev_hash"),
+    hash: text("hash").notNull(),
+  },
+  (t) => [index("events_object_idx").on(t.objectId, t.seq), index("events_type_idx").on(t.objectId, t.type, t.seq)],
+);
+
+// ── Custody: receipts when an object comes in or goes out ─────────────────
+export const custodyReceipts = sqliteTable(
+  "custody_receipts",
+  {
+    id: text("id").primaryKey(),
+    objectId: text("object_id")
+      .notNull()
+      .references(() => objects.id, { onDelete: "restrict" }),
+    direction: text("direction", { enum: ["in", "out"] }).notNull(),
+    kind: text("kind").notNull(),
+    date: text("date").notNull(),
+    fromParty: text("from_party").notNull(),
+    toParty: text("to_party").notNull(),
+    condition: text("condition").notNull(),
+    signedBy: text("signed_by").notNull(),
+    notes: text("notes"),
+    createdBy: text("created_by"),
+    ...timestamps,
+  },
+  (t) => [index("custody_object_idx").on(t.objectId, t.date), index("custody_date_idx").on(t.date, t.id)],
 );

@@ -36,6 +36,12 @@ const EXPECTED: Record<Action, Row> = {
   "object:read": STUDIO_AND_OWNER,
   "object:create": STUDIO_ONLY,
   "plan:write": STUDIO_ONLY,
+  "mounting:write": STUDIO_ONLY,
+  "custody:write": STUDIO_ONLY,
+  "history:verify": STUDIO_ONLY,
+  "mounting:read": STUDIO_AND_OWNER,
+  "history:read": STUDIO_AND_OWNER,
+  "custody:read": STUDIO_AND_OWNER,
   "object:update": STUDIO_AND_REGISTRAR,
   // BRIEF §3: valuations are confidential — admin, framers and the owning client's users only.
   "valuation:read": STUDIO_AND_OWNER,

@@ -9,6 +9,8 @@ import { assertCan } from "../../middleware/require-permission.ts";
 import { getSettings } from "../settings/settings.repo.ts";
 import { findObject } from "../objects/objects.repo.ts";
 import * as repo from "./mount-plans.repo.ts";
+import { appendEvent } from "../history/history.chain.ts";
+import type { Db as DbT } from "../../db/client.ts";
 
 function impossible(fields: Record<string, string>) {
   const first = Object.entries(fields)[0];
@@ -80,13 +82,26 @@ export function createMountPlansService(db: Db) {
     saveDraft(user: SessionUser, objectId: string, body: SavePlan): SavedPlan {
       const o = loadObject(user, objectId);
       assertCan(user, "plan:write", { clientId: o.clientId }, { what: "That object" });
-      calculate(body.input, "input."); // refuse impossible plans before anything is written
+      const plan = calculate(body.input, "input.");
+      const logSaved = (tx: DbT, planId: string) =>
+        appendEvent(tx, { objectId, type: "plan-saved", actor: user, summary: `Draft plan saved: window ${plan.display.aperture}, outer ${plan.display.outer}.`, data: { planId } });
       const existing = repo.findDraft(db, objectId);
-      if (!existing) return toSaved(repo.insertDraft(db, objectId, body.input, user.id));
+      if (!existing) {
+        const row = db.transaction((tx) => {
+          const row = repo.insertDraft(tx as unknown as DbT, objectId, body.input, user.id);
+          logSaved(tx as unknown as DbT, row.id);
+          return row;
+        });
+        return toSaved(row);
+      }
       if (body.version === undefined || body.version !== existing.version) {
         throw conflict("Someone else saved this plan while you were working on it. Your plan is still on screen: reload to see theirs, then save again.");
       }
-      const updated = repo.updateDraft(db, existing.id, existing.version, body.input, user.id);
+      const updated = db.transaction((tx) => {
+        const row = repo.updateDraft(tx as unknown as DbT, existing.id, existing.version, body.input, user.id);
+        if (row) logSaved(tx as unknown as DbT, row.id);
+        return row;
+      });
       if (!updated) throw conflict("Someone else saved this plan while you were working on it. Your plan is still on screen: reload to see theirs, then save again.");
       return toSaved(updated);
     },

@@ -6,6 +6,8 @@ import { assertCan } from "../../middleware/require-permission.ts";
 import { AppError, conflict, forbidden, notFound } from "../../lib/errors.ts";
 import { findClient } from "../clients/clients.repo.ts";
 import * as repo from "./objects.repo.ts";
+import { appendEvent } from "../history/history.chain.ts";
+import { diffValues } from "../../../shared/domain/diff.ts";
 
 const VALUATION_KEYS = ["valuationMinor", "valuationCurrency", "valuationDate", "valuationBasis", "valuer"] as const;
 
@@ -91,7 +93,14 @@ export function createObjectsService(db: Db) {
       requireClient(db, data.clientId);
       if (repo.findObjectIdByNumber(db, data.objectNumber)) throw duplicateNumber(data.objectNumber);
       try {
-        const id = repo.insertObject(db, data, user.id);
+        const id = db.transaction((tx) => {
+          const id = repo.insertObject(tx as unknown as Db, data, user.id);
+          appendEvent(tx as unknown as Db, { objectId: id, type: "created", actor: user, summary: `Recorded as ${data.objectNumber}, “${data.title}”.`, data: { objectNumber: data.objectNumber } });
+          if (data.valuationMinor !== null) {
+            appendEvent(tx as unknown as Db, { objectId: id, type: "valued", actor: user, summary: "Insured value recorded.", data: { valuation: true } });
+          }
+          return id;
+        });
         return toRecord(repo.findObject(db, id)!, user);
       } catch (e) {
         if (String(e).includes("UNIQUE constraint failed: objects.object_number")) throw duplicateNumber(data.objectNumber);
@@ -114,7 +123,29 @@ export function createObjectsService(db: Db) {
       if (!can(user, "valuation:update", { clientId: current.clientId })) for (const k of VALUATION_KEYS) delete patch[k];
       const other = repo.findObjectIdByNumber(db, changes.objectNumber);
       if (other && other !== id) throw duplicateNumber(changes.objectNumber);
-      if (!repo.updateObject(db, id, version, patch)) {
+      const before: Record<string, unknown> = {};
+      for (const k of Object.keys(patch) as (keyof ObjectCreate)[]) before[k] = current[k as keyof repo.ObjectRow];
+      const changed = diffValues(before, patch);
+      const ok = db.transaction((tx) => {
+        if (!repo.updateObject(tx as unknown as Db, id, version, patch)) return false;
+        const valuationChanges = changed.filter((c) => (VALUATION_KEYS as readonly string[]).includes(c.path.split(".")[0]));
+        const catalogueChanges = changed.filter((c) => !valuationChanges.includes(c));
+        if (catalogueChanges.length) {
+          appendEvent(tx as unknown as Db, {
+            objectId: id,
+            type: "catalogue-changed",
+            actor: user,
+            summary: `Catalogue changed: ${[...new Set(catalogueChanges.map((c) => c.path.split(".")[0]))].join(", ")}.`,
+            data: { changes: catalogueChanges },
+          });
+        }
+        // The history keeps that the valuation changed, never the amounts: the log is shown to more people than may see values.
+        if (valuationChanges.length) {
+          appendEvent(tx as unknown as Db, { objectId: id, type: "valued", actor: user, summary: "Valuation updated.", data: { fields: valuationChanges.map((c) => c.path) } });
+        }
+        return true;
+      });
+      if (!ok) {
         throw conflict(
           "Someone else saved this object while you were editing it. Your changes are still in the form: reload the record in another tab, compare, then save again.",
         );

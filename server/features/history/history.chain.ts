@@ -1,0 +1,112 @@
+import { createHash } from "node:crypto";
+import { and, asc, desc, eq, gt, inArray, lt, sql } from "drizzle-orm";
+import type { Db } from "../../db/client.ts";
+import { events } from "../../db/schema.ts";
+import type { ChainVerdict, EventType, HistoryEvent, HistoryQuery } from "../../../shared/schemas/history.ts";
+
+/** JSON with object keys sorted at every level, so the same content always hashes the same. */
+export function canonicalJson(value: unknown): string {
+  if (Array.isArray(value)) return `[${value.map(canonicalJson).join(",")}]`;
+  if (value && typeof value === "object") {
+    const entries = Object.entries(value as Record<string, unknown>)
+      .filter(([, v]) => v !== undefined)
+      .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
+    return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonicalJson(v)}`).join(",")}}`;
+  }
+  return JSON.stringify(value ?? null);
+}
+
+type HashedContent = { objectId: string; type: string; at: number; actorId: string | null; actorName: string; summary: string; data: unknown; prevHash: string | null };
+
+/** SHA-256 over the event's content and the previous event's hash. */
+export function eventHash(e: HashedContent): string {
+  return createHash("sha256").update(canonicalJson(e)).digest("hex");
+}
+
+export type Actor = { id: string | null; name: string };
+
+/**
+ * Appends an event to an object's history, chained to the object's previous event.
+ * Call it inside the transaction that makes the change, so the change and its record land together.
+ */
+export function appendEvent(db: Db, e: { objectId: string; type: EventType; actor: Actor; summary: string; data?: Record<string, unknown>; at?: Date }): HistoryEvent {
+  const prev = db.select({ hash: events.hash }).from(events).where(eq(events.objectId, e.objectId)).orderBy(desc(events.seq)).limit(1).get();
+  const content: HashedContent = {
+    objectId: e.objectId,
+    type: e.type,
+    at: (e.at ?? new Date()).getTime(),
+    actorId: e.actor.id,
+    actorName: e.actor.name,
+    summary: e.summary,
+    data: e.data ?? {},
+    prevHash: prev?.hash ?? null,
+  };
+  const hash = eventHash(content);
+  const row = db
+    .insert(events)
+    .values({ ...content, at: new Date(content.at), data: content.data as Record<string, unknown>, hash })
+    .returning({ seq: events.seq })
+    .get();
+  return { seq: row.seq, objectId: e.objectId, type: e.type, at: new Date(content.at).toISOString(), actorName: e.actor.name, summary: e.summary, data: content.data as Record<string, unknown>, hash };
+}
+
+type EventRow = typeof events.$inferSelect;
+const toEvent = (r: EventRow): HistoryEvent => ({
+  seq: r.seq,
+  objectId: r.objectId,
+  type: r.type as EventType,
+  at: r.at.toISOString(),
+  actorName: r.actorName,
+  summary: r.summary,
+  data: r.data as Record<string, unknown>,
+  hash: r.hash,
+});
+
+/** An object's events, newest first. */
+export function listEvents(db: Db, objectId: string, q: HistoryQuery): { items: HistoryEvent[]; nextBefore: number | null } {
+  const where = [eq(events.objectId, objectId)];
+  if (q.types.length) where.push(inArray(events.type, q.types));
+  if (q.before) where.push(lt(events.seq, q.before));
+  const rows = db
+    .select()
+    .from(events)
+    .where(and(...where))
+    .orderBy(desc(events.seq))
+    .limit(q.limit + 1)
+    .all();
+  const more = rows.length > q.limit;
+  const items = rows.slice(0, q.limit).map(toEvent);
+  return { items, nextBefore: more ? items[items.length - 1].seq : null };
+}
+
+/**
+ * Recomputes every chain (or one object's) and names the first broken link: an event whose
+ * content no longer matches its hash, or whose previous-hash does not match the event before it.
+ */
+export function verifyChains(db: Db, objectId?: string): ChainVerdict {
+  const BATCH = 5000;
+  const last = new Map<string, string>();
+  let checked = 0;
+  let after = 0;
+  for (;;) {
+    const where = objectId ? and(eq(events.objectId, objectId), gt(events.seq, after)) : gt(events.seq, after);
+    const rows = db.select().from(events).where(where).orderBy(asc(events.seq)).limit(BATCH).all();
+    if (rows.length === 0) break;
+    for (const r of rows) {
+      const expectedPrev = last.get(r.objectId) ?? null;
+      if (r.prevHash !== expectedPrev) {
+        return { ok: false, checked, brokenAt: { seq: r.seq, objectId: r.objectId, reason: expectedPrev === null ? "it claims an earlier event that is not there" : "its link to the event before it does not match (an event was removed, added or reordered)" } };
+      }
+      const recomputed = eventHash({ objectId: r.objectId, type: r.type, at: r.at.getTime(), actorId: r.actorId, actorName: r.actorName, summary: r.summary, data: r.data, prevHash: r.prevHash });
+      if (recomputed !== r.hash) return { ok: false, checked, brokenAt: { seq: r.seq, objectId: r.objectId, reason: "its content no longer matches its hash (it was changed after it was written)" } };
+      last.set(r.objectId, r.hash);
+      checked++;
+    }
+    after = rows[rows.length - 1].seq;
+  }
+  return { ok: true, checked };
+}
+
+export function eventCount(db: Db, objectId: string): number {
+  return db.select({ n: sql<number>`count(*)` }).from(events).where(eq(events.objectId, objectId)).get()?.n ?? 0;
+}
