@@ -1,0 +1,89 @@
+import type { MountPlan, MountPlanParsed } from "../schemas/mount-plan.ts";
+import { MountPlanInputSchema } from "../schemas/mount-plan.ts";
+import type { Board, MountingData } from "../schemas/mountings.ts";
+import { BOARD_GRADE_LABELS, GLAZING_TYPE_LABELS } from "../schemas/mountings.ts";
+
+/** Board thickness by ply, in mm: 4-ply ≈ 1.3–1.5 mm (Saitzyk, Art Hardware); 2, 6 and 8-ply from memory. */
+export const PLY_MM: Record<2 | 4 | 6 | 8, number> = { 2: 0.8, 4: 1.4, 6: 2.1, 8: 2.8 };
+
+const HINGE_METHODS = ["t-hinge", "v-hinge", "pendant-hinge", "pass-through-hinge"];
+const METHOD_WORDS: Record<string, [string, string]> = {
+  "t-hinge": ["T-hinge", "T-hinges"],
+  "v-hinge": ["V-hinge", "V-hinges"],
+  "pendant-hinge": ["pendant hinge", "pendant hinges"],
+  "pass-through-hinge": ["pass-through hinge", "pass-through hinges"],
+  corners: ["corners", "corners"],
+  "edge-strips": ["edge strips", "edge strips"],
+  "sink-mount": ["sink mount", "sink mount"],
+  "polyester-straps": ["polyester straps", "polyester straps"],
+  "pressure-sensitive-tape": ["pressure-sensitive tape", "pressure-sensitive tape"],
+};
+
+/**
+ * The plan input of a mounting record with the record's materials filled in, so the plan's
+ * conservation checks also cover the boards, attachment and glazing actually chosen.
+ */
+export function planInputFor(data: MountingData): MountPlanParsed {
+  const p: MountPlanParsed = structuredClone(data.plan);
+  const wb = data.boards.window;
+  const hinges = data.attachment.hinges;
+  const edges = new Set(hinges.map((h) => h.edge));
+  p.materials = {
+    ...(p.materials ?? {}),
+    boardGrade: wb.grade,
+    buffered: wb.buffered,
+    ...(wb.patPassed !== undefined ? { patPassed: wb.patPassed } : {}),
+    attachment: data.attachment.method,
+    ...(data.attachment.adhesive ? { adhesive: data.attachment.adhesive } : {}),
+    ...(data.attachment.tissue ? { tissue: data.attachment.tissue } : {}),
+    ...(HINGE_METHODS.includes(data.attachment.method)
+      ? { hingeCount: hinges.length, hingeEdge: edges.size === 0 || (edges.size === 1 && edges.has("top")) ? "top" : edges.has("top") && !edges.has("bottom") ? "top-and-sides" : "all-edges" }
+      : {}),
+  } as MountPlanParsed["materials"];
+  const g = data.glazing;
+  if (g.type === "none") delete p.glazing;
+  else {
+    const material = g.type === "acrylic" || g.type === "uv-acrylic" ? "acrylic" : "glass";
+    // The record's own thickness (mm) wins; otherwise the plan's, in the plan's unit; otherwise 2 mm (common practice).
+    const thickness = g.thicknessMm != null ? `${g.thicknessMm} mm` : (data.plan.glazing?.thickness ?? "2 mm");
+    p.glazing = { material, thickness, uvFiltering: g.type !== "float-glass" && g.type !== "acrylic" };
+  }
+  if (data.spacer?.depthMm) p.spacer = { depth: `${data.spacer.depthMm} mm` };
+  p.boards = { ...(p.boards ?? {}), window: `${PLY_MM[wb.ply]} mm`, backing: `${PLY_MM[data.boards.backing.ply]} mm` };
+  if (data.frame?.rebateDepthMm || data.frame?.faceWidthMm) {
+    p.frame = {
+      ...(p.frame ?? {}),
+      ...(data.frame.rebateDepthMm ? { rebateDepth: `${data.frame.rebateDepthMm} mm` } : {}),
+      ...(data.frame.faceWidthMm ? { faceWidth: `${data.frame.faceWidthMm} mm` } : {}),
+    };
+  }
+  return MountPlanInputSchema.parse(p);
+}
+
+function boardWords(b: Board): string {
+  const grade = b.grade === "museum" ? "museum cotton" : b.grade === "conservation" ? "conservation" : "other board";
+  return `${grade} ${b.ply}-ply, ${b.buffered ? "buffered" : "unbuffered"}`;
+}
+
+/** The current mount in one line, as the object's header shows it. */
+export function mountSummary(data: MountingData, plan: Pick<MountPlan, "display">, words: { window: string } = { window: "window" }): string {
+  const parts = [`${words.window} ${plan.display.aperture}`, boardWords(data.boards.window)];
+  const [one, many] = METHOD_WORDS[data.attachment.method] ?? [data.attachment.method, data.attachment.method];
+  const n = data.attachment.hinges.length;
+  const method = HINGE_METHODS.includes(data.attachment.method) ? `${n} ${n === 1 ? one : many}` : many;
+  parts.push(data.attachment.adhesive && data.attachment.adhesive !== "none" ? `${method}, ${data.attachment.adhesive.replace(/-/g, " ")}` : method);
+  parts.push(data.glazing.type === "none" ? "no glazing" : GLAZING_TYPE_LABELS[data.glazing.type].replace("UV-filtering", "UV"));
+  return parts.join(" · ");
+}
+
+/** Maker's batch numbers of a record's boards, by role. */
+export function boardBatches(data: MountingData): { role: string; batch: string }[] {
+  const out: { role: string; batch: string }[] = [];
+  for (const role of ["window", "backing", "top"] as const) {
+    const b = data.boards[role];
+    if (b?.batch) out.push({ role, batch: b.batch });
+  }
+  return out;
+}
+
+export { BOARD_GRADE_LABELS };
