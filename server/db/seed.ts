@@ -4,6 +4,9 @@ import { user } from "./schema.ts";
 import { makeClient, makeObject, makeUser } from "./factories.ts";
 import { saveSettings } from "../features/settings/settings.repo.ts";
 import type { ObjectCreateInput } from "../../shared/schemas/objects.ts";
+import type { SessionUser } from "../../shared/schemas/auth.ts";
+import { appendEvent } from "../features/history/history.chain.ts";
+import { seedMountings } from "./seed-mountings.ts";
 
 /** The invented demo studio. Every name here is made up for the demo. */
 export const DEMO_PASSWORD = "reversa-demo";
@@ -77,12 +80,17 @@ export async function seedDemo(db: Db): Promise<boolean> {
     saltmarsh: makeClient(db, { kind: "institution", name: "Saltmarsh Regional Archive", contactName: "Archive office", email: "archive@example.test", address: "The Old Customs House, Eastharbour" }),
   };
 
-  OBJECTS.forEach(({ owner, ...o }, i) => {
-    makeObject(db, clients[owner].id, { ...o, objectNumber: `2026-${String(i + 1).padStart(4, "0")}` });
-  });
-
+  const ids: Record<string, string> = {};
   for (const u of DEMO_USERS) {
-    await makeUser(db, { email: u.email, name: u.name, role: u.role, clientId: "client" in u ? clients[u.client].id : null, password: DEMO_PASSWORD });
+    ids[u.role] = await makeUser(db, { email: u.email, name: u.name, role: u.role, clientId: "client" in u ? clients[u.client].id : null, password: DEMO_PASSWORD });
   }
+  const framer: SessionUser = { id: ids.framer, name: "Jonah Pell", email: "framer@reversa.test", role: "framer", clientId: null };
+
+  OBJECTS.forEach(({ owner, ...o }, i) => {
+    const objectNumber = `2026-${String(i + 1).padStart(4, "0")}`;
+    const id = makeObject(db, clients[owner].id, { ...o, objectNumber });
+    appendEvent(db, { objectId: id, type: "created", actor: framer, summary: `Recorded as ${objectNumber}, “${o.title}”.`, data: { objectNumber } });
+  });
+  seedMountings(db, framer);
   return true;
 }

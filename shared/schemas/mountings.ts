@@ -190,3 +190,19 @@ export type MountingListItem = {
   glazing: string | null;
   batches: string[];
 };
+
+/** How the object is held, in the framer's words: the registers' columns and filters use these. */
+export const ATTACHMENT_METHOD_LABELS: Record<(typeof ATTACHMENT_METHODS)[number], string> = {
+  "t-hinge": "T-hinges",
+  "v-hinge": "V-hinges (folded)",
+  "pendant-hinge": "Pendant hinges",
+  "pass-through-hinge": "Pass-through (S-) hinges",
+  corners: "Corners",
+  "edge-strips": "Edge strips",
+  "sink-mount": "Sink mount",
+  "polyester-straps": "Polyester straps",
+  "pressure-sensitive-tape": "Pressure-sensitive tape",
+};
+
+/** The answer of GET /api/mountings: one page of the register and the framers it can be filtered by. */
+export type MountingListPage = { items: MountingListItem[]; total: number; page: number; pageSize: number; framers: { id: string; name: string }[] };

@@ -1,6 +1,8 @@
 import { z } from "zod";
 import { optionalText, requiredText } from "./common.ts";
 import { isCurrencyCode } from "../domain/money.ts";
+import type { ATTACHMENT_METHODS, BOARD_GRADES } from "./mount-plan.ts";
+import type { GLAZING_TYPES } from "./mountings.ts";
 
 export const OBJECT_TYPES = [
   "print",
@@ -176,12 +178,47 @@ export type ObjectCreateInput = z.input<typeof ObjectCreateSchema>;
 export const ObjectUpdateSchema = ObjectBaseSchema.extend({ version: z.number().int().min(1) }).superRefine(checkCross);
 export type ObjectUpdate = z.infer<typeof ObjectUpdateSchema>;
 
-export const OBJECT_SORTS = ["objectNumber", "title", "maker", "updatedAt", "status"] as const;
+/**
+ * The current mount's values the register filters by: the mounting contract's lists (ATTACHMENT_METHODS,
+ * BOARD_GRADES, GLAZING_TYPES) written out again, because mount-plan.ts imports this file and a value
+ * import back would be a cycle. The type-only check below stops the build if they drift apart.
+ */
+export const REGISTER_METHODS = [
+  "t-hinge",
+  "v-hinge",
+  "pendant-hinge",
+  "pass-through-hinge",
+  "corners",
+  "edge-strips",
+  "sink-mount",
+  "polyester-straps",
+  "pressure-sensitive-tape",
+] as const;
+export const REGISTER_BOARD_GRADES = ["museum", "conservation", "other"] as const;
+export const REGISTER_GLAZINGS = ["float-glass", "uv-glass", "ar-uv-glass", "acrylic", "uv-acrylic", "none"] as const;
+export type RegisterMethod = (typeof REGISTER_METHODS)[number];
+export type RegisterBoardGrade = (typeof REGISTER_BOARD_GRADES)[number];
+export type RegisterGlazing = (typeof REGISTER_GLAZINGS)[number];
+type SameSet<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
+type Holds<T extends true> = T;
+export type RegisterListsMatch = Holds<
+  SameSet<RegisterMethod, (typeof ATTACHMENT_METHODS)[number]> &
+    SameSet<RegisterBoardGrade, (typeof BOARD_GRADES)[number]> &
+    SameSet<RegisterGlazing, (typeof GLAZING_TYPES)[number]>
+>;
+
+export const OBJECT_SORTS = ["objectNumber", "title", "maker", "updatedAt", "status", "lastMountedOn", "checkDueOn"] as const;
 export const ObjectListQuerySchema = z.object({
   q: z.string().trim().max(200).optional(),
   clientId: z.string().max(64).optional(),
   status: z.enum(OBJECT_STATUSES).optional(),
   objectType: z.enum(OBJECT_TYPES).optional(),
+  /** The current mount's attachment method, window-board grade and glazing. */
+  method: z.enum(REGISTER_METHODS).optional(),
+  boardGrade: z.enum(REGISTER_BOARD_GRADES).optional(),
+  glazing: z.enum(REGISTER_GLAZINGS).optional(),
+  /** Objects due for a check on or before this date. The client sends its own today, so the register needs no clock. */
+  checkDueBy: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: "Use a date such as 2026-11-30." }).optional(),
   sort: z.enum(OBJECT_SORTS).default("objectNumber"),
   dir: z.enum(["asc", "desc"]).default("asc"),
   page: z.coerce.number().int().min(1).default(1),
@@ -202,4 +239,12 @@ export type ObjectRecord = Omit<ObjectCreate, never> & {
 export type ObjectListItem = Pick<
   ObjectRecord,
   "id" | "objectNumber" | "title" | "maker" | "objectType" | "status" | "location" | "clientId" | "clientName" | "sheetWidthMm" | "sheetHeightMm" | "updatedAt"
->;
+> & {
+  /** The current mount (null when the object is not in a mount). */
+  currentMethod: RegisterMethod | null;
+  currentBoardGrade: RegisterBoardGrade | null;
+  currentGlazing: RegisterGlazing | null;
+  /** ISO dates. */
+  lastMountedOn: string | null;
+  checkDueOn: string | null;
+};

@@ -24,7 +24,7 @@ export type Role =
   | "dim-label"
   | "hinge";
 export type Shape =
-  | { kind: "rect"; role: Role; x: number; y: number; width: number; height: number; side?: SideName }
+  | { kind: "rect"; role: Role; x: number; y: number; width: number; height: number; side?: SideName; hinge?: number }
   | { kind: "path"; role: Role; d: string }
   | { kind: "line"; role: Role; x1: number; y1: number; x2: number; y2: number; arrows?: boolean }
   | { kind: "text"; role: Role; x: number; y: number; text: string; anchor: "start" | "middle" | "end"; rotate?: number; size: number };
@@ -86,13 +86,13 @@ export function planDrawing(g: PlanGeometry, labels: { length: (mm: number) => s
   }
 
   // Hinges, where they really sit: on the sheet's edge, half on the sheet and half on the backing.
-  for (const h of hinges) {
+  hinges.forEach((h, i) => {
     const depth = Math.max(6, font * 0.8);
-    if (h.edge === "top") shapes.push({ kind: "rect", role: "hinge", x: sx + h.offset, y: sy - depth / 2, width: h.width, height: depth });
-    else if (h.edge === "bottom") shapes.push({ kind: "rect", role: "hinge", x: sx + h.offset, y: sy + sheet.height - depth / 2, width: h.width, height: depth });
-    else if (h.edge === "left") shapes.push({ kind: "rect", role: "hinge", x: sx - depth / 2, y: sy + h.offset, width: depth, height: h.width });
-    else shapes.push({ kind: "rect", role: "hinge", x: sx + sheet.width - depth / 2, y: sy + h.offset, width: depth, height: h.width });
-  }
+    if (h.edge === "top") shapes.push({ kind: "rect", role: "hinge", hinge: i, x: sx + h.offset, y: sy - depth / 2, width: h.width, height: depth });
+    else if (h.edge === "bottom") shapes.push({ kind: "rect", role: "hinge", hinge: i, x: sx + h.offset, y: sy + sheet.height - depth / 2, width: h.width, height: depth });
+    else if (h.edge === "left") shapes.push({ kind: "rect", role: "hinge", hinge: i, x: sx - depth / 2, y: sy + h.offset, width: depth, height: h.width });
+    else shapes.push({ kind: "rect", role: "hinge", hinge: i, x: sx + sheet.width - depth / 2, y: sy + h.offset, width: depth, height: h.width });
+  });
 
   // Border widths, written in each border.
   shapes.push({ kind: "text", role: "border-label", x: outer.width / 2, y: borders.top / 2 + font * 0.35, text: labels.length(borders.top), anchor: "middle", size: font });

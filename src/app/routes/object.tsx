@@ -17,6 +17,10 @@ import { ButtonLink } from "@/components/ui/button.tsx";
 import { Badge, Card, EmptyState, Notice, Skeleton } from "@/components/ui/feedback.tsx";
 import { formatDate, formatDateTime, formatMoney } from "@/lib/format.ts";
 import { useObjectPlan } from "@/features/planner/api/plans.ts";
+import { useObjectMountings } from "@/features/mountings/api/mountings.ts";
+import { Timeline } from "@/features/history/components/timeline.tsx";
+import { mountSummary } from "@shared/domain/mounting.ts";
+import { MOUNTING_REASON_LABELS, MOUNTING_STATUS_LABELS } from "@shared/schemas/mountings.ts";
 
 function Row({ label, children }: { label: string; children: ReactNode }) {
   return (
@@ -42,6 +46,7 @@ export function Component() {
   const { unit, words } = useStudio();
   const q = useObject(id);
   const draft = useObjectPlan(id);
+  const mountings = useObjectMountings(id);
 
   if (q.isPending)
     return (
@@ -59,6 +64,9 @@ export function Component() {
     );
   const o = q.data;
   const area = imageArea(o, unit);
+  const current = mountings.data?.find((m) => m.status === "completed");
+  const others = (mountings.data ?? []).filter((m) => m !== current);
+  const studioCanMount = can(user, "mounting:write", { clientId: o.clientId });
 
   return (
     <article className="space-y-6">
@@ -85,7 +93,9 @@ export function Component() {
               {o.location && <span className="text-graphite">{o.location}</span>}
               <span className="text-graphite">· Owner: {o.clientName}</span>
             </div>
-            <p className="mt-2 text-sm text-graphite">Current {words.mount}: none recorded yet.</p>
+            <p className="mt-2 text-sm text-graphite" data-testid="current-mount">
+              Current {words.mount}: {current ? mountSummary(current.current.data, current.current.plan, { window: "window" }) : "none recorded yet."}
+            </p>
           </div>
         </div>
         {can(user, "object:update", { clientId: o.clientId }) && (
@@ -144,30 +154,50 @@ export function Component() {
           </dl>
         </Card>
         <Card title={words.Mount}>
-          <div id={words.mount} className="space-y-3">
-            {draft.data ? (
-              <div className="text-sm">
-                <p className="font-medium">Draft {words.mount} plan <span className="font-normal text-graphite">· saved {formatDateTime(draft.data.updatedAt)}</span></p>
-                <p className="mt-1 num">Window {draft.data.plan.display.aperture} · outer {draft.data.plan.display.outer} · glazing {draft.data.plan.display.glazing}</p>
-                <p className="mt-1 text-graphite">{draft.data.plan.level === "pass" ? "✓ Conservation checks pass." : draft.data.plan.level === "warn" ? "▲ Some checks need a decision." : "✕ A conservation check fails."}</p>
+          <div id={words.mount} className="space-y-4 text-sm">
+            {current ? (
+              <div>
+                <p className="font-medium">
+                  Current: {MOUNTING_REASON_LABELS[current.reason]} of {formatDate(current.mountedOn)} <span className="font-normal text-graphite">by {current.framerName}</span>
+                </p>
+                <p className="mt-1 num">{mountSummary(current.current.data, current.current.plan)}</p>
+                <p className="mt-1 text-graphite">{current.current.plan.level === "pass" ? "✓ Conservation checks pass." : current.current.plan.level === "warn" ? "▲ Some checks need a decision." : "✕ A conservation check fails."}</p>
+                <ButtonLink to={`/mountings/${current.id}`} variant="secondary" className="mt-2">Open the mounting record</ButtonLink>
               </div>
             ) : (
-              <EmptyState title={`No ${words.mount} recorded`}>
-                Plan the window, borders, glazing and frame from this object's sheet; the boards and hinges used will show here once it is mounted.
-              </EmptyState>
+              <EmptyState title={`No ${words.mount} recorded`}>Plan the window, borders, glazing and frame from this object's sheet, then record the boards and hinges used.</EmptyState>
             )}
-            {can(user, "plan:write", { clientId: o.clientId }) ? (
-              <ButtonLink to={`/objects/${o.id}/plan`} variant={draft.data ? "secondary" : "primary"}>
-                {draft.data ? `Open the ${words.mount} plan` : `Plan the ${words.mount}`}
-              </ButtonLink>
-            ) : draft.data ? (
-              <ButtonLink to={`/objects/${o.id}/plan`} variant="secondary">See the plan</ButtonLink>
-            ) : null}
+            {draft.data && (
+              <p className="rounded-card bg-paper-deep px-3 py-2">
+                Draft {words.mount} plan, saved {formatDateTime(draft.data.updatedAt)}: <span className="num">window {draft.data.plan.display.aperture} · outer {draft.data.plan.display.outer}</span>
+              </p>
+            )}
+            {others.length > 0 && (
+              <div>
+                <h3 className="mb-1 font-semibold">Other mounting records</h3>
+                <ul className="divide-y divide-stone-light">
+                  {others.map((m) => (
+                    <li key={m.id} className="flex items-center justify-between gap-3 py-1.5">
+                      <Link to={`/mountings/${m.id}`} className="text-accent hover:underline">{MOUNTING_REASON_LABELS[m.reason]} · {formatDate(m.mountedOn)}</Link>
+                      <Badge tone={m.status === "draft" ? "warn" : "neutral"}>{MOUNTING_STATUS_LABELS[m.status]}</Badge>
+                    </li>
+                  ))}
+                </ul>
+              </div>
+            )}
+            {(studioCanMount || (can(user, "plan:write", { clientId: o.clientId }))) && (
+              <div className="flex flex-wrap gap-2">
+                <ButtonLink to={`/objects/${o.id}/plan`} variant={draft.data ? "secondary" : "primary"}>{draft.data ? `Open the ${words.mount} plan` : `Plan the ${words.mount}`}</ButtonLink>
+                {studioCanMount && (draft.data || current) && (
+                  <ButtonLink to={`/objects/${o.id}/mountings/new`}>{current ? "Record a reframing" : "Record the mounting"}</ButtonLink>
+                )}
+              </div>
+            )}
           </div>
         </Card>
-        <Card title="History">
+        <Card title="History" className="lg:col-span-2">
           <div id="history">
-            <EmptyState title="History starts with the first mounting">Every mounting, reframing, condition check and move of this object will be listed here, oldest last.</EmptyState>
+            <Timeline objectId={o.id} />
           </div>
         </Card>
         <Card title="Condition">

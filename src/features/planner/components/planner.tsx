@@ -2,7 +2,7 @@ import { useMemo, useRef, useState, type ReactNode } from "react";
 import { useForm, useWatch, type Path, type UseFormRegister } from "react-hook-form";
 import { computePlan, planDrawing, FRAME_PRESETS, SHEET_PRESETS, STANDARD_BOARD_SHEETS } from "@shared/domain/mount-plan/index.ts";
 import type { PlanResult } from "@shared/domain/mount-plan/compute.ts";
-import { MountPlanInputSchema, ATTACHMENT_METHODS, ADHESIVES, SIDES, type MountPlanInput, type SideName, type Verdict } from "@shared/schemas/mount-plan.ts";
+import { MountPlanInputSchema, ATTACHMENT_METHODS, ADHESIVES, SIDES, type MountPlanInput, type SideName } from "@shared/schemas/mount-plan.ts";
 import { OBJECT_TYPES, OBJECT_TYPE_LABELS, PHOTO_PROCESSES, PHOTO_PROCESS_LABELS, SENSITIVITIES, SENSITIVITY_LABELS } from "@shared/schemas/objects.ts";
 import { issuesToFields } from "@shared/schemas/errors.ts";
 import { formatLength, lengthInputValue, type Unit } from "@shared/domain/units.ts";
@@ -10,7 +10,8 @@ import { SelectField, TextField } from "@/components/ui/field.tsx";
 import { Button } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
 import { convertLength, defaultValues, fieldForPath, LENGTH_FIELDS, ROUND_UP_FIELDS, toInput, type PlannerValues } from "../lib/planner-values.ts";
-import { PlanDrawing } from "./plan-drawing.tsx";
+import { PlanDrawing } from "@/components/plan-drawing.tsx";
+import { ChecksList, FindingsList, LevelBadge } from "@/components/checks-list.tsx";
 
 export type PlannerSettings = {
   unit: Unit;
@@ -50,13 +51,6 @@ const ADHESIVE_LABEL: Record<string, string> = {
   "pressure-sensitive": "Pressure-sensitive",
   other: "Other",
 };
-const VERDICT: Record<Verdict, { mark: string; word: string; cls: string }> = {
-  pass: { mark: "✓", word: "Pass", cls: "bg-pass-soft text-pass" },
-  warn: { mark: "▲", word: "Check", cls: "bg-warn-soft text-warn" },
-  fail: { mark: "✕", word: "Fail", cls: "bg-fail-soft text-fail" },
-};
-const SEVERITY = { info: { mark: "●", cls: "text-graphite" }, warn: { mark: "▲", cls: "text-warn" }, error: { mark: "✕", cls: "text-fail" } } as const;
-
 function compute(values: PlannerValues, s: PlannerSettings): { input: MountPlanInput; result: PlanResult } {
   const input = toInput(values);
   const parsed = MountPlanInputSchema.safeParse(input);
@@ -317,10 +311,7 @@ export function Planner({ settings, initial, context, onSave, saveState }: Props
         ) : (
           <>
             <div className="flex flex-wrap items-center justify-between gap-3">
-              <p className={`inline-flex items-center gap-2 rounded-card px-3 py-1.5 text-sm font-semibold ${VERDICT[plan.level].cls}`} data-testid="plan-level">
-                <span aria-hidden="true">{VERDICT[plan.level].mark}</span>
-                {plan.level === "pass" ? "Conservation checks pass" : plan.level === "warn" ? "Some checks need a decision" : "A conservation check fails"}
-              </p>
+              <LevelBadge level={plan.level} />
               <div className="flex gap-2 print:hidden">
                 {onSave && <Button onClick={save} disabled={saving}>{saving ? "Saving…" : "Save draft"}</Button>}
                 <Button variant="secondary" onClick={() => window.print()}>Print</Button>
@@ -357,35 +348,12 @@ export function Planner({ settings, initial, context, onSave, saveState }: Props
               </dl>
               <div className="space-y-2 rounded-card bg-paper-sheet p-4 text-sm shadow-card print:p-2 print:text-[11px] print:shadow-none">
                 <h3 className="font-semibold">Findings</h3>
-                {plan.findings.length === 0 ? <p className="text-graphite">Nothing to report.</p> : (
-                  <ul className="space-y-1.5" data-testid="plan-findings">
-                    {plan.findings.map((f, i) => (
-                      <li key={i} className="flex gap-2">
-                        <span aria-hidden="true" className={SEVERITY[f.severity].cls}>{SEVERITY[f.severity].mark}</span>
-                        <span><span className="sr-only">{f.severity}: </span>{f.message}</span>
-                      </li>
-                    ))}
-                  </ul>
-                )}
+                <FindingsList findings={plan.findings} />
               </div>
             </div>
             <div className="rounded-card bg-paper-sheet p-4 text-sm shadow-card print:p-2 print:text-[10px] print:shadow-none">
               <h3 className="mb-2 font-semibold">Conservation checks</h3>
-              <ul className="divide-y divide-stone-light" data-testid="plan-checks">
-                {plan.checks.map((c) => (
-                  <li key={c.id} className="flex gap-3 py-2 print:py-0.5">
-                    <span className={`mt-0.5 inline-flex h-6 min-w-14 items-center justify-center gap-1 rounded px-1.5 text-xs font-semibold print:h-4 print:text-[9px] ${VERDICT[c.verdict].cls}`}>
-                      <span aria-hidden="true">{VERDICT[c.verdict].mark}</span>{VERDICT[c.verdict].word}
-                    </span>
-                    <div>
-                      <p className="font-medium">{c.rule}</p>
-                      <p className="text-ink-soft">{c.reason}</p>
-                      <p className="mt-0.5 text-xs text-graphite print:hidden">Source: {c.source}</p>
-                    </div>
-                  </li>
-                ))}
-              </ul>
-              <p className="mt-3 text-xs text-graphite print:mt-1 print:text-[9px]">These checks are planning aids, not conservation treatment advice; for a damaged or unstable object, consult a qualified conservator.</p>
+              <ChecksList checks={plan.checks} />
             </div>
           </>
         )}

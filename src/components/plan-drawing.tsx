@@ -1,0 +1,147 @@
+import { useRef, type KeyboardEvent, type PointerEvent } from "react";
+import type { DrawingModel, Role } from "@shared/domain/mount-plan/drawing.ts";
+
+/** Screen styles for the shared drawing model's roles (the PDF renderer maps the same roles). */
+const STYLE: Record<Role, { fill?: string; stroke?: string; width?: number; dash?: string; opacity?: number; text?: string; weight?: number }> = {
+  backing: { fill: "#e4ddd0", stroke: "#8a877f", width: 0.75 },
+  sheet: { fill: "#fffdf8", stroke: "#5c5a56", width: 0.75 },
+  image: { fill: "url(#rv-hatch)", stroke: "#a9a397", width: 0.5, dash: "3 2" },
+  board: { fill: "#f1ece2", stroke: "#1d1c1a", width: 1 },
+  "top-board": { fill: "#e9e2d4", stroke: "#1d1c1a", width: 1 },
+  "sheet-hidden": { fill: "none", stroke: "#5c5a56", width: 0.75, dash: "5 3" },
+  window: { fill: "none", stroke: "#1d1c1a", width: 1.25 },
+  bevel: { fill: "none", stroke: "#bdb4a3", width: 0.75 },
+  "band-pass": { fill: "#2e6a3c", opacity: 0.28 },
+  "band-fail": { fill: "#9a2b2b", opacity: 0.4 },
+  "band-float": { fill: "#8a877f", opacity: 0.28 },
+  "band-label": { text: "#1d1c1a", weight: 600 },
+  "border-label": { text: "#5c5a56", weight: 500 },
+  "dim-line": { stroke: "#5c5a56", width: 0.75 },
+  "dim-label": { text: "#3a3835", weight: 500 },
+  hinge: { fill: "#e8d9a8", stroke: "#7f5300", width: 0.75, opacity: 0.95 },
+};
+
+type Props = {
+  model: DrawingModel;
+  title: string;
+  /** When given, hinges can be dragged (and moved with the arrow keys) along their edge; `delta` is in mm. */
+  onHingeMove?: (index: number, deltaMm: number) => void;
+  /** Edge of each hinge, so a drag moves it along its edge. */
+  hingeEdges?: ("top" | "bottom" | "left" | "right")[];
+};
+
+export function PlanDrawing({ model, title, onHingeMove, hingeEdges = [] }: Props) {
+  const [x, y, w, h] = model.viewBox;
+  const svgRef = useRef<SVGSVGElement>(null);
+  const drag = useRef<{ index: number; last: number } | null>(null);
+
+  const pointInSvg = (e: PointerEvent) => {
+    const svg = svgRef.current!;
+    const m = svg.getScreenCTM();
+    if (!m) return { x: 0, y: 0 };
+    const p = new DOMPoint(e.clientX, e.clientY).matrixTransform(m.inverse());
+    return { x: p.x, y: p.y };
+  };
+  const along = (index: number, p: { x: number; y: number }) => (hingeEdges[index] === "left" || hingeEdges[index] === "right" ? p.y : p.x);
+  const onDown = (index: number) => (e: PointerEvent<SVGRectElement>) => {
+    if (!onHingeMove) return;
+    (e.target as Element).setPointerCapture(e.pointerId);
+    drag.current = { index, last: along(index, pointInSvg(e)) };
+  };
+  const onMove = (e: PointerEvent<SVGRectElement>) => {
+    const d = drag.current;
+    if (!d || !onHingeMove) return;
+    const pos = along(d.index, pointInSvg(e));
+    const delta = Math.round(pos - d.last);
+    if (delta !== 0) {
+      onHingeMove(d.index, delta);
+      d.last += delta;
+    }
+  };
+  const onUp = () => {
+    drag.current = null;
+  };
+  const onKey = (index: number) => (e: KeyboardEvent<SVGRectElement>) => {
+    if (!onHingeMove) return;
+    const step = e.shiftKey ? 10 : 1;
+    const vertical = hingeEdges[index] === "left" || hingeEdges[index] === "right";
+    const back = vertical ? "ArrowUp" : "ArrowLeft";
+    const fwd = vertical ? "ArrowDown" : "ArrowRight";
+    if (e.key === back || e.key === fwd) {
+      e.preventDefault();
+      onHingeMove(index, e.key === fwd ? step : -step);
+    }
+  };
+
+  return (
+    <svg ref={svgRef} viewBox={`${x} ${y} ${w} ${h}`} role="img" aria-label={title} className="h-auto max-h-[70vh] w-full print:max-h-[76mm]" data-testid="plan-drawing">
+      <title>{title}</title>
+      <defs>
+        <pattern id="rv-hatch" width={model.fontSize * 0.6} height={model.fontSize * 0.6} patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
+          <rect width="100%" height="100%" fill="#fbf8f2" />
+          <line x1="0" y1="0" x2="0" y2={model.fontSize * 0.6} stroke="#d8d0c1" strokeWidth={model.fontSize * 0.08} />
+        </pattern>
+        <marker id="rv-arrow" viewBox="0 0 10 10" refX="9" refY="5" markerWidth="7" markerHeight="7" orient="auto-start-reverse" markerUnits="userSpaceOnUse">
+          <path d="M0 1 L10 5 L0 9 z" fill="#5c5a56" transform={`scale(${model.fontSize / 12})`} />
+        </marker>
+      </defs>
+      {model.shapes.map((s, i) => {
+        const st = STYLE[s.role];
+        const common = {
+          fill: st.fill ?? "none",
+          stroke: st.stroke,
+          strokeWidth: st.width,
+          strokeDasharray: st.dash,
+          fillOpacity: st.opacity,
+          vectorEffect: "non-scaling-stroke" as const,
+        };
+        if (s.kind === "rect" && s.role === "hinge" && s.hinge !== undefined && onHingeMove) {
+          const n = s.hinge;
+          return (
+            <rect
+              key={i}
+              x={s.x}
+              y={s.y}
+              width={Math.max(0, s.width)}
+              height={Math.max(0, s.height)}
+              {...common}
+              data-role="hinge"
+              data-hinge={n}
+              tabIndex={0}
+              role="slider"
+              aria-label={`Hinge ${n + 1}: drag along the edge, or use the arrow keys (Shift for 10 mm)`}
+              aria-valuenow={Math.round(hingeEdges[n] === "left" || hingeEdges[n] === "right" ? s.y : s.x)}
+              className="cursor-grab focus:outline-none focus-visible:stroke-accent"
+              style={{ touchAction: "none" }}
+              onPointerDown={onDown(n)}
+              onPointerMove={onMove}
+              onPointerUp={onUp}
+              onPointerCancel={onUp}
+              onKeyDown={onKey(n)}
+            />
+          );
+        }
+        if (s.kind === "rect") return <rect key={i} x={s.x} y={s.y} width={Math.max(0, s.width)} height={Math.max(0, s.height)} {...common} data-role={s.role} data-side={s.side} data-hinge={s.hinge} />;
+        if (s.kind === "path") return <path key={i} d={s.d} fillRule="evenodd" {...common} />;
+        if (s.kind === "line")
+          return <line key={i} x1={s.x1} y1={s.y1} x2={s.x2} y2={s.y2} {...common} markerStart={s.arrows ? "url(#rv-arrow)" : undefined} markerEnd={s.arrows ? "url(#rv-arrow)" : undefined} />;
+        return (
+          <text
+            key={i}
+            x={s.x}
+            y={s.y}
+            fontSize={s.size}
+            textAnchor={s.anchor}
+            fill={st.text}
+            fontWeight={st.weight}
+            dominantBaseline={s.rotate ? "middle" : undefined}
+            transform={s.rotate ? `rotate(${s.rotate} ${s.x} ${s.y})` : undefined}
+            style={{ fontVariantNumeric: "tabular-nums" }}
+          >
+            {s.text}
+          </text>
+        );
+      })}
+    </svg>
+  );
+}

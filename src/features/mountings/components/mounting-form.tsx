@@ -1,0 +1,301 @@
+import { useMemo, useState } from "react";
+import { useFieldArray, useForm, useWatch, type FieldErrors, type Path, type Resolver } from "react-hook-form";
+import { format } from "date-fns";
+import {
+  BACKING_TYPES,
+  BACKING_TYPE_LABELS,
+  BOARD_GRADE_LABELS,
+  GLAZING_TYPES,
+  GLAZING_TYPE_LABELS,
+  MOUNTING_REASONS,
+  MOUNTING_REASON_LABELS,
+  MountingCreateSchema,
+  MountingDataSchema,
+  SEALING_TYPES,
+  SEALING_TYPE_LABELS,
+  type MountingCreate,
+  type MountingData,
+  type MountingDataInput,
+} from "@shared/schemas/mountings.ts";
+import { ADHESIVES, ATTACHMENT_METHODS, MountPlanInputSchema, SIDES, type MountPlanInput } from "@shared/schemas/mount-plan.ts";
+import { issuesToFields } from "@shared/schemas/errors.ts";
+import { computePlan, planDrawing } from "@shared/domain/mount-plan/index.ts";
+import { planInputFor } from "@shared/domain/mounting.ts";
+import { formatLength } from "@shared/domain/units.ts";
+import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
+import { Button } from "@/components/ui/button.tsx";
+import { Notice } from "@/components/ui/feedback.tsx";
+import { PlanDrawing } from "@/components/plan-drawing.tsx";
+import { ChecksList, LevelBadge } from "@/components/checks-list.tsx";
+import { ApiError } from "@/lib/api-client.ts";
+import { ATTACHMENT_LABELS, ADHESIVE_LABELS } from "./labels.ts";
+
+type FormData = Omit<MountingDataInput, "plan">;
+export type MountingFormValues = { reason: string; mountedOn: string; correctionReason: string; data: FormData };
+export type MountingFormMode = "new" | "draft" | "correct";
+
+const HINGED = ["t-hinge", "v-hinge", "pendant-hinge", "pass-through-hinge"];
+const num = { setValueAs: (v: unknown) => (v === "" || v === null || v === undefined ? null : Number(v)) };
+const bool = { setValueAs: (v: unknown) => v === "yes" || v === true };
+
+export function emptyMountingData(planInput: MountPlanInput, hasTopBoard: boolean): FormData {
+  const board = { grade: "museum" as const, buffered: false, ply: 4 as const, colour: "", maker: "", batch: "" };
+  return {
+    boards: { window: { ...board, colour: "Warm white" }, backing: { ...board }, ...(hasTopBoard ? { top: { ...board } } : {}) },
+    attachment: { method: "t-hinge", tissue: "Japanese tissue (kozo)", tissueWeightGsm: null, adhesive: "wheat-starch-paste", hinges: [] },
+    glazing: { type: planInput.glazing?.uvFiltering === false ? "float-glass" : planInput.glazing?.material === "acrylic" ? "uv-acrylic" : "uv-glass", thicknessMm: null },
+    spacer: { type: "", depthMm: null },
+    frame: { moulding: "", finish: "", faceWidthMm: null, rebateDepthMm: null },
+    backing: { type: "archival-corrugated", notes: "" },
+    sealing: { type: "barrier-film", notes: "" },
+    hanging: { hardware: "D-rings, two wall points", wire: "", notes: "" },
+    undoNotes: "",
+    notes: "",
+  };
+}
+
+function resolverFor(planInput: MountPlanInput, mode: MountingFormMode): Resolver<MountingFormValues, unknown, MountingCreate & { correctionReason: string }> {
+  return async (values) => {
+    const body = { reason: values.reason, mountedOn: values.mountedOn, data: { ...values.data, plan: planInput } };
+    const parsed = MountingCreateSchema.safeParse(body);
+    const fields = parsed.success ? {} : issuesToFields(parsed.error.issues);
+    if (mode === "correct" && !values.correctionReason.trim()) fields.correctionReason = "Say why the record is corrected.";
+    if (parsed.success && Object.keys(fields).length === 0) return { values: { ...parsed.data, correctionReason: values.correctionReason.trim() }, errors: {} };
+    const errors: FieldErrors<MountingFormValues> = {};
+    for (const [k, message] of Object.entries(fields)) (errors as Record<string, unknown>)[k] = { type: "validate", message };
+    return { values: {}, errors: toNested(errors as Record<string, unknown>) };
+  };
+}
+
+/** react-hook-form wants nested errors: { data: { boards: { window: { grade: {…} } } } }. */
+function toNested(flat: Record<string, unknown>): FieldErrors<MountingFormValues> {
+  const out: Record<string, unknown> = {};
+  for (const [path, err] of Object.entries(flat)) {
+    const parts = path.split(".");
+    let cur = out;
+    parts.forEach((p, i) => {
+      if (i === parts.length - 1) cur[p] = err;
+      else cur = (cur[p] ??= {}) as Record<string, unknown>;
+    });
+  }
+  return out as FieldErrors<MountingFormValues>;
+}
+
+function errorAt(errors: FieldErrors<MountingFormValues>, path: string): string | undefined {
+  let cur: unknown = errors;
+  for (const p of path.split(".")) cur = (cur as Record<string, unknown> | undefined)?.[p];
+  return (cur as { message?: string } | undefined)?.message;
+}
+
+type Props = {
+  mode: MountingFormMode;
+  planInput: MountPlanInput;
+  settings: { minOverlapMm: number; rebateClearanceMm: number };
+  initial?: { reason: string; mountedOn: string; data: MountingData | FormData };
+  onSubmit: (values: MountingCreate & { correctionReason: string }) => Promise<void>;
+  onCancel: () => void;
+};
+
+export function MountingForm({ mode, planInput, settings, initial, onSubmit, onCancel }: Props) {
+  const hasTop = !!planInput.doubleMount;
+  const defaults: MountingFormValues = {
+    reason: initial?.reason ?? "first-mounting",
+    mountedOn: initial?.mountedOn ?? format(new Date(), "yyyy-MM-dd"),
+    correctionReason: "",
+    data: initial ? stripPlan(initial.data) : emptyMountingData(planInput, hasTop),
+  };
+  const form = useForm<MountingFormValues, unknown, MountingCreate & { correctionReason: string }>({ defaultValues: defaults, resolver: resolverFor(planInput, mode) });
+  const { register, control, setValue, getValues, formState, setError } = form;
+  const hinges = useFieldArray({ control, name: "data.attachment.hinges" });
+  const watched = useWatch({ control }) as MountingFormValues;
+  const [serverError, setServerError] = useState<string | null>(null);
+  const e = formState.errors;
+  const err = (p: string) => errorAt(e, p);
+
+  // Live: the plan recomputed with the materials as they are chosen, the same function the server uses.
+  const live = useMemo(() => {
+    const parsed = MountingDataSchema.safeParse({ ...watched.data, plan: planInput });
+    const data = parsed.success ? parsed.data : null;
+    const r = computePlan(data ? planInputFor(data) : MountPlanInputSchema.parse(planInput), settings);
+    return { result: r, complete: parsed.success };
+  }, [watched, planInput, settings]);
+  const geometry = live.result.ok ? live.result.geometry : null;
+  const unit = planInput.unit;
+  const hingeMarks = (watched.data?.attachment?.hinges ?? []).filter(Boolean).map((h) => ({ edge: h.edge, offset: Number(h.offsetMm) || 0, width: Number(h.widthMm) || 0 }));
+  const model = geometry ? planDrawing(geometry, { length: (mm) => formatLength(mm, unit, { denominator: 16 }) }, hingeMarks) : null;
+  const method = watched.data?.attachment?.method ?? "";
+
+  function edgeLength(edge: string) {
+    if (!geometry) return 0;
+    return edge === "top" || edge === "bottom" ? geometry.sheet.width : geometry.sheet.height;
+  }
+  function moveHinge(i: number, delta: number) {
+    const h = getValues(`data.attachment.hinges.${i}`);
+    if (!h) return;
+    const max = Math.max(0, edgeLength(h.edge) - Number(h.widthMm || 0));
+    setValue(`data.attachment.hinges.${i}.offsetMm`, Math.min(max, Math.max(0, Math.round(Number(h.offsetMm || 0) + delta))), { shouldDirty: true });
+  }
+  function placeHinges() {
+    if (!geometry) return;
+    const w = geometry.sheet.width;
+    const n = w > 600 ? 4 : w > 300 ? 3 : 2;
+    const width = Math.min(25, Math.round(w / (n * 3)));
+    hinges.replace(Array.from({ length: n }, (_, i) => ({ edge: "top" as const, offsetMm: Math.round(((i + 0.5) * w) / n - width / 2), widthMm: width })));
+  }
+
+  const submit = form.handleSubmit(async (values) => {
+    setServerError(null);
+    try {
+      await onSubmit(values);
+    } catch (x) {
+      const apiError = x instanceof ApiError ? x : new ApiError(0, "internal", String(x));
+      setServerError(apiError.message);
+      for (const [k, message] of Object.entries(apiError.fields)) setError(k as Path<MountingFormValues>, { type: "server", message });
+    }
+  });
+
+  const Board = ({ role, label }: { role: "window" | "backing" | "top"; label: string }) => (
+    <fieldset className="rounded-card border border-stone-light p-3">
+      <legend className="px-1 text-sm font-semibold">{label}</legend>
+      <div className="grid grid-cols-2 gap-3 md:grid-cols-3">
+        <SelectField label="Grade" error={err(`data.boards.${role}.grade`)} {...register(`data.boards.${role}.grade`)}>
+          {(Object.keys(BOARD_GRADE_LABELS) as (keyof typeof BOARD_GRADE_LABELS)[]).map((g) => <option key={g} value={g}>{BOARD_GRADE_LABELS[g]}</option>)}
+        </SelectField>
+        <SelectField label="Buffer" defaultValue={defaults.data.boards[role]?.buffered ? "yes" : "no"} error={err(`data.boards.${role}.buffered`)} {...register(`data.boards.${role}.buffered`, bool)}>
+          <option value="no">Unbuffered</option>
+          <option value="yes">Buffered</option>
+        </SelectField>
+        <SelectField label="Thickness" error={err(`data.boards.${role}.ply`)} {...register(`data.boards.${role}.ply`, { setValueAs: (v) => Number(v) })}>
+          {[2, 4, 6, 8].map((p) => <option key={p} value={p}>{p}-ply</option>)}
+        </SelectField>
+        <TextField label="Colour" error={err(`data.boards.${role}.colour`)} {...register(`data.boards.${role}.colour`)} />
+        <TextField label="Maker" error={err(`data.boards.${role}.maker`)} {...register(`data.boards.${role}.maker`)} />
+        <TextField label="Maker's batch" error={err(`data.boards.${role}.batch`)} {...register(`data.boards.${role}.batch`)} />
+      </div>
+      <label className="mt-2 flex items-center gap-2 text-sm">
+        <input type="checkbox" className="h-4 w-4" {...register(`data.boards.${role}.patPassed`)} /> Passed the Photographic Activity Test (ISO 18916)
+      </label>
+    </fieldset>
+  );
+
+  return (
+    <div className="grid gap-6 xl:grid-cols-[minmax(24rem,30rem)_1fr]">
+      <form onSubmit={submit} noValidate className="space-y-4" aria-label="Mounting record">
+        {serverError && <Notice tone="fail" title="Not saved">{serverError}</Notice>}
+        {mode === "correct" && (
+          <div className="rounded-card bg-paper-sheet p-4 shadow-card">
+            <Notice tone="info" title="A correction">The completed record stays as it was; this saves a new revision with your reason, and both stay readable.</Notice>
+            <TextAreaField label="Reason for the correction" wrapClassName="mt-3" error={err("correctionReason")} {...register("correctionReason")} />
+          </div>
+        )}
+        <section className="grid grid-cols-2 gap-3 rounded-card bg-paper-sheet p-4 shadow-card">
+          <SelectField label="Reason" disabled={mode === "correct"} error={err("reason")} {...register("reason")}>
+            {MOUNTING_REASONS.map((r) => <option key={r} value={r}>{MOUNTING_REASON_LABELS[r]}</option>)}
+          </SelectField>
+          <TextField label="Date mounted" type="date" disabled={mode === "correct"} error={err("mountedOn")} {...register("mountedOn")} />
+        </section>
+
+        <section className="space-y-3 rounded-card bg-paper-sheet p-4 shadow-card">
+          <h2 className="font-semibold">Boards</h2>
+          <Board role="window" label="Window board" />
+          {hasTop && <Board role="top" label="Top board (double mount)" />}
+          <Board role="backing" label="Backing board" />
+        </section>
+
+        <section className="space-y-3 rounded-card bg-paper-sheet p-4 shadow-card">
+          <h2 className="font-semibold">Attachment</h2>
+          <div className="grid grid-cols-2 gap-3">
+            <SelectField label="Method" error={err("data.attachment.method")} {...register("data.attachment.method")}>
+              {ATTACHMENT_METHODS.map((m) => <option key={m} value={m}>{ATTACHMENT_LABELS[m]}</option>)}
+            </SelectField>
+            <SelectField label="Adhesive" error={err("data.attachment.adhesive")} {...register("data.attachment.adhesive", { setValueAs: (v) => (v === "" ? null : v) })}>
+              <option value="">None given</option>
+              {ADHESIVES.map((a) => <option key={a} value={a}>{ADHESIVE_LABELS[a]}</option>)}
+            </SelectField>
+            <TextField label="Tissue" error={err("data.attachment.tissue")} {...register("data.attachment.tissue")} />
+            <TextField label="Tissue weight (g/m²)" inputMode="decimal" error={err("data.attachment.tissueWeightGsm")} {...register("data.attachment.tissueWeightGsm", num)} />
+          </div>
+          {HINGED.includes(method) && (
+            <div className="space-y-2">
+              <div className="flex items-center justify-between">
+                <h3 className="text-sm font-semibold">Hinges ({hinges.fields.length})</h3>
+                <div className="flex gap-2">
+                  <Button variant="quiet" onClick={placeHinges}>Spread along the top</Button>
+                  <Button variant="quiet" onClick={() => hinges.append({ edge: "top", offsetMm: 10, widthMm: 25 })}>Add a hinge</Button>
+                </div>
+              </div>
+              {err("data.attachment.hinges") && <p role="alert" className="text-sm text-fail">▲ {err("data.attachment.hinges")}</p>}
+              <p className="text-xs text-graphite">Drag a hinge on the drawing, or select it and use the arrow keys. Positions are from the sheet's left (or top) corner, in mm.</p>
+              {hinges.fields.map((f, i) => (
+                <div key={f.id} className="grid grid-cols-[1fr_6rem_6rem_auto] items-end gap-2">
+                  <SelectField label={`Hinge ${i + 1} edge`} {...register(`data.attachment.hinges.${i}.edge`)}>
+                    {SIDES.map((s) => <option key={s} value={s}>{s[0].toUpperCase() + s.slice(1)}</option>)}
+                  </SelectField>
+                  <TextField label="From corner" inputMode="decimal" className="num" error={err(`data.attachment.hinges.${i}.offsetMm`)} {...register(`data.attachment.hinges.${i}.offsetMm`, num)} />
+                  <TextField label="Width" inputMode="decimal" className="num" error={err(`data.attachment.hinges.${i}.widthMm`)} {...register(`data.attachment.hinges.${i}.widthMm`, num)} />
+                  <Button variant="quiet" aria-label={`Remove hinge ${i + 1}`} onClick={() => hinges.remove(i)}>Remove</Button>
+                </div>
+              ))}
+            </div>
+          )}
+        </section>
+
+        <section className="grid grid-cols-2 gap-3 rounded-card bg-paper-sheet p-4 shadow-card">
+          <h2 className="col-span-full font-semibold">Glazing, spacer and frame</h2>
+          <SelectField label="Glazing" error={err("data.glazing.type")} {...register("data.glazing.type")}>
+            {GLAZING_TYPES.map((g) => <option key={g} value={g}>{GLAZING_TYPE_LABELS[g]}</option>)}
+          </SelectField>
+          <TextField label="Glazing thickness (mm)" inputMode="decimal" error={err("data.glazing.thicknessMm")} {...register("data.glazing.thicknessMm", num)} />
+          <TextField label="Spacer" error={err("data.spacer.type")} {...register("data.spacer.type")} />
+          <TextField label="Spacer depth (mm)" inputMode="decimal" error={err("data.spacer.depthMm")} {...register("data.spacer.depthMm", num)} />
+          <TextField label="Moulding" error={err("data.frame.moulding")} {...register("data.frame.moulding")} />
+          <TextField label="Finish" error={err("data.frame.finish")} {...register("data.frame.finish")} />
+          <TextField label="Moulding face (mm)" inputMode="decimal" error={err("data.frame.faceWidthMm")} {...register("data.frame.faceWidthMm", num)} />
+          <TextField label="Rebate depth (mm)" inputMode="decimal" error={err("data.frame.rebateDepthMm")} {...register("data.frame.rebateDepthMm", num)} />
+          <SelectField label="Backing" error={err("data.backing.type")} {...register("data.backing.type")}>
+            {BACKING_TYPES.map((b) => <option key={b} value={b}>{BACKING_TYPE_LABELS[b]}</option>)}
+          </SelectField>
+          <SelectField label="Sealing" error={err("data.sealing.type")} {...register("data.sealing.type")}>
+            {SEALING_TYPES.map((b) => <option key={b} value={b}>{SEALING_TYPE_LABELS[b]}</option>)}
+          </SelectField>
+          <TextField label="Hanging hardware" error={err("data.hanging.hardware")} {...register("data.hanging.hardware")} />
+          <TextField label="Wire" error={err("data.hanging.wire")} {...register("data.hanging.wire")} />
+          <p className="col-span-full text-xs text-graphite">Hang from hardware and wall fixings rated well above the framed weight, on two wall points; follow the hardware maker's ratings and local building codes.</p>
+        </section>
+
+        <section className="space-y-3 rounded-card bg-paper-sheet p-4 shadow-card">
+          <TextAreaField label="How to undo this mounting" rows={4} error={err("data.undoNotes")} hint="What the next framer must release, and how: e.g. which hinges, the paste used, how to release it." {...register("data.undoNotes")} />
+          <TextAreaField label="Other notes" error={err("data.notes")} {...register("data.notes")} />
+        </section>
+
+        <div className="flex gap-3">
+          <Button type="submit" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : mode === "correct" ? "Save the correction" : "Save draft"}</Button>
+          <Button variant="secondary" onClick={onCancel}>Cancel</Button>
+        </div>
+      </form>
+
+      <section aria-label="The plan with these materials" className="space-y-4 xl:sticky xl:top-6 xl:self-start">
+        {live.result.ok && <LevelBadge level={live.result.plan.level} />}
+        <div className="rounded-card bg-paper-sheet p-4 shadow-card">
+          {model ? (
+            <PlanDrawing model={model} title="The mount drawn to scale with the hinges" onHingeMove={moveHinge} hingeEdges={hingeMarks.map((h) => h.edge)} />
+          ) : (
+            <Notice tone="warn" title="The plan cannot be drawn">Open the planner from the object's page and fix the plan first.</Notice>
+          )}
+        </div>
+        {live.result.ok && (
+          <div className="rounded-card bg-paper-sheet p-4 text-sm shadow-card">
+            <h3 className="mb-2 font-semibold">Conservation checks with these materials</h3>
+            {!live.complete && <p className="mb-2 text-xs text-warn">▲ Some entries are missing; the checks below use what is filled in.</p>}
+            <ChecksList checks={live.result.plan.checks} />
+          </div>
+        )}
+      </section>
+    </div>
+  );
+}
+
+function stripPlan(d: MountingData | FormData): FormData {
+  const { plan: _p, ...rest } = d as MountingData;
+  return rest as FormData;
+}
