@@ -175,7 +175,8 @@ export function conservationChecks(g: PlanGeometry, input: MountPlanParsed, f: F
       r7.push("A hanging work is hinged along the top edge only, so the sheet can move with humidity.");
     }
     const longSide = Math.max(g.sheet.width, g.sheet.height);
-    const wanted = g.sheet.width > 600 ? 4 : g.sheet.width > 300 ? 3 : 2;
+    // Two hinges, and one more for every further 350 mm or so of top edge: common practice (no source).
+    const wanted = Math.max(2, Math.ceil(g.sheet.width / 350));
     if (m.hingeCount !== undefined && m.hingeCount < wanted) {
       v7 = worstVerdict([v7, "warn"]);
       r7.push(`${m.hingeCount} hinge${m.hingeCount === 1 ? "" : "s"} for a sheet ${fmt(g.sheet.width)} wide; ${wanted} or more spread along the top suit this size${longSide > 800 ? " and weight" : ""}.`);

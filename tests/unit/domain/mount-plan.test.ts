@@ -573,10 +573,12 @@ describe("conservation checks", () => {
 
     it("when hinges run along more than the top edge, or are too few for the size, then it warns", () => {
       expect(verdict("hinge-placement", mat({ hingeEdge: "all-edges" }))).toBe("warn");
-      // A 420 mm wide A2 sheet (ISO 216) wants three or more hinges.
-      const c = checkOf(base({ sheet: { width: 420, height: 594 }, ...mat({ hingeCount: 2 }) }), "hinge-placement");
+      // An 841 mm wide A1 sheet on its side (ISO 216) wants three or more hinges: two, plus one per further
+      // 350 mm or so of top edge (common practice (no source)).
+      const c = checkOf(base({ sheet: { width: 841, height: 594 }, ...mat({ hingeCount: 2 }) }), "hinge-placement");
       expect(c.verdict).toBe("warn");
       expect(c.reason).toContain("3 or more");
+      expect(checkOf(base({ sheet: { width: 420, height: 594 }, ...mat({ hingeCount: 2 }) }), "hinge-placement").verdict).toBe("pass");
     });
 
     it("when a sheet floats on T-hinges, then it fails; on corners, then it warns; on edge strips, then it passes", () => {

@@ -36,7 +36,8 @@ export type MountingFormMode = "new" | "draft" | "correct";
 
 const HINGED = ["t-hinge", "v-hinge", "pendant-hinge", "pass-through-hinge"];
 const num = { setValueAs: (v: unknown) => (v === "" || v === null || v === undefined ? null : Number(v)) };
-const bool = { setValueAs: (v: unknown) => v === "yes" || v === true };
+// Option values are "true"/"false", so the stored boolean selects its option and reads back as a boolean.
+const bool = { setValueAs: (v: unknown) => v === "true" || v === true };
 
 export function emptyMountingData(planInput: MountPlanInput, hasTopBoard: boolean): FormData {
   const board = { grade: "museum" as const, buffered: false, ply: 4 as const, colour: "", maker: "", batch: "" };
@@ -138,7 +139,7 @@ export function MountingForm({ mode, planInput, settings, initial, onSubmit, onC
   function placeHinges() {
     if (!geometry) return;
     const w = geometry.sheet.width;
-    const n = w > 600 ? 4 : w > 300 ? 3 : 2;
+    const n = Math.max(2, Math.ceil(w / 350));
     const width = Math.min(25, Math.round(w / (n * 3)));
     hinges.replace(Array.from({ length: n }, (_, i) => ({ edge: "top" as const, offsetMm: Math.round(((i + 0.5) * w) / n - width / 2), widthMm: width })));
   }
@@ -158,12 +159,12 @@ export function MountingForm({ mode, planInput, settings, initial, onSubmit, onC
     <fieldset className="rounded-card border border-stone-light p-3">
       <legend className="px-1 text-sm font-semibold">{label}</legend>
       <div className="grid grid-cols-2 gap-3 md:grid-cols-3">
-        <SelectField label="Grade" error={err(`data.boards.${role}.grade`)} {...register(`data.boards.${role}.grade`)}>
+        <SelectField label="Grade" wrapClassName="col-span-2 md:col-span-1" error={err(`data.boards.${role}.grade`)} {...register(`data.boards.${role}.grade`)}>
           {(Object.keys(BOARD_GRADE_LABELS) as (keyof typeof BOARD_GRADE_LABELS)[]).map((g) => <option key={g} value={g}>{BOARD_GRADE_LABELS[g]}</option>)}
         </SelectField>
-        <SelectField label="Buffer" defaultValue={defaults.data.boards[role]?.buffered ? "yes" : "no"} error={err(`data.boards.${role}.buffered`)} {...register(`data.boards.${role}.buffered`, bool)}>
-          <option value="no">Unbuffered</option>
-          <option value="yes">Buffered</option>
+        <SelectField label="Buffer" error={err(`data.boards.${role}.buffered`)} {...register(`data.boards.${role}.buffered`, bool)}>
+          <option value="false">Unbuffered</option>
+          <option value="true">Buffered</option>
         </SelectField>
         <SelectField label="Thickness" error={err(`data.boards.${role}.ply`)} {...register(`data.boards.${role}.ply`, { setValueAs: (v) => Number(v) })}>
           {[2, 4, 6, 8].map((p) => <option key={p} value={p}>{p}-ply</option>)}
