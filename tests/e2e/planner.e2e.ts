@@ -1,23 +1,14 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import type { BrowserContext } from "playwright-core";
-import { launch, signIn, watch } from "./support/browser.ts";
+import { describe, expect, inject, it } from "vitest";
+import { signIn, useBrowser } from "./support/browser.ts";
 
 const baseUrl = inject("baseUrl");
-let ctx: { context: BrowserContext; close: () => Promise<void> };
-beforeAll(async () => {
-  ctx = await launch();
-});
-afterAll(async () => {
-  await ctx?.close();
-});
+const browser = useBrowser(baseUrl);
 
 const windowRect = (page: import("playwright-core").Page) => page.locator('[data-testid="plan-drawing"] rect[data-role="window"]');
 
 describe("planner journey", () => {
   it("when a framer types a sheet size in inches, then the aperture and the drawing update as they type", async () => {
-    await ctx.context.clearCookies();
-    const page = await ctx.context.newPage();
-    const w = watch(page, baseUrl);
+    const { page, w } = await browser.fresh();
     await signIn(page, baseUrl, "framer@reversa.test");
     await page.getByRole("link", { name: "Planner" }).click();
     await page.getByRole("heading", { name: "Planner" }).waitFor();
@@ -49,9 +40,7 @@ describe("planner journey", () => {
   });
 
   it("when a framer plans from an object and saves the draft, then the object page shows the plan", async () => {
-    await ctx.context.clearCookies();
-    const page = await ctx.context.newPage();
-    const w = watch(page, baseUrl);
+    const { page, w } = await browser.fresh();
     await signIn(page, baseUrl, "framer@reversa.test");
     await page.goto(`${baseUrl}/objects?q=botanical%20rose`);
     await page.getByRole("link", { name: "2026-0014" }).click();

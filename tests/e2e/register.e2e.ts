@@ -1,22 +1,10 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import type { BrowserContext, Page } from "playwright-core";
-import { launch, signIn, watch, type Watch } from "./support/browser.ts";
+import { describe, expect, inject, it } from "vitest";
+import { signIn, useBrowser } from "./support/browser.ts";
 
 const baseUrl = inject("baseUrl");
-let ctx: { context: BrowserContext; close: () => Promise<void> };
+const browser = useBrowser(baseUrl);
 
-beforeAll(async () => {
-  ctx = await launch();
-});
-afterAll(async () => {
-  await ctx?.close();
-});
-
-async function freshPage(): Promise<{ page: Page; w: Watch }> {
-  await ctx.context.clearCookies();
-  const page = await ctx.context.newPage();
-  return { page, w: watch(page, baseUrl) };
-}
+const freshPage = () => browser.fresh();
 
 describe("framer journey: record an object and find it", () => {
   it("when a framer signs in after asking for a page, then they land on that page", async () => {

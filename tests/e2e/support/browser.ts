@@ -1,3 +1,4 @@
+import { afterAll, beforeAll } from "vitest";
 import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
 import fs from "node:fs";
 import os from "node:os";
@@ -48,4 +49,22 @@ export async function signIn(page: Page, baseUrl: string, email: string, passwor
   await page.getByLabel("Password").fill(password);
   await page.getByRole("button", { name: "Sign in" }).click();
   await page.waitForURL((u) => !u.pathname.startsWith("/sign-in"));
+}
+
+/** One Chromium per spec file: call at the top of the file; `fresh()` gives a signed-out page and its watch. */
+export function useBrowser(baseUrl: string) {
+  let ctx: Awaited<ReturnType<typeof launch>> | undefined;
+  beforeAll(async () => {
+    ctx = await launch();
+  });
+  afterAll(async () => {
+    await ctx?.close();
+  });
+  return {
+    async fresh(): Promise<{ page: Page; w: Watch }> {
+      await ctx!.context.clearCookies();
+      const page = await ctx!.context.newPage();
+      return { page, w: watch(page, baseUrl) };
+    },
+  };
 }
