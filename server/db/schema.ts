@@ -127,6 +127,8 @@ export const objects = sqliteTable(
     lastMountedOn: text("last_mounted_on"),
     lastConditionOn: text("last_condition_on"),
     checkDueOn: text("check_due_on"),
+    /** Hash of the object's newest history event, so a history cut short at its end is caught too. */
+    historyHead: text("history_head"),
     ...timestamps,
   },
   (t) => [

@@ -3,8 +3,14 @@ import { openDatabase } from "./client.ts";
 import { loadConfig } from "../lib/config.ts";
 import { verifyChains } from "../features/history/history.chain.ts";
 
+import fs from "node:fs";
+
 const { databaseUrl } = loadConfig();
-const handle = openDatabase(databaseUrl);
+if (!fs.existsSync(databaseUrl)) {
+  console.error(`There is no database at ${databaseUrl}; set DATABASE_URL to the file to check.`);
+  process.exit(2);
+}
+const handle = openDatabase(databaseUrl, { migrate: false });
 const verdict = verifyChains(handle.db);
 handle.close();
 if (verdict.ok) {

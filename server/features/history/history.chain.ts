@@ -1,7 +1,7 @@
 import { createHash } from "node:crypto";
 import { and, asc, desc, eq, gt, inArray, lt, sql } from "drizzle-orm";
 import type { Db } from "../../db/client.ts";
-import { events } from "../../db/schema.ts";
+import { events, objects } from "../../db/schema.ts";
 import type { ChainVerdict, EventType, HistoryEvent, HistoryQuery } from "../../../shared/schemas/history.ts";
 
 /** JSON with object keys sorted at every level, so the same content always hashes the same. */
@@ -47,6 +47,7 @@ export function appendEvent(db: Db, e: { objectId: string; type: EventType; acto
     .values({ ...content, at: new Date(content.at), data: content.data as Record<string, unknown>, hash })
     .returning({ seq: events.seq })
     .get();
+  db.update(objects).set({ historyHead: hash }).where(eq(objects.id, e.objectId)).run();
   return { seq: row.seq, objectId: e.objectId, type: e.type, at: new Date(content.at).toISOString(), actorName: e.actor.name, summary: e.summary, data: content.data as Record<string, unknown>, hash };
 }
 
@@ -103,6 +104,16 @@ export function verifyChains(db: Db, objectId?: string): ChainVerdict {
       checked++;
     }
     after = rows[rows.length - 1].seq;
+  }
+  // Each object's newest event must be the one its head records: events cut from the end show here.
+  const heads = objectId
+    ? db.select({ id: objects.id, head: objects.historyHead }).from(objects).where(eq(objects.id, objectId)).all()
+    : db.select({ id: objects.id, head: objects.historyHead }).from(objects).all();
+  for (const h of heads) {
+    if ((last.get(h.id) ?? null) !== (h.head ?? null)) {
+      const lastSeq = db.select({ seq: events.seq }).from(events).where(eq(events.objectId, h.id)).orderBy(desc(events.seq)).limit(1).get()?.seq ?? 0;
+      return { ok: false, checked, brokenAt: { seq: lastSeq, objectId: h.id, reason: "the object's history ends before its recorded newest event (events were removed from the end)" } };
+    }
   }
   return { ok: true, checked };
 }

@@ -80,6 +80,8 @@ export function createMountingsService(db: Db) {
 
   function write(user: SessionUser, id: string) {
     const l = load(user, id);
+    // A draft is invisible to those who may not write it (GET answers 404), so a write must not reveal it either.
+    if (l.row.status === "draft" && !assertCanWrite(user, l.o)) throw notFound("That mounting record");
     assertCan(user, "mounting:write", { clientId: l.o.clientId }, { readAction: "mounting:read", what: "That mounting record" });
     return l;
   }
@@ -132,8 +134,21 @@ export function createMountingsService(db: Db) {
       const plan = planFor(data);
       const ok = db.transaction((t) => {
         const d = tx(t);
-        if (!repo.setStatus(d, row, version, { status: "completed", completedAt: new Date(), completedBy: user.id })) return false;
         const previous = repo.currentCompleted(d, row.objectId, row.id);
+        // A mounting dated before the current one is an earlier mounting recorded afterwards: it goes into
+        // the history as already superseded, and the current mount stays as it is.
+        if (previous && row.mountedOn < previous.mountedOn) {
+          if (!repo.setStatus(d, row, version, { status: "superseded", supersededById: previous.id, completedAt: new Date(), completedBy: user.id, endedOn: previous.mountedOn, endReason: `Superseded by the mounting of ${previous.mountedOn}.` })) return false;
+          appendEvent(d, {
+            objectId: row.objectId,
+            type: "mounted",
+            actor: user,
+            summary: `Earlier mounting of ${row.mountedOn} recorded afterwards: ${mountSummary(data, plan)}.`,
+            data: { mountingId: row.id, revision: row.currentRevision, recordedLater: true },
+          });
+          return true;
+        }
+        if (!repo.setStatus(d, row, version, { status: "completed", completedAt: new Date(), completedBy: user.id })) return false;
         if (previous) repo.setStatus(d, previous, previous.version, { status: "superseded", supersededById: row.id, endedOn: row.mountedOn, endReason: `Superseded by the ${MOUNTING_REASON_LABELS[row.reason as keyof typeof MOUNTING_REASON_LABELS].toLowerCase()} of ${row.mountedOn}.` });
         repo.setObjectCurrentMount(d, row.objectId, { id: row.id, data, mountedOn: row.mountedOn });
         const summary = mountSummary(data, plan);

@@ -1,0 +1,1 @@
+ALTER TABLE `objects` ADD `history_head` text;
