@@ -14,9 +14,14 @@ import http from "node:http";
 import net from "node:net";
 import { computePlan } from "../shared/domain/mount-plan/index.ts";
 import { MountPlanInputSchema } from "../shared/schemas/mount-plan.ts";
+import { MountingDataSchema, type MountingDataInput } from "../shared/schemas/mountings.ts";
+import { boardBatches } from "../shared/domain/mounting.ts";
+import { eventHash, verifyChains } from "../server/features/history/history.chain.ts";
 
 const OBJECTS = Number(process.env.BENCH_OBJECTS ?? 100_000);
 const RUNS = Number(process.env.BENCH_RUNS ?? 200);
+const EVENTS = Number(process.env.BENCH_EVENTS ?? 500_000);
+const MOUNTED = Number(process.env.BENCH_MOUNTINGS ?? 20_000);
 
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-bench-"));
 const file = path.join(dir, "bench.db");
@@ -26,7 +31,8 @@ const { db, sqlite } = database;
 console.log(`Seeding ${OBJECTS.toLocaleString("en-GB")} objects into ${file} …`);
 const t0 = performance.now();
 const clients = Array.from({ length: 40 }, (_, i) => makeClient(db, { kind: i % 4 === 0 ? "institution" : "private", name: `Bench client ${i + 1}` }));
-await makeUser(db, { email: "framer@bench.test", name: "Bench framer", role: "framer", password: "bench-password" });
+const framerId = await makeUser(db, { email: "framer@bench.test", name: "Bench framer", role: "framer", password: "bench-password" });
+const adminId = await makeUser(db, { email: "admin@bench.test", name: "Bench admin", role: "admin", password: "bench-password" });
 await makeUser(db, { email: "collector@bench.test", name: "Bench collector", role: "collector", clientId: clients[3].id, password: "bench-password" });
 const WORDS = "estuary harbour garden pear fern heron meadow lake map rose hawthorn sampler hands orchard tram birch pebbles poster deed crew tide fleet nets quay".split(" ");
 const MAKERS = ["Ilse Korrow", "Amadou Fenn", "Hollis Dray", "Cordelia Vane", "Anselm Toller", "Odran Keyes", "Unknown maker", "Ruth Calloway-Ng"];
@@ -55,6 +61,141 @@ sqlite.transaction(() => {
 })();
 sqlite.pragma("optimize");
 console.log(`Seeded in ${((performance.now() - t0) / 1000).toFixed(1)} s.`);
+
+// ── Mountings: MOUNTED objects in a completed mount (every fifth object), a fifth of them reframed
+// (an earlier, superseded record), half corrected once (revision 2 with another window batch);
+// the objects' register columns set as the mountings service sets them. ────────────────────────────
+const HINGES = [{ edge: "top", offsetMm: 40, widthMm: 25 }, { edge: "top", offsetMm: 145, widthMm: 25 }] as const;
+const MOUNT_KINDS: MountingDataInput[] = [
+  { attachment: { method: "t-hinge", adhesive: "wheat-starch-paste", tissue: "Kozo", hinges: [...HINGES] }, grade: "museum", glazing: "uv-glass" },
+  { attachment: { method: "corners", hinges: [] }, grade: "conservation", glazing: "ar-uv-glass" },
+  { attachment: { method: "v-hinge", adhesive: "wheat-starch-paste", hinges: [...HINGES] }, grade: "museum", glazing: "uv-acrylic" },
+  { attachment: { method: "sink-mount", hinges: [] }, grade: "museum", glazing: "float-glass" },
+  { attachment: { method: "edge-strips", hinges: [] }, grade: "conservation", glazing: "acrylic" },
+].map(({ attachment, grade, glazing }) => ({
+  plan: { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 60 } },
+  boards: { window: { grade, buffered: false, ply: 4, batch: "" }, backing: { grade, buffered: false, ply: 4, batch: "" } },
+  attachment,
+  glazing: { type: glazing, thicknessMm: 2 },
+  undoNotes: "Release the sheet as recorded; nothing else is stuck to it.",
+})) as MountingDataInput[];
+const isoDay = (ms: number) => new Date(ms).toISOString().slice(0, 10);
+const DAY = 86_400_000;
+const EPOCH = Date.UTC(2016, 0, 1);
+const mountingData = (kind: number, windowBatch: string, backingBatch: string) => {
+  const d = structuredClone(MOUNT_KINDS[kind % MOUNT_KINDS.length]);
+  d.boards.window.batch = windowBatch;
+  d.boards.backing.batch = backingBatch;
+  return MountingDataSchema.parse(d);
+};
+const objectIds = (sqlite.prepare("select id from objects order by rowid").all() as { id: string }[]).map((r) => r.id);
+const tm = performance.now();
+const insMounting = sqlite.prepare(
+  `insert into mountings (id, object_id, status, reason, mounted_on, framer_id, framer_name, current_revision, method, board_grade, glazing, superseded_by_id, completed_at, completed_by, ended_on, end_reason, created_by)
+   values (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
+);
+const insRevision = sqlite.prepare(`insert into mounting_revisions (id, mounting_id, revision, data, correction_reason, created_by, created_by_name) values (?, ?, ?, ?, ?, ?, ?)`);
+const insBatch = sqlite.prepare(`insert into mounting_batches (mounting_id, revision, role, batch) values (?, ?, ?, ?)`);
+const setRegister = sqlite.prepare(
+  `update objects set current_mounting_id = ?, current_method = ?, current_board_grade = ?, current_glazing = ?, last_mounted_on = ?, check_due_on = ? where id = ?`,
+);
+let mountingRows = 0;
+let revisionRows = 0;
+let batchRows = 0;
+const step = Math.max(1, Math.floor(objectIds.length / MOUNTED));
+sqlite.transaction(() => {
+  for (let k = 0; k < MOUNTED && k * step < objectIds.length; k++) {
+    const objectId = objectIds[k * step];
+    const byAdmin = k % 3 === 0;
+    const framer = byAdmin ? { id: adminId, name: "Bench admin" } : { id: framerId, name: "Bench framer" };
+    const mountedOnMs = EPOCH + ((k * 7919) % 3300) * DAY + 200 * DAY;
+    const mountedOn = isoDay(mountedOnMs);
+    const id = randomUUID();
+    const writeRevisions = (mid: string, kind: number, revs: [string, string][]) => {
+      revs.forEach(([w, b], i) => {
+        const data = mountingData(kind, w, b);
+        insRevision.run(randomUUID(), mid, i + 1, JSON.stringify(data), i === 0 ? null : "The window board came from another delivery.", framer.id, framer.name);
+        revisionRows++;
+        for (const x of boardBatches(data)) {
+          insBatch.run(mid, i + 1, x.role, x.batch);
+          batchRows++;
+        }
+      });
+    };
+    if (k % 5 === 0) {
+      // The earlier mount, superseded by the current one.
+      const old = randomUUID();
+      const oldKind = (k + 1) % MOUNT_KINDS.length;
+      const d = MOUNT_KINDS[oldKind];
+      insMounting.run(old, objectId, "superseded", "first-mounting", isoDay(mountedOnMs - 1500 * DAY), framer.id, framer.name, 1, d.attachment.method, d.boards.window.grade, d.glazing.type, id, mountedOnMs - 1500 * DAY, framer.id, mountedOn, "Superseded by the reframing.", framer.id);
+      writeRevisions(old, oldKind, [[`MB-${String((k + 37) % 500).padStart(4, "0")}`, `BB-${String(k % 300).padStart(4, "0")}`]]);
+      mountingRows++;
+    }
+    const kind = k % MOUNT_KINDS.length;
+    const d = MOUNT_KINDS[kind];
+    const revs: [string, string][] = [[`MB-${String(k % 500).padStart(4, "0")}`, `BB-${String((k * 3) % 300).padStart(4, "0")}`]];
+    if (k % 2 === 0) revs.push([`MB-${String((k + 250) % 500).padStart(4, "0")}`, revs[0][1]]);
+    insMounting.run(id, objectId, "completed", k % 5 === 0 ? "reframing" : "first-mounting", mountedOn, framer.id, framer.name, revs.length, d.attachment.method, d.boards.window.grade, d.glazing.type, null, mountedOnMs, framer.id, null, null, framer.id);
+    writeRevisions(id, kind, revs);
+    mountingRows++;
+    // Checks spread 3 to 10 years after mounting (invented: as if later condition checks had moved them on),
+    // so that some thousands are due today and the "due" filter has real work.
+    const checkDue = isoDay(mountedOnMs + (3 + (k % 8)) * 365 * DAY);
+    setRegister.run(id, d.attachment.method, d.boards.window.grade, d.glazing.type, mountedOn, checkDue, objectId);
+  }
+})();
+console.log(
+  `Seeded ${mountingRows.toLocaleString("en-GB")} mounting records (${revisionRows.toLocaleString("en-GB")} revisions, ${batchRows.toLocaleString("en-GB")} batch rows) in ${((performance.now() - tm) / 1000).toFixed(1)} s.`,
+);
+
+// ── History: EVENTS events spread over the objects, interleaved in time as a studio's would be, each
+// chained to its object's previous event with the real hash, so verifyChains passes. One object in a
+// thousand has a long history (200 events), so the history page is read from a deep chain too. ──────
+const te = performance.now();
+const insEvent = sqlite.prepare(`insert into events (object_id, type, at, actor_id, actor_name, summary, data, prev_hash, hash) values (?, ?, ?, ?, ?, ?, ?, ?, ?)`);
+const LATER_TYPES = ["catalogue-changed", "valued", "plan-saved", "mounted", "condition-reported", "custody-in", "custody-out", "reframed", "mounting-corrected"] as const;
+// Planned events per object: 200 for one in a thousand, 1 to 8 for the rest, then topped up (or trimmed) one
+// event at a time so the total is exactly EVENTS.
+const counts = objectIds.map((_, i) => (i % 1000 === 0 ? 200 : 1 + ((i * 7) % 8)));
+let planned = counts.reduce((a, b) => a + b, 0);
+for (let i = 1; planned < EVENTS; i = (i + 1) % counts.length) if (i % 1000 !== 0) (counts[i]++, planned++);
+for (let i = counts.length - 1; planned > EVENTS && i >= 0; i--) while (planned > EVENTS && counts[i] > 1) (counts[i]--, planned--);
+const rounds = Math.max(...counts);
+const lastHash: (string | null)[] = new Array(objectIds.length).fill(null);
+let emitted = 0;
+sqlite.transaction(() => {
+  for (let round = 0; round < rounds; round++) {
+    for (let i = 0; i < objectIds.length && emitted < EVENTS; i++) {
+      if (round >= counts[i]) continue;
+      const type = round === 0 ? "created" : LATER_TYPES[(i + round) % LATER_TYPES.length];
+      const data: Record<string, unknown> =
+        type === "created"
+          ? { objectNumber: `${2000 + (i % 27)}-${String(i).padStart(6, "0")}` }
+          : type === "catalogue-changed"
+            ? { changes: [{ path: "location", before: `Rack ${round}`, after: `Rack ${round + 1}` }] }
+            : { round };
+      const content = {
+        objectId: objectIds[i],
+        type,
+        at: EPOCH + emitted * 60_000,
+        actorId: framerId,
+        actorName: "Bench framer",
+        summary: type === "created" ? "Recorded." : `${type.replace(/-/g, " ")} (${round}).`,
+        data,
+        prevHash: lastHash[i],
+      };
+      const hash = eventHash(content);
+      insEvent.run(content.objectId, content.type, content.at, content.actorId, content.actorName, content.summary, JSON.stringify(data), content.prevHash, hash);
+      lastHash[i] = hash;
+      emitted++;
+    }
+  }
+  // Each object's head is its newest event's hash, as appendEvent keeps it, so verifyChains also checks the ends.
+  const setHead = sqlite.prepare("update objects set history_head = ? where id = ?");
+  for (let i = 0; i < objectIds.length; i++) if (lastHash[i]) setHead.run(lastHash[i], objectIds[i]);
+})();
+console.log(`Seeded ${emitted.toLocaleString("en-GB")} history events with chained hashes in ${((performance.now() - te) / 1000).toFixed(1)} s.`);
+sqlite.pragma("optimize");
 
 const config = { ...loadConfig({ LOG_LEVEL: "silent", LOGIN_RATE_LIMIT: "1000", DATABASE_URL: file, NODE_ENV: "test" }), authSecret: "bench-secret-bench-secret-bench-secret-0000" };
 const { app } = createApp({ config, database });
@@ -94,7 +235,38 @@ await measure("register, sort by title desc, page 100", "/api/objects?sort=title
 await measure("register, collector's own objects", "/api/objects", collector);
 await measure("object page: GET /api/objects/:id", `/api/objects/${firstId}`, framer);
 
+// ── The object page, for an object with a current mount, a superseded one, a corrected revision and 200 events ──
+const mountedId = objectIds[0];
+const today = new Date().toISOString().slice(0, 10);
+const dueToday = (sqlite.prepare("select count(*) as n from objects where check_due_on <= ?").get(today) as { n: number }).n;
+console.log(`(${dueToday.toLocaleString("en-GB")} objects are due for a check today; the object page is read for one with two mountings, a corrected revision and 200 events.)`);
+console.log(`\nObject page (its API calls), register with mount columns, mountings register:`);
+await measure("object page: GET /api/objects/:id (mounted)", `/api/objects/${mountedId}`, framer);
+await measure("object page: …/mountings", `/api/objects/${mountedId}/mountings`, framer);
+await measure("object page: …/history?limit=50", `/api/objects/${mountedId}/history?limit=50`, framer);
+await measure("object page: …/plan", `/api/objects/${mountedId}/plan`, framer);
+const custody = await fetch(`${base}/api/objects/${mountedId}/custody`, { headers: { cookie: framer } });
+const custodyBody = (await custody.json()) as { error?: { message?: string } };
+if (custody.status === 404 && custodyBody.error?.message?.startsWith("There is no API route")) console.log("object page: …/custody".padEnd(44) + "(no such route yet: skipped)");
+else await measure("object page: …/custody", `/api/objects/${mountedId}/custody`, framer);
+await measure("register, filter method", "/api/objects?method=t-hinge", framer);
+await measure("register, filter board + glazing", "/api/objects?boardGrade=conservation&glazing=ar-uv-glass", framer);
+await measure("register, due for a check", `/api/objects?checkDueBy=${today}`, framer);
+await measure("register, due for a check by due date", `/api/objects?checkDueBy=${today}&sort=checkDueOn`, framer);
+await measure("register, sort by last mounted desc", "/api/objects?sort=lastMountedOn&dir=desc", framer);
+await measure("register, last mounted, page 500 (undated)", "/api/objects?sort=lastMountedOn&page=500", framer);
+await measure("register, status + method", "/api/objects?status=in-studio&method=corners", framer);
+await measure("mountings register, first page", "/api/mountings", framer);
+await measure("mountings register, batch filter", "/api/mountings?batch=mb-0123", framer);
+await measure("mountings register, framer + date range", `/api/mountings?framerId=${framerId}&from=2019-01-01&to=2020-12-31`, framer);
+await measure("mountings register, method + status", "/api/mountings?method=corners&status=superseded", framer);
+
 server.close();
+
+const tv = performance.now();
+const verdict = verifyChains(db);
+console.log(`\nverifyChains over ${verdict.checked.toLocaleString("en-GB")} events: ${verdict.ok ? "intact" : "BROKEN"} in ${((performance.now() - tv) / 1000).toFixed(2)} s`);
+if (!verdict.ok) throw new Error(`history chain broken: ${JSON.stringify(verdict.brokenAt)}`);
 
 // ── Mount planner: the pure computation ────────────────────────────────────
 const PLAN_INPUTS = [

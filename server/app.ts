@@ -18,6 +18,8 @@ import { clientRoutes } from "./features/clients/clients.routes.ts";
 import { objectRoutes } from "./features/objects/objects.routes.ts";
 import { mountPlanRoutes } from "./features/mount-plans/mount-plans.routes.ts";
 import { historyRoutes } from "./features/history/history.routes.ts";
+import { custodyRoutes } from "./features/custody/custody.routes.ts";
+import { mountingsRegisterRoutes } from "./features/mountings/mountings-register.routes.ts";
 import { mountingRoutes } from "./features/mountings/mountings.routes.ts";
 
 export type AppDeps = {
@@ -105,6 +107,8 @@ export function createApp({ config, database, clock = () => new Date() }: AppDep
   app.use("/api/clients", clientRoutes(db));
   app.use("/api", mountPlanRoutes(db));
   app.use("/api", historyRoutes(db));
+  app.use("/api", custodyRoutes(db, clock));
+  app.use("/api", mountingsRegisterRoutes(db));
   app.use("/api", mountingRoutes(db));
   app.use("/api/objects", objectRoutes(db, clock));
   app.use("/api", apiNotFound);

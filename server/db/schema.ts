@@ -288,6 +288,8 @@ export const custodyReceipts = sqliteTable(
     toParty: text("to_party").notNull(),
     condition: text("condition").notNull(),
     signedBy: text("signed_by").notNull(),
+    /** Where the object went or was put on this hand-over. */
+    location: text("location"),
     notes: text("notes"),
     createdBy: text("created_by"),
     ...timestamps,

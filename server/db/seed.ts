@@ -7,6 +7,7 @@ import type { ObjectCreateInput } from "../../shared/schemas/objects.ts";
 import type { SessionUser } from "../../shared/schemas/auth.ts";
 import { appendEvent } from "../features/history/history.chain.ts";
 import { seedMountings } from "./seed-mountings.ts";
+import { seedCustody } from "./seed-custody.ts";
 
 /** The invented demo studio. Every name here is made up for the demo. */
 export const DEMO_PASSWORD = "reversa-demo";
@@ -92,5 +93,6 @@ export async function seedDemo(db: Db): Promise<boolean> {
     appendEvent(db, { objectId: id, type: "created", actor: framer, summary: `Recorded as ${objectNumber}, “${o.title}”.`, data: { objectNumber } });
   });
   seedMountings(db, framer);
+  seedCustody(db, framer);
   return true;
 }

@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, sql, type SQL } from "drizzle-orm";
+import { and, asc, desc, eq, isNotNull, isNull, lte, sql, type SQL } from "drizzle-orm";
 import { randomUUID } from "node:crypto";
 import type { Db } from "../../db/client.ts";
 import { clients, objects } from "../../db/schema.ts";
@@ -23,7 +23,12 @@ const SORT_COLUMNS = {
   maker: objects.maker,
   updatedAt: objects.updatedAt,
   status: objects.status,
+  lastMountedOn: objects.lastMountedOn,
+  checkDueOn: objects.checkDueOn,
 } as const;
+
+/** Date sorts put objects without the date (never mounted, no check planned) last in both directions. */
+const NULLS_LAST_SORTS: ReadonlySet<ObjectListQuery["sort"]> = new Set(["lastMountedOn", "checkDueOn"]);
 
 const listColumns = {
   id: objects.id,
@@ -38,6 +43,11 @@ const listColumns = {
   sheetWidthMm: objects.sheetWidthMm,
   sheetHeightMm: objects.sheetHeightMm,
   updatedAt: objects.updatedAt,
+  currentMethod: objects.currentMethod,
+  currentBoardGrade: objects.currentBoardGrade,
+  currentGlazing: objects.currentGlazing,
+  lastMountedOn: objects.lastMountedOn,
+  checkDueOn: objects.checkDueOn,
 };
 
 export function listObjects(db: Db, query: ObjectListQuery, scopeClientId: string | null) {
@@ -47,6 +57,10 @@ export function listObjects(db: Db, query: ObjectListQuery, scopeClientId: strin
   if (clientId) where.push(eq(objects.clientId, clientId));
   if (query.status) where.push(eq(objects.status, query.status));
   if (query.objectType) where.push(eq(objects.objectType, query.objectType));
+  if (query.method) where.push(eq(objects.currentMethod, query.method));
+  if (query.boardGrade) where.push(eq(objects.currentBoardGrade, query.boardGrade));
+  if (query.glazing) where.push(eq(objects.currentGlazing, query.glazing));
+  if (query.checkDueBy) where.push(lte(objects.checkDueOn, query.checkDueBy));
   if (query.q) {
     const fts = toFtsQuery(query.q);
     if (fts) where.push(sql`${objects.id} in (select object_id from objects_fts where objects_fts match ${fts})`);
@@ -54,17 +68,35 @@ export function listObjects(db: Db, query: ObjectListQuery, scopeClientId: strin
   const cond = where.length ? and(...where) : undefined;
   const col = SORT_COLUMNS[query.sort];
   const order = query.dir === "desc" ? [desc(col), desc(objects.id)] : [asc(col), asc(objects.id)];
-  const items = db
-    .select(listColumns)
-    .from(objects)
-    .innerJoin(clients, eq(clients.id, objects.clientId))
-    .where(cond)
-    .orderBy(...order)
-    .limit(query.pageSize)
-    .offset((query.page - 1) * query.pageSize)
-    .all();
-  const total = db.select({ n: sql<number>`count(*)` }).from(objects).where(cond).get()?.n ?? 0;
-  return { items, total };
+  const page = (extra: SQL | undefined, orderBy: SQL[], limit: number, offset: number) =>
+    db
+      .select(listColumns)
+      .from(objects)
+      .innerJoin(clients, eq(clients.id, objects.clientId))
+      .where(extra ? and(cond, extra) : cond)
+      .orderBy(...orderBy)
+      .limit(limit)
+      .offset(offset)
+      .all();
+  const count = (extra?: SQL) => db.select({ n: sql<number>`count(*)` }).from(objects).where(extra ? and(cond, extra) : cond).get()?.n ?? 0;
+  const offset = (query.page - 1) * query.pageSize;
+  let items;
+  if (NULLS_LAST_SORTS.has(query.sort)) {
+    // Two index ranges read one after the other (the dated rows in order, then the undated ones by id),
+    // because "nulls last" in the ORDER BY is something no index can serve. Past the first page the dated
+    // rows are counted first (a covering-index count), so a page among the undated ones does not walk
+    // every dated row only to discard it.
+    let dated = offset > 0 ? count(isNotNull(col)) : null;
+    items = dated !== null && offset >= dated ? [] : page(isNotNull(col), order, query.pageSize, offset);
+    if (items.length < query.pageSize) {
+      dated ??= items.length > 0 ? offset + items.length : count(isNotNull(col));
+      const byId = query.dir === "desc" ? desc(objects.id) : asc(objects.id);
+      items = items.concat(page(isNull(col), [byId], query.pageSize - items.length, Math.max(0, offset - dated)));
+    }
+  } else {
+    items = page(undefined, order, query.pageSize, offset);
+  }
+  return { items, total: count() };
 }
 
 export function findObject(db: Db, id: string): ObjectRow | null {

@@ -34,6 +34,7 @@ export function Component() {
         studioUnit={unit}
         clients={clients.data ?? []}
         canEditOwner={can(user, "object:create")}
+        statusLocked
         showValuation={o.valuationVisible && can(user, "valuation:update", { clientId: o.clientId })}
         submitLabel="Save changes"
         onSubmit={async (values) => {

@@ -19,6 +19,8 @@ import { formatDate, formatDateTime, formatMoney } from "@/lib/format.ts";
 import { useObjectPlan } from "@/features/planner/api/plans.ts";
 import { useObjectMountings } from "@/features/mountings/api/mountings.ts";
 import { Timeline } from "@/features/history/components/timeline.tsx";
+import { CustodyList } from "@/features/custody/components/custody-list.tsx";
+import { CustodyForm } from "@/features/custody/components/custody-form.tsx";
 import { mountSummary } from "@shared/domain/mounting.ts";
 import { MOUNTING_REASON_LABELS, MOUNTING_STATUS_LABELS } from "@shared/schemas/mountings.ts";
 
@@ -43,7 +45,7 @@ function imageArea(o: ObjectRecord, unit: Unit): string | null {
 export function Component() {
   const { id = "" } = useParams();
   const { data: user } = useMe();
-  const { unit, words } = useStudio();
+  const { unit, words, settings } = useStudio();
   const q = useObject(id);
   const draft = useObjectPlan(id);
   const mountings = useObjectMountings(id);
@@ -106,7 +108,7 @@ export function Component() {
       </header>
 
       <nav aria-label="Sections of this object" className="flex flex-wrap gap-4 text-sm font-medium">
-        {["Record", words.Mount, "History", "Condition", "Photos", "Documents"].map((s) => (
+        {["Record", words.Mount, "History", "Custody", "Condition", "Photos", "Documents"].map((s) => (
           <a key={s} href={`#${s.toLowerCase()}`} className="text-accent hover:underline">
             {s}
           </a>
@@ -198,6 +200,14 @@ export function Component() {
         <Card title="History" className="lg:col-span-2">
           <div id="history">
             <Timeline objectId={o.id} />
+          </div>
+        </Card>
+        <Card title="Custody" className="lg:col-span-2">
+          <div id="custody" className="space-y-4">
+            {can(user, "custody:write", { clientId: o.clientId }) && (
+              <CustodyForm objectId={o.id} status={o.status} ownerName={o.clientName} studioName={settings?.studioName ?? "The studio"} />
+            )}
+            <CustodyList objectId={o.id} />
           </div>
         </Card>
         <Card title="Condition">

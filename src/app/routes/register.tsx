@@ -1,10 +1,24 @@
 import { useEffect, useState } from "react";
 import { useSearchParams } from "react-router";
-import { OBJECT_STATUSES, OBJECT_STATUS_LABELS, OBJECT_TYPES, OBJECT_TYPE_LABELS, type ObjectStatus, type ObjectType } from "@shared/schemas/objects.ts";
+import {
+  OBJECT_STATUSES,
+  OBJECT_STATUS_LABELS,
+  OBJECT_TYPES,
+  OBJECT_TYPE_LABELS,
+  REGISTER_BOARD_GRADES,
+  REGISTER_GLAZINGS,
+  REGISTER_METHODS,
+  type ObjectStatus,
+  type ObjectType,
+  type RegisterBoardGrade,
+  type RegisterGlazing,
+  type RegisterMethod,
+} from "@shared/schemas/objects.ts";
+import { ATTACHMENT_METHOD_LABELS, BOARD_GRADE_LABELS, GLAZING_TYPE_LABELS } from "@shared/schemas/mountings.ts";
 import { can, isStudio } from "@shared/permissions.ts";
 import { useMe } from "@/features/session/api/session.ts";
 import { useStudio } from "@/features/settings/api/settings.ts";
-import { useObjects } from "@/features/objects/api/objects.ts";
+import { localToday, useObjects } from "@/features/objects/api/objects.ts";
 import { useClients } from "@/features/clients/api/clients.ts";
 import { ObjectsTable, type SortKey } from "@/features/objects/components/objects-table.tsx";
 import { FilterSelect, SearchInput } from "@/components/ui/field.tsx";
@@ -14,6 +28,9 @@ import { Pagination } from "@/components/ui/pagination.tsx";
 import { useDebounced } from "@/lib/use-debounced.ts";
 
 const PAGE_SIZE = 50;
+/** "Last mounted" opens newest first: recent mountings are the ones usually asked about. */
+const FIRST_DIR: Partial<Record<SortKey, "asc" | "desc">> = { lastMountedOn: "desc" };
+const oneOf = <T extends string>(list: readonly T[], v: string | null): T | undefined => (v && (list as readonly string[]).includes(v) ? (v as T) : undefined);
 
 export function Component() {
   const { data: user } = useMe();
@@ -29,6 +46,11 @@ export function Component() {
   const status = (params.get("status") as ObjectStatus) || undefined;
   const objectType = (params.get("type") as ObjectType) || undefined;
   const clientId = params.get("client") || undefined;
+  const method = oneOf<RegisterMethod>(REGISTER_METHODS, params.get("method"));
+  const boardGrade = oneOf<RegisterBoardGrade>(REGISTER_BOARD_GRADES, params.get("board"));
+  const glazing = oneOf<RegisterGlazing>(REGISTER_GLAZINGS, params.get("glazing"));
+  const due = params.get("due") === "1";
+  const today = localToday();
 
   const update = (changes: Record<string, string | undefined>, resetPage = true) => {
     setParams(
@@ -47,10 +69,23 @@ export function Component() {
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [debouncedQ]);
 
-  const list = useObjects({ q: debouncedQ || undefined, status, objectType, clientId, sort, dir, page, pageSize: PAGE_SIZE });
+  const list = useObjects({
+    q: debouncedQ || undefined,
+    status,
+    objectType,
+    clientId,
+    method,
+    boardGrade,
+    glazing,
+    checkDueBy: due ? today : undefined,
+    sort,
+    dir,
+    page,
+    pageSize: PAGE_SIZE,
+  });
   const clients = useClients(studio);
   const title = studio ? "Register" : user?.role === "registrar" ? "Collection" : "My collection";
-  const filtered = !!(debouncedQ || status || objectType || clientId);
+  const filtered = !!(debouncedQ || status || objectType || clientId || method || boardGrade || glazing || due);
 
   return (
     <div className="space-y-5">
@@ -95,13 +130,41 @@ export function Component() {
             </option>
           ))}
         </FilterSelect>
+        <FilterSelect aria-label="Method" value={method ?? ""} onChange={(e) => update({ method: e.target.value || undefined })}>
+          <option value="">Any method</option>
+          {REGISTER_METHODS.map((m) => (
+            <option key={m} value={m}>
+              {ATTACHMENT_METHOD_LABELS[m]}
+            </option>
+          ))}
+        </FilterSelect>
+        <FilterSelect aria-label="Board grade" value={boardGrade ?? ""} onChange={(e) => update({ board: e.target.value || undefined })}>
+          <option value="">Any board</option>
+          {REGISTER_BOARD_GRADES.map((g) => (
+            <option key={g} value={g}>
+              {BOARD_GRADE_LABELS[g]}
+            </option>
+          ))}
+        </FilterSelect>
+        <FilterSelect aria-label="Glazing" value={glazing ?? ""} onChange={(e) => update({ glazing: e.target.value || undefined })}>
+          <option value="">Any glazing</option>
+          {REGISTER_GLAZINGS.map((g) => (
+            <option key={g} value={g}>
+              {GLAZING_TYPE_LABELS[g]}
+            </option>
+          ))}
+        </FilterSelect>
+        <label className="inline-flex items-center gap-2 text-sm text-ink-soft">
+          <input type="checkbox" className="h-4 w-4 accent-accent" checked={due} onChange={(e) => update({ due: e.target.checked ? "1" : undefined })} />
+          Due for a check
+        </label>
         {filtered && (
           <button
             type="button"
             className="text-sm font-medium text-accent hover:underline"
             onClick={() => {
               setQ("");
-              update({ q: undefined, status: undefined, type: undefined, client: undefined });
+              update({ q: undefined, status: undefined, type: undefined, client: undefined, method: undefined, board: undefined, glazing: undefined, due: undefined });
             }}
           >
             Clear filters
@@ -120,7 +183,9 @@ export function Component() {
           </div>
         ) : list.data.items.length === 0 ? (
           <div className="p-4">
-            {filtered ? (
+            {due && !(debouncedQ || status || objectType || clientId || method || boardGrade || glazing) ? (
+              <EmptyState title="No object is due for a check">Every object with a planned check has it after today.</EmptyState>
+            ) : filtered ? (
               <EmptyState title="No object matches">Try fewer words, or clear the filters.</EmptyState>
             ) : (
               <EmptyState
@@ -139,7 +204,8 @@ export function Component() {
               sort={sort}
               dir={dir}
               showOwner={studio}
-              onSort={(k) => update({ sort: k, dir: sort === k && dir === "asc" ? "desc" : "asc" })}
+              today={today}
+              onSort={(k) => update({ sort: k, dir: sort === k ? (dir === "asc" ? "desc" : "asc") : (FIRST_DIR[k] ?? "asc") })}
             />
             <Pagination page={page} pageSize={PAGE_SIZE} total={list.data.total} onPage={(p) => update({ page: String(p) }, false)} />
           </>

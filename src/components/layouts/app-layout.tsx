@@ -16,7 +16,9 @@ export function navFor(user: SessionUser): NavItem[] {
     return [
       { to: "/", label: "Bench", end: true },
       { to: "/objects", label: "Register" },
+      { to: "/mountings", label: "Mountings" },
       { to: "/planner", label: "Planner" },
+      { to: "/custody", label: "Custody" },
       { to: "/clients", label: "Clients" },
       { to: "/studio", label: "Studio" },
     ];

@@ -76,12 +76,10 @@ export function ReceiptsTable({ items }: { items: CustodyReceipt[] }) {
       <table className="w-full border-collapse text-sm">
         <thead className="sticky top-0 z-10 bg-paper-sheet text-ink-soft shadow-[0_1px_0_var(--color-stone)]">
           <tr>
-            <th scope="col" className="whitespace-nowrap px-3 py-2.5 text-left font-semibold">Date</th>
             <th scope="col" className="whitespace-nowrap px-3 py-2.5 text-left font-semibold">Object number</th>
-            <th scope="col" className="px-3 py-2.5 text-left font-semibold">Title</th>
+            <th scope="col" className="whitespace-nowrap px-3 py-2.5 text-left font-semibold">Date</th>
             <th scope="col" className="px-3 py-2.5 text-left font-semibold">Hand-over</th>
-            <th scope="col" className="px-3 py-2.5 text-left font-semibold">From</th>
-            <th scope="col" className="px-3 py-2.5 text-left font-semibold">To</th>
+            <th scope="col" className="px-3 py-2.5 text-left font-semibold">From → to</th>
             <th scope="col" className="px-3 py-2.5 text-left font-semibold">Condition</th>
             <th scope="col" className="whitespace-nowrap px-3 py-2.5 text-left font-semibold">Signed by</th>
           </tr>
@@ -89,21 +87,23 @@ export function ReceiptsTable({ items }: { items: CustodyReceipt[] }) {
         <tbody>
           {items.map((r) => (
             <tr key={r.id} className="border-b border-stone-light align-top hover:bg-paper-deep/60">
-              <td className="whitespace-nowrap px-3 py-3 num">{formatDate(r.date)}</td>
-              <td className="whitespace-nowrap px-3 py-3 font-semibold num">
-                <Link to={`/objects/${r.objectId}`} className="text-accent hover:underline">
+              <td className="px-3 py-3">
+                <Link to={`/objects/${r.objectId}`} className="whitespace-nowrap font-semibold text-accent num hover:underline">
                   {r.objectNumber}
                 </Link>
+                <span className="mt-0.5 block text-xs text-graphite">{r.objectTitle}</span>
               </td>
-              <td className="px-3 py-3">{r.objectTitle}</td>
+              <td className="whitespace-nowrap px-3 py-3 num">{formatDate(r.date)}</td>
               <td className="px-3 py-3">
-                <span className="flex flex-wrap items-center gap-2">
+                <span className="flex items-center gap-2 whitespace-nowrap">
                   <DirectionBadge direction={r.direction} />
                   <span className="text-ink-soft">{kindLabel(r.kind)}</span>
                 </span>
               </td>
-              <td className="px-3 py-3 text-ink-soft">{r.fromParty}</td>
-              <td className="px-3 py-3 text-ink-soft">{r.toParty}</td>
+              <td className="min-w-48 px-3 py-3 text-ink-soft">
+                {r.fromParty} <span aria-hidden="true">→</span>
+                <span className="sr-only">to</span> {r.toParty}
+              </td>
               <td className="min-w-56 px-3 py-3">{r.condition}</td>
               <td className="px-3 py-3 text-ink-soft">{r.signedBy}</td>
             </tr>

@@ -111,12 +111,14 @@ type Props = {
   clients: ClientRecord[];
   canEditOwner: boolean;
   showValuation: boolean;
+  /** Once recorded, an object's whereabouts change through custody receipts, so they stay in its history. */
+  statusLocked?: boolean;
   submitLabel: string;
   onSubmit: (values: ObjectCreate) => Promise<unknown>;
   onCancel: () => void;
 };
 
-export function ObjectForm({ defaultValues, studioUnit, clients, canEditOwner, showValuation, submitLabel, onSubmit, onCancel }: Props) {
+export function ObjectForm({ defaultValues, studioUnit, clients, canEditOwner, showValuation, statusLocked = false, submitLabel, onSubmit, onCancel }: Props) {
   const [unit, setUnit] = useState<Unit>(studioUnit);
   const [serverError, setServerError] = useState<ApiError | null>(null);
   const form = useForm<ObjectFormValues, unknown, ObjectCreate>({ defaultValues, resolver: objectResolver(() => unit), mode: "onTouched" });
@@ -241,7 +243,13 @@ export function ObjectForm({ defaultValues, studioUnit, clients, canEditOwner, s
             </option>
           ))}
         </SelectField>
-        <SelectField label="Status" error={e.status?.message} {...register("status")}>
+        <SelectField
+          label="Status"
+          disabled={statusLocked}
+          hint={statusLocked ? "Changes with each custody receipt (the object's Custody section)." : undefined}
+          error={e.status?.message}
+          {...register("status")}
+        >
           {OBJECT_STATUSES.map((s) => (
             <option key={s} value={s}>
               {OBJECT_STATUS_LABELS[s]}

@@ -1,0 +1,1 @@
+ALTER TABLE `custody_receipts` ADD `location` text;

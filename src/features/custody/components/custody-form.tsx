@@ -1,0 +1,194 @@
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { format } from "date-fns";
+import type { z } from "zod";
+import {
+  CUSTODY_KINDS,
+  CUSTODY_KIND_EFFECT,
+  CUSTODY_KIND_LABELS,
+  CustodyCreateSchema,
+  type CustodyCreate,
+  type CustodyKind,
+  type CustodyReceipt,
+} from "@shared/schemas/custody.ts";
+import type { ObjectStatus } from "@shared/schemas/objects.ts";
+import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
+import { Button } from "@/components/ui/button.tsx";
+import { Notice } from "@/components/ui/feedback.tsx";
+import { ApiError } from "@/lib/api-client.ts";
+import { formatDate } from "@/lib/format.ts";
+import { useRecordCustody } from "../api/custody.ts";
+
+type Values = z.input<typeof CustodyCreateSchema>;
+const FIELDS = ["kind", "date", "fromParty", "toParty", "condition", "signedBy", "location", "notes"] as const satisfies readonly (keyof Values)[];
+
+type Parties = { owner: string; studio: string };
+
+/** Who usually hands over and who receives, for each kind; blank where only the framer knows (the borrower, the conservator). */
+function suggestedParties(kind: CustodyKind, p: Parties): { fromParty: string; toParty: string } {
+  switch (kind) {
+    case "intake":
+      return { fromParty: p.owner, toParty: p.studio };
+    case "return-to-owner":
+      return { fromParty: p.studio, toParty: p.owner };
+    case "loan-out":
+    case "to-conservator":
+      return { fromParty: p.studio, toParty: "" };
+    case "loan-return":
+    case "from-conservator":
+      return { fromParty: "", toParty: p.studio };
+  }
+}
+
+/** Only the hand-overs that fit where the object is: into the studio when it is elsewhere, out when it is here. */
+export function kindsFor(status: ObjectStatus): CustodyKind[] {
+  const direction = status === "in-studio" ? "out" : "in";
+  return CUSTODY_KINDS.filter((k) => CUSTODY_KIND_EFFECT[k].direction === direction);
+}
+
+type Props = {
+  objectId: string;
+  /** The object's status now: it decides which hand-overs are offered. */
+  status: ObjectStatus;
+  /** The owner's name, offered as the other party of intakes and returns. */
+  ownerName: string;
+  /** The studio's name, offered as the studio's side of each hand-over. */
+  studioName: string;
+};
+
+/**
+ * "Record a hand-over": a button that opens the receipt form for one object. The form checks with the
+ * shared contract, puts the server's messages beside their fields, and keeps everything typed when saving fails.
+ */
+export function CustodyForm(props: Props) {
+  const [open, setOpen] = useState(false);
+  const [saved, setSaved] = useState<CustodyReceipt | null>(null);
+  if (!open)
+    return (
+      <div className="space-y-3">
+        {saved && (
+          <Notice tone="pass" title="Receipt recorded">
+            {CUSTODY_KIND_LABELS[saved.kind]} on {formatDate(saved.date)}: from {saved.fromParty} to {saved.toParty}.
+          </Notice>
+        )}
+        <Button
+          variant={saved ? "secondary" : "primary"}
+          onClick={() => {
+            setSaved(null);
+            setOpen(true);
+          }}
+        >
+          {props.status === "in-studio" ? "Record a hand-over out" : "Record a receipt in"}
+        </Button>
+      </div>
+    );
+  return (
+    <ReceiptForm
+      {...props}
+      onDone={(r) => {
+        setSaved(r);
+        setOpen(false);
+      }}
+      onCancel={() => setOpen(false)}
+    />
+  );
+}
+
+function ReceiptForm({ objectId, status, ownerName, studioName, onDone, onCancel }: Props & { onDone: (r: CustodyReceipt) => void; onCancel: () => void }) {
+  const record = useRecordCustody(objectId);
+  const [serverError, setServerError] = useState<ApiError | null>(null);
+  const kinds = kindsFor(status);
+  const parties: Parties = { owner: ownerName, studio: studioName };
+  const first = kinds[0];
+  const form = useForm<Values, unknown, CustodyCreate>({
+    resolver: zodResolver(CustodyCreateSchema),
+    mode: "onTouched",
+    defaultValues: {
+      kind: first,
+      date: format(new Date(), "yyyy-MM-dd"),
+      ...suggestedParties(first, parties),
+      condition: "",
+      signedBy: "",
+      location: "",
+      notes: "",
+    },
+  });
+  const { register, formState, setError, setValue, getFieldState, watch } = form;
+  const e = formState.errors;
+  const kind = watch("kind") as CustodyKind;
+  const inward = CUSTODY_KIND_EFFECT[kind]?.direction === "in";
+
+  const kindField = register("kind", {
+    onChange: (ev: { target: { value: string } }) => {
+      // Offer the usual parties for the new kind, but never over what the framer has typed.
+      const next = suggestedParties(ev.target.value as CustodyKind, parties);
+      for (const f of ["fromParty", "toParty"] as const) if (!getFieldState(f).isDirty) setValue(f, next[f]);
+    },
+  });
+
+  const submit = form.handleSubmit(async (values) => {
+    setServerError(null);
+    try {
+      onDone(await record.mutateAsync(values));
+    } catch (err) {
+      const apiError = err instanceof ApiError ? err : new ApiError(0, "internal", String(err));
+      setServerError(apiError);
+      // The server's field messages go beside their fields; the values stay as typed.
+      for (const [k, message] of Object.entries(apiError.fields)) {
+        if ((FIELDS as readonly string[]).includes(k)) setError(k as keyof Values, { type: "server", message }, { shouldFocus: true });
+      }
+    }
+  });
+
+  return (
+    <form onSubmit={submit} noValidate aria-label="Custody receipt" className="space-y-4">
+      <Notice tone="warn" title="Handling at the hand-over">
+        Heavy frames take two people: carry them upright, one hand under the bottom rail, and never lift a frame by its top rail. Wear gloves for glazed frames
+        and loose glass: glass cuts. Look the object over together with the person handing it over before either of you signs.
+      </Notice>
+      {serverError && (
+        <Notice tone="fail" title={serverError.status === 409 ? "Not recorded: the object is not where this receipt says" : "Not recorded"}>
+          {serverError.message}
+        </Notice>
+      )}
+      <div className="grid gap-4 md:grid-cols-2">
+        <SelectField label="Hand-over" error={e.kind?.message} {...kindField}>
+          {kinds.map((k) => (
+            <option key={k} value={k}>
+              {CUSTODY_KIND_LABELS[k]}
+            </option>
+          ))}
+        </SelectField>
+        <TextField label="Date" type="date" className="num" error={e.date?.message} hint="The day the object changed hands" {...register("date")} />
+        <TextField label="From" autoComplete="off" error={e.fromParty?.message} hint="Who handed the object over" {...register("fromParty")} />
+        <TextField label="To" autoComplete="off" error={e.toParty?.message} hint="Who received it" {...register("toParty")} />
+        <TextField
+          label={inward ? "Condition on arrival" : "Condition on departure"}
+          wrapClassName="md:col-span-2"
+          autoComplete="off"
+          error={e.condition?.message}
+          hint="One line, as both of you agree it, e.g. “Stable; light foxing in the lower margin; glazing intact.”"
+          {...register("condition")}
+        />
+        <TextField label="Signed by" autoComplete="off" error={e.signedBy?.message} hint="The name of the person who signed the receipt" {...register("signedBy")} />
+        <TextField
+          label="Location afterwards"
+          autoComplete="off"
+          error={e.location?.message}
+          hint={inward ? "Where it is kept in the studio, e.g. Plan chest B, drawer 2" : "Where it goes, e.g. the owner's home or the venue"}
+          {...register("location")}
+        />
+        <TextAreaField label="Notes" wrapClassName="md:col-span-2" error={e.notes?.message} hint="Packing, transport, anything agreed at the hand-over" {...register("notes")} />
+      </div>
+      <div className="flex flex-wrap gap-3">
+        <Button type="submit" disabled={formState.isSubmitting}>
+          {formState.isSubmitting ? "Recording…" : "Record the receipt"}
+        </Button>
+        <Button variant="secondary" onClick={onCancel}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}
