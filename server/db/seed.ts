@@ -68,6 +68,8 @@ export async function seedDemo(db: Db): Promise<boolean> {
     currency: "GBP",
     minOverlapMm: 5,
     rebateClearanceMm: 2,
+    checkIntervalMonths: 24,
+    checkIntervalOnLoanMonths: 12,
     framePresets: [
       { label: "Studio stock: 40 × 50 cm", widthMm: 400, heightMm: 500 },
       { label: "Studio stock: 50 × 70 cm", widthMm: 500, heightMm: 700 },

@@ -25,6 +25,8 @@ export const StudioSettingsSchema = z.object({
     .number({ message: "Enter the rebate clearance in mm." })
     .min(0, { message: "Rebate clearance cannot be negative." })
     .max(10, { message: "Rebate clearance must be at most 10 mm." }),
+  checkIntervalMonths: z.number({ message: "Enter a number of months." }).int({ message: "Use whole months." }).min(1, { message: "At least 1 month." }).max(120, { message: "At most 120 months." }).default(24),
+  checkIntervalOnLoanMonths: z.number({ message: "Enter a number of months." }).int({ message: "Use whole months." }).min(1, { message: "At least 1 month." }).max(120, { message: "At most 120 months." }).default(12),
   framePresets: z
     .array(
       z.object({

@@ -63,7 +63,8 @@ describe("register columns", () => {
   it("when an object's mounting is completed, then the register shows its current mount and the date", async () => {
     const a = (await list(framer, "q=2026-0001")).items[0];
     // The mountings service plans the next check a year after the mounting (its CHECK_INTERVAL_MONTHS).
-    expect(a).toMatchObject({ currentMethod: "t-hinge", currentBoardGrade: "museum", currentGlazing: "uv-glass", lastMountedOn: "2026-03-02", checkDueOn: "2027-03-02" });
+    // The studio default interval is 24 months (12 on loan): see StudioSettingsSchema.
+    expect(a).toMatchObject({ currentMethod: "t-hinge", currentBoardGrade: "museum", currentGlazing: "uv-glass", lastMountedOn: "2026-03-02", checkDueOn: "2028-03-02" });
   });
 
   it("when an object was never mounted, then its mount columns are empty and the old columns are all still there", async () => {

@@ -16,6 +16,8 @@ const SETTINGS: StudioSettings = {
   minOverlapMm: 5,
   // 2 mm total rebate clearance: common practice (no source).
   rebateClearanceMm: 2,
+  checkIntervalMonths: 18,
+  checkIntervalOnLoanMonths: 6,
   framePresets: [{ label: "Stock 30 × 40 cm", widthMm: 300, heightMm: 400 }],
 };
 
@@ -44,6 +46,8 @@ describe("GET /api/settings", () => {
         currency: "GBP",
         minOverlapMm: 5,
         rebateClearanceMm: 2,
+        checkIntervalMonths: 24,
+        checkIntervalOnLoanMonths: 12,
         framePresets: [],
       });
     }

@@ -4,10 +4,8 @@ import type { Db } from "../../db/client.ts";
 import { mountingBatches, mountingRevisions, mountings, objects } from "../../db/schema.ts";
 import type { MountingCreate, MountingData } from "../../../shared/schemas/mountings.ts";
 import { boardBatches } from "../../../shared/domain/mounting.ts";
-import { addMonths, format, parseISO } from "date-fns";
-
-/** A condition check is due this long after the last check (or the mounting when there is none): common practice (no source). */
-export const CHECK_INTERVAL_MONTHS = 12;
+import { nextCheckDue } from "../../../shared/domain/condition.ts";
+import { getSettings } from "../settings/settings.repo.ts";
 
 export type MountingRow = typeof mountings.$inferSelect;
 export type RevisionRow = typeof mountingRevisions.$inferSelect;
@@ -90,7 +88,7 @@ export function currentCompleted(db: Db, objectId: string, exceptId: string): Mo
 
 /** Keeps the object's register columns in step with its current mounting. */
 export function setObjectCurrentMount(db: Db, objectId: string, m: { id: string; data: MountingData; mountedOn: string } | null) {
-  const o = db.select({ lastConditionOn: objects.lastConditionOn }).from(objects).where(eq(objects.id, objectId)).get();
+  const o = db.select({ lastConditionOn: objects.lastConditionOn, status: objects.status }).from(objects).where(eq(objects.id, objectId)).get();
   const from = m ? [o?.lastConditionOn, m.mountedOn].filter(Boolean).sort().pop()! : null;
   db.update(objects)
     .set(
@@ -101,7 +99,7 @@ export function setObjectCurrentMount(db: Db, objectId: string, m: { id: string;
             currentBoardGrade: m.data.boards.window.grade,
             currentGlazing: m.data.glazing.type,
             lastMountedOn: m.mountedOn,
-            checkDueOn: format(addMonths(parseISO(from!), CHECK_INTERVAL_MONTHS), "yyyy-MM-dd"),
+            checkDueOn: nextCheckDue(from!, o?.status ?? "in-studio", getSettings(db)),
           }
         : { currentMountingId: null, currentMethod: null, currentBoardGrade: null, currentGlazing: null },
     )

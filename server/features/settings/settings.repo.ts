@@ -12,6 +12,8 @@ export const DEFAULT_SETTINGS: StudioSettingsRecord = {
   currency: "GBP",
   minOverlapMm: 5,
   rebateClearanceMm: 2,
+  checkIntervalMonths: 24,
+  checkIntervalOnLoanMonths: 12,
   framePresets: [],
 };
 

@@ -49,6 +49,8 @@ function SettingsForm({ initial, readOnly }: { initial: StudioSettings; readOnly
         </SelectField>
         <TextField label="Currency" maxLength={3} error={e.currency?.message} hint="ISO 4217 code" {...form.register("currency")} />
         <TextField label="Minimum overlap (mm)" type="number" step="0.5" error={e.minOverlapMm?.message} hint="How far the window must cover the sheet on each overlapped side. 5 mm is common practice." {...form.register("minOverlapMm", { valueAsNumber: true })} />
+        <TextField label="Condition check every (months)" type="number" error={e.checkIntervalMonths?.message} hint="After the last check, or the mounting when there is none." {...form.register("checkIntervalMonths", { valueAsNumber: true })} />
+        <TextField label="…for objects on loan (months)" type="number" error={e.checkIntervalOnLoanMonths?.message} {...form.register("checkIntervalOnLoanMonths", { valueAsNumber: true })} />
         <TextField label="Rebate clearance (mm, in total)" type="number" step="0.5" error={e.rebateClearanceMm?.message} hint="Added to the package size to give the frame rebate; 1–3 mm is usual." {...form.register("rebateClearanceMm", { valueAsNumber: true })} />
       </fieldset>
       {!readOnly && <Button type="submit" disabled={form.formState.isSubmitting}>Save settings</Button>}
