@@ -24,6 +24,9 @@ export const ACTIONS = [
   "history:verify",
   "custody:read",
   "custody:write",
+  "condition:read",
+  "condition:write",
+  "terms:manage",
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 
@@ -51,6 +54,7 @@ export function can(actor: Actor | null | undefined, action: Action, resource?: 
       return true;
     case "settings:update":
     case "user:manage":
+    case "terms:manage":
       return actor.role === "admin";
     case "object:create":
     case "plan:write":
@@ -61,6 +65,7 @@ export function can(actor: Actor | null | undefined, action: Action, resource?: 
     case "client:list":
       return studio;
     case "object:read":
+    case "condition:read":
     case "mounting:read":
     case "history:read":
     case "custody:read":
@@ -69,6 +74,7 @@ export function can(actor: Actor | null | undefined, action: Action, resource?: 
       // Valuations are confidential: studio staff and the owning client's users only (BRIEF §3).
       return studio || ownsResource(actor, resource);
     case "object:update":
+    case "condition:write":
     case "valuation:update":
       return studio || (actor.role === "registrar" && ownsResource(actor, resource));
     default: {

@@ -42,6 +42,9 @@ const EXPECTED: Record<Action, Row> = {
   "mounting:read": STUDIO_AND_OWNER,
   "history:read": STUDIO_AND_OWNER,
   "custody:read": STUDIO_AND_OWNER,
+  "condition:read": STUDIO_AND_OWNER,
+  "condition:write": STUDIO_AND_REGISTRAR,
+  "terms:manage": ADMIN_ONLY,
   "object:update": STUDIO_AND_REGISTRAR,
   // BRIEF §3: valuations are confidential — admin, framers and the owning client's users only.
   "valuation:read": STUDIO_AND_OWNER,
