@@ -21,6 +21,9 @@ import { useObjectMountings } from "@/features/mountings/api/mountings.ts";
 import { Timeline } from "@/features/history/components/timeline.tsx";
 import { CustodyList } from "@/features/custody/components/custody-list.tsx";
 import { CustodyForm } from "@/features/custody/components/custody-form.tsx";
+import { useObjectCondition } from "@/features/condition/api/condition.ts";
+import { Cautions, RatingBadge } from "@/features/condition/components/report-view.tsx";
+import { CONDITION_CONTEXT_LABELS } from "@shared/schemas/condition.ts";
 import { mountSummary } from "@shared/domain/mounting.ts";
 import { MOUNTING_REASON_LABELS, MOUNTING_STATUS_LABELS } from "@shared/schemas/mountings.ts";
 
@@ -49,6 +52,7 @@ export function Component() {
   const q = useObject(id);
   const draft = useObjectPlan(id);
   const mountings = useObjectMountings(id);
+  const condition = useObjectCondition(id);
 
   if (q.isPending)
     return (
@@ -107,6 +111,7 @@ export function Component() {
         )}
       </header>
 
+      {condition.data?.[0] && <Cautions cautions={condition.data[0].cautions} />}
       <nav aria-label="Sections of this object" className="flex flex-wrap gap-4 text-sm font-medium">
         {["Record", words.Mount, "History", "Custody", "Condition", "Photos", "Documents"].map((s) => (
           <a key={s} href={`#${s.toLowerCase()}`} className="text-accent hover:underline">
@@ -211,8 +216,30 @@ export function Component() {
           </div>
         </Card>
         <Card title="Condition">
-          <div id="condition">
-            <EmptyState title="No condition report yet">Condition reports with photos record the state of the object at each hand-over.</EmptyState>
+          <div id="condition" className="space-y-3 text-sm">
+            {condition.data && condition.data.length > 0 ? (
+              <>
+                <ul className="divide-y divide-stone-light" data-testid="condition-reports">
+                  {condition.data.map((r) => (
+                    <li key={r.id} className="flex items-center justify-between gap-3 py-2">
+                      <Link to={`/condition/${r.id}`} className="text-accent hover:underline">
+                        {formatDate(r.reportDate)} · {CONDITION_CONTEXT_LABELS[r.context]}
+                      </Link>
+                      <span className="flex items-center gap-2">
+                        <RatingBadge rating={r.rating} />
+                        {r.status === "draft" && <Badge tone="warn">Draft</Badge>}
+                      </span>
+                    </li>
+                  ))}
+                </ul>
+                {condition.data.filter((r) => r.status === "signed").length >= 2 && (
+                  <Link to={`/objects/${o.id}/condition/compare`} className="font-medium text-accent hover:underline">Compare two reports</Link>
+                )}
+              </>
+            ) : (
+              <EmptyState title="No condition report yet">Condition reports with photos record the state of the object at each hand-over.</EmptyState>
+            )}
+            {can(user, "condition:write", { clientId: o.clientId }) && <ButtonLink to={`/objects/${o.id}/condition/new`} variant="secondary">New condition report</ButtonLink>}
           </div>
         </Card>
         <Card title="Photos">

@@ -18,12 +18,13 @@ export function navFor(user: SessionUser): NavItem[] {
       { to: "/objects", label: "Register" },
       { to: "/mountings", label: "Mountings" },
       { to: "/planner", label: "Planner" },
+      { to: "/condition", label: "Condition" },
       { to: "/custody", label: "Custody" },
       { to: "/clients", label: "Clients" },
       { to: "/studio", label: "Studio" },
     ];
   }
-  if (user.role === "registrar") return [{ to: "/objects", label: "Collection" }, { to: "/clients", label: "Institution" }];
+  if (user.role === "registrar") return [{ to: "/objects", label: "Collection" }, { to: "/condition", label: "Condition" }, { to: "/clients", label: "Institution" }];
   return [{ to: "/objects", label: "My collection" }];
 }
 

@@ -1,5 +1,5 @@
 import { useMemo, useState } from "react";
-import { useFieldArray, useForm, useWatch, type FieldErrors, type Path, type Resolver } from "react-hook-form";
+import { useFieldArray, useForm, useWatch, type Path, type Resolver } from "react-hook-form";
 import { format } from "date-fns";
 import {
   BACKING_TYPES,
@@ -28,6 +28,7 @@ import { Notice } from "@/components/ui/feedback.tsx";
 import { PlanDrawing } from "@/components/plan-drawing.tsx";
 import { ChecksList, LevelBadge } from "@/components/checks-list.tsx";
 import { ApiError } from "@/lib/api-client.ts";
+import { errorAt, nestedErrors } from "@/lib/form-errors.ts";
 import { ATTACHMENT_LABELS, ADHESIVE_LABELS } from "./labels.ts";
 
 type FormData = Omit<MountingDataInput, "plan">;
@@ -62,30 +63,8 @@ function resolverFor(planInput: MountPlanInput, mode: MountingFormMode): Resolve
     const fields = parsed.success ? {} : issuesToFields(parsed.error.issues);
     if (mode === "correct" && !values.correctionReason.trim()) fields.correctionReason = "Say why the record is corrected.";
     if (parsed.success && Object.keys(fields).length === 0) return { values: { ...parsed.data, correctionReason: values.correctionReason.trim() }, errors: {} };
-    const errors: FieldErrors<MountingFormValues> = {};
-    for (const [k, message] of Object.entries(fields)) (errors as Record<string, unknown>)[k] = { type: "validate", message };
-    return { values: {}, errors: toNested(errors as Record<string, unknown>) };
+    return { values: {}, errors: nestedErrors<MountingFormValues>(fields) };
   };
-}
-
-/** react-hook-form wants nested errors: { data: { boards: { window: { grade: {…} } } } }. */
-function toNested(flat: Record<string, unknown>): FieldErrors<MountingFormValues> {
-  const out: Record<string, unknown> = {};
-  for (const [path, err] of Object.entries(flat)) {
-    const parts = path.split(".");
-    let cur = out;
-    parts.forEach((p, i) => {
-      if (i === parts.length - 1) cur[p] = err;
-      else cur = (cur[p] ??= {}) as Record<string, unknown>;
-    });
-  }
-  return out as FieldErrors<MountingFormValues>;
-}
-
-function errorAt(errors: FieldErrors<MountingFormValues>, path: string): string | undefined {
-  let cur: unknown = errors;
-  for (const p of path.split(".")) cur = (cur as Record<string, unknown> | undefined)?.[p];
-  return (cur as { message?: string } | undefined)?.message;
 }
 
 type Props = {

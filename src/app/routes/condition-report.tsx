@@ -1,0 +1,87 @@
+import { useState } from "react";
+import { Link, useParams } from "react-router";
+import { useQuery } from "@tanstack/react-query";
+import { can } from "@shared/permissions.ts";
+import { CONDITION_CONTEXT_LABELS } from "@shared/schemas/condition.ts";
+import type { Photo } from "@shared/schemas/photos.ts";
+import { useMe } from "@/features/session/api/session.ts";
+import { useObject } from "@/features/objects/api/objects.ts";
+import { useReport, useReportRevisions, useSignReport } from "@/features/condition/api/condition.ts";
+import { RatingBadge, ReportView } from "@/features/condition/components/report-view.tsx";
+import { Badge, Card, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { Button, ButtonLink } from "@/components/ui/button.tsx";
+import { api } from "@/lib/api-client.ts";
+import { formatDate, formatDateTime } from "@/lib/format.ts";
+
+export const objectPhotosQuery = (objectId: string) => ({
+  queryKey: ["photos", objectId],
+  queryFn: () => api.get<{ items: Photo[] }>(`/api/objects/${encodeURIComponent(objectId)}/photos`).then((r) => r.items),
+  enabled: !!objectId,
+});
+
+export function Component() {
+  const { id = "" } = useParams();
+  const { data: user } = useMe();
+  const r = useReport(id);
+  const object = useObject(r.data?.objectId ?? "");
+  const photos = useQuery(objectPhotosQuery(r.data?.objectId ?? ""));
+  const revisions = useReportRevisions(id, !!r.data && r.data.currentRevision > 1);
+  const sign = useSignReport(id);
+  const [shown, setShown] = useState<number | null>(null);
+
+  if (r.isPending) return <SkeletonRows />;
+  if (r.isError) return <Notice tone="fail" title="Condition report not found">{r.error.message}</Notice>;
+  const rep = r.data;
+  const writable = !!object.data && can(user, "condition:write", { clientId: object.data.clientId });
+  const revision = shown !== null ? revisions.data?.find((x) => x.revision === shown) ?? rep.current : rep.current;
+
+  return (
+    <div className="space-y-5">
+      <header className="flex flex-wrap items-end justify-between gap-3">
+        <div>
+          <p className="text-sm font-semibold text-accent num"><Link to={`/objects/${rep.objectId}`} className="hover:underline">{rep.objectNumber}</Link> · {rep.objectTitle}</p>
+          <h1 className="text-2xl font-bold tracking-tight">Condition {CONDITION_CONTEXT_LABELS[rep.context].toLowerCase()} · {formatDate(rep.reportDate)}</h1>
+          <p className="mt-1 flex flex-wrap items-center gap-2 text-sm text-graphite">
+            <Badge tone={rep.status === "signed" ? "accent" : "warn"}>{rep.status === "signed" ? "Signed" : "Draft"}</Badge>
+            <RatingBadge rating={rep.rating} />
+            <span>Examined by {rep.examinerName}</span>
+            {rep.signedAt && <span>· signed {formatDateTime(rep.signedAt)}</span>}
+            {rep.currentRevision > 1 && <span>· revision {rep.currentRevision}</span>}
+          </p>
+        </div>
+        {writable && (
+          <div className="flex flex-wrap gap-2">
+            {rep.status === "draft" && <ButtonLink to={`/condition/${rep.id}/edit`} variant="secondary">Edit draft</ButtonLink>}
+            {rep.status === "draft" && <Button onClick={() => sign.mutate(rep.version)} disabled={sign.isPending}>Sign and lock</Button>}
+            {rep.status === "signed" && <ButtonLink to={`/condition/${rep.id}/correct`} variant="secondary">Correct the report</ButtonLink>}
+          </div>
+        )}
+      </header>
+      {sign.error && <Notice tone="fail" title="Not signed">{sign.error.message}</Notice>}
+      {revisions.data && revisions.data.length > 1 && (
+        <Card title="Revisions">
+          <ol className="space-y-2 text-sm">
+            {revisions.data.map((x) => (
+              <li key={x.revision} className="flex flex-wrap items-start gap-3">
+                <button type="button" aria-pressed={revision.revision === x.revision} onClick={() => setShown(x.revision)} className={`rounded-card border px-2 py-0.5 text-xs font-semibold ${revision.revision === x.revision ? "border-accent bg-accent text-paper-sheet" : "border-stone"}`}>
+                  Revision {x.revision}
+                </button>
+                <div>
+                  <p className="text-graphite">{formatDateTime(x.createdAt)} · {x.createdByName}{x.correctionReason ? ` · “${x.correctionReason}”` : ""}</p>
+                  {x.changes.length > 0 && (
+                    <ul className="mt-0.5 text-xs">
+                      {x.changes.slice(0, 20).map((c) => (
+                        <li key={c.path}><span className="font-medium">{c.path}</span>: <span className="text-fail line-through">{JSON.stringify(c.before)}</span> → <span className="text-pass">{JSON.stringify(c.after)}</span></li>
+                      ))}
+                    </ul>
+                  )}
+                </div>
+              </li>
+            ))}
+          </ol>
+        </Card>
+      )}
+      <ReportView data={revision.data} photos={photos.data ?? []} cautions={rep.cautions} />
+    </div>
+  );
+}
