@@ -13,6 +13,7 @@ import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx
 import { Button } from "@/components/ui/button.tsx";
 import { Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { ApiError } from "@/lib/api-client.ts";
+import { useSaveTerm, useTerms } from "@/features/condition/api/condition.ts";
 
 function SettingsForm({ initial, readOnly }: { initial: StudioSettings; readOnly: boolean }) {
   const save = useSaveSettings();
@@ -55,6 +56,52 @@ function SettingsForm({ initial, readOnly }: { initial: StudioSettings; readOnly
       </fieldset>
       {!readOnly && <Button type="submit" disabled={form.formState.isSubmitting}>Save settings</Button>}
     </form>
+  );
+}
+
+/** The controlled vocabulary of condition findings: the admin adds, renames and retires terms (never deletes them). */
+function Vocabulary({ readOnly }: { readOnly: boolean }) {
+  const terms = useTerms(!readOnly);
+  const save = useSaveTerm();
+  const [list, setList] = useState<"paper" | "photograph">("paper");
+  const [draft, setDraft] = useState("");
+  const [error, setError] = useState<string | null>(null);
+  const shown = (terms.data ?? []).filter((t) => t.list === list);
+  const add = () => {
+    setError(null);
+    save.mutate({ list, term: draft.trim(), caution: null, active: true }, { onSuccess: () => setDraft(""), onError: (e) => setError(e.message) });
+  };
+  return (
+    <section className="max-w-3xl space-y-3 rounded-card bg-paper-sheet p-5 shadow-card" aria-label="Condition vocabulary">
+      <h2 className="text-base font-semibold">Condition vocabulary</h2>
+      <p className="text-sm text-graphite">The words findings are recorded in. Photographs use both lists. A retired term stays on old reports but is no longer offered.</p>
+      <div role="tablist" aria-label="List" className="inline-flex rounded-card border border-stone text-sm">
+        {(["paper", "photograph"] as const).map((l) => (
+          <button key={l} type="button" role="tab" aria-selected={list === l} onClick={() => setList(l)} className={`px-3 py-1 ${list === l ? "bg-accent text-paper-sheet" : "text-ink-soft"}`}>
+            {l === "paper" ? "Paper" : "Photographs"}
+          </button>
+        ))}
+      </div>
+      <ul className="grid gap-1 sm:grid-cols-2">
+        {shown.map((t) => (
+          <li key={t.id} className="flex items-center justify-between gap-2 border-b border-stone-light py-1 text-sm">
+            <span className={t.active ? "" : "text-graphite line-through"}>{t.term}{t.caution ? " ▲" : ""}</span>
+            {!readOnly && (
+              <Button variant="quiet" className="px-2 py-0.5 text-xs" onClick={() => save.mutate({ id: t.id, list: t.list, term: t.term, caution: t.caution ?? null, active: !t.active })}>
+                {t.active ? "Retire" : "Bring back"}
+              </Button>
+            )}
+          </li>
+        ))}
+      </ul>
+      {!readOnly && (
+        <div className="flex items-end gap-2">
+          <TextField label={`New ${list === "paper" ? "paper" : "photograph"} term`} value={draft} error={error ?? undefined} onChange={(e) => setDraft(e.target.value)} />
+          <Button onClick={add} disabled={!draft.trim() || save.isPending}>Add</Button>
+        </div>
+      )}
+      <p className="text-xs text-graphite">▲ shows a handling caution (mould, insects) on reports with that finding.</p>
+    </section>
   );
 }
 
@@ -119,6 +166,7 @@ export function Component() {
       </header>
       <SettingsForm initial={settings.data} readOnly={readOnly} />
       <FramePresets settings={settings.data} readOnly={readOnly} />
+      <Vocabulary readOnly={!can(user, "terms:manage")} />
     </div>
   );
 }
