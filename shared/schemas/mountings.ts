@@ -204,5 +204,14 @@ export const ATTACHMENT_METHOD_LABELS: Record<(typeof ATTACHMENT_METHODS)[number
   "pressure-sensitive-tape": "Pressure-sensitive tape",
 };
 
+export const ADHESIVE_LABELS: Record<(typeof ADHESIVES)[number], string> = {
+  "wheat-starch-paste": "Wheat starch paste",
+  "rice-starch-paste": "Rice starch paste",
+  "methyl-cellulose": "Methyl cellulose",
+  none: "None",
+  "pressure-sensitive": "Pressure-sensitive",
+  other: "Other",
+};
+
 /** The answer of GET /api/mountings: one page of the register and the framers it can be filtered by. */
 export type MountingListPage = { items: MountingListItem[]; total: number; page: number; pageSize: number; framers: { id: string; name: string }[] };

@@ -29,7 +29,7 @@ import { PlanDrawing } from "@/components/plan-drawing.tsx";
 import { ChecksList, LevelBadge } from "@/components/checks-list.tsx";
 import { ApiError } from "@/lib/api-client.ts";
 import { errorAt, nestedErrors } from "@/lib/form-errors.ts";
-import { ATTACHMENT_LABELS, ADHESIVE_LABELS } from "./labels.ts";
+import { ADHESIVE_LABELS, ATTACHMENT_METHOD_LABELS as ATTACHMENT_LABELS } from "@shared/schemas/mountings.ts";
 
 type FormData = Omit<MountingDataInput, "plan">;
 export type MountingFormValues = { reason: string; mountedOn: string; correctionReason: string; data: FormData };

@@ -6,7 +6,7 @@ import { planInputFor } from "@shared/domain/mounting.ts";
 import { formatLength } from "@shared/domain/units.ts";
 import { PlanDrawing } from "@/components/plan-drawing.tsx";
 import { ChecksList, LevelBadge } from "@/components/checks-list.tsx";
-import { ADHESIVE_LABELS, ATTACHMENT_LABELS } from "./labels.ts";
+import { ADHESIVE_LABELS, ATTACHMENT_METHOD_LABELS as ATTACHMENT_LABELS } from "@shared/schemas/mountings.ts";
 
 function Row({ label, children }: { label: string; children: ReactNode }) {
   if (children === null || children === undefined || children === "") return null;

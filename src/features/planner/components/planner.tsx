@@ -11,6 +11,7 @@ import { Button } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
 import { convertLength, defaultValues, fieldForPath, LENGTH_FIELDS, ROUND_UP_FIELDS, toInput, type PlannerValues } from "../lib/planner-values.ts";
 import { PlanDrawing } from "@/components/plan-drawing.tsx";
+import { ADHESIVE_LABELS, ATTACHMENT_METHOD_LABELS } from "@shared/schemas/mountings.ts";
 import { ChecksList, FindingsList, LevelBadge } from "@/components/checks-list.tsx";
 
 export type PlannerSettings = {
@@ -32,25 +33,6 @@ type Props = {
 };
 
 const SIDE_LABEL: Record<SideName, string> = { left: "Left", top: "Top", right: "Right", bottom: "Bottom" };
-const METHOD_LABEL: Record<string, string> = {
-  "t-hinge": "T-hinges",
-  "v-hinge": "V-hinges (folded)",
-  "pendant-hinge": "Pendant hinges",
-  "pass-through-hinge": "Pass-through (S-) hinges",
-  corners: "Corners",
-  "edge-strips": "Edge strips",
-  "sink-mount": "Sink mount",
-  "polyester-straps": "Polyester straps",
-  "pressure-sensitive-tape": "Pressure-sensitive tape",
-};
-const ADHESIVE_LABEL: Record<string, string> = {
-  "wheat-starch-paste": "Wheat starch paste",
-  "rice-starch-paste": "Rice starch paste",
-  "methyl-cellulose": "Methyl cellulose",
-  none: "None",
-  "pressure-sensitive": "Pressure-sensitive",
-  other: "Other",
-};
 function compute(values: PlannerValues, s: PlannerSettings): { input: MountPlanInput; result: PlanResult } {
   const input = toInput(values);
   const parsed = MountPlanInputSchema.safeParse(input);
@@ -290,11 +272,11 @@ export function Planner({ settings, initial, context, onSave, saveState }: Props
             </SelectField>
             <SelectField label="Attachment" {...register("materials.attachment")}>
               <option value="">Not chosen</option>
-              {ATTACHMENT_METHODS.map((m) => <option key={m} value={m}>{METHOD_LABEL[m]}</option>)}
+              {ATTACHMENT_METHODS.map((m) => <option key={m} value={m}>{ATTACHMENT_METHOD_LABELS[m]}</option>)}
             </SelectField>
             <SelectField label="Adhesive" {...register("materials.adhesive")}>
               <option value="">Not chosen</option>
-              {ADHESIVES.map((a) => <option key={a} value={a}>{ADHESIVE_LABEL[a]}</option>)}
+              {ADHESIVES.map((a) => <option key={a} value={a}>{ADHESIVE_LABELS[a]}</option>)}
             </SelectField>
             <TextField label="Number of hinges" inputMode="numeric" {...register("materials.hingeCount")} />
           </div>
