@@ -8,6 +8,7 @@ import type { SessionUser } from "../../shared/schemas/auth.ts";
 import { appendEvent } from "../features/history/history.chain.ts";
 import { seedMountings } from "./seed-mountings.ts";
 import { seedCustody } from "./seed-custody.ts";
+import { seedCondition } from "./seed-condition.ts";
 
 /** The invented demo studio. Every name here is made up for the demo. */
 export const DEMO_PASSWORD = "reversa-demo";
@@ -96,5 +97,6 @@ export async function seedDemo(db: Db): Promise<boolean> {
   });
   seedMountings(db, framer);
   seedCustody(db, framer);
+  seedCondition(db, framer);
   return true;
 }
