@@ -21,6 +21,9 @@ import { historyRoutes } from "./features/history/history.routes.ts";
 import { custodyRoutes } from "./features/custody/custody.routes.ts";
 import { mountingsRegisterRoutes } from "./features/mountings/mountings-register.routes.ts";
 import { mountingRoutes } from "./features/mountings/mountings.routes.ts";
+import { photoRoutes } from "./features/photos/photos.routes.ts";
+import { conditionRoutes } from "./features/condition/condition.routes.ts";
+import { termRoutes } from "./features/condition/terms.routes.ts";
 
 export type AppDeps = {
   config: Config & { authSecret: string };
@@ -110,6 +113,9 @@ export function createApp({ config, database, clock = () => new Date() }: AppDep
   app.use("/api", custodyRoutes(db, clock));
   app.use("/api", mountingsRegisterRoutes(db));
   app.use("/api", mountingRoutes(db));
+  app.use("/api", photoRoutes(db, config));
+  app.use("/api", conditionRoutes(db, clock));
+  app.use("/api", termRoutes(db));
   app.use("/api/objects", objectRoutes(db, clock));
   app.use("/api", apiNotFound);
   app.use("/api", errorHandler);

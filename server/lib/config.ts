@@ -7,6 +7,8 @@ const EnvSchema = z.object({
   HOST: z.string().default("0.0.0.0"),
   DATABASE_URL: z.string().default("data/reversa.db"),
   UPLOADS_DIR: z.string().default("uploads"),
+  MAX_UPLOAD_MB: z.coerce.number().positive().max(2048).default(40),
+  MAX_UPLOAD_MEGAPIXELS: z.coerce.number().positive().max(1000).default(100),
   SEED_DEMO: z
     .enum(["true", "false", "1", "0"])
     .default("true")
@@ -24,6 +26,10 @@ export type Config = {
   host: string;
   databaseUrl: string;
   uploadsDir: string;
+  /** Largest photo file accepted, in MB (1 MB = 1,048,576 bytes). */
+  maxUploadMb: number;
+  /** Largest photo accepted, in megapixels (width × height / 10^6), judged from the header before decoding. */
+  maxUploadMegapixels: number;
   seedDemo: boolean;
   publicUrl: string;
   trustedOrigins: string[];
@@ -49,6 +55,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     host: e.HOST,
     databaseUrl: e.DATABASE_URL,
     uploadsDir: path.resolve(e.UPLOADS_DIR),
+    maxUploadMb: e.MAX_UPLOAD_MB,
+    maxUploadMegapixels: e.MAX_UPLOAD_MEGAPIXELS,
     seedDemo: e.SEED_DEMO,
     publicUrl,
     trustedOrigins: [publicUrl, `http://localhost:${e.PORT}`, `http://127.0.0.1:${e.PORT}`, ...e.TRUSTED_ORIGINS.split(",").map((s) => s.trim()).filter(Boolean)],

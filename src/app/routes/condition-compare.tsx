@@ -9,7 +9,7 @@ import { RatingBadge } from "@/features/condition/components/report-view.tsx";
 import { FilterSelect } from "@/components/ui/field.tsx";
 import { EmptyState, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { formatDate } from "@/lib/format.ts";
-import { objectPhotosQuery } from "./condition-report.tsx";
+import { objectPhotosQuery } from "@/features/photos/api/photos.ts";
 
 const STATUS: Record<ComparisonStatus, { label: string; mark: string; cls: string }> = {
   new: { label: "New", mark: "+", cls: "bg-fail-soft text-fail" },
@@ -25,7 +25,7 @@ export function Component() {
   const { id = "" } = useParams();
   const [params, setParams] = useSearchParams();
   const reports = useObjectCondition(id);
-  const photos = useQuery(objectPhotosQuery(id));
+  const photos = useQuery({ ...objectPhotosQuery(id), enabled: !!id });
   const signed = (reports.data ?? []).filter((r) => r.status === "signed");
   const from = params.get("from") ?? signed[1]?.id ?? "";
   const to = params.get("to") ?? signed[0]?.id ?? "";

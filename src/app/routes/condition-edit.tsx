@@ -10,7 +10,7 @@ import { useCorrectReport, useCreateReport, useObjectCondition, useReport, useTe
 import { ReportForm, type ReportFormMode } from "@/features/condition/components/report-form.tsx";
 import { Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { formatDate } from "@/lib/format.ts";
-import { objectPhotosQuery } from "./condition-report.tsx";
+import { objectPhotosQuery } from "@/features/photos/api/photos.ts";
 
 /** New report (/objects/:id/condition/new), a draft (/condition/:id/edit) or a correction (/condition/:id/correct). */
 export function Component() {
@@ -21,7 +21,7 @@ export function Component() {
   const objectId = mode === "new" ? (params.id ?? "") : (existing.data?.objectId ?? "");
   const object = useObject(objectId);
   const reports = useObjectCondition(objectId);
-  const photos = useQuery(objectPhotosQuery(objectId));
+  const photos = useQuery({ ...objectPhotosQuery(objectId), enabled: !!objectId });
   const mountings = useObjectMountings(objectId);
   const terms = useTerms();
   const { data: user } = useMe();

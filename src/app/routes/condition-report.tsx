@@ -3,28 +3,22 @@ import { Link, useParams } from "react-router";
 import { useQuery } from "@tanstack/react-query";
 import { can } from "@shared/permissions.ts";
 import { CONDITION_CONTEXT_LABELS } from "@shared/schemas/condition.ts";
-import type { Photo } from "@shared/schemas/photos.ts";
 import { useMe } from "@/features/session/api/session.ts";
 import { useObject } from "@/features/objects/api/objects.ts";
 import { useReport, useReportRevisions, useSignReport } from "@/features/condition/api/condition.ts";
 import { RatingBadge, ReportView } from "@/features/condition/components/report-view.tsx";
 import { Badge, Card, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { Button, ButtonLink } from "@/components/ui/button.tsx";
-import { api } from "@/lib/api-client.ts";
+import { objectPhotosQuery } from "@/features/photos/api/photos.ts";
 import { formatDate, formatDateTime } from "@/lib/format.ts";
 
-export const objectPhotosQuery = (objectId: string) => ({
-  queryKey: ["photos", objectId],
-  queryFn: () => api.get<{ items: Photo[] }>(`/api/objects/${encodeURIComponent(objectId)}/photos`).then((r) => r.items),
-  enabled: !!objectId,
-});
 
 export function Component() {
   const { id = "" } = useParams();
   const { data: user } = useMe();
   const r = useReport(id);
   const object = useObject(r.data?.objectId ?? "");
-  const photos = useQuery(objectPhotosQuery(r.data?.objectId ?? ""));
+  const photos = useQuery({ ...objectPhotosQuery(r.data?.objectId ?? ""), enabled: !!r.data });
   const revisions = useReportRevisions(id, !!r.data && r.data.currentRevision > 1);
   const sign = useSignReport(id);
   const [shown, setShown] = useState<number | null>(null);

@@ -22,6 +22,8 @@ import { Timeline } from "@/features/history/components/timeline.tsx";
 import { CustodyList } from "@/features/custody/components/custody-list.tsx";
 import { CustodyForm } from "@/features/custody/components/custody-form.tsx";
 import { useObjectCondition } from "@/features/condition/api/condition.ts";
+import { PhotoUploader } from "@/features/photos/components/photo-uploader.tsx";
+import { PhotoGrid } from "@/features/photos/components/photo-grid.tsx";
 import { Cautions, RatingBadge } from "@/features/condition/components/report-view.tsx";
 import { CONDITION_CONTEXT_LABELS } from "@shared/schemas/condition.ts";
 import { mountSummary } from "@shared/domain/mounting.ts";
@@ -243,8 +245,9 @@ export function Component() {
           </div>
         </Card>
         <Card title="Photos">
-          <div id="photos">
-            <EmptyState title="No photos yet">Photos taken for condition reports appear here.</EmptyState>
+          <div id="photos" className="space-y-4">
+            <PhotoUploader objectId={o.id} canUpload={can(user, "condition:write", { clientId: o.clientId })} />
+            <PhotoGrid objectId={o.id} canUpload={can(user, "condition:write", { clientId: o.clientId })} />
           </div>
         </Card>
         <Card title="Documents" className="lg:col-span-2">
