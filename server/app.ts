@@ -24,6 +24,7 @@ import { mountingRoutes } from "./features/mountings/mountings.routes.ts";
 import { photoRoutes } from "./features/photos/photos.routes.ts";
 import { conditionRoutes } from "./features/condition/condition.routes.ts";
 import { termRoutes } from "./features/condition/terms.routes.ts";
+import { verifyRoutes } from "./features/documents/verify.routes.ts";
 
 export type AppDeps = {
   config: Config & { authSecret: string };
@@ -99,6 +100,8 @@ export function createApp({ config, database, clock = () => new Date() }: AppDep
 
   const json = express.json({ limit: "1mb" });
   app.use("/api/session", json, sessionRoutes(auth, sessions));
+
+  app.use("/api", verifyRoutes(db));
 
   // Everything below needs a session; bodies are parsed only once the caller is known.
   app.use("/api", requireAuth(sessions));

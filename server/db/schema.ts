@@ -393,3 +393,21 @@ export const conditionTerms = sqliteTable(
   },
   (t) => [uniqueIndex("condition_terms_uq").on(t.list, t.term)],
 );
+
+// ── Issued documents: every PDF carries a verification code recorded here ──
+export const issuedDocuments = sqliteTable(
+  "issued_documents",
+  {
+    id: text("id").primaryKey(),
+    code: text("code").notNull().unique(),
+    kind: text("kind").notNull(),
+    title: text("title").notNull(),
+    objectId: text("object_id").references(() => objects.id, { onDelete: "restrict" }),
+    clientId: text("client_id").references(() => clients.id, { onDelete: "restrict" }),
+    paperSize: text("paper_size").notNull(),
+    issuedAt: integer("issued_at", { mode: "timestamp_ms" }).notNull(),
+    issuedBy: text("issued_by"),
+    issuedByName: text("issued_by_name").notNull(),
+  },
+  (t) => [index("issued_object_idx").on(t.objectId, t.issuedAt), index("issued_at_idx").on(t.issuedAt)],
+);

@@ -16,6 +16,7 @@ export const EVENT_TYPES = [
   "loan-return",
   "shared",
   "exported",
+  "document-issued",
 ] as const;
 export type EventType = (typeof EVENT_TYPES)[number];
 export const EVENT_TYPE_LABELS: Record<EventType, string> = {
@@ -34,6 +35,7 @@ export const EVENT_TYPE_LABELS: Record<EventType, string> = {
   "loan-return": "Returned from loan",
   shared: "Shared",
   exported: "Exported",
+  "document-issued": "Document issued",
 };
 
 export const HistoryQuerySchema = z.object({

@@ -1,0 +1,96 @@
+import type { ReactElement } from "react";
+import type { DocumentProps } from "@react-pdf/renderer";
+import { renderToBuffer } from "@react-pdf/renderer";
+import { randomBytes, randomUUID } from "node:crypto";
+import { and, desc, eq } from "drizzle-orm";
+import type { Db } from "../../db/client.ts";
+import { issuedDocuments, objects } from "../../db/schema.ts";
+import type { SessionUser } from "../../../shared/schemas/auth.ts";
+import { DOCUMENT_KIND_LABELS, type DocumentKind, type IssuedDocument, type Verification } from "../../../shared/schemas/documents.ts";
+import { registerFonts } from "../../lib/pdf/fonts.ts";
+import type { DocMeta } from "../../lib/pdf/layout.tsx";
+import { getSettings } from "../settings/settings.repo.ts";
+import { appendEvent } from "../history/history.chain.ts";
+
+/** A verification code people can read out: 12 hex digits in three groups, from a CSPRNG. */
+export function newVerificationCode(): string {
+  const hex = randomBytes(6).toString("hex").toUpperCase();
+  return `${hex.slice(0, 4)}-${hex.slice(4, 8)}-${hex.slice(8, 12)}`;
+}
+
+export type IssueRequest = {
+  kind: DocumentKind;
+  title: string;
+  user: SessionUser;
+  objectId?: string | null;
+  objectNumber?: string | null;
+  clientId?: string | null;
+  /** Builds the PDF for the document's header and footer data. */
+  render: (meta: DocMeta) => ReactElement<DocumentProps>;
+};
+
+export function createDocumentsService(db: Db, clock: () => Date = () => new Date()) {
+  return {
+    /**
+     * Renders a document, records it with its verification code and, for an object's document,
+     * writes the issue into the object's history. The record is written only once the PDF rendered.
+     */
+    async issue(req: IssueRequest): Promise<{ pdf: Buffer; code: string; filename: string }> {
+      const settings = getSettings(db);
+      const code = newVerificationCode();
+      const issuedAt = clock();
+      const meta: DocMeta = {
+        studioName: settings.studioName,
+        studioAddress: settings.studioAddress,
+        kindLabel: DOCUMENT_KIND_LABELS[req.kind],
+        objectNumber: req.objectNumber ?? null,
+        code,
+        issuedAt,
+        paperSize: settings.paperSize,
+        title: req.title,
+      };
+      registerFonts();
+      const pdf = await renderToBuffer(req.render(meta));
+      db.transaction((t) => {
+        const tx = t as unknown as Db;
+        tx.insert(issuedDocuments)
+          .values({ id: randomUUID(), code, kind: req.kind, title: req.title, objectId: req.objectId ?? null, clientId: req.clientId ?? null, paperSize: settings.paperSize, issuedAt, issuedBy: req.user.id, issuedByName: req.user.name })
+          .run();
+        if (req.objectId) {
+          appendEvent(tx, { objectId: req.objectId, type: "document-issued", actor: req.user, summary: `${DOCUMENT_KIND_LABELS[req.kind]} issued, verification code ${code}.`, data: { code, kind: req.kind }, at: issuedAt });
+        }
+      });
+      const safe = (req.objectNumber ?? req.kind).replace(/[^A-Za-z0-9-]+/g, "-");
+      return { pdf: Buffer.from(pdf), code, filename: `${req.kind}-${safe}-${code}.pdf` };
+    },
+
+    /** Public: whether a code was issued, of what kind, for which object and when — nothing more. */
+    verify(code: string): Verification {
+      const norm = code.trim().toUpperCase();
+      const row = db
+        .select({ code: issuedDocuments.code, kind: issuedDocuments.kind, issuedAt: issuedDocuments.issuedAt, objectNumber: objects.objectNumber })
+        .from(issuedDocuments)
+        .leftJoin(objects, eq(objects.id, issuedDocuments.objectId))
+        .where(eq(issuedDocuments.code, norm))
+        .get();
+      if (!row) return { valid: false, code: norm };
+      const kind = row.kind as DocumentKind;
+      return { valid: true, code: row.code, kind, kindLabel: DOCUMENT_KIND_LABELS[kind], objectNumber: row.objectNumber ?? null, issuedAt: row.issuedAt.toISOString() };
+    },
+
+    list(filter: { objectId?: string; clientId?: string } = {}): IssuedDocument[] {
+      const where = [];
+      if (filter.objectId) where.push(eq(issuedDocuments.objectId, filter.objectId));
+      if (filter.clientId) where.push(eq(issuedDocuments.clientId, filter.clientId));
+      return db
+        .select()
+        .from(issuedDocuments)
+        .where(where.length ? and(...where) : undefined)
+        .orderBy(desc(issuedDocuments.issuedAt))
+        .limit(500)
+        .all()
+        .map((r) => ({ id: r.id, code: r.code, kind: r.kind as DocumentKind, title: r.title, objectId: r.objectId, clientId: r.clientId, paperSize: r.paperSize, issuedAt: r.issuedAt.toISOString(), issuedByName: r.issuedByName }));
+    },
+  };
+}
+export type DocumentsService = ReturnType<typeof createDocumentsService>;
