@@ -5,6 +5,8 @@ import { RouteError } from "./routes/route-error.tsx";
 // Pages are split per route to keep the first load small.
 export const router = createBrowserRouter([
   { path: "/sign-in", lazy: () => import("./routes/sign-in.tsx"), errorElement: <RouteError /> },
+  { path: "/verify", lazy: () => import("./routes/verify.tsx"), errorElement: <RouteError /> },
+  { path: "/verify/:code", lazy: () => import("./routes/verify.tsx"), errorElement: <RouteError /> },
   {
     path: "/",
     element: <AppLayout />,
@@ -33,6 +35,7 @@ export const router = createBrowserRouter([
       { path: "condition/:id/correct", lazy: () => import("./routes/condition-edit.tsx") },
       { path: "objects/:id/condition/new", lazy: () => import("./routes/condition-edit.tsx") },
       { path: "objects/:id/condition/compare", lazy: () => import("./routes/condition-compare.tsx") },
+      { path: "documents", lazy: () => import("./routes/documents.tsx") },
       { path: "studio", lazy: () => import("./routes/studio.tsx") },
       { path: "*", lazy: () => import("./routes/not-found.tsx") },
     ],

@@ -8,6 +8,8 @@ import { useObjects } from "@/features/objects/api/objects.ts";
 import { ObjectsTable } from "@/features/objects/components/objects-table.tsx";
 import { ButtonLink } from "@/components/ui/button.tsx";
 import { Card, EmptyState, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { DocumentButton } from "@/features/documents/components/document-button.tsx";
+import { ExportsPanel } from "@/features/documents/components/exports-panel.tsx";
 
 export function Component() {
   const { id = "" } = useParams();
@@ -41,6 +43,14 @@ export function Component() {
             </div>
           ))}
         </dl>
+      </Card>
+      <Card title="Documents and exports">
+        <div className="space-y-4">
+          {can(user, "valuation:read", { clientId: c.id }) && (
+            <DocumentButton url={`/api/clients/${c.id}/documents/schedule`} label="Schedule of values (PDF)" fallbackName={`schedule-${c.name}.pdf`} variant="primary" />
+          )}
+          <ExportsPanel clientId={c.id} showValuations={can(user, "valuation:read", { clientId: c.id })} />
+        </div>
       </Card>
       <Card title={`Objects${objects.data ? ` · ${objects.data.total}` : ""}`}>
         {objects.isPending ? (

@@ -10,6 +10,7 @@ import { RatingBadge, ReportView } from "@/features/condition/components/report-
 import { Badge, Card, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { Button, ButtonLink } from "@/components/ui/button.tsx";
 import { objectPhotosQuery } from "@/features/photos/api/photos.ts";
+import { DocumentButton } from "@/features/documents/components/document-button.tsx";
 import { formatDate, formatDateTime } from "@/lib/format.ts";
 
 
@@ -43,6 +44,8 @@ export function Component() {
             {rep.currentRevision > 1 && <span>· revision {rep.currentRevision}</span>}
           </p>
         </div>
+        <div className="flex flex-wrap items-start gap-2">
+          {rep.status === "signed" && <DocumentButton url={`/api/condition/${rep.id}/document`} label="Report for the insurer (PDF)" fallbackName={`condition-${rep.objectNumber}.pdf`} />}
         {writable && (
           <div className="flex flex-wrap gap-2">
             {rep.status === "draft" && <ButtonLink to={`/condition/${rep.id}/edit`} variant="secondary">Edit draft</ButtonLink>}
@@ -50,6 +53,7 @@ export function Component() {
             {rep.status === "signed" && <ButtonLink to={`/condition/${rep.id}/correct`} variant="secondary">Correct the report</ButtonLink>}
           </div>
         )}
+        </div>
       </header>
       {sign.error && <Notice tone="fail" title="Not signed">{sign.error.message}</Notice>}
       {revisions.data && revisions.data.length > 1 && (

@@ -24,6 +24,9 @@ import { CustodyForm } from "@/features/custody/components/custody-form.tsx";
 import { useObjectCondition } from "@/features/condition/api/condition.ts";
 import { PhotoUploader } from "@/features/photos/components/photo-uploader.tsx";
 import { PhotoGrid } from "@/features/photos/components/photo-grid.tsx";
+import { useObjectDocuments, useRefreshDocuments } from "@/features/documents/api/documents.ts";
+import { DocumentButton } from "@/features/documents/components/document-button.tsx";
+import { DocumentsList } from "@/features/documents/components/documents-list.tsx";
 import { Cautions, RatingBadge } from "@/features/condition/components/report-view.tsx";
 import { CONDITION_CONTEXT_LABELS } from "@shared/schemas/condition.ts";
 import { mountSummary } from "@shared/domain/mounting.ts";
@@ -55,6 +58,8 @@ export function Component() {
   const draft = useObjectPlan(id);
   const mountings = useObjectMountings(id);
   const condition = useObjectCondition(id);
+  const documents = useObjectDocuments(id);
+  const refreshDocuments = useRefreshDocuments();
 
   if (q.isPending)
     return (
@@ -251,8 +256,14 @@ export function Component() {
           </div>
         </Card>
         <Card title="Documents" className="lg:col-span-2">
-          <div id="documents">
-            <EmptyState title="No documents issued">Dossiers, condition reports and back labels issued for this object will be listed here with their verification codes.</EmptyState>
+          <div id="documents" className="space-y-4">
+            <div className="flex flex-wrap gap-3">
+              <DocumentButton url={`/api/objects/${o.id}/documents/dossier`} label="Object dossier (PDF)" fallbackName={`dossier-${o.objectNumber}.pdf`} onIssued={() => refreshDocuments(o.id)} />
+              {can(user, "object:create") && (
+                <DocumentButton url={`/api/objects/${o.id}/documents/back-label`} label="Back label (PDF)" fallbackName={`back-label-${o.objectNumber}.pdf`} onIssued={() => refreshDocuments(o.id)} />
+              )}
+            </div>
+            <DocumentsList items={documents.data ?? []} />
           </div>
         </Card>
       </div>

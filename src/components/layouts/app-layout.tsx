@@ -21,6 +21,7 @@ export function navFor(user: SessionUser): NavItem[] {
       { to: "/condition", label: "Condition" },
       { to: "/custody", label: "Custody" },
       { to: "/clients", label: "Clients" },
+      { to: "/documents", label: "Documents" },
       { to: "/studio", label: "Studio" },
     ];
   }
