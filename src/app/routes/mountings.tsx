@@ -14,6 +14,7 @@ import {
 import { can } from "@shared/permissions.ts";
 import { useMe } from "@/features/session/api/session.ts";
 import { useMountingsRegister } from "@/features/mountings-register/api/mountings-register.ts";
+import { DocumentButton } from "@/features/documents/components/document-button.tsx";
 import { FilterSelect, SearchInput } from "@/components/ui/field.tsx";
 import { ButtonLink } from "@/components/ui/button.tsx";
 import { Badge, EmptyState, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
@@ -90,11 +91,21 @@ export function Component() {
 
   return (
     <div className="space-y-5">
-      <header>
-        <h1 className="text-2xl font-bold tracking-tight">Mountings</h1>
-        <p className="text-sm text-graphite">
-          Every mounting record across objects, newest first. Type a board's batch number to find every object mounted with board from that batch.
-        </p>
+      <header className="flex flex-wrap items-end justify-between gap-3">
+        <div>
+          <h1 className="text-2xl font-bold tracking-tight">Mountings</h1>
+          <p className="text-sm text-graphite">
+            Every mounting record across objects, newest first. Type a board's batch number to find every object mounted with board from that batch.
+          </p>
+        </div>
+        {list.data && list.data.items.length > 0 && (
+          <DocumentButton
+            url="/api/documents/workshop-sheet"
+            label={`Workshop sheet for these ${list.data.items.length}`}
+            body={{ mountingIds: list.data.items.map((m) => m.id) }}
+            fallbackName="workshop-sheet.pdf"
+          />
+        )}
       </header>
 
       <div role="search" aria-label="Filter mountings" className="flex flex-wrap items-center gap-3">

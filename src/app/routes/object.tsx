@@ -219,7 +219,10 @@ export function Component() {
             {can(user, "custody:write", { clientId: o.clientId }) && (
               <CustodyForm objectId={o.id} status={o.status} ownerName={o.clientName} studioName={settings?.studioName ?? "The studio"} />
             )}
-            <CustodyList objectId={o.id} />
+            <CustodyList
+              objectId={o.id}
+              actions={(r) => <DocumentButton url={`/api/custody/${r.id}/document`} label="Receipt (PDF)" fallbackName={`receipt-${o.objectNumber}.pdf`} onIssued={() => refreshDocuments(o.id)} />}
+            />
           </div>
         </Card>
         <Card title="Condition">

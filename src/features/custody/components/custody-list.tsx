@@ -1,3 +1,4 @@
+import type { ReactNode } from "react";
 import { Link } from "react-router";
 import { CUSTODY_KIND_LABELS, type CustodyKind, type CustodyReceipt } from "@shared/schemas/custody.ts";
 import { Badge, EmptyState, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
@@ -20,7 +21,7 @@ export function DirectionBadge({ direction }: { direction: "in" | "out" }) {
 }
 
 /** One object's receipts, newest first, as a compact register: date and hand-over, who to whom, condition, signature. */
-export function CustodyList({ objectId }: { objectId: string }) {
+export function CustodyList({ objectId, actions }: { objectId: string; actions?: (r: CustodyReceipt) => ReactNode }) {
   const q = useObjectCustody(objectId);
   if (q.isPending) return <SkeletonRows rows={3} />;
   if (q.isError)
@@ -39,13 +40,13 @@ export function CustodyList({ objectId }: { objectId: string }) {
   return (
     <ol aria-label="Custody receipts, newest first" className="divide-y divide-stone-light">
       {q.data.map((r) => (
-        <ReceiptLine key={r.id} r={r} />
+        <ReceiptLine key={r.id} r={r} actions={actions?.(r)} />
       ))}
     </ol>
   );
 }
 
-function ReceiptLine({ r }: { r: CustodyReceipt }) {
+function ReceiptLine({ r, actions }: { r: CustodyReceipt; actions?: ReactNode }) {
   return (
     <li className="grid gap-x-4 gap-y-0.5 py-3 text-sm sm:grid-cols-[7rem_1fr]">
       <div className="flex items-center gap-2 sm:block">
@@ -64,6 +65,7 @@ function ReceiptLine({ r }: { r: CustodyReceipt }) {
         </p>
         <p className="text-graphite">Signed by {r.signedBy}</p>
         {r.notes && <p className="mt-0.5 whitespace-pre-line text-graphite">{r.notes}</p>}
+        {actions && <div className="mt-1">{actions}</div>}
       </div>
     </li>
   );
