@@ -21,7 +21,7 @@ export default defineConfig({
     setupFiles: ["tests/setup/fail-on-console-error.ts"],
     pool: "forks",
     maxWorkers: Math.max(1, Math.min(4, cores)),
-    testTimeout: 20_000,
+    testTimeout: 60_000,
     hookTimeout: 30_000,
     teardownTimeout: 10_000,
     restoreMocks: true,

@@ -25,6 +25,9 @@ import { photoRoutes } from "./features/photos/photos.routes.ts";
 import { conditionRoutes } from "./features/condition/condition.routes.ts";
 import { termRoutes } from "./features/condition/terms.routes.ts";
 import { verifyRoutes } from "./features/documents/verify.routes.ts";
+import { moreDocumentsRoutes } from "./features/documents/more-documents.routes.ts";
+import { documentsRoutes } from "./features/documents/documents.routes.ts";
+import { exportRoutes } from "./features/exports/exports.routes.ts";
 
 export type AppDeps = {
   config: Config & { authSecret: string };
@@ -119,6 +122,9 @@ export function createApp({ config, database, clock = () => new Date() }: AppDep
   app.use("/api", photoRoutes(db, config));
   app.use("/api", conditionRoutes(db, clock));
   app.use("/api", termRoutes(db));
+  app.use("/api", moreDocumentsRoutes(db, clock, config.publicUrl));
+  app.use("/api", documentsRoutes(db, config, clock));
+  app.use("/api", exportRoutes(db, config, clock));
   app.use("/api/objects", objectRoutes(db, clock));
   app.use("/api", apiNotFound);
   app.use("/api", errorHandler);

@@ -21,7 +21,7 @@ export const s = StyleSheet.create({
   h2: { fontSize: 10.5, fontWeight: 700, marginTop: 12, marginBottom: 4, color: ACCENT },
   row: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: STONE, paddingVertical: 2.5 },
   label: { width: 130, color: GRAPHITE },
-  value: { flex: 1, lineHeight: 1.35 },
-  p: { lineHeight: 1.4, marginBottom: 4 },
+  value: { flex: 1 },
+  p: { marginBottom: 4 },
   caution: { borderWidth: 0.75, borderColor: WARN, backgroundColor: "#f7ecd6", padding: 6, marginVertical: 4, color: INK },
 });

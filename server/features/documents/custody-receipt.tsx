@@ -1,0 +1,119 @@
+import { Text, View } from "@react-pdf/renderer";
+import { format, parseISO } from "date-fns";
+import { CUSTODY_KIND_LABELS, type CustodyKind } from "../../../shared/schemas/custody.ts";
+import { GLAZING_TYPE_LABELS } from "../../../shared/schemas/mountings.ts";
+import { HEAVY_PACKAGE_KG } from "../../../shared/domain/mount-plan/constants.ts";
+import { DocShell, type DocMeta } from "../../lib/pdf/layout.tsx";
+import { GRAPHITE, INK, STONE, s } from "../../lib/pdf/theme.ts";
+import type { ReactNode } from "react";
+
+// A unitless lineHeight in react-pdf 4 multiplies the font size set on the same style (18 when inherited), so both are given here.
+const P = { fontSize: 9, lineHeight: 1.4, marginBottom: 4 } as const;
+
+function Field({ label, children }: { label: string; children: ReactNode }) {
+  if (children === null || children === undefined || children === "") return null;
+  return (
+    <View style={{ flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: STONE, paddingVertical: 3 }} wrap={false}>
+      <Text style={{ width: 130, fontSize: 9, color: GRAPHITE }}>{label}</Text>
+      <Text style={{ flex: 1, fontSize: 9, lineHeight: 1.35 }}>{children}</Text>
+    </View>
+  );
+}
+import type { ReceiptRow } from "../custody/custody.repo.ts";
+
+export type CustodyDocData = {
+  receipt: ReceiptRow;
+  object: { objectNumber: string; title: string; maker: string | null; dimensions: string; clientName: string };
+  /** From the current mounting, when there is one. */
+  glazing: string | null;
+  glass: boolean;
+  weightKg: number | null;
+};
+
+const day = (iso: string) => {
+  try {
+    return format(parseISO(iso), "d MMMM yyyy");
+  } catch {
+    return iso;
+  }
+};
+
+/** The handling cautions that apply to this object, placed on the receipt where the hand-over happens (BRIEF §9). */
+export function handlingCautions(d: Pick<CustodyDocData, "glass" | "weightKg">): { title: string; text: string }[] {
+  const out: { title: string; text: string }[] = [];
+  if (d.glass)
+    out.push({
+      title: "Glazed with glass",
+      text: "Glass cuts if it breaks. Carry the frame upright with the glass towards you and never stack frames glass to glass. If the glass breaks, wear cut-resistant gloves and eye protection, lift the pieces away from the object, not across it, and put them in a sharps container.",
+    });
+  if (d.weightKg != null && d.weightKg >= HEAVY_PACKAGE_KG)
+    out.push({
+      title: `Heavy frame (about ${Math.round(d.weightKg)} kg)`,
+      text: "Lift and carry it with two people, one at each side, holding the sides of the frame. Never lift it by the top rail, the hanging wire or the hardware.",
+    });
+  return out;
+}
+
+function SignatureLine({ role, name }: { role: string; name: string }) {
+  return (
+    <View style={{ flex: 1 }} wrap={false}>
+      <View style={{ height: 38, borderBottomWidth: 0.75, borderBottomColor: INK }} />
+      <Text style={[s.small, { marginTop: 3 }]}>{role}</Text>
+      <Text style={{ fontSize: 9, marginTop: 1 }}>{name}</Text>
+      <Text style={[s.small, { marginTop: 10 }]}>Date</Text>
+      <View style={{ height: 14, borderBottomWidth: 0.5, borderBottomColor: GRAPHITE, width: 120 }} />
+    </View>
+  );
+}
+
+export function CustodyReceiptDocument({ meta, data }: { meta: DocMeta; data: CustodyDocData }) {
+  const r = data.receipt;
+  const kind = CUSTODY_KIND_LABELS[r.kind as CustodyKind] ?? r.kind;
+  const cautions = handlingCautions(data);
+  return (
+    <DocShell meta={meta}>
+      <Text style={s.h1}>Custody receipt: {kind.toLowerCase()}</Text>
+      <Text style={P}>
+        {r.direction === "in" ? "The object below came into the studio's care" : "The object below left the studio's care"} on {day(r.date)}, as recorded in Reversa.
+      </Text>
+
+      <Text style={s.h2}>Object</Text>
+      <Field label="Object number">{data.object.objectNumber}</Field>
+      <Field label="Title">{data.object.title}</Field>
+      <Field label="Maker">{data.object.maker}</Field>
+      <Field label="Sheet size">{data.object.dimensions}</Field>
+      <Field label="Owner">{data.object.clientName}</Field>
+      <Field label="Glazing">{data.glazing}</Field>
+
+      <Text style={s.h2}>Hand-over</Text>
+      <Field label="Kind">{kind}</Field>
+      <Field label="Date">{day(r.date)}</Field>
+      <Field label="From">{r.fromParty}</Field>
+      <Field label="To">{r.toParty}</Field>
+      <Field label="Location">{r.location}</Field>
+      <Field label="Condition on hand-over">{r.condition}</Field>
+      <Field label="Signed by">{r.signedBy}</Field>
+      <Field label="Notes">{r.notes}</Field>
+
+      <Text style={s.h2}>Handling</Text>
+      {cautions.map((c) => (
+        <View key={c.title} style={s.caution} wrap={false}>
+          <Text style={{ fontWeight: 700, marginBottom: 2 }}>Caution · {c.title}</Text>
+          <Text style={{ fontSize: 9, lineHeight: 1.35 }}>{c.text}</Text>
+        </View>
+      ))}
+      <Text style={[P, { color: GRAPHITE }]}>
+        Handle the object with clean, dry hands or nitrile gloves, keep it flat or upright as packed, and do not open the frame or the package. The condition above is an observation on hand-over, not a treatment: refer any treatment to a qualified conservator.
+      </Text>
+
+      <Text style={s.h2}>Signatures</Text>
+      <Text style={[s.small, { marginBottom: 4 }]}>Both parties sign to confirm the hand-over and the condition stated above.</Text>
+      <View style={{ flexDirection: "row", gap: 36 }} wrap={false}>
+        <SignatureLine role="Handed over by" name={r.fromParty} />
+        <SignatureLine role="Received by" name={r.toParty} />
+      </View>
+    </DocShell>
+  );
+}
+
+export { GLAZING_TYPE_LABELS };

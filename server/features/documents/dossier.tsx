@@ -1,0 +1,254 @@
+import { Text, View } from "@react-pdf/renderer";
+import type { Db } from "../../db/client.ts";
+import type { Config } from "../../lib/config.ts";
+import type { SessionUser } from "../../../shared/schemas/auth.ts";
+import { can } from "../../../shared/permissions.ts";
+import { OBJECT_STATUS_LABELS, OBJECT_TYPE_LABELS, PHOTO_PROCESS_LABELS, SENSITIVITY_LABELS } from "../../../shared/schemas/objects.ts";
+import {
+  ADHESIVE_LABELS,
+  ATTACHMENT_METHOD_LABELS,
+  BACKING_TYPE_LABELS,
+  BOARD_GRADE_LABELS,
+  GLAZING_TYPE_LABELS,
+  MOUNTING_REASON_LABELS,
+  MOUNTING_STATUS_LABELS,
+  SEALING_TYPE_LABELS,
+  type Board,
+  type MountingData,
+  type MountingRecord,
+} from "../../../shared/schemas/mountings.ts";
+import { MountPlanInputSchema, SIDES, type MountPlan } from "../../../shared/schemas/mount-plan.ts";
+import { CONDITION_CONTEXT_LABELS, type ConditionReport } from "../../../shared/schemas/condition.ts";
+import { computePlan, planDrawing, type DrawingModel, type PlanGeometry } from "../../../shared/domain/mount-plan/index.ts";
+import { mountSummary, planInputFor } from "../../../shared/domain/mounting.ts";
+import { formatLength, formatSize, type Unit } from "../../../shared/domain/units.ts";
+import { vocab } from "../../../shared/schemas/settings.ts";
+import { DocShell } from "../../lib/pdf/layout.tsx";
+import { PdfPlanDrawing } from "../../lib/pdf/plan-drawing.tsx";
+import { ACCENT, GRAPHITE, s } from "../../lib/pdf/theme.ts";
+import { getSettings } from "../settings/settings.repo.ts";
+import { createObjectsService } from "../objects/objects.service.ts";
+import { createMountingsService } from "../mountings/mountings.service.ts";
+import { createMountPlansService } from "../mount-plans/mount-plans.service.ts";
+import { createConditionService } from "../condition/condition.service.ts";
+import { findPhoto, listForObject as photosOfObject } from "../photos/photos.repo.ts";
+import { createDocumentsService } from "./documents.service.ts";
+import { Caution, FindingsTable, KV, Lines, para, loadPhoto, NOT_TREATMENT, PhotoGrid, RatingTag, Table, valuationLine, VerdictTag, type LoadedPhoto } from "./condition-pdf.tsx";
+
+/** Reads what the user may read; a refusal (403/404) of a section leaves that section out rather than the whole dossier. */
+function orNothing<T>(f: () => T, fallback: T): T {
+  try {
+    return f();
+  } catch (e) {
+    if ((e as { status?: number }).status === 403 || (e as { status?: number }).status === 404) return fallback;
+    throw e;
+  }
+}
+
+const boardLine = (b: Board) => [BOARD_GRADE_LABELS[b.grade], `${b.ply}-ply`, b.buffered ? "buffered" : "unbuffered", b.colour, b.maker, b.batch && `batch ${b.batch}`, b.patPassed ? "PAT passed" : null].filter(Boolean).join(" · ");
+
+type PlanView = { plan: MountPlan; geometry: PlanGeometry; model: DrawingModel; data: MountingData | null };
+
+/** The plan recomputed from its saved input, exactly as the screen does (mounting-view.tsx), labelled in the studio's unit. */
+function planView(input: unknown, data: MountingData | null, ctx: { minOverlapMm: number; rebateClearanceMm: number }, unit: Unit): PlanView | null {
+  const r = computePlan(data ? planInputFor(data) : MountPlanInputSchema.parse(input), ctx);
+  if (!r.ok) return null;
+  const hinges = data ? data.attachment.hinges.map((h) => ({ edge: h.edge, offset: h.offsetMm, width: h.widthMm })) : [];
+  return { plan: r.plan, geometry: r.geometry, data, model: planDrawing(r.geometry, { length: (mm) => formatLength(mm, unit, { denominator: 16 }) }, hinges) };
+}
+
+export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, clock: () => Date, user: SessionUser, objectId: string) {
+  // get() answers 404 to anyone who may not read the object and strips valuations the user may not see.
+  const object = createObjectsService(db).get(user, objectId);
+  const showValue = can(user, "valuation:read", { clientId: object.clientId });
+  const settings = getSettings(db);
+  const unit = settings.unit;
+  const w = vocab(settings.vocabulary);
+  const ctx = { minOverlapMm: settings.minOverlapMm, rebateClearanceMm: settings.rebateClearanceMm };
+  const len = (mm: number, rounding: "nearest" | "down" | "up" = "nearest") => formatLength(mm, unit, { denominator: 16, rounding });
+  const size = (b: { width: number; height: number }, rounding: "nearest" | "down" | "up" = "nearest") => formatSize(b.width, b.height, unit, { denominator: 16, rounding });
+
+  const mountings = orNothing(() => createMountingsService(db).listForObject(user, objectId), [] as MountingRecord[]);
+  const current = mountings.find((m) => m.status === "completed") ?? null;
+  const draft = current ? null : orNothing(() => createMountPlansService(db).getDraft(user, objectId), null);
+  const view = current ? planView(null, current.current.data, ctx, unit) : draft ? planView(draft.input, null, ctx, unit) : null;
+
+  const reports = orNothing(() => createConditionService(db, clock).listForObject(user, objectId), [] as ConditionReport[]);
+  const latest = reports.filter((r) => r.status === "signed").sort((a, b) => (`${a.reportDate}|${a.signedAt}` < `${b.reportDate}|${b.signedAt}` ? 1 : -1))[0] ?? null;
+  const photoRows = latest?.current.data.photoIds.length
+    ? latest.current.data.photoIds.map((id) => findPhoto(db, id)).filter((p): p is NonNullable<typeof p> => !!p && p.objectId === objectId)
+    : orNothing(() => photosOfObject(db, objectId), []);
+  const photos = photoRows
+    .map((p) => loadPhoto(config, p))
+    .filter((p): p is LoadedPhoto => !!p)
+    .slice(0, 4);
+  const photoNumber = (id: string) => {
+    const i = photos.findIndex((p) => p.row.id === id);
+    return i < 0 ? null : i + 1;
+  };
+  const value = showValue ? valuationLine(object) : null;
+  const d = current?.current.data ?? null;
+
+  // Drawn as large as fits the column: the model's viewBox is in mm.
+  const drawingWidth = view ? Math.min(270, (320 * view.model.viewBox[2]) / view.model.viewBox[3]) : 0;
+
+  return createDocumentsService(db, clock).issue({
+    kind: "dossier",
+    title: `Object dossier ${object.objectNumber}`,
+    user,
+    objectId: object.id,
+    objectNumber: object.objectNumber,
+    clientId: object.clientId,
+    render: (meta) => (
+      <DocShell meta={meta}>
+        <Text style={s.h1}>{object.title}</Text>
+        <Text style={[s.small, { marginBottom: 6 }]}>{[object.objectNumber, object.maker, object.dateMade].filter(Boolean).join(" · ")}</Text>
+        {current && view ? (
+          <Text style={[para, { color: ACCENT }]}>
+            Current {w.mount}: {mountSummary(current.current.data, { display: { aperture: size(view.geometry.aperture, "down") } })}.
+          </Text>
+        ) : null}
+
+        <Text style={s.h2}>Catalogue</Text>
+        <View style={{ flexDirection: "row", gap: 16 }}>
+          <View style={{ flex: 1 }}>
+            <KV labelWidth={88} label="Object number">{object.objectNumber}</KV>
+            <KV labelWidth={88} label="Title">{object.title}</KV>
+            <KV labelWidth={88} label="Maker">{object.maker}</KV>
+            <KV labelWidth={88} label="Date made">{object.dateMade}</KV>
+            <KV labelWidth={88} label="Object type">{OBJECT_TYPE_LABELS[object.objectType]}</KV>
+            <KV labelWidth={88} label="Process">{object.photoProcess ? PHOTO_PROCESS_LABELS[object.photoProcess] : null}</KV>
+            <KV labelWidth={88} label="Medium">{object.medium}</KV>
+            <KV labelWidth={88} label="Support">{object.support}</KV>
+            <KV labelWidth={88} label="Edition">{object.edition}</KV>
+            <KV labelWidth={88} label="Inscriptions">{object.inscriptions}</KV>
+          </View>
+          <View style={{ flex: 1 }}>
+            <KV labelWidth={88} label="Sheet (W × H)">{size({ width: object.sheetWidthMm, height: object.sheetHeightMm })}</KV>
+            <KV labelWidth={88} label="Image borders">
+              {object.borderLeftMm !== null || object.borderTopMm !== null ? (["L", "T", "R", "B"] as const).map((k, i) => { const v = [object.borderLeftMm, object.borderTopMm, object.borderRightMm, object.borderBottomMm][i]; return `${k} ${v === null ? "—" : len(v)}`; }).join(" · ") : null}
+            </KV>
+            <KV labelWidth={88} label="Thickness">{object.thicknessNotes}</KV>
+            <KV labelWidth={88} label="Sensitivities">{object.sensitivities.length ? object.sensitivities.map((x) => SENSITIVITY_LABELS[x]).join(", ") : null}</KV>
+            <KV labelWidth={88} label="Owner">{object.clientName}</KV>
+            <KV labelWidth={88} label="Status">{OBJECT_STATUS_LABELS[object.status]}</KV>
+            <KV labelWidth={88} label="Location">{object.location}</KV>
+            {value ? <KV labelWidth={88} label="Insured value">{value}</KV> : null}
+          </View>
+        </View>
+
+        <Text style={s.h2} minPresenceAhead={200}>
+          {current ? `Current ${w.mount}, drawn to scale` : draft ? `Planned ${w.mount} (draft plan, not yet mounted), drawn to scale` : `${w.Mount}`}
+        </Text>
+        {view ? (
+          <View style={{ flexDirection: "row", gap: 14 }} wrap={false}>
+            <View style={{ width: drawingWidth }}>
+              <PdfPlanDrawing model={view.model} width={drawingWidth} />
+              <Text style={[s.small, { marginTop: 3 }]}>{`Front view; dimensions in ${unit === "in" ? "inches" : "mm"}${d && d.attachment.hinges.length ? "; hinges drawn in yellow, positions as listed" : ""}.`}</Text>
+            </View>
+            <View style={{ flex: 1 }}>
+              <KV labelWidth={84} label="Window (aperture)">{size(view.geometry.aperture, "down")}</KV>
+              <KV labelWidth={84} label="Overlap L · T · R · B">{SIDES.map((x) => len(view.geometry.overlap[x], "down")).join(" · ")}</KV>
+              <KV labelWidth={84} label={`Borders L · T · R · B`}>{SIDES.map((x) => len(view.geometry.borders[x])).join(" · ")}</KV>
+              <KV labelWidth={84} label="Outer = glazing = backing">{size(view.geometry.outer)}</KV>
+              <KV labelWidth={84} label={w.Rebate}>{size(view.geometry.rebate, "up")}</KV>
+              <KV labelWidth={84} label="Sheet">{size(view.geometry.sheet)}</KV>
+              {view.geometry.topWindow ? <KV labelWidth={84} label="Top window">{size(view.geometry.topWindow, "down")}</KV> : null}
+              {d && d.attachment.hinges.length > 0 ? (
+                <KV labelWidth={84} label="Hinges">
+                  <View>
+                    {d.attachment.hinges.map((h, i) => (
+                      <Text key={i}>{`${i + 1}. ${h.edge} edge, ${len(h.offsetMm)} from the corner, ${len(h.widthMm)} wide`}</Text>
+                    ))}
+                  </View>
+                </KV>
+              ) : null}
+              {current ? <KV labelWidth={84} label="Mounted">{`${current.mountedOn}${current.framerName ? ` by ${current.framerName}` : ""}`}</KV> : null}
+            </View>
+          </View>
+        ) : (
+          <Text style={para}>No {w.mount} has been recorded or planned for this object yet.</Text>
+        )}
+
+        {d ? (
+          <>
+            <Text style={s.h2}>Boards and materials</Text>
+            <KV label={`Window board`}>{boardLine(d.boards.window)}</KV>
+            {d.boards.top ? <KV label="Top board">{boardLine(d.boards.top)}</KV> : null}
+            <KV label="Backing board">{boardLine(d.boards.backing)}</KV>
+            <KV label="Glazing">{[GLAZING_TYPE_LABELS[d.glazing.type], d.glazing.thicknessMm && `${len(d.glazing.thicknessMm)}`].filter(Boolean).join(" · ")}</KV>
+            <KV label="Spacer">{[d.spacer?.type, d.spacer?.depthMm && `${len(d.spacer.depthMm)} deep`].filter(Boolean).join(" · ")}</KV>
+            <KV label="Frame">{[d.frame?.moulding, d.frame?.finish, d.frame?.faceWidthMm && `${len(d.frame.faceWidthMm)} face`, d.frame?.rebateDepthMm && `${len(d.frame.rebateDepthMm)} ${w.rebate} depth`].filter(Boolean).join(" · ")}</KV>
+            <KV label="Backing">{d.backing ? [BACKING_TYPE_LABELS[d.backing.type], d.backing.notes].filter(Boolean).join(" · ") : null}</KV>
+            <KV label="Sealing">{d.sealing ? [SEALING_TYPE_LABELS[d.sealing.type], d.sealing.notes].filter(Boolean).join(" · ") : null}</KV>
+            <KV label="Hanging">{[d.hanging?.hardware, d.hanging?.wire, d.hanging?.notes].filter(Boolean).join(" · ")}</KV>
+
+            <Text style={s.h2}>Attachment</Text>
+            <KV label="Method">
+              {[ATTACHMENT_METHOD_LABELS[d.attachment.method], d.attachment.tissue, d.attachment.tissueWeightGsm && `${d.attachment.tissueWeightGsm} g/m²`, d.attachment.adhesive && ADHESIVE_LABELS[d.attachment.adhesive]].filter(Boolean).join(" · ")}
+            </KV>
+            <KV label="Notes">{d.notes}</KV>
+            <View style={{ borderLeftWidth: 2, borderLeftColor: ACCENT, paddingLeft: 8, paddingVertical: 4, marginTop: 6 }} wrap={false}>
+              <Text style={{ fontWeight: 700, marginBottom: 2 }}>How to undo this {w.mount}</Text>
+              <Lines text={d.undoNotes} style={para} />
+            </View>
+          </>
+        ) : null}
+
+        {view ? (
+          <>
+            <Text style={s.h2}>Conservation checks</Text>
+            <View style={{ flexDirection: "row", alignItems: "center", marginBottom: 3 }}>
+              <Text style={{ color: GRAPHITE, marginRight: 6 }}>Overall</Text>
+              <VerdictTag verdict={view.plan.level} />
+            </View>
+            <Table
+              cols={[{ label: "Check", flex: 1.4 }, { label: "Verdict", width: 62 }, { label: "Reason", flex: 3 }]}
+              rows={view.plan.checks.map((c) => [c.rule, <VerdictTag verdict={c.verdict} />, c.reason])}
+            />
+          </>
+        ) : null}
+
+        <Text style={s.h2}>Condition</Text>
+        {latest ? (
+          <>
+            <KV label="Latest signed report">{`${latest.reportDate} · ${CONDITION_CONTEXT_LABELS[latest.context]} · examined by ${latest.examinerName}`}</KV>
+            <KV label="Overall rating">
+              <RatingTag rating={latest.rating} />
+            </KV>
+            <KV label="Summary">{latest.current.data.summary}</KV>
+            {latest.cautions.map((c, i) => (
+              <Caution key={i}>{c}</Caution>
+            ))}
+            <View style={{ marginTop: 4 }}>
+              <FindingsTable data={latest.current.data} photoNumber={photoNumber} />
+            </View>
+            <Text style={[s.small, { marginTop: 4 }]}>{NOT_TREATMENT}</Text>
+          </>
+        ) : (
+          <Text style={para}>No signed condition report has been recorded for this object yet.</Text>
+        )}
+        {photos.length > 0 ? (
+          <View style={{ marginTop: 8 }}>
+            <PhotoGrid photos={photos} data={latest?.current.data ?? { overallRating: "good", summary: "", findings: [], recommendations: { display: null, handling: null, environment: null, referral: null }, lightNotes: null, photoIds: [], signatures: {} }} columnWidth={250} />
+          </View>
+        ) : null}
+
+        <Text style={s.h2}>Mounting history</Text>
+        {mountings.length === 0 ? (
+          <Text style={para}>No mounting has been recorded.</Text>
+        ) : (
+          <Table
+            cols={[{ label: "Date", width: 58 }, { label: "Status", width: 58 }, { label: "Reason", width: 80 }, { label: "Framer", width: 72 }, { label: "Summary", flex: 1 }]}
+            rows={mountings.map((m) => {
+              const g = computePlan(planInputFor(m.current.data), ctx);
+              const aperture = g.ok ? size(g.geometry.aperture, "down") : m.current.plan.display.aperture;
+              const ended = m.endedOn ? ` Ended ${m.endedOn}${m.endReason ? `: ${m.endReason}` : ""}` : "";
+              return [m.mountedOn, MOUNTING_STATUS_LABELS[m.status], MOUNTING_REASON_LABELS[m.reason], m.framerName ?? "—", `${mountSummary(m.current.data, { display: { aperture } })}.${ended}`];
+            })}
+          />
+        )}
+      </DocShell>
+    ),
+  });
+}

@@ -1,0 +1,185 @@
+import { Router, type Response } from "express";
+import { createElement, type FunctionComponent, type ReactElement } from "react";
+import type { DocumentProps } from "@react-pdf/renderer";
+import { z } from "zod";
+import type { Db } from "../../db/client.ts";
+import { IdParamSchema } from "../../../shared/schemas/common.ts";
+import { OBJECT_STATUSES, OBJECT_TYPES } from "../../../shared/schemas/objects.ts";
+import { STANDARD_BOARD_SHEETS } from "../../../shared/domain/mount-plan/index.ts";
+import { formatSize } from "../../../shared/domain/units.ts";
+import { AppError, notFound } from "../../lib/errors.ts";
+import { assertCan, currentUser, requirePermission } from "../../middleware/require-permission.ts";
+import { input, validate } from "../../middleware/validate.ts";
+import { findClient } from "../clients/clients.repo.ts";
+import { findReceipt } from "../custody/custody.repo.ts";
+import { findMounting } from "../mountings/mountings.repo.ts";
+import { findObject } from "../objects/objects.repo.ts";
+import { getSettings } from "../settings/settings.repo.ts";
+import { createDocumentsService } from "./documents.service.ts";
+import { loadSchedule, ScheduleDocument } from "./schedule.tsx";
+import { CustodyReceiptDocument, GLAZING_TYPE_LABELS } from "./custody-receipt.tsx";
+import { mountingDetail, summaryOf, workshopData, WorkshopSheetDocument, type WorkshopItem } from "./workshop-sheet.tsx";
+import { BackLabelDocument, LabelSheetDocument, objectUrl, qrFor, type LabelData } from "./labels.tsx";
+
+const Ids = (max: number, what: string) =>
+  z.array(z.string().min(1).max(64), { message: `Give the ${what} as a list of ids.` }).min(1, { message: `Choose at least one ${what.replace(/s$/, "")}.` }).max(max, { message: `At most ${max} ${what} at once.` });
+
+export const ScheduleBodySchema = z
+  .object({
+    objectIds: Ids(5000, "objects").optional(),
+    status: z.enum(OBJECT_STATUSES).optional(),
+    objectType: z.enum(OBJECT_TYPES).optional(),
+  })
+  .default({});
+export const WorkshopBodySchema = z.object({
+  mountingIds: Ids(200, "mountings"),
+  boardSheetId: z.enum(STANDARD_BOARD_SHEETS.map((b) => b.id) as [string, ...string[]], { message: `Choose a board sheet: ${STANDARD_BOARD_SHEETS.map((b) => b.label).join(", ")}.` }).optional(),
+});
+export const LabelSheetBodySchema = z.object({ objectIds: Ids(400, "objects") });
+const ReceiptParam = z.object({ receiptId: z.string().min(1).max(64) });
+
+/** A document component as the service's render wants it: a react-pdf <Document> element. */
+const pdf = <P extends object>(c: FunctionComponent<P>, props: P) => createElement(c, props) as unknown as ReactElement<DocumentProps>;
+
+function sendPdf(res: Response, doc: { pdf: Buffer; code: string; filename: string }) {
+  res.setHeader("Content-Type", "application/pdf");
+  res.setHeader("Content-Disposition", `attachment; filename="${doc.filename}"`);
+  res.setHeader("X-Verification-Code", doc.code);
+  res.setHeader("Cache-Control", "no-store");
+  res.send(doc.pdf);
+}
+
+/** Schedule of values, custody receipt, workshop sheet, back labels. Mounted at /api, after the session check. */
+export function moreDocumentsRoutes(db: Db, clock: () => Date = () => new Date(), publicUrl = "http://localhost:3000") {
+  const docs = createDocumentsService(db, clock);
+  const r = Router();
+
+  // Valuations are confidential: the owning client's users and the studio only; other clients get 404.
+  r.post("/clients/:id/documents/schedule", validate({ params: IdParamSchema, body: ScheduleBodySchema }), async (req, res) => {
+    const user = currentUser(req);
+    const { id } = input(req, "params", IdParamSchema);
+    const body = input(req, "body", ScheduleBodySchema) ?? {};
+    const client = findClient(db, id);
+    if (!client) throw notFound("That client");
+    assertCan(user, "client:read", { clientId: id }, { readAction: "client:read", what: "That client" });
+    assertCan(user, "valuation:read", { clientId: id }, { readAction: "client:read", what: "That client" });
+    const data = loadSchedule(db, id, body, user.name);
+    if (!data) throw notFound("One of those objects");
+    const doc = await docs.issue({
+      kind: "schedule-of-values",
+      title: `Schedule of values — ${client.name}`,
+      user,
+      clientId: id,
+      objectNumber: null,
+      render: (meta) => pdf(ScheduleDocument, { meta, data }),
+    });
+    doc.filename = doc.filename.replace("schedule-of-values-schedule-of-values", "schedule-of-values");
+    sendPdf(res, doc);
+  });
+
+  r.post("/custody/:receiptId/document", validate({ params: ReceiptParam }), async (req, res) => {
+    const user = currentUser(req);
+    const receipt = findReceipt(db, input(req, "params", ReceiptParam).receiptId);
+    const object = receipt ? findObject(db, receipt.objectId) : null;
+    if (!receipt || !object) throw notFound("That receipt");
+    assertCan(user, "custody:read", { clientId: object.clientId }, { readAction: "custody:read", what: "That receipt" });
+    const m = object.currentMountingId ? findMounting(db, object.currentMountingId) : null;
+    const detail = m ? mountingDetail(db, m) : null;
+    const g = detail?.result.ok ? detail.result.geometry : null;
+    const glazingType = detail?.data.glazing.type ?? (object.currentGlazing as keyof typeof GLAZING_TYPE_LABELS | null);
+    const data = {
+      receipt,
+      object: { objectNumber: object.objectNumber, title: object.title, maker: object.maker, dimensions: formatSize(object.sheetWidthMm, object.sheetHeightMm, getSettings(db).unit), clientName: object.clientName },
+      glazing: glazingType ? (GLAZING_TYPE_LABELS[glazingType] ?? glazingType) : null,
+      glass: g ? g.glazing.material === "glass" : !!glazingType && glazingType.includes("glass"),
+      weightKg: g?.package.weightKg ?? null,
+    };
+    const doc = await docs.issue({
+      kind: "custody-receipt",
+      title: `Custody receipt — ${object.objectNumber}, ${receipt.date}`,
+      user,
+      objectId: object.id,
+      objectNumber: object.objectNumber,
+      clientId: object.clientId,
+      render: (meta) => pdf(CustodyReceiptDocument, { meta, data }),
+    });
+    sendPdf(res, doc);
+  });
+
+  r.post("/documents/workshop-sheet", requirePermission("mounting:write"), validate({ body: WorkshopBodySchema }), async (req, res) => {
+    const user = currentUser(req);
+    const body = input(req, "body", WorkshopBodySchema);
+    const items: WorkshopItem[] = [];
+    for (const id of [...new Set(body.mountingIds)]) {
+      const m = findMounting(db, id);
+      const o = m ? findObject(db, m.objectId) : null;
+      const detail = m ? mountingDetail(db, m) : null;
+      if (!m || !o || !detail) throw notFound("One of those mountings");
+      items.push({ objectNumber: o.objectNumber, title: o.title, detail });
+    }
+    items.sort((a, b) => a.objectNumber.localeCompare(b.objectNumber));
+    const data = workshopData(db, items, body.boardSheetId);
+    const one = items.length === 1 ? items[0] : null;
+    const doc = await docs.issue({
+      kind: "workshop-sheet",
+      title: `Workshop sheet — ${items.map((i) => i.objectNumber).join(", ").slice(0, 200)}`,
+      user,
+      objectId: one?.detail.row.objectId ?? null,
+      objectNumber: one?.objectNumber ?? null,
+      render: (meta) => pdf(WorkshopSheetDocument, { meta, data }),
+    });
+    sendPdf(res, doc);
+  });
+
+  async function labelFor(objectId: string): Promise<LabelData> {
+    const o = findObject(db, objectId);
+    if (!o) throw notFound("That object");
+    const m = o.currentMountingId ? findMounting(db, o.currentMountingId) : null;
+    const detail = m ? mountingDetail(db, m) : null;
+    const url = objectUrl(publicUrl, o.id);
+    return {
+      objectId: o.id,
+      objectNumber: o.objectNumber,
+      title: o.title,
+      mountedOn: m?.mountedOn ?? o.lastMountedOn ?? null,
+      summary: detail ? summaryOf(detail, getSettings(db).vocabulary) : null,
+      url,
+      qr: await qrFor(url),
+    };
+  }
+
+  r.post("/objects/:id/documents/back-label", requirePermission("mounting:write"), validate({ params: IdParamSchema }), async (req, res) => {
+    const user = currentUser(req);
+    const label = await labelFor(input(req, "params", IdParamSchema).id);
+    const o = findObject(db, label.objectId)!;
+    const doc = await docs.issue({
+      kind: "back-label",
+      title: `Back label — ${label.objectNumber}`,
+      user,
+      objectId: label.objectId,
+      objectNumber: label.objectNumber,
+      clientId: o.clientId,
+      render: (meta) => pdf(BackLabelDocument, { meta, label }),
+    });
+    sendPdf(res, doc);
+  });
+
+  // One verification code for the whole sheet, recorded without an object (no per-object history event).
+  r.post("/documents/label-sheet", requirePermission("mounting:write"), validate({ body: LabelSheetBodySchema }), async (req, res) => {
+    const user = currentUser(req);
+    const ids = [...new Set(input(req, "body", LabelSheetBodySchema).objectIds)];
+    const labels: LabelData[] = [];
+    for (const id of ids) labels.push(await labelFor(id).catch(() => Promise.reject(notFound("One of those objects"))));
+    labels.sort((a, b) => a.objectNumber.localeCompare(b.objectNumber));
+    if (labels.length === 0) throw new AppError(400, "validation_failed", "Choose at least one object.");
+    const doc = await docs.issue({
+      kind: "label-sheet",
+      title: `Sheet of back labels — ${labels.length} object${labels.length === 1 ? "" : "s"}`,
+      user,
+      render: (meta) => pdf(LabelSheetDocument, { meta, labels }),
+    });
+    sendPdf(res, doc);
+  });
+
+  return r;
+}

@@ -1,0 +1,85 @@
+import { Router, type Response } from "express";
+import { z } from "zod";
+import type { Db } from "../../db/client.ts";
+import type { Config } from "../../lib/config.ts";
+import { OBJECT_STATUSES, OBJECT_TYPES } from "../../../shared/schemas/objects.ts";
+import type { ClientRecord } from "../../../shared/schemas/clients.ts";
+import type { SessionUser } from "../../../shared/schemas/auth.ts";
+import { notFound } from "../../lib/errors.ts";
+import { assertCan, currentUser } from "../../middleware/require-permission.ts";
+import { input, validate } from "../../middleware/validate.ts";
+import { findClient } from "../clients/clients.repo.ts";
+import { DATASETS, FORMATS, buildTable, createExportsService, toCsv, toJson } from "./exports.service.ts";
+
+const DatasetParamsSchema = z.object({
+  id: z.string().min(1).max(64),
+  dataset: z.enum(DATASETS, { message: "Choose objects, mountings, condition or valuations." }),
+  format: z.enum(FORMATS, { message: "Choose csv or json." }),
+});
+const FilterQuerySchema = z.object({ status: z.enum(OBJECT_STATUSES).optional(), objectType: z.enum(OBJECT_TYPES).optional() });
+const ClientParamsSchema = z.object({ id: z.string().min(1).max(64) });
+const JobParamsSchema = z.object({ jobId: z.string().min(1).max(64) });
+
+/** Studio staff and the client's own users may export; anyone else is told the client does not exist. */
+function exportableClient(db: Db, user: SessionUser, id: string): ClientRecord {
+  const client = findClient(db, id);
+  if (!client) throw notFound("That client");
+  assertCan(user, "object:read", { clientId: client.id }, { what: "That client" });
+  return client;
+}
+
+const day = (d: Date) => d.toISOString().slice(0, 10);
+const fileSlug = (s: string) => s.normalize("NFKD").replace(/[^\w\s-]/g, "").trim().replace(/\s+/g, "-").toLowerCase().slice(0, 60) || "client";
+
+function attachment(res: Response, type: string, filename: string) {
+  res.setHeader("Content-Type", type);
+  res.setHeader("Content-Disposition", `attachment; filename="${filename}"`);
+  // Exports may hold valuations: never kept by a shared cache or the browser.
+  res.setHeader("Cache-Control", "no-store");
+  res.setHeader("X-Content-Type-Options", "nosniff");
+}
+
+/** Mounted at /api. */
+export function exportRoutes(db: Db, config: Config, clock: () => Date) {
+  const service = createExportsService(db, config, clock);
+  const r = Router();
+
+  r.get("/clients/:id/exports/:dataset.:format", validate({ params: DatasetParamsSchema, query: FilterQuerySchema }), (req, res) => {
+    const user = currentUser(req);
+    const { id, dataset, format } = input(req, "params", DatasetParamsSchema);
+    const client = exportableClient(db, user, id);
+    const table = buildTable(db, user, client, dataset, input(req, "query", FilterQuerySchema));
+    const filename = `${fileSlug(client.name)}-${dataset}-${day(clock())}.${format}`;
+    if (format === "csv") {
+      attachment(res, "text/csv; charset=utf-8; header=present", filename);
+      res.send(toCsv(table));
+    } else {
+      attachment(res, "application/json; charset=utf-8", filename);
+      res.send(toJson(table));
+    }
+  });
+
+  r.post("/clients/:id/exports/archive", validate({ params: ClientParamsSchema }), (req, res) => {
+    const user = currentUser(req);
+    const client = exportableClient(db, user, input(req, "params", ClientParamsSchema).id);
+    res.status(202).json({ jobId: service.startArchive(user, client) });
+  });
+
+  r.get("/exports/:jobId", validate({ params: JobParamsSchema }), (req, res) => {
+    res.setHeader("Cache-Control", "no-store");
+    res.json(service.status(currentUser(req), input(req, "params", JobParamsSchema).jobId));
+  });
+
+  r.get("/exports/:jobId/download", validate({ params: JobParamsSchema }), (req, res, next) => {
+    const { file, filename } = service.download(currentUser(req), input(req, "params", JobParamsSchema).jobId);
+    attachment(res, "application/zip", filename);
+    res.sendFile(file, { cacheControl: false, dotfiles: "allow" }, (err) => {
+      if (!err) return;
+      if (res.headersSent) return void res.destroy();
+      res.removeHeader("Content-Disposition");
+      next(notFound("That export's file"));
+    });
+  });
+
+  return r;
+}

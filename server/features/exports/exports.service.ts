@@ -1,0 +1,534 @@
+import fs from "node:fs";
+import fsp from "node:fs/promises";
+import os from "node:os";
+import path from "node:path";
+import { randomUUID } from "node:crypto";
+import { and, asc, eq, inArray, type SQL } from "drizzle-orm";
+import { stringify } from "csv-stringify/sync";
+import { ZipArchive } from "archiver";
+import type { Db } from "../../db/client.ts";
+import type { Config } from "../../lib/config.ts";
+import { conditionReports, conditionRevisions, mountingRevisions, mountings, objects, photos } from "../../db/schema.ts";
+import { can } from "../../../shared/permissions.ts";
+import type { SessionUser } from "../../../shared/schemas/auth.ts";
+import type { ClientRecord } from "../../../shared/schemas/clients.ts";
+import {
+  OBJECT_STATUS_LABELS,
+  OBJECT_TYPE_LABELS,
+  PHOTO_PROCESS_LABELS,
+  SENSITIVITY_LABELS,
+  VALUATION_BASIS_LABELS,
+  type ObjectStatus,
+  type ObjectType,
+} from "../../../shared/schemas/objects.ts";
+import { BOARD_GRADE_LABELS, GLAZING_TYPE_LABELS, MOUNTING_REASON_LABELS, MOUNTING_STATUS_LABELS, type MountingData } from "../../../shared/schemas/mountings.ts";
+import { CONDITION_CONTEXT_LABELS, RATING_LABELS, type ConditionData } from "../../../shared/schemas/condition.ts";
+import { minorDigits } from "../../../shared/domain/money.ts";
+import { AppError, conflict, notFound } from "../../lib/errors.ts";
+import { createStorage } from "../../lib/storage.ts";
+import { appendEvent } from "../history/history.chain.ts";
+import { issueDossier } from "../documents/dossier.tsx";
+
+export const DATASETS = ["objects", "mountings", "condition", "valuations"] as const;
+export type Dataset = (typeof DATASETS)[number];
+export const FORMATS = ["csv", "json"] as const;
+export type Format = (typeof FORMATS)[number];
+export type ExportFilters = { status?: ObjectStatus; objectType?: ObjectType };
+
+/**
+ * The columns of every export, in order: the CSV header and the JSON keys are these names.
+ * Where a column matches a unit of information of Spectrum 5.0 (the UK collections management
+ * standard, Collections Trust) it carries that unit's name — "Object number", "Object name",
+ * "Title", "Production person", "Production date", "Dimension …", "Inscription content",
+ * "Current location", "Owner", "Condition", "Condition check date", "Condition note",
+ * "Condition checker/assessor", "Valuation", "Valuation currency", "Valuation date", "Valuer".
+ * Everything else has a plain name. Lengths are in millimetres, with the unit in the name.
+ * Columns marked `valuation` are confidential (BRIEF §3) and are left out, header and all, for a
+ * user without "valuation:read" on the client.
+ */
+export const EXPORT_COLUMNS = {
+  objects: [
+    { key: "Object number" },
+    { key: "Title" },
+    { key: "Object name" },
+    { key: "Production person" },
+    { key: "Production date" },
+    { key: "Medium and technique" },
+    { key: "Support" },
+    { key: "Photographic process" },
+    { key: "Edition number" },
+    { key: "Inscription content" },
+    { key: "Dimension: sheet width (mm)" },
+    { key: "Dimension: sheet height (mm)" },
+    { key: "Dimension: image border left (mm)" },
+    { key: "Dimension: image border top (mm)" },
+    { key: "Dimension: image border right (mm)" },
+    { key: "Dimension: image border bottom (mm)" },
+    { key: "Thickness and flatness notes" },
+    { key: "Sensitivities" },
+    { key: "Owner" },
+    { key: "Status" },
+    { key: "Current location" },
+    { key: "Condition check date" },
+    { key: "Next condition check due" },
+    { key: "Last mounted on" },
+    { key: "Valuation", valuation: true },
+    { key: "Valuation currency", valuation: true },
+    { key: "Valuation date", valuation: true },
+    { key: "Valuation basis", valuation: true },
+    { key: "Valuer", valuation: true },
+  ],
+  mountings: [
+    { key: "Object number" },
+    { key: "Title" },
+    { key: "Mounting record id" },
+    { key: "Record status" },
+    { key: "Reason" },
+    { key: "Mounted on" },
+    { key: "Framer" },
+    { key: "Revision" },
+    { key: "Attachment method" },
+    { key: "Hinge tissue" },
+    { key: "Hinge adhesive" },
+    { key: "Number of hinges" },
+    { key: "Window board" },
+    { key: "Window board batch" },
+    { key: "Backing board" },
+    { key: "Backing board batch" },
+    { key: "Glazing" },
+    { key: "Glazing thickness (mm)" },
+    { key: "Frame moulding" },
+    { key: "How to undo" },
+    { key: "Ended on" },
+    { key: "End reason" },
+  ],
+  condition: [
+    { key: "Object number" },
+    { key: "Title" },
+    { key: "Condition check/assessment reference number" },
+    { key: "Report status" },
+    { key: "Condition check date" },
+    { key: "Condition check reason" },
+    { key: "Condition checker/assessor" },
+    { key: "Condition" },
+    { key: "Condition note" },
+    { key: "Number of findings" },
+    { key: "Unresolved findings" },
+    { key: "Revision" },
+  ],
+  valuations: [
+    { key: "Object number" },
+    { key: "Title" },
+    { key: "Valuation", valuation: true },
+    { key: "Valuation currency", valuation: true },
+    { key: "Valuation date", valuation: true },
+    { key: "Valuation basis", valuation: true },
+    { key: "Valuer", valuation: true },
+  ],
+} as const satisfies Record<Dataset, readonly { key: string; valuation?: boolean }[]>;
+
+export type Cell = string | number | null;
+export type Row = Record<string, Cell>;
+
+/** The column names a user gets for a dataset. */
+export function columnsFor(dataset: Dataset, withValuation: boolean): string[] {
+  return (EXPORT_COLUMNS[dataset] as readonly { key: string; valuation?: boolean }[]).filter((c) => withValuation || !c.valuation).map((c) => c.key);
+}
+
+/** Integer minor units as an exact decimal string ("12500.00", "-0.05", "1500" for JPY), never through a float. */
+export function minorToDecimal(minor: number, currency: string): string {
+  const digits = minorDigits(currency);
+  if (!Number.isSafeInteger(minor)) throw new Error("money: not an integer number of minor units");
+  const sign = minor < 0 ? "-" : "";
+  const abs = String(Math.abs(minor));
+  if (digits === 0) return sign + abs;
+  const padded = abs.padStart(digits + 1, "0");
+  return `${sign}${padded.slice(0, -digits)}.${padded.slice(-digits)}`;
+}
+
+const label = <K extends string>(map: Record<K, string>, v: string | null | undefined): string | null => (v == null ? null : (map[v as K] ?? v));
+const text = (v: string | null | undefined): string | null => (v == null || v === "" ? null : v);
+
+type ObjectRow = typeof objects.$inferSelect;
+
+function clientObjects(db: Db, clientId: string, f: ExportFilters): ObjectRow[] {
+  const where: SQL[] = [eq(objects.clientId, clientId)];
+  if (f.status) where.push(eq(objects.status, f.status));
+  if (f.objectType) where.push(eq(objects.objectType, f.objectType));
+  return db.select().from(objects).where(and(...where)).orderBy(asc(objects.objectNumber)).all();
+}
+
+function valuationCells(o: ObjectRow): Row {
+  const has = o.valuationMinor != null && !!o.valuationCurrency;
+  return {
+    Valuation: has ? minorToDecimal(o.valuationMinor!, o.valuationCurrency!) : null,
+    "Valuation currency": has ? o.valuationCurrency : null,
+    "Valuation date": text(o.valuationDate),
+    "Valuation basis": label(VALUATION_BASIS_LABELS, o.valuationBasis),
+    Valuer: text(o.valuer),
+  };
+}
+
+function objectRow(o: ObjectRow, client: ClientRecord): Row {
+  return {
+    "Object number": o.objectNumber,
+    Title: o.title,
+    "Object name": label(OBJECT_TYPE_LABELS, o.objectType),
+    "Production person": text(o.maker),
+    "Production date": text(o.dateMade),
+    "Medium and technique": text(o.medium),
+    Support: text(o.support),
+    "Photographic process": label(PHOTO_PROCESS_LABELS, o.photoProcess),
+    "Edition number": text(o.edition),
+    "Inscription content": text(o.inscriptions),
+    "Dimension: sheet width (mm)": o.sheetWidthMm,
+    "Dimension: sheet height (mm)": o.sheetHeightMm,
+    "Dimension: image border left (mm)": o.borderLeftMm,
+    "Dimension: image border top (mm)": o.borderTopMm,
+    "Dimension: image border right (mm)": o.borderRightMm,
+    "Dimension: image border bottom (mm)": o.borderBottomMm,
+    "Thickness and flatness notes": text(o.thicknessNotes),
+    Sensitivities: o.sensitivities.length ? o.sensitivities.map((s) => label(SENSITIVITY_LABELS, s)).join("; ") : null,
+    Owner: client.name,
+    Status: label(OBJECT_STATUS_LABELS, o.status),
+    "Current location": text(o.location),
+    "Condition check date": text(o.lastConditionOn),
+    "Next condition check due": text(o.checkDueOn),
+    "Last mounted on": text(o.lastMountedOn),
+    ...valuationCells(o),
+  };
+}
+
+function mountingRows(db: Db, user: SessionUser, objs: ObjectRow[]): Row[] {
+  if (!objs.length) return [];
+  const byId = new Map(objs.map((o) => [o.id, o]));
+  // Drafts are studio work: to anyone who may not write them they do not exist (as in the mountings service).
+  const withDrafts = can(user, "mounting:write", { clientId: objs[0].clientId });
+  const rows = db
+    .select({ m: mountings, data: mountingRevisions.data })
+    .from(mountings)
+    .innerJoin(mountingRevisions, and(eq(mountingRevisions.mountingId, mountings.id), eq(mountingRevisions.revision, mountings.currentRevision)))
+    .where(inArray(mountings.objectId, [...byId.keys()]))
+    .orderBy(asc(mountings.mountedOn), asc(mountings.id))
+    .all()
+    .filter((r) => withDrafts || r.m.status !== "draft");
+  rows.sort((a, b) => cmp(byId.get(a.m.objectId)!.objectNumber, byId.get(b.m.objectId)!.objectNumber));
+  return rows.map(({ m, data }) => {
+    const o = byId.get(m.objectId)!;
+    const d = data as MountingData;
+    const board = (b: MountingData["boards"]["window"] | undefined) =>
+      b ? `${label(BOARD_GRADE_LABELS, b.grade)}, ${b.ply} ply${b.buffered ? ", buffered" : ", unbuffered"}${b.colour ? `, ${b.colour}` : ""}` : null;
+    return {
+      "Object number": o.objectNumber,
+      Title: o.title,
+      "Mounting record id": m.id,
+      "Record status": label(MOUNTING_STATUS_LABELS, m.status),
+      Reason: label(MOUNTING_REASON_LABELS, m.reason),
+      "Mounted on": m.mountedOn,
+      Framer: m.framerName,
+      Revision: m.currentRevision,
+      "Attachment method": text(d.attachment?.method),
+      "Hinge tissue": text(d.attachment?.tissue),
+      "Hinge adhesive": text(d.attachment?.adhesive),
+      "Number of hinges": d.attachment?.hinges?.length ?? 0,
+      "Window board": board(d.boards?.window),
+      "Window board batch": text(d.boards?.window?.batch),
+      "Backing board": board(d.boards?.backing),
+      "Backing board batch": text(d.boards?.backing?.batch),
+      Glazing: label(GLAZING_TYPE_LABELS, d.glazing?.type),
+      "Glazing thickness (mm)": d.glazing?.thicknessMm ?? null,
+      "Frame moulding": text(d.frame?.moulding),
+      "How to undo": text(d.undoNotes),
+      "Ended on": text(m.endedOn),
+      "End reason": text(m.endReason),
+    };
+  });
+}
+
+function conditionRows(db: Db, user: SessionUser, objs: ObjectRow[]): Row[] {
+  if (!objs.length) return [];
+  const byId = new Map(objs.map((o) => [o.id, o]));
+  // Drafts only to those who may write them, as in the condition service.
+  const withDrafts = can(user, "condition:write", { clientId: objs[0].clientId });
+  const rows = db
+    .select({ r: conditionReports, data: conditionRevisions.data })
+    .from(conditionReports)
+    .innerJoin(conditionRevisions, and(eq(conditionRevisions.reportId, conditionReports.id), eq(conditionRevisions.revision, conditionReports.currentRevision)))
+    .where(inArray(conditionReports.objectId, [...byId.keys()]))
+    .orderBy(asc(conditionReports.reportDate), asc(conditionReports.id))
+    .all()
+    .filter((x) => withDrafts || x.r.status !== "draft");
+  rows.sort((a, b) => cmp(byId.get(a.r.objectId)!.objectNumber, byId.get(b.r.objectId)!.objectNumber));
+  return rows.map(({ r, data }) => {
+    const o = byId.get(r.objectId)!;
+    const d = data as ConditionData;
+    return {
+      "Object number": o.objectNumber,
+      Title: o.title,
+      "Condition check/assessment reference number": r.id,
+      "Report status": r.status === "signed" ? "Signed" : "Draft",
+      "Condition check date": r.reportDate,
+      "Condition check reason": label(CONDITION_CONTEXT_LABELS, r.context),
+      "Condition checker/assessor": r.examinerName,
+      Condition: label(RATING_LABELS, r.rating),
+      "Condition note": text(d.summary),
+      "Number of findings": d.findings?.length ?? 0,
+      "Unresolved findings": r.unresolvedCount,
+      Revision: r.currentRevision,
+    };
+  });
+}
+
+/** Stable sort key: Array.prototype.sort is stable, so rows keep their date order within an object. */
+const cmp = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
+
+/** Keeps only the columns the user may see, in the declared order. */
+function project(rows: Row[], cols: string[]): Row[] {
+  return rows.map((r) => Object.fromEntries(cols.map((c) => [c, r[c] ?? null])));
+}
+
+export type Table = { dataset: Dataset; columns: string[]; rows: Row[] };
+
+/**
+ * One dataset of one client's records, as the user may see it. The caller has already checked that
+ * the user may read the client; the valuations dataset needs "valuation:read" too.
+ */
+export function buildTable(db: Db, user: SessionUser, client: ClientRecord, dataset: Dataset, filters: ExportFilters = {}, objs?: ObjectRow[]): Table {
+  const withValuation = can(user, "valuation:read", { clientId: client.id });
+  if (dataset === "valuations" && !withValuation) throw new AppError(403, "forbidden", "Valuations are confidential; your role does not allow exporting them.");
+  const list = objs ?? clientObjects(db, client.id, filters);
+  const columns = columnsFor(dataset, withValuation);
+  let rows: Row[];
+  switch (dataset) {
+    case "objects":
+      rows = list.map((o) => objectRow(o, client));
+      break;
+    case "mountings":
+      rows = mountingRows(db, user, list);
+      break;
+    case "condition":
+      rows = conditionRows(db, user, list);
+      break;
+    case "valuations":
+      // The current valuation of each object that has one (the record keeps one value; earlier ones are in its history).
+      rows = list.filter((o) => o.valuationMinor != null).map((o) => ({ "Object number": o.objectNumber, Title: o.title, ...valuationCells(o) }));
+      break;
+  }
+  return { dataset, columns, rows: project(rows, columns) };
+}
+
+/**
+ * RFC 4180 CSV: header row, CRLF after every record, fields with commas, quotes or line breaks quoted
+ * (quotes doubled), UTF-8 with a byte-order mark so spreadsheets read it as UTF-8.
+ * Text beginning with = + - @ or a tab is prefixed with ' so a spreadsheet does not run it as a formula
+ * (OWASP "CSV injection"); numbers are written as they are.
+ */
+export function toCsv(t: Table): string {
+  return stringify(t.rows, {
+    bom: true,
+    header: true,
+    columns: t.columns,
+    record_delimiter: "\r\n",
+    // With a record_delimiter given, csv-stringify would otherwise quote only fields holding "\r\n" itself.
+    quote_record_delimiter: true,
+    escape_formulas: true,
+  });
+}
+
+export function toJson(t: Table): string {
+  return JSON.stringify(t.rows, null, 2);
+}
+
+// ── Bulk ZIP of one client's records, as an in-memory background job ──────────
+
+export type JobState = "running" | "done" | "failed";
+export type JobStatus = { state: JobState; progress: number; message: string };
+
+type Job = JobStatus & {
+  id: string;
+  ownerId: string;
+  clientId: string;
+  createdAt: number;
+  dir: string;
+  file: string;
+  filename: string;
+  timer: NodeJS.Timeout;
+  /** Why a failed job failed, for the server's eyes only. */
+  error?: unknown;
+};
+
+export const JOB_TTL_MS = 60 * 60 * 1000;
+
+// Every job's temporary folder, so that those still there when the process ends are removed with it.
+const liveDirs = new Set<string>();
+let exitHook = false;
+function trackDir(dir: string) {
+  liveDirs.add(dir);
+  if (exitHook) return;
+  exitHook = true;
+  process.once("exit", () => {
+    for (const d of liveDirs) fs.rmSync(d, { recursive: true, force: true });
+  });
+}
+
+const safeSegment = (s: string) => s.replace(/[\\/:*?"<>|\u0000-\u001f]/g, "_").replace(/^\.+/, "_") || "_";
+const slug = (s: string) => s.normalize("NFKD").replace(/[^\w\s-]/g, "").trim().replace(/\s+/g, "-").toLowerCase().slice(0, 60) || "client";
+
+export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">, clock: () => Date) {
+  const storage = createStorage(config.uploadsDir);
+  const jobs = new Map<string, Job>();
+
+  async function expire(job: Job) {
+    clearTimeout(job.timer);
+    jobs.delete(job.id);
+    await fsp.rm(job.dir, { recursive: true, force: true });
+    liveDirs.delete(job.dir);
+  }
+
+  /** A job the user may see: only its owner, and only within the hour; anyone else gets 404 as for no job. */
+  function ownJob(user: SessionUser, jobId: string): Job {
+    const job = jobs.get(jobId);
+    if (!job || job.ownerId !== user.id) throw notFound("That export");
+    if (clock().getTime() - job.createdAt > JOB_TTL_MS) {
+      void expire(job);
+      throw notFound("That export");
+    }
+    return job;
+  }
+
+  async function run(job: Job, user: SessionUser, client: ClientRecord) {
+    const objs = clientObjects(db, client.id, {});
+    const withValuation = can(user, "valuation:read", { clientId: client.id });
+    const datasets = DATASETS.filter((d) => d !== "valuations" || withValuation);
+    const tables = datasets.map((d) => buildTable(db, user, client, d, {}, objs));
+    const numberOf = new Map(objs.map((o) => [o.id, o.objectNumber]));
+    const photoRows = objs.length
+      ? db.select({ id: photos.id, objectId: photos.objectId, originalKey: photos.originalKey }).from(photos).where(inArray(photos.objectId, [...numberOf.keys()])).orderBy(asc(photos.createdAt)).all()
+      : [];
+    const files: { file: string; name: string }[] = [];
+    let missing = 0;
+    for (const p of photoRows) {
+      let file: string;
+      try {
+        file = storage.path(p.originalKey);
+      } catch {
+        missing++;
+        continue;
+      }
+      if (!fs.existsSync(file)) {
+        missing++;
+        continue;
+      }
+      const ext = path.extname(p.originalKey).slice(1) || "bin";
+      files.push({ file, name: `photos/${safeSegment(numberOf.get(p.objectId)!)}/${safeSegment(p.id)}.${ext}` });
+    }
+    // One dossier PDF per object, rendered by the documents feature (each is an issued document with its own
+    // verification code). A dossier that fails to render is left out and said so; the rest of the ZIP still builds.
+    let total = tables.length * 2 + files.length + objs.length;
+    let added = 0;
+    const out = fs.createWriteStream(job.file, { mode: 0o600 });
+    const archive = new ZipArchive({ zlib: { level: 6 } });
+    const closed = new Promise<void>((resolve, reject) => {
+      out.on("close", resolve);
+      out.on("error", reject);
+      archive.on("error", reject);
+      archive.on("warning", reject);
+    });
+    archive.on("entry", () => {
+      added++;
+      // Held just under 1 until the file is closed, so "1" always means the ZIP can be downloaded.
+      job.progress = Math.min(0.99, added / total);
+      job.message = `Added ${added} of ${total} files.`;
+    });
+    archive.pipe(out);
+    for (const t of tables) {
+      archive.append(toCsv(t), { name: `${t.dataset}.csv` });
+      archive.append(toJson(t), { name: `${t.dataset}.json` });
+    }
+    for (const f of files) archive.file(f.file, { name: f.name });
+    let dossiers = 0;
+    const noDossier: string[] = [];
+    for (const o of objs) {
+      try {
+        const { pdf } = await issueDossier(db, config, clock, user, o.id);
+        archive.append(pdf, { name: `dossiers/${safeSegment(o.objectNumber)}.pdf` });
+        dossiers++;
+      } catch {
+        noDossier.push(o.objectNumber);
+        total--;
+      }
+    }
+    await archive.finalize();
+    await closed;
+
+    // One "exported" event per object in the ZIP, written once the ZIP is whole. Single CSV/JSON
+    // downloads write none: one event per object for every spreadsheet download would bury the history.
+    const at = clock();
+    db.transaction((tx) => {
+      for (const o of objs) {
+        appendEvent(tx as unknown as Db, {
+          objectId: o.id,
+          type: "exported",
+          actor: { id: user.id, name: user.name },
+          at,
+          summary: `Included in a ZIP export of ${client.name}'s records.`,
+          data: { jobId: job.id, datasets: [...datasets], photos: files.filter((f) => f.name.startsWith(`photos/${safeSegment(o.objectNumber)}/`)).length },
+        });
+      }
+    });
+    job.state = "done";
+    job.progress = 1;
+    job.message =
+      `Ready: ${objs.length} objects, ${files.length} photos, ${dossiers} dossiers.` +
+      (missing ? ` ${missing} photo file${missing === 1 ? " was" : "s were"} missing from storage and left out.` : "") +
+      (noDossier.length ? ` The dossier of ${noDossier.join(", ")} could not be made and was left out.` : "");
+  }
+
+  return {
+    startArchive(user: SessionUser, client: ClientRecord): string {
+      const id = randomUUID();
+      const dir = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-export-"));
+      trackDir(dir);
+      const job: Job = {
+        id,
+        ownerId: user.id,
+        clientId: client.id,
+        state: "running",
+        progress: 0,
+        message: "Starting.",
+        createdAt: clock().getTime(),
+        dir,
+        file: path.join(dir, "export.zip"),
+        filename: `${slug(client.name)}-records-${clock().toISOString().slice(0, 10)}.zip`,
+        // Removes the job and its file after an hour; unref'd so it never holds the process open.
+        timer: setTimeout(() => void expire(job), JOB_TTL_MS).unref(),
+      };
+      jobs.set(id, job);
+      setImmediate(() => {
+        run(job, user, client).catch(async (err: unknown) => {
+          job.state = "failed";
+          job.message = "The export could not be built. Try again; if it fails again, tell the studio's administrator.";
+          job.error = err;
+          await fsp.rm(job.file, { force: true }).catch(() => {});
+        });
+      });
+      return id;
+    },
+
+    status(user: SessionUser, jobId: string): JobStatus {
+      const { state, progress, message } = ownJob(user, jobId);
+      return { state, progress, message };
+    },
+
+    download(user: SessionUser, jobId: string): { file: string; filename: string } {
+      const job = ownJob(user, jobId);
+      if (job.state !== "done") throw conflict(job.state === "failed" ? "This export failed; start a new one." : "This export is still being built; try again when it is done.");
+      return { file: job.file, filename: job.filename };
+    },
+
+    /** For shutdown and tests: removes every job and its file. */
+    async clear() {
+      await Promise.all([...jobs.values()].map(expire));
+    },
+  };
+}

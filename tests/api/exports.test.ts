@@ -1,0 +1,339 @@
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import { spawnSync } from "node:child_process";
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import { parse } from "csv-parse/sync";
+import sharp from "sharp";
+import { and, eq, inArray, sql } from "drizzle-orm";
+import { createTestApp, expectErrorShape, makeObject, signIn, type Agent } from "../setup/test-app.ts";
+import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from "../../server/db/seed.ts";
+import { clients, events, objects, user } from "../../server/db/schema.ts";
+import { columnsFor, createExportsService, EXPORT_COLUMNS, JOB_TTL_MS, minorToDecimal } from "../../server/features/exports/exports.service.ts";
+import { findClient } from "../../server/features/clients/clients.repo.ts";
+import { OBJECT_STATUS_LABELS } from "../../shared/schemas/objects.ts";
+import type { SessionUser } from "../../shared/schemas/auth.ts";
+
+const t = createTestApp();
+const as = {} as Record<"admin" | "framer" | "registrar" | "collector", Agent>;
+let varga: string; // the demo collector's client
+let wrenfold: string; // the demo registrar's client
+let trickyId: string;
+let photoId: string;
+let photoObjectNumber: string;
+
+// A title with every character RFC 4180 makes a field quote for: a comma, a double quote and a line break.
+const TRICKY = 'Letter, "private" —\nsecond line, with a comma';
+const VALUATION_COLUMNS = ["Valuation", "Valuation currency", "Valuation date", "Valuation basis", "Valuer"];
+
+type Row = Record<string, string>;
+const BOM = "\uFEFF";
+
+/** The raw text of a response, whatever its content type. */
+const raw = (agent: Agent, url: string) =>
+  agent
+    .get(url)
+    .buffer(true)
+    .parse((res, cb) => {
+      const chunks: Buffer[] = [];
+      res.on("data", (c: Buffer) => chunks.push(c));
+      res.on("end", () => cb(null, Buffer.concat(chunks)));
+    });
+
+async function csv(agent: Agent, url: string): Promise<{ text: string; rows: Row[]; header: string[] }> {
+  const res = await raw(agent, url);
+  if (res.status !== 200) throw new Error(`GET ${url} answered ${res.status}: ${res.body.toString()}`);
+  expect(res.headers["content-type"]).toMatch(/^text\/csv; charset=utf-8/);
+  expect(res.headers["content-disposition"]).toMatch(/^attachment; filename=".+\.csv"$/);
+  const text = (res.body as Buffer).toString("utf8");
+  const rows = parse(text, { bom: true, columns: true, record_delimiter: "\r\n" }) as Row[];
+  const header = (parse(text, { bom: true, to_line: 1 }) as string[][])[0];
+  return { text, rows, header };
+}
+
+async function json(agent: Agent, url: string): Promise<Record<string, string | number | null>[]> {
+  const res = await agent.get(url);
+  if (res.status !== 200) throw new Error(`GET ${url} answered ${res.status}: ${JSON.stringify(res.body)}`);
+  expect(res.headers["content-type"]).toMatch(/^application\/json/);
+  return res.body;
+}
+
+/** The JSON rows as the CSV writes them: null as an empty field, numbers as their shortest decimal. */
+const asCsvCells = (rows: Record<string, string | number | null>[]) => rows.map((r) => Object.fromEntries(Object.entries(r).map(([k, v]) => [k, v == null ? "" : String(v)])));
+
+// The app's jobs keep their ZIPs for an hour; the test process ends sooner, so it removes the ones it made.
+const exportDirs = () => new Set(fs.readdirSync(os.tmpdir()).filter((d) => d.startsWith("reversa-export-")));
+const before = exportDirs();
+afterAll(() => {
+  for (const d of exportDirs()) if (!before.has(d)) fs.rmSync(path.join(os.tmpdir(), d), { recursive: true, force: true });
+});
+
+beforeAll(async () => {
+  await seedDemo(t.db);
+  for (const u of DEMO_USERS) as[u.role] = await signIn(t.agent(), u.email, DEMO_PASSWORD);
+  const byName = (name: string) => t.db.select({ id: clients.id }).from(clients).where(eq(clients.name, name)).get()!.id;
+  varga = byName("Odile Varga-Pennick");
+  wrenfold = byName("Wrenfold Hall Collection Trust");
+  trickyId = makeObject(t.db, varga, { objectNumber: "2026-0900", title: TRICKY, objectType: "document", status: "in-studio", valuationMinor: 12345, valuationCurrency: "GBP", valuationDate: "2026-05-01", valuationBasis: "agreed" });
+
+  // One photo on one of the collector's objects, through the real upload route.
+  const target = t.db.select().from(objects).where(and(eq(objects.clientId, varga), eq(objects.objectNumber, "2026-0001"))).get()!;
+  photoObjectNumber = target.objectNumber;
+  const png = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: 184, g: 152, b: 118 } } }).png().toBuffer();
+  const up = await as.framer.post(`/api/objects/${target.id}/photos`).field("kind", "recto").attach("file", png, { filename: "recto.png" });
+  if (up.status !== 201) throw new Error(`Photo upload answered ${up.status}: ${JSON.stringify(up.body)}`);
+  photoId = up.body.id;
+});
+
+describe("single-dataset exports", () => {
+  it("when the studio exports each dataset as CSV and JSON, then the CSV has a BOM, CRLF line ends, a header row, and the same rows as the JSON", async () => {
+    for (const dataset of ["objects", "mountings", "condition", "valuations"] as const) {
+      const c = await csv(as.framer, `/api/clients/${varga}/exports/${dataset}.csv`);
+      const j = await json(as.framer, `/api/clients/${varga}/exports/${dataset}.json`);
+      expect(c.text.startsWith(BOM), dataset).toBe(true);
+      // Every line break outside quoted fields is CRLF: strip quoted fields and no bare \n or \r is left.
+      const outsideQuotes = c.text.replace(/"(?:[^"]|"")*"/g, "");
+      expect(outsideQuotes.replace(/\r\n/g, ""), dataset).not.toMatch(/[\r\n]/);
+      expect(c.text.endsWith("\r\n"), dataset).toBe(true);
+      expect(c.header, dataset).toEqual(columnsFor(dataset, true));
+      expect(j.length, dataset).toBeGreaterThan(0);
+      for (const row of j) expect(Object.keys(row), dataset).toEqual(c.header);
+      expect(c.rows, dataset).toEqual(asCsvCells(j));
+    }
+  });
+
+  it("when the objects CSV is read back, then it holds the same objects and values as the API's own records", async () => {
+    const { rows } = await csv(as.collector, `/api/clients/${varga}/exports/objects.csv`);
+    const list = await as.collector.get("/api/objects?pageSize=200");
+    expect(list.status).toBe(200);
+    const numbers = list.body.items.map((i: { objectNumber: string }) => i.objectNumber).sort();
+    expect(rows.map((r) => r["Object number"])).toEqual(numbers);
+    for (const item of list.body.items as { id: string; objectNumber: string }[]) {
+      const rec = (await as.collector.get(`/api/objects/${item.id}`)).body;
+      const row = rows.find((r) => r["Object number"] === rec.objectNumber)!;
+      expect(row.Title).toBe(rec.title);
+      expect(row["Production person"]).toBe(rec.maker ?? "");
+      expect(row["Production date"]).toBe(rec.dateMade ?? "");
+      expect(Number(row["Dimension: sheet width (mm)"])).toBe(rec.sheetWidthMm);
+      expect(Number(row["Dimension: sheet height (mm)"])).toBe(rec.sheetHeightMm);
+      expect(row["Current location"]).toBe(rec.location ?? "");
+      expect(row["Valuation currency"]).toBe(rec.valuationCurrency ?? "");
+      // Exact decimal from integer minor units: back to minor units it is the API's integer.
+      if (rec.valuationMinor != null) expect(Math.round(Number(row.Valuation) * 100)).toBe(rec.valuationMinor);
+      expect(row["Valuation date"]).toBe(rec.valuationDate ?? "");
+    }
+    const estuary = rows.find((r) => r.Title === "Estuary at low water, study")!;
+    expect(estuary).toMatchObject({ "Object name": "Watercolour", Valuation: "4200.00", "Valuation currency": "GBP", Valuer: "Harl & Osten Valuers (invented)" });
+  });
+
+  it("when a title holds a comma, quotes and a line break, then the CSV quotes it (quotes doubled) and a CSV parser reads it back whole", async () => {
+    const { text, rows } = await csv(as.framer, `/api/clients/${varga}/exports/objects.csv`);
+    expect(text).toContain(`"Letter, ""private"" —\nsecond line, with a comma"`);
+    const row = rows.find((r) => r["Object number"] === "2026-0900")!;
+    expect(row.Title).toBe(TRICKY);
+    expect(row.Valuation).toBe("123.45");
+    const j = await json(as.framer, `/api/clients/${varga}/exports/objects.json`);
+    expect(j.find((r) => r["Object number"] === "2026-0900")!.Title).toBe(TRICKY);
+  });
+
+  it("when the header is read, then it uses the Spectrum 5.0 unit names, and lengths carry their unit", async () => {
+    const { header } = await csv(as.framer, `/api/clients/${varga}/exports/objects.csv`);
+    for (const name of ["Object number", "Object name", "Title", "Production person", "Production date", "Current location", "Condition check date", "Valuation", "Valuation currency", "Valuation date", "Valuer"])
+      expect(header).toContain(name);
+    for (const h of header.filter((h) => h.startsWith("Dimension"))) expect(h).toMatch(/\(mm\)$/);
+    const cond = await csv(as.framer, `/api/clients/${varga}/exports/condition.csv`);
+    expect(cond.header).toEqual(expect.arrayContaining(["Object number", "Condition", "Condition check date", "Condition note"]));
+  });
+
+  it("when filtered by status or object type, then only that client's matching objects come back", async () => {
+    const inStudio = await json(as.framer, `/api/clients/${varga}/exports/objects.json?status=in-studio`);
+    expect(inStudio.length).toBeGreaterThan(0);
+    for (const r of inStudio) expect(r.Status).toBe(OBJECT_STATUS_LABELS["in-studio"]);
+    const photographs = await json(as.framer, `/api/clients/${varga}/exports/objects.json?objectType=photograph`);
+    expect(photographs.map((r) => r["Object name"])).toEqual(photographs.map(() => "Photograph"));
+    const inDb = t.db.select({ n: sql<number>`count(*)` }).from(objects).where(and(eq(objects.clientId, varga), eq(objects.objectType, "photograph"))).get()!.n;
+    expect(inDb).toBeGreaterThan(0);
+    expect(photographs.length).toBe(inDb);
+    const all = await json(as.framer, `/api/clients/${varga}/exports/objects.json`);
+    expect(all.length).toBe(9); // the eight demo objects and the one made here
+  });
+
+  it("when the collector or the registrar export their own client's records, then they see the valuation columns, as the studio does", async () => {
+    for (const [agent, client] of [[as.collector, varga], [as.registrar, wrenfold], [as.admin, wrenfold], [as.framer, varga]] as const) {
+      const { header, rows } = await csv(agent, `/api/clients/${client}/exports/objects.csv`);
+      expect(header).toEqual(expect.arrayContaining(VALUATION_COLUMNS));
+      expect(rows.some((r) => r.Valuation !== "")).toBe(true);
+      const v = await csv(agent, `/api/clients/${client}/exports/valuations.csv`);
+      expect(v.header).toEqual(columnsFor("valuations", true));
+    }
+  });
+
+  it("when a user may not read valuations, then the valuation columns are left out, header and all", () => {
+    // No role in shared/permissions.ts may export a client's records without "valuation:read" on it
+    // (studio staff and that client's users have both), so this checks the column list the route uses.
+    for (const dataset of ["objects", "valuations"] as const) {
+      const without = columnsFor(dataset, false);
+      for (const c of VALUATION_COLUMNS) expect(without).not.toContain(c);
+    }
+    expect(columnsFor("objects", false)).toContain("Title");
+    expect(columnsFor("objects", true).length).toBe(EXPORT_COLUMNS.objects.length);
+  });
+
+  it("when a mounting is still a draft, then the studio's export lists it and the collector's does not", async () => {
+    const target = t.db.select().from(objects).where(eq(objects.objectNumber, "2026-0900")).get()!;
+    const res = await as.framer.post(`/api/objects/${target.id}/mountings`).send({
+      reason: "first-mounting",
+      mountedOn: "2026-11-30",
+      data: {
+        plan: { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 60 } },
+        boards: { window: { grade: "museum", buffered: false, ply: 4, batch: "MB-1" }, backing: { grade: "museum", buffered: false, ply: 4 } },
+        attachment: { method: "corners", hinges: [] },
+        glazing: { type: "uv-glass", thicknessMm: 2 },
+        undoNotes: "Slide the sheet out of the four polyester corners; nothing is stuck to it.",
+      },
+    });
+    expect(res.status).toBe(201);
+    const studio = await json(as.framer, `/api/clients/${varga}/exports/mountings.json`);
+    expect(studio.find((r) => r["Mounting record id"] === res.body.id)).toMatchObject({ "Object number": "2026-0900", "Record status": "Draft", "Window board batch": "MB-1" });
+    const own = await json(as.collector, `/api/clients/${varga}/exports/mountings.json`);
+    expect(own.find((r) => r["Mounting record id"] === res.body.id)).toBeUndefined();
+    expect(own.length).toBe(studio.length - 1);
+  });
+
+  it("when someone exports another client's records, then it answers 404, as for a client that does not exist", async () => {
+    for (const [agent, client] of [[as.collector, wrenfold], [as.registrar, varga]] as const) {
+      for (const url of [`/api/clients/${client}/exports/objects.csv`, `/api/clients/${client}/exports/valuations.json`]) {
+        const res = await agent.get(url);
+        expect(res.status, url).toBe(404);
+        expectErrorShape(res.body, "not_found");
+      }
+      const zip = await agent.post(`/api/clients/${client}/exports/archive`);
+      expect(zip.status).toBe(404);
+    }
+    const none = await as.framer.get(`/api/clients/no-such-client/exports/objects.csv`);
+    expect(none.status).toBe(404);
+  });
+
+  it("when the dataset or format is unknown, then it answers 422", async () => {
+    expectErrorShape((await as.framer.get(`/api/clients/${varga}/exports/invoices.csv`)).body, "validation_failed");
+    expectErrorShape((await as.framer.get(`/api/clients/${varga}/exports/objects.xlsx`)).body, "validation_failed");
+  });
+
+  it("money is converted from minor units exactly, with the currency's own number of decimals", () => {
+    expect(minorToDecimal(420000, "GBP")).toBe("4200.00");
+    expect(minorToDecimal(5, "GBP")).toBe("0.05");
+    expect(minorToDecimal(-5, "EUR")).toBe("-0.05");
+    expect(minorToDecimal(1500, "JPY")).toBe("1500");
+    expect(minorToDecimal(1234, "KWD")).toBe("1.234");
+    expect(minorToDecimal(9007199254740991, "USD")).toBe("90071992547409.91");
+  });
+});
+
+describe("bulk ZIP of one client's records", () => {
+  async function runToDone(agent: Agent, client: string) {
+    const start = await agent.post(`/api/clients/${client}/exports/archive`);
+    expect(start.status).toBe(202);
+    expect(start.body).toEqual({ jobId: expect.any(String) });
+    const { jobId } = start.body as { jobId: string };
+    const seen: number[] = [];
+    // Poll for up to a minute: on a loaded two-core machine the dossiers in the ZIP take a while.
+    const until = Date.now() + 60_000;
+    while (Date.now() < until) {
+      const s = await agent.get(`/api/exports/${jobId}`);
+      expect(s.status).toBe(200);
+      expect(s.body).toEqual({ state: expect.stringMatching(/^(running|done|failed)$/), progress: expect.any(Number), message: expect.any(String) });
+      seen.push(s.body.progress);
+      if (s.body.state !== "running") {
+        expect(s.body.state).toBe("done");
+        break;
+      }
+      await new Promise((r) => setTimeout(r, 25));
+    }
+    return { jobId, seen };
+  }
+
+  const unzip = fs.existsSync("/usr/bin/unzip");
+
+  it.runIf(unzip)("when the collector asks for a ZIP, then the job runs to done with rising progress, and the ZIP holds every dataset and the photo originals", async () => {
+    const { jobId, seen } = await runToDone(as.collector, varga);
+    for (let i = 1; i < seen.length; i++) expect(seen[i]).toBeGreaterThanOrEqual(seen[i - 1]);
+    expect(seen.at(-1)).toBe(1);
+    for (const p of seen) expect(p >= 0 && p <= 1).toBe(true);
+
+    // Someone else may neither poll nor download it.
+    expect((await as.framer.get(`/api/exports/${jobId}`)).status).toBe(404);
+    expect((await as.registrar.get(`/api/exports/${jobId}/download`)).status).toBe(404);
+
+    const res = await raw(as.collector, `/api/exports/${jobId}/download`);
+    expect(res.status).toBe(200);
+    expect(res.headers["content-type"]).toBe("application/zip");
+    expect(res.headers["content-disposition"]).toMatch(/^attachment; filename=".+\.zip"$/);
+    const dir = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-export-test-"));
+    try {
+      const file = path.join(dir, "export.zip");
+      fs.writeFileSync(file, res.body as Buffer);
+      const list = spawnSync("/usr/bin/unzip", ["-Z1", file], { encoding: "utf8" });
+      expect(list.status).toBe(0);
+      const names = list.stdout.split("\n").filter(Boolean).sort();
+      const datasets = ["condition", "mountings", "objects", "valuations"].flatMap((d) => [`${d}.csv`, `${d}.json`]);
+      const dossiers = t.db.select({ n: objects.objectNumber }).from(objects).where(eq(objects.clientId, varga)).all().map((o) => `dossiers/${o.n}.pdf`);
+      expect(names).toEqual([...datasets, `photos/${photoObjectNumber}/${photoId}.png`, ...dossiers].sort());
+      const pdf = spawnSync("/usr/bin/unzip", ["-p", file, dossiers[0]]).stdout as Buffer;
+      expect(pdf.subarray(0, 5).toString("latin1")).toBe("%PDF-");
+
+      // The CSV inside the ZIP is the same file as the single export.
+      const inside = spawnSync("/usr/bin/unzip", ["-p", file, "objects.csv"]).stdout.toString("utf8");
+      const single = await csv(as.collector, `/api/clients/${varga}/exports/objects.csv`);
+      expect(inside).toBe(single.text);
+    } finally {
+      fs.rmSync(dir, { recursive: true, force: true });
+    }
+
+    // Each object in the ZIP has an "exported" event in its history; the single downloads wrote none.
+    const ids = t.db.select({ id: objects.id }).from(objects).where(eq(objects.clientId, varga)).all().map((o) => o.id);
+    const n = t.db.select({ n: sql<number>`count(*)` }).from(events).where(and(eq(events.type, "exported"), inArray(events.objectId, ids))).get()!.n;
+    expect(n).toBe(ids.length);
+    const others = t.db.select({ n: sql<number>`count(*)` }).from(events).where(and(eq(events.type, "exported"), sql`${events.objectId} not in (${sql.join(ids.map((i) => sql`${i}`), sql`, `)})`)).get()!.n;
+    expect(others).toBe(0);
+  });
+
+  it("when an unknown job is polled, then it answers 404", async () => {
+    expectErrorShape((await as.framer.get(`/api/exports/no-such-job`)).body, "not_found");
+    expectErrorShape((await as.framer.get(`/api/exports/no-such-job/download`)).body, "not_found");
+  });
+
+  it.runIf(unzip)("when the studio zips an institution's records, then it runs to done as well", async () => {
+    const { seen } = await runToDone(as.admin, wrenfold);
+    expect(seen.at(-1)).toBe(1);
+  });
+
+  it("when the job is watched turn by turn, then its progress rises through values between 0 and 1; an hour later the job and its file are gone", async () => {
+    let now = new Date("2026-12-01T10:00:00Z");
+    const service = createExportsService(t.db, { uploadsDir: path.join(inject("testDbDir"), "uploads") }, () => now);
+    const row = t.db.select().from(user).where(eq(user.email, "collector@reversa.test")).get()!;
+    const collector: SessionUser = { id: row.id, name: row.name, email: row.email, role: row.role, clientId: row.clientId };
+    const jobId = service.startArchive(collector, findClient(t.db, varga)!);
+    const seen: number[] = [];
+    for (let i = 0; i < 10_000; i++) {
+      const s = service.status(collector, jobId);
+      if (seen.at(-1) !== s.progress) seen.push(s.progress);
+      if (s.state !== "running") break;
+      await new Promise((r) => setImmediate(r));
+    }
+    expect(service.status(collector, jobId).state).toBe("done");
+    expect(seen.length).toBeGreaterThan(2); // 0, at least one step between, 1
+    expect(seen[0]).toBe(0);
+    expect(seen.at(-1)).toBe(1);
+    for (let i = 1; i < seen.length; i++) expect(seen[i]).toBeGreaterThan(seen[i - 1]);
+    expect(seen.slice(1, -1).every((p) => p > 0 && p < 1)).toBe(true);
+
+    const { file } = service.download(collector, jobId);
+    expect(fs.existsSync(file)).toBe(true);
+    expect(() => service.status({ ...collector, id: "someone-else" }, jobId)).toThrow(/not found/);
+    now = new Date(now.getTime() + JOB_TTL_MS + 1);
+    expect(() => service.status(collector, jobId)).toThrow(/not found/);
+    for (let i = 0; i < 100 && fs.existsSync(file); i++) await new Promise((r) => setTimeout(r, 20));
+    expect(fs.existsSync(file)).toBe(false);
+    await service.clear();
+  });
+});

@@ -1,0 +1,263 @@
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import { spawnSync } from "node:child_process";
+import { randomUUID } from "node:crypto";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { and, eq, isNotNull } from "drizzle-orm";
+import { createTestApp, makeClient, makeObject, signIn, type Agent } from "../setup/test-app.ts";
+import { DEMO_PASSWORD, seedDemo } from "../../server/db/seed.ts";
+import { clients, custodyReceipts, mountings, objects, user } from "../../server/db/schema.ts";
+import { getSettings, saveSettings } from "../../server/features/settings/settings.repo.ts";
+import { formatMoney } from "../../shared/domain/money.ts";
+import { renderScheduleForBench } from "../../server/features/documents/schedule.tsx";
+import { handlingCautions } from "../../server/features/documents/custody-receipt.tsx";
+
+const t = createTestApp({ env: { PUBLIC_URL: "http://reversa.example.test" } });
+const as = {} as Record<"admin" | "framer" | "collector" | "registrar", Agent>;
+const tmp = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-more-docs-"));
+afterAll(() => fs.rmSync(tmp, { recursive: true, force: true }));
+
+const binary = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
+  const chunks: Buffer[] = [];
+  res.on("data", (c: Buffer) => chunks.push(c));
+  res.on("end", () => cb(null, Buffer.concat(chunks)));
+};
+const post = (agent: Agent, url: string, body?: object) => {
+  const r = agent.post(url);
+  return (body ? r.send(body) : r).buffer(true).parse(binary as never);
+};
+
+function poppler(tool: "pdftotext" | "pdffonts" | "pdfinfo" | "pdfimages", pdf: Buffer, layout = true): string {
+  const file = path.join(tmp, `${randomUUID()}.pdf`);
+  fs.writeFileSync(file, pdf);
+  const args = tool === "pdftotext" ? [...(layout ? ["-layout"] : []), file, "-"] : tool === "pdfimages" ? ["-list", file] : [file];
+  const r = spawnSync(`/usr/bin/${tool}`, args, { encoding: "utf8" });
+  expect(r.status, r.stderr).toBe(0);
+  return r.stdout;
+}
+const textOf = (pdf: Buffer) => poppler("pdftotext", pdf).replace(/[ \t]+/g, " ");
+/** Writes the PDF into .tmp/more-documents when KEEP_PDFS is set, to look at it. */
+function keep(name: string, pdf: Buffer) {
+  if (!process.env.KEEP_PDFS) return;
+  const dir = path.resolve(".tmp/more-documents");
+  fs.mkdirSync(dir, { recursive: true });
+  fs.writeFileSync(path.join(dir, `${name}.pdf`), pdf);
+}
+
+/** Every PDF: opens in poppler, embeds Libre Franklin, answers as an attachment with its code, and the code verifies. */
+async function expectDocument(res: { status: number; headers: Record<string, string>; body: unknown }, kind: string) {
+  expect(res.status, String(res.body)).toBe(200);
+  expect(res.headers["content-type"]).toMatch(/^application\/pdf/);
+  expect(res.headers["content-disposition"]).toMatch(/^attachment; filename=".+\.pdf"$/);
+  const code = res.headers["x-verification-code"];
+  expect(code).toMatch(/^[0-9A-F]{4}-[0-9A-F]{4}-[0-9A-F]{4}$/);
+  const pdf = res.body as Buffer;
+  expect(pdf.subarray(0, 5).toString()).toBe("%PDF-");
+  const fonts = poppler("pdffonts", pdf);
+  expect(fonts).toMatch(/LibreFranklin/);
+  for (const line of fonts.split("\n").filter((l) => /LibreFranklin/.test(l))) expect(line).toMatch(/\byes\b/); // embedded
+  expect(textOf(pdf)).toContain(code);
+  const v = await as.admin.get(`/api/verify/${code}`);
+  expect(v.status).toBe(200);
+  expect(v.body).toMatchObject({ valid: true, code, kind });
+  return { pdf, code, text: textOf(pdf) };
+}
+
+let wrenfold: string;
+let varga: string;
+
+beforeAll(async () => {
+  await seedDemo(t.db);
+  as.admin = await signIn(t.agent(), "admin@reversa.test", DEMO_PASSWORD);
+  as.framer = await signIn(t.agent(), "framer@reversa.test", DEMO_PASSWORD);
+  as.collector = await signIn(t.agent(), "collector@reversa.test", DEMO_PASSWORD);
+  as.registrar = await signIn(t.agent(), "registrar@reversa.test", DEMO_PASSWORD);
+  wrenfold = t.db.select().from(user).where(eq(user.email, "registrar@reversa.test")).get()!.clientId!;
+  varga = t.db.select().from(user).where(eq(user.email, "collector@reversa.test")).get()!.clientId!;
+});
+
+const MONEY = /((?:[A-Z]{1,3})?[$£€¥]|[A-Z]{3}\s)(\d[\d,]*(?:\.\d+)?)\s*$/;
+/** Reads the rendered rows back: per currency symbol, the sum of the last amount on each object's line, in minor units. */
+function sumRows(text: string, numbers: string[]): Map<string, number> {
+  const sums = new Map<string, number>();
+  const wanted = new Set(numbers);
+  for (const line of text.split("\n")) {
+    const first = line.trim().split(" ")[0];
+    if (!wanted.has(first)) continue;
+    const m = line.trim().match(MONEY);
+    if (!m) continue;
+    const minor = Math.round(Number(m[2].replace(/,/g, "")) * 100);
+    sums.set(m[1].trim(), (sums.get(m[1].trim()) ?? 0) + minor);
+  }
+  return sums;
+}
+function totalsIn(text: string): Map<string, number> {
+  const out = new Map<string, number>();
+  for (const m of text.matchAll(/Total ((?:[A-Z]{1,3})?[$£€¥]|[A-Z]{3}\s)(\d[\d,]*(?:\.\d+)?)/g)) out.set(m[1].trim(), Math.round(Number(m[2].replace(/,/g, "")) * 100));
+  return out;
+}
+
+describe("the schedule of values", () => {
+  it("lists every object of the registrar's institution, and its totals are the sums of the values listed, per currency", async () => {
+    const res = await post(as.registrar, `/api/clients/${wrenfold}/documents/schedule`);
+    const { text, pdf } = await expectDocument(res, "schedule-of-values");
+    keep("schedule", pdf);
+    const rows = t.db.select().from(objects).where(eq(objects.clientId, wrenfold)).all();
+    expect(rows.length).toBeGreaterThan(0);
+    for (const r of rows) expect(text).toContain(r.objectNumber);
+    expect(text).toContain("Tomasz Eberlin");
+    const listed = sumRows(text, rows.map((r) => r.objectNumber));
+    const totals = totalsIn(text);
+    expect(totals.size).toBeGreaterThan(0);
+    expect(listed).toEqual(totals);
+    // And the same against the records themselves, exactly in minor units.
+    const byCurrency = new Map<string, number>();
+    for (const r of rows) if (r.valuationMinor != null && r.valuationCurrency) byCurrency.set(r.valuationCurrency, (byCurrency.get(r.valuationCurrency) ?? 0) + r.valuationMinor);
+    for (const [cur, minor] of byCurrency) expect(text).toContain(`Total ${formatMoney(minor, cur)}`);
+  });
+
+  it("answers 404 to a registrar asking for another client's schedule, and serves the collector their own", async () => {
+    const res = await post(as.registrar, `/api/clients/${varga}/documents/schedule`);
+    expect(res.status).toBe(404);
+    const mine = await post(as.collector, `/api/clients/${varga}/documents/schedule`);
+    await expectDocument(mine, "schedule-of-values");
+    expect((await post(as.collector, `/api/clients/${wrenfold}/documents/schedule`)).status).toBe(404);
+  });
+
+  it("takes a filtered set, and refuses an object of another client as not found", async () => {
+    const rows = t.db.select().from(objects).where(eq(objects.clientId, wrenfold)).all().slice(0, 2);
+    const res = await post(as.framer, `/api/clients/${wrenfold}/documents/schedule`, { objectIds: rows.map((r) => r.id) });
+    const { text } = await expectDocument(res, "schedule-of-values");
+    expect(text).toContain("2 selected objects");
+    const other = t.db.select().from(objects).where(eq(objects.clientId, varga)).get()!;
+    expect((await post(as.framer, `/api/clients/${wrenfold}/documents/schedule`, { objectIds: [rows[0].id, other.id] })).status).toBe(404);
+    expect((await post(as.framer, `/api/clients/${wrenfold}/documents/schedule`, { status: "nowhere" })).status).toBe(422);
+  });
+
+  it("follows the studio's paper size", async () => {
+    const before = getSettings(t.db);
+    const a4 = await post(as.admin, `/api/clients/${wrenfold}/documents/schedule`);
+    expect(poppler("pdfinfo", a4.body as Buffer)).toMatch(/Page size:\s+595\.2\d? x 841\.8\d? pts \(A4\)/);
+    saveSettings(t.db, { ...before, paperSize: "Letter" });
+    try {
+      const letter = await post(as.admin, `/api/clients/${wrenfold}/documents/schedule`);
+      expect(poppler("pdfinfo", letter.body as Buffer)).toMatch(/Page size:\s+612 x 792 pts \(letter\)/);
+    } finally {
+      saveSettings(t.db, before);
+    }
+  });
+
+  it("renders 1,000 objects over many pages with the table header on each page, within the time target", async () => {
+    const big = makeClient(t.db, { kind: "institution", name: "Large collection trust" });
+    for (let i = 0; i < 1000; i++) {
+      makeObject(t.db, big.id, { objectNumber: `BIG-${String(i).padStart(4, "0")}`, title: `Harbour study ${i}`, maker: i % 3 ? "Ilse Korrow" : null, valuationMinor: 1000 + i * 137, valuationCurrency: i % 5 === 0 ? "EUR" : "GBP", valuationDate: "2026-01-01", valuationBasis: "agreed" } as never);
+    }
+    const started = performance.now();
+    const res = await post(as.admin, `/api/clients/${big.id}/documents/schedule`);
+    const ms = performance.now() - started;
+    const { text, pdf } = await expectDocument(res, "schedule-of-values");
+    keep("schedule-1000", pdf);
+    const pages = Number(poppler("pdfinfo", pdf).match(/Pages:\s+(\d+)/)![1]);
+    expect(pages).toBeGreaterThan(10);
+    expect(text.match(/Insured value/gi)!.length).toBeGreaterThanOrEqual(pages);
+    const numbers = Array.from({ length: 1000 }, (_, i) => `BIG-${String(i).padStart(4, "0")}`);
+    expect(sumRows(text, numbers)).toEqual(totalsIn(text));
+    console.info(`schedule of 1,000 objects: ${pages} pages in ${Math.round(ms)} ms`);
+    expect(ms).toBeLessThan(10_000);
+    // The bench entry point renders the same without writing a record.
+    const ids = t.db.select({ id: objects.id }).from(objects).where(eq(objects.clientId, big.id)).all().map((r) => r.id);
+    const admin = t.db.select().from(user).where(eq(user.email, "admin@reversa.test")).get()!;
+    const benchPdf = await renderScheduleForBench(t.db, { id: admin.id, name: admin.name, email: admin.email, role: "admin", clientId: null }, ids);
+    expect(benchPdf.subarray(0, 5).toString()).toBe("%PDF-");
+  }, 60_000);
+});
+
+describe("the custody receipt", () => {
+  it("carries the hand-over, both signature lines and the handling cautions", async () => {
+    const r = t.db.select().from(custodyReceipts).innerJoin(objects, eq(objects.id, custodyReceipts.objectId)).where(eq(objects.clientId, wrenfold)).get()!;
+    const res = await post(as.framer, `/api/custody/${r.custody_receipts.id}/document`);
+    const { text, pdf } = await expectDocument(res, "custody-receipt");
+    keep("custody-receipt", pdf);
+    expect(text).toContain(r.objects.objectNumber);
+    expect(text).toContain(r.custody_receipts.fromParty);
+    expect(text).toContain("Handed over by");
+    expect(text).toContain("Received by");
+    expect(text).toMatch(/qualified conservator/);
+    // The owner's registrar may read it; another client's user may not even learn it exists.
+    expect((await post(as.registrar, `/api/custody/${r.custody_receipts.id}/document`)).status).toBe(200);
+    expect((await post(as.collector, `/api/custody/${r.custody_receipts.id}/document`)).status).toBe(404);
+    expect((await post(as.framer, `/api/custody/no-such-receipt/document`)).status).toBe(404);
+  });
+
+  it("warns about glass where the current mounting is glazed with glass", async () => {
+    const glazed = t.db.select().from(objects).where(and(isNotNull(objects.currentMountingId), eq(objects.currentGlazing, "uv-glass"))).all();
+    const withReceipt = glazed.map((o) => ({ o, r: t.db.select().from(custodyReceipts).where(eq(custodyReceipts.objectId, o.id)).get() })).find((x) => x.r);
+    expect(withReceipt, "the demo holds a glass-glazed object with a receipt").toBeDefined();
+    const res = await post(as.framer, `/api/custody/${withReceipt!.r!.id}/document`);
+    const { text } = await expectDocument(res, "custody-receipt");
+    expect(text).toMatch(/Glass cuts if it breaks/);
+    keep("custody-receipt-glass", res.body as Buffer);
+    expect(text).toContain(withReceipt!.o.objectNumber);
+  });
+
+  it("asks for two people and never the top rail for a heavy frame, and says nothing of glass or weight where neither applies", () => {
+    const heavy = handlingCautions({ glass: false, weightKg: 14.2 });
+    expect(heavy.map((c) => c.title)).toEqual(["Heavy frame (about 14 kg)"]);
+    expect(heavy[0].text).toMatch(/two people.*Never lift it by the top rail/s);
+    expect(handlingCautions({ glass: false, weightKg: 3 })).toEqual([]);
+    expect(handlingCautions({ glass: true, weightKg: null })[0].text).toMatch(/gloves and eye protection.*sharps container/s);
+  });
+});
+
+describe("the workshop sheet", () => {
+  it("lists each mounting's sizes and boards and packs the outer sizes onto full sheets", async () => {
+    const rows = t.db.select().from(mountings).innerJoin(objects, eq(objects.id, mountings.objectId)).all().slice(0, 4);
+    expect(rows.length).toBeGreaterThan(0);
+    const res = await post(as.framer, "/api/documents/workshop-sheet", { mountingIds: rows.map((r) => r.mountings.id) });
+    const { text, pdf } = await expectDocument(res, "workshop-sheet");
+    keep("workshop-sheet", pdf);
+    for (const r of rows) expect(text).toContain(r.objects.objectNumber);
+    expect(text).toContain("Cutting list");
+    expect(text).toMatch(/\d+ sheets? · shaded: offcut · utilisation \d+\.\d %/);
+    expect(text).toContain("32 × 40 in");
+    expect(text).toMatch(/sharps container/);
+    const other = await post(as.framer, "/api/documents/workshop-sheet", { mountingIds: [rows[0].mountings.id], boardSheetId: "40x60in" });
+    expect((await expectDocument(other, "workshop-sheet")).text).toContain("40 × 60 in");
+  });
+
+  it("is the studio's only", async () => {
+    const m = t.db.select().from(mountings).get()!;
+    expect((await post(as.registrar, "/api/documents/workshop-sheet", { mountingIds: [m.id] })).status).toBe(403);
+    expect((await post(as.framer, "/api/documents/workshop-sheet", { mountingIds: ["nope"] })).status).toBe(404);
+    expect((await post(as.framer, "/api/documents/workshop-sheet", { mountingIds: [] })).status).toBe(422);
+  });
+});
+
+describe("back labels", () => {
+  it("prints a 100 × 70 mm label with the reversible-mount line and a QR code to the record", async () => {
+    const o = t.db.select().from(objects).where(isNotNull(objects.currentMountingId)).get()!;
+    const res = await post(as.framer, `/api/objects/${o.id}/documents/back-label`);
+    const { text, pdf } = await expectDocument(res, "back-label");
+    keep("back-label", pdf);
+    expect(poppler("pdfinfo", pdf)).toMatch(/Page size:\s+283\.4\d* x 198\.4\d* pts/);
+    expect(text).toContain(o.objectNumber);
+    expect(text).toContain("Reversible mount — do not use pressure-sensitive tape");
+    expect(poppler("pdftotext", pdf, false).replace(/\s+/g, "")).toContain(`http://reversa.example.test/objects/${o.id}`);
+    expect(pdf.toString("latin1")).toContain(`/URI (http://reversa.example.test/objects/${o.id})`);
+    expect(poppler("pdfimages", pdf).split("\n").filter((l) => /^\s*\d+\s+\d+\s+image/.test(l)).length).toBeGreaterThanOrEqual(1);
+    expect((await post(as.registrar, `/api/objects/${o.id}/documents/back-label`)).status).toBe(403);
+  });
+
+  it("prints a sheet of labels, 8 to a page, on the studio's paper size, with one code for the sheet", async () => {
+    const os = t.db.select().from(objects).innerJoin(clients, eq(clients.id, objects.clientId)).all().slice(0, 9).map((r) => r.objects);
+    const res = await post(as.framer, "/api/documents/label-sheet", { objectIds: os.map((o) => o.id) });
+    const { text, pdf } = await expectDocument(res, "label-sheet");
+    keep("label-sheet", pdf);
+    const info = poppler("pdfinfo", pdf);
+    expect(info).toMatch(/Pages:\s+2/);
+    expect(info).toMatch(/\(A4\)/);
+    for (const o of os) expect(text).toContain(o.objectNumber);
+    expect(text.match(/Reversible mount/g)!.length).toBe(9);
+  });
+});
