@@ -112,7 +112,7 @@ export function createApp({ config, database, clock = () => new Date() }: AppDep
   app.get("/api/me", (req, res) => {
     res.json(currentUser(req));
   });
-  app.use("/api/settings", settingsRoutes(db));
+  app.use("/api/settings", settingsRoutes(db, config));
   app.use("/api/clients", clientRoutes(db));
   app.use("/api", mountPlanRoutes(db));
   app.use("/api", historyRoutes(db));
@@ -122,7 +122,7 @@ export function createApp({ config, database, clock = () => new Date() }: AppDep
   app.use("/api", photoRoutes(db, config));
   app.use("/api", conditionRoutes(db, clock));
   app.use("/api", termRoutes(db));
-  app.use("/api", moreDocumentsRoutes(db, clock, config.publicUrl));
+  app.use("/api", moreDocumentsRoutes(db, clock, config.publicUrl, config.uploadsDir));
   app.use("/api", documentsRoutes(db, config, clock));
   app.use("/api", exportRoutes(db, config, clock));
   app.use("/api/objects", objectRoutes(db, clock));

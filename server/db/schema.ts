@@ -166,6 +166,8 @@ export const studioSettings = sqliteTable("studio_settings", {
   checkIntervalMonths: integer("check_interval_months").notNull().default(24),
   checkIntervalOnLoanMonths: integer("check_interval_on_loan_months").notNull().default(12),
   framePresets: text("frame_presets", { mode: "json" }).$type<{ label: string; widthMm: number; heightMm: number }[]>().notNull().default(sql`'[]'`),
+  /** Storage key (server/lib/storage.ts) of the studio's logo PNG, shown on every document; null for none. */
+  logoKey: text("logo_key"),
   ...timestamps,
 });
 

@@ -41,6 +41,8 @@ export const StudioSettingsSchema = z.object({
 /** Settings as stored and returned: the frame sizes are always there. */
 export type StudioSettingsRecord = Omit<z.infer<typeof StudioSettingsSchema>, "framePresets"> & {
   framePresets: NonNullable<z.infer<typeof StudioSettingsSchema>["framePresets"]>;
+  /** Whether a logo is set (PUT/DELETE /api/settings/logo); it is not part of the settings body. */
+  hasLogo: boolean;
 };
 /** An update: leaving out `framePresets` keeps the stored ones. */
 export type StudioSettings = z.infer<typeof StudioSettingsSchema>;

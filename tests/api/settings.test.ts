@@ -49,6 +49,7 @@ describe("GET /api/settings", () => {
         checkIntervalMonths: 24,
         checkIntervalOnLoanMonths: 12,
         framePresets: [],
+        hasLogo: false,
       });
     }
   });
@@ -70,8 +71,8 @@ describe("PUT /api/settings", () => {
   it("when the admin saves settings, then everyone reads them back", async () => {
     const res = await as.admin.put("/api/settings").send({ ...SETTINGS, currency: " usd " });
     expect(res.status).toBe(200);
-    expect(res.body).toEqual(SETTINGS);
-    expect((await as.collector.get("/api/settings")).body).toEqual(SETTINGS);
+    expect(res.body).toEqual({ ...SETTINGS, hasLogo: false });
+    expect((await as.collector.get("/api/settings")).body).toEqual({ ...SETTINGS, hasLogo: false });
   });
 
   it("when the admin saves twice, then the second save replaces the first", async () => {

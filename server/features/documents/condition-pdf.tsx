@@ -277,7 +277,7 @@ export async function issueConditionReport(db: Db, config: Pick<Config, "uploads
   const value = showValue ? valuationLine(object) : null;
   const sig = data.signatures;
 
-  return createDocumentsService(db, clock).issue({
+  return createDocumentsService(db, clock, config.uploadsDir).issue({
     kind: "condition-report",
     title: `Condition report ${object.objectNumber}, ${report.reportDate}`,
     user,

@@ -9,7 +9,7 @@ import type { SessionUser } from "../../../shared/schemas/auth.ts";
 import { DOCUMENT_KIND_LABELS, type DocumentKind, type IssuedDocument, type Verification } from "../../../shared/schemas/documents.ts";
 import { registerFonts } from "../../lib/pdf/fonts.ts";
 import type { DocMeta } from "../../lib/pdf/layout.tsx";
-import { getSettings } from "../settings/settings.repo.ts";
+import { getLogo, getSettings } from "../settings/settings.repo.ts";
 import { appendEvent } from "../history/history.chain.ts";
 
 /** A verification code people can read out: 12 hex digits in three groups, from a CSPRNG. */
@@ -29,7 +29,8 @@ export type IssueRequest = {
   render: (meta: DocMeta) => ReactElement<DocumentProps>;
 };
 
-export function createDocumentsService(db: Db, clock: () => Date = () => new Date()) {
+/** `uploadsDir` is where the studio's logo is read from; without it documents are issued without the logo. */
+export function createDocumentsService(db: Db, clock: () => Date = () => new Date(), uploadsDir?: string) {
   return {
     /**
      * Renders a document, records it with its verification code and, for an object's document,
@@ -48,6 +49,7 @@ export function createDocumentsService(db: Db, clock: () => Date = () => new Dat
         issuedAt,
         paperSize: settings.paperSize,
         title: req.title,
+        logo: await getLogo(db, uploadsDir),
       };
       registerFonts();
       const pdf = await renderToBuffer(req.render(meta));

@@ -92,7 +92,7 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
   // Drawn as large as fits the column: the model's viewBox is in mm.
   const drawingWidth = view ? Math.min(270, (320 * view.model.viewBox[2]) / view.model.viewBox[3]) : 0;
 
-  return createDocumentsService(db, clock).issue({
+  return createDocumentsService(db, clock, config.uploadsDir).issue({
     kind: "dossier",
     title: `Object dossier ${object.objectNumber}`,
     user,

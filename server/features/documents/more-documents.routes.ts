@@ -50,8 +50,8 @@ function sendPdf(res: Response, doc: { pdf: Buffer; code: string; filename: stri
 }
 
 /** Schedule of values, custody receipt, workshop sheet, back labels. Mounted at /api, after the session check. */
-export function moreDocumentsRoutes(db: Db, clock: () => Date = () => new Date(), publicUrl = "http://localhost:3000") {
-  const docs = createDocumentsService(db, clock);
+export function moreDocumentsRoutes(db: Db, clock: () => Date = () => new Date(), publicUrl = "http://localhost:3000", uploadsDir?: string) {
+  const docs = createDocumentsService(db, clock, uploadsDir);
   const r = Router();
 
   // Valuations are confidential: the owning client's users and the studio only; other clients get 404.

@@ -9,7 +9,7 @@ import { RATING_LABELS, type Rating } from "../../../shared/schemas/condition.ts
 import { formatSize, type Unit } from "../../../shared/domain/units.ts";
 import { formatMoney } from "../../../shared/domain/money.ts";
 import { registerFonts } from "../../lib/pdf/fonts.ts";
-import type { DocMeta } from "../../lib/pdf/layout.tsx";
+import { StudioBlock, type DocMeta } from "../../lib/pdf/layout.tsx";
 import { ACCENT, GRAPHITE, INK, STONE, s } from "../../lib/pdf/theme.ts";
 import { getSettings } from "../settings/settings.repo.ts";
 import { newVerificationCode } from "./documents.service.ts";
@@ -226,10 +226,7 @@ function Chrome({ meta }: { meta: DocMeta }) {
   return (
     <>
       <View style={s.header} fixed>
-        <View>
-          <Text style={s.studio}>{meta.studioName}</Text>
-          {meta.studioAddress ? <Text style={s.small}>{meta.studioAddress}</Text> : null}
-        </View>
+        <StudioBlock meta={meta} />
         <View>
           <Text style={s.kind}>{meta.kindLabel}</Text>
           <Text style={[s.small, { textAlign: "right" }]}>Verification code {meta.code}</Text>

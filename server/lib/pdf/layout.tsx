@@ -1,5 +1,5 @@
 import type { ReactNode } from "react";
-import { Document, Page, Text, View } from "@react-pdf/renderer";
+import { Document, Image, Page, Text, View } from "@react-pdf/renderer";
 import { format } from "date-fns";
 import { s } from "./theme.ts";
 
@@ -12,7 +12,22 @@ export type DocMeta = {
   issuedAt: Date;
   paperSize: "A4" | "Letter";
   title: string;
+  /** The studio's logo as PNG bytes, drawn left of the studio's name; null or absent for none. */
+  logo?: Buffer | null;
 };
+
+/** The left of the header band: the logo (if any), then the studio's name and address. */
+export function StudioBlock({ meta }: { meta: DocMeta }) {
+  return (
+    <View style={{ flexDirection: "row", alignItems: "center" }}>
+      {meta.logo ? <Image src={meta.logo} style={{ height: 28, maxWidth: 120, marginRight: 8, objectFit: "contain" }} /> : null}
+      <View>
+        <Text style={s.studio}>{meta.studioName}</Text>
+        {meta.studioAddress ? <Text style={s.small}>{meta.studioAddress}</Text> : null}
+      </View>
+    </View>
+  );
+}
 
 /** Every document: a header band with the studio, the document's kind, the object number and the verification code; a footer with the date, page x of y and "Produced by Reversa". */
 export function DocShell({ meta, children, size }: { meta: DocMeta; children: ReactNode; size?: "A4" | "LETTER" | [number, number] }) {
@@ -21,10 +36,7 @@ export function DocShell({ meta, children, size }: { meta: DocMeta; children: Re
     <Document title={meta.title} author={meta.studioName} creator="Reversa" producer="Reversa">
       <Page size={pageSize} style={s.page} wrap>
         <View style={s.header} fixed>
-          <View>
-            <Text style={s.studio}>{meta.studioName}</Text>
-            {meta.studioAddress ? <Text style={s.small}>{meta.studioAddress}</Text> : null}
-          </View>
+          <StudioBlock meta={meta} />
           <View>
             <Text style={s.kind}>{meta.kindLabel}</Text>
             <Text style={[s.small, { textAlign: "right" }]}>

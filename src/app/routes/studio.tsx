@@ -8,7 +8,7 @@ import type { z } from "zod";
 type SettingsInput = z.input<typeof StudioSettingsSchema>;
 import { can } from "@shared/permissions.ts";
 import { useMe } from "@/features/session/api/session.ts";
-import { useSaveSettings, useSettings } from "@/features/settings/api/settings.ts";
+import { useRemoveLogo, useSaveSettings, useSettings, useUploadLogo } from "@/features/settings/api/settings.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
 import { Button } from "@/components/ui/button.tsx";
 import { Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
@@ -152,6 +152,49 @@ function FramePresets({ settings, readOnly }: { settings: StudioSettingsRecord; 
   );
 }
 
+/** The studio's logo, drawn left of the studio's name in the header of every document. Admin only. */
+function Logo({ hasLogo, version }: { hasLogo: boolean; version: number }) {
+  const upload = useUploadLogo();
+  const remove = useRemoveLogo();
+  const [input, setInput] = useState(0);
+  const error = upload.error?.message ?? remove.error?.message ?? null;
+  const busy = upload.isPending || remove.isPending;
+  return (
+    <section className="max-w-3xl space-y-3 rounded-card bg-paper-sheet p-5 shadow-card" aria-label="Logo on documents">
+      <h2 className="text-base font-semibold">Logo on documents</h2>
+      <p className="text-sm text-graphite">Shown beside the studio's name at the top of every document. A PNG or JPEG of at most 2 MB and 4000 × 4000 pixels; it is stored as a PNG 600 pixels wide at most.</p>
+      {hasLogo ? (
+        <img src={`/api/settings/logo?v=${version}`} alt="The studio's current logo" className="h-12 w-auto max-w-xs rounded border border-stone-light bg-white object-contain p-1" />
+      ) : (
+        <p className="text-sm text-graphite">No logo yet: documents show the studio's name only.</p>
+      )}
+      {error && <Notice tone="fail" title="Logo not changed">{error}</Notice>}
+      <div className="flex flex-wrap items-end gap-3">
+        <label className="grid gap-1 text-sm">
+          <span className="font-medium">{hasLogo ? "Replace the logo (PNG or JPEG)" : "Upload a logo (PNG or JPEG)"}</span>
+          <input
+            key={input}
+            type="file"
+            accept="image/png,image/jpeg"
+            disabled={busy}
+            onChange={(e) => {
+              const file = e.target.files?.[0];
+              remove.reset();
+              if (file) upload.mutate(file, { onSettled: () => setInput((n) => n + 1) });
+            }}
+          />
+        </label>
+        {hasLogo && (
+          <Button variant="quiet" disabled={busy} onClick={() => { upload.reset(); remove.mutate(); }}>
+            Remove
+          </Button>
+        )}
+      </div>
+      {upload.isPending && <p className="text-sm text-graphite" role="status">Uploading the logo…</p>}
+    </section>
+  );
+}
+
 export function Component() {
   const { data: user } = useMe();
   const settings = useSettings();
@@ -166,6 +209,7 @@ export function Component() {
       </header>
       <SettingsForm initial={settings.data} readOnly={readOnly} />
       <FramePresets settings={settings.data} readOnly={readOnly} />
+      {!readOnly && <Logo hasLogo={settings.data.hasLogo} version={settings.dataUpdatedAt} />}
       <Vocabulary readOnly={!can(user, "terms:manage")} />
     </div>
   );
