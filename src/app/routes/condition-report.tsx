@@ -12,6 +12,7 @@ import { Button, ButtonLink } from "@/components/ui/button.tsx";
 import { objectPhotosQuery } from "@/features/photos/api/photos.ts";
 import { DocumentButton } from "@/features/documents/components/document-button.tsx";
 import { formatDate, formatDateTime } from "@/lib/format.ts";
+import { RevisionsList } from "@/components/revisions-list.tsx";
 
 
 export function Component() {
@@ -56,29 +57,7 @@ export function Component() {
         </div>
       </header>
       {sign.error && <Notice tone="fail" title="Not signed">{sign.error.message}</Notice>}
-      {revisions.data && revisions.data.length > 1 && (
-        <Card title="Revisions">
-          <ol className="space-y-2 text-sm">
-            {revisions.data.map((x) => (
-              <li key={x.revision} className="flex flex-wrap items-start gap-3">
-                <button type="button" aria-pressed={revision.revision === x.revision} onClick={() => setShown(x.revision)} className={`rounded-card border px-2 py-0.5 text-xs font-semibold ${revision.revision === x.revision ? "border-accent bg-accent text-paper-sheet" : "border-stone"}`}>
-                  Revision {x.revision}
-                </button>
-                <div>
-                  <p className="text-graphite">{formatDateTime(x.createdAt)} · {x.createdByName}{x.correctionReason ? ` · “${x.correctionReason}”` : ""}</p>
-                  {x.changes.length > 0 && (
-                    <ul className="mt-0.5 text-xs">
-                      {x.changes.slice(0, 20).map((c) => (
-                        <li key={c.path}><span className="font-medium">{c.path}</span>: <span className="text-fail line-through">{JSON.stringify(c.before)}</span> → <span className="text-pass">{JSON.stringify(c.after)}</span></li>
-                      ))}
-                    </ul>
-                  )}
-                </div>
-              </li>
-            ))}
-          </ol>
-        </Card>
-      )}
+      {revisions.data && <RevisionsList revisions={revisions.data} shown={revision.revision} onShow={setShown} />}
       <ReportView data={revision.data} photos={photos.data ?? []} cautions={rep.cautions} />
     </div>
   );

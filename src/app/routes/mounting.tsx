@@ -12,6 +12,7 @@ import { Badge, Card, Notice, SkeletonRows } from "@/components/ui/feedback.tsx"
 import { Button, ButtonLink } from "@/components/ui/button.tsx";
 import { TextField } from "@/components/ui/field.tsx";
 import { formatDate, formatDateTime } from "@/lib/format.ts";
+import { RevisionsList } from "@/components/revisions-list.tsx";
 import { ApiError } from "@/lib/api-client.ts";
 
 export function Component() {
@@ -70,29 +71,7 @@ export function Component() {
           </div>
         </Card>
       )}
-      {revs && revs.length > 1 && (
-        <Card title="Revisions">
-          <ol className="space-y-2 text-sm">
-            {revs.map((r) => (
-              <li key={r.revision} className="flex flex-wrap items-start gap-3">
-                <button type="button" aria-pressed={showing.revision === r.revision} onClick={() => setShown(r.revision)} className={`rounded-card border px-2 py-0.5 text-xs font-semibold ${showing.revision === r.revision ? "border-accent bg-accent text-paper-sheet" : "border-stone"}`}>
-                  Revision {r.revision}
-                </button>
-                <div>
-                  <p className="text-graphite">{formatDateTime(r.createdAt)} · {r.createdByName}{r.correctionReason ? ` · “${r.correctionReason}”` : ""}</p>
-                  {r.changes.length > 0 && (
-                    <ul className="mt-0.5 text-xs" data-testid={`changes-${r.revision}`}>
-                      {r.changes.map((c) => (
-                        <li key={c.path}><span className="font-medium">{c.path}</span>: <span className="text-fail line-through">{JSON.stringify(c.before)}</span> → <span className="text-pass">{JSON.stringify(c.after)}</span></li>
-                      ))}
-                    </ul>
-                  )}
-                </div>
-              </li>
-            ))}
-          </ol>
-        </Card>
-      )}
+      {revs && <RevisionsList revisions={revs} shown={showing.revision} onShow={setShown} />}
       {showing.revision !== rec.currentRevision && <Notice tone="info" title={`Showing revision ${showing.revision}`}>This is an earlier revision, kept as it was. The current one is revision {rec.currentRevision}.</Notice>}
       <MountingView revision={showing} settings={settings} />
     </div>
