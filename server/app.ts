@@ -25,6 +25,7 @@ import { photoRoutes } from "./features/photos/photos.routes.ts";
 import { conditionRoutes } from "./features/condition/condition.routes.ts";
 import { termRoutes } from "./features/condition/terms.routes.ts";
 import { verifyRoutes } from "./features/documents/verify.routes.ts";
+import { userRoutes } from "./features/users/users.routes.ts";
 import { moreDocumentsRoutes } from "./features/documents/more-documents.routes.ts";
 import { documentsRoutes } from "./features/documents/documents.routes.ts";
 import { exportRoutes } from "./features/exports/exports.routes.ts";
@@ -112,6 +113,7 @@ export function createApp({ config, database, clock = () => new Date() }: AppDep
   app.get("/api/me", (req, res) => {
     res.json(currentUser(req));
   });
+  app.use("/api", userRoutes(db));
   app.use("/api/settings", settingsRoutes(db, config));
   app.use("/api/clients", clientRoutes(db));
   app.use("/api", mountPlanRoutes(db));

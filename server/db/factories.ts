@@ -1,7 +1,5 @@
-import { randomUUID } from "node:crypto";
 import type { Db } from "./client.ts";
-import { account, user } from "./schema.ts";
-import { hashUserPassword } from "../lib/auth.ts";
+import { insertUser } from "../features/users/users.repo.ts";
 import type { Role } from "../../shared/schemas/auth.ts";
 import { ClientCreateSchema, type ClientCreateInput, type ClientRecord } from "../../shared/schemas/clients.ts";
 import { ObjectCreateSchema, type ObjectCreateInput } from "../../shared/schemas/objects.ts";
@@ -36,13 +34,5 @@ export async function makeUser(
   db: Db,
   opts: { email: string; name: string; role: Role; clientId?: string | null; password: string },
 ): Promise<string> {
-  const id = randomUUID();
-  const hash = await hashUserPassword(opts.password);
-  db.transaction((tx) => {
-    tx.insert(user)
-      .values({ id, email: opts.email.toLowerCase(), name: opts.name, role: opts.role, clientId: opts.clientId ?? null, emailVerified: true })
-      .run();
-    tx.insert(account).values({ id: randomUUID(), accountId: id, providerId: "credential", userId: id, password: hash }).run();
-  });
-  return id;
+  return insertUser(db, opts);
 }

@@ -14,6 +14,8 @@ import { Button } from "@/components/ui/button.tsx";
 import { Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { ApiError } from "@/lib/api-client.ts";
 import { useSaveTerm, useTerms } from "@/features/condition/api/condition.ts";
+import { UsersPanel } from "@/features/settings/components/users-panel.tsx";
+import { useClients } from "@/features/clients/api/clients.ts";
 
 function SettingsForm({ initial, readOnly }: { initial: StudioSettings; readOnly: boolean }) {
   const save = useSaveSettings();
@@ -103,6 +105,11 @@ function Vocabulary({ readOnly }: { readOnly: boolean }) {
       <p className="text-xs text-graphite">▲ shows a handling caution (mould, insects) on reports with that finding.</p>
     </section>
   );
+}
+
+function StudioUsers() {
+  const clients = useClients();
+  return <UsersPanel clients={clients.data ?? []} />;
 }
 
 type PresetRow = { label: string; width: string; height: string };
@@ -211,6 +218,7 @@ export function Component() {
       <FramePresets settings={settings.data} readOnly={readOnly} />
       {!readOnly && <Logo hasLogo={settings.data.hasLogo} version={settings.dataUpdatedAt} />}
       <Vocabulary readOnly={!can(user, "terms:manage")} />
+      {can(user, "user:manage") && <StudioUsers />}
     </div>
   );
 }

@@ -1,0 +1,64 @@
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { ROLES, ROLE_LABELS } from "@shared/schemas/auth.ts";
+import { UserCreateSchema, type UserCreate, type UserRecord } from "@shared/schemas/users.ts";
+import type { ClientRecord } from "@shared/schemas/clients.ts";
+import type { z } from "zod";
+import { SelectField, TextField } from "@/components/ui/field.tsx";
+import { Button } from "@/components/ui/button.tsx";
+import { Notice } from "@/components/ui/feedback.tsx";
+import { api, ApiError } from "@/lib/api-client.ts";
+
+type Input = z.input<typeof UserCreateSchema>;
+
+/** The studio's accounts; the admin adds people here (there is no self sign-up). */
+export function UsersPanel({ clients }: { clients: ClientRecord[] }) {
+  const qc = useQueryClient();
+  const users = useQuery({ queryKey: ["users"], queryFn: () => api.get<{ items: UserRecord[] }>("/api/users").then((r) => r.items) });
+  const create = useMutation({ mutationFn: (b: UserCreate) => api.post<UserRecord>("/api/users", b), onSuccess: () => qc.invalidateQueries({ queryKey: ["users"] }) });
+  const [done, setDone] = useState<string | null>(null);
+  const form = useForm<Input, unknown, UserCreate>({ resolver: zodResolver(UserCreateSchema), defaultValues: { name: "", email: "", role: "framer", clientId: null, password: "" } });
+  const role = form.watch("role");
+  const e = form.formState.errors;
+  const submit = form.handleSubmit(async (v) => {
+    setDone(null);
+    try {
+      const u = await create.mutateAsync(v);
+      setDone(`${u.name} can now sign in as ${u.email}.`);
+      form.reset({ name: "", email: "", role: v.role, clientId: null, password: "" });
+    } catch (x) {
+      if (x instanceof ApiError) for (const [k, m] of Object.entries(x.fields)) form.setError(k as keyof Input, { message: m });
+    }
+  });
+  const choices = clients.filter((c) => (role === "collector" ? c.kind === "private" : c.kind === "institution"));
+  return (
+    <section className="max-w-3xl space-y-3 rounded-card bg-paper-sheet p-5 shadow-card" aria-label="People and roles">
+      <h2 className="text-base font-semibold">People and roles</h2>
+      <ul className="divide-y divide-stone-light text-sm" data-testid="users">
+        {(users.data ?? []).map((u) => (
+          <li key={u.id} className="flex flex-wrap justify-between gap-2 py-1.5">
+            <span><span className="font-medium">{u.name}</span> <span className="text-graphite">· {u.email}</span></span>
+            <span className="text-ink-soft">{ROLE_LABELS[u.role]}{u.clientName ? ` · ${u.clientName}` : ""}</span>
+          </li>
+        ))}
+      </ul>
+      {done && <Notice tone="pass" title="Account made">{done}</Notice>}
+      {create.isError && !(create.error instanceof ApiError && Object.keys(create.error.fields).length) && <Notice tone="fail" title="Not made">{create.error.message}</Notice>}
+      <form onSubmit={submit} noValidate className="grid gap-3 md:grid-cols-2">
+        <TextField label="Name" error={e.name?.message} {...form.register("name")} />
+        <TextField label="E-mail address" type="email" error={e.email?.message} {...form.register("email")} />
+        <SelectField label="Role" error={e.role?.message} {...form.register("role")}>
+          {ROLES.map((r) => <option key={r} value={r}>{ROLE_LABELS[r]}</option>)}
+        </SelectField>
+        <SelectField label="Client" disabled={role !== "collector" && role !== "registrar"} error={e.clientId?.message} {...form.register("clientId", { setValueAs: (v) => (v === "" ? null : v) })}>
+          <option value="">{role === "collector" || role === "registrar" ? "Choose…" : "— (studio staff)"}</option>
+          {choices.map((c) => <option key={c.id} value={c.id}>{c.name}</option>)}
+        </SelectField>
+        <TextField label="First password" type="password" autoComplete="new-password" error={e.password?.message} hint="At least 10 characters; tell the person privately." {...form.register("password")} />
+        <div className="flex items-end"><Button type="submit" disabled={form.formState.isSubmitting}>Add the account</Button></div>
+      </form>
+    </section>
+  );
+}
