@@ -1,5 +1,6 @@
 import { z } from "zod";
-import { optionalText, requiredText } from "./common.ts";
+import { optionalText, PageQuerySchema, requiredText } from "./common.ts";
+import { isCalendarDate } from "../domain/dates.ts";
 
 export const CUSTODY_KINDS = ["intake", "return-to-owner", "loan-out", "loan-return", "to-conservator", "from-conservator"] as const;
 export type CustodyKind = (typeof CUSTODY_KINDS)[number];
@@ -34,3 +35,32 @@ export const CustodyCreateSchema = z.object({
 export type CustodyCreate = z.infer<typeof CustodyCreateSchema>;
 
 export type CustodyReceipt = CustodyCreate & { id: string; objectId: string; objectNumber: string; objectTitle: string; direction: "in" | "out"; createdAt: string };
+
+// ── The list queries (GET /api/custody/in-studio, GET /api/custody/receipts) ──
+const blankIsUnset = <T extends z.ZodType>(schema: T) => z.preprocess((v) => (v === "" ? undefined : v), schema.optional());
+const dateParam = (message: string) => blankIsUnset(z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message }).refine(isCalendarDate, { message }));
+
+export const InStudioQuerySchema = PageQuerySchema;
+export type InStudioQuery = z.infer<typeof InStudioQuerySchema>;
+
+export const ReceiptListQuerySchema = PageQuerySchema.extend({
+  direction: blankIsUnset(z.enum(["in", "out"], { message: "Choose in or out." })),
+  kind: blankIsUnset(z.enum(CUSTODY_KINDS, { message: "Choose a kind of hand-over from the list." })),
+  from: dateParam("Use a date such as 2026-11-01."),
+  to: dateParam("Use a date such as 2026-11-30."),
+}).refine((q) => !q.from || !q.to || q.from <= q.to, { path: ["to"], message: "The end date is before the start date." });
+export type ReceiptListQuery = z.infer<typeof ReceiptListQuerySchema>;
+
+export type InStudioItem = {
+  objectId: string;
+  objectNumber: string;
+  title: string;
+  clientId: string;
+  clientName: string;
+  location: string | null;
+  /** The latest receipt that brought the object in; null when it was recorded as in the studio without one. */
+  receipt: { id: string; date: string; fromParty: string; condition: string } | null;
+  /** The day it came in: the receipt's date, or the day the object was recorded. */
+  since: string;
+  daysInStudio: number;
+};

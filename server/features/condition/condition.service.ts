@@ -1,4 +1,5 @@
 import type { Db } from "../../db/client.ts";
+import { isCalendarDate } from "../../../shared/domain/dates.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
 import {
   RATING_LABELS,
@@ -37,14 +38,6 @@ export const CONTEXT_PHRASES: Record<ConditionContext, string> = {
   claim: "for a claim",
 };
 
-const ISO_DATE = /^\d{4}-\d{2}-\d{2}$/;
-/** A real day of the calendar, not just the YYYY-MM-DD shape (2026-02-30 is refused). */
-function isCalendarDate(s: string): boolean {
-  if (!ISO_DATE.test(s)) return false;
-  const [y, m, d] = s.split("-").map(Number);
-  const t = new Date(Date.UTC(y, m - 1, d));
-  return t.getUTCFullYear() === y && t.getUTCMonth() === m - 1 && t.getUTCDate() === d;
-}
 const NOT_A_DAY = "That day is not in the calendar; use a date such as 2026-11-30.";
 
 /** One 422 naming every field at fault, in the one error shape. */

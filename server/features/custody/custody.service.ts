@@ -1,10 +1,11 @@
-import { z } from "zod";
 import { format, parseISO } from "date-fns";
 import type { Db } from "../../db/client.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
-import { CUSTODY_KINDS, CUSTODY_KIND_EFFECT, CUSTODY_KIND_LABELS, type CustodyCreate, type CustodyReceipt } from "../../../shared/schemas/custody.ts";
+import { CUSTODY_KIND_EFFECT, CUSTODY_KIND_LABELS, type CustodyCreate, type CustodyReceipt, type InStudioItem, type InStudioQuery, type ReceiptListQuery } from "../../../shared/schemas/custody.ts";
+import { isCalendarDate } from "../../../shared/domain/dates.ts";
+export { InStudioQuerySchema, ReceiptListQuerySchema, type InStudioItem } from "../../../shared/schemas/custody.ts";
 import { OBJECT_STATUS_LABELS, type ObjectStatus } from "../../../shared/schemas/objects.ts";
-import { PageQuerySchema, type Page } from "../../../shared/schemas/common.ts";
+import type { Page } from "../../../shared/schemas/common.ts";
 import type { EventType } from "../../../shared/schemas/history.ts";
 import { AppError, conflict, notFound } from "../../lib/errors.ts";
 import { assertCan } from "../../middleware/require-permission.ts";
@@ -12,44 +13,6 @@ import { findObject, type ObjectRow } from "../objects/objects.repo.ts";
 import { appendEvent, type Actor } from "../history/history.chain.ts";
 import * as repo from "./custody.repo.ts";
 
-// The list queries' contract. They belong in shared/schemas/custody.ts beside CustodyCreateSchema
-// (the client mirrors these types in src/features/custody/api/custody.ts until they move).
-const ISO_DATE = /^\d{4}-\d{2}-\d{2}$/;
-const blankIsUnset = <T extends z.ZodType>(schema: T) => z.preprocess((v) => (v === "" ? undefined : v), schema.optional());
-const dateParam = (message: string) => blankIsUnset(z.string().regex(ISO_DATE, { message }).refine(isCalendarDate, { message }));
-
-export const InStudioQuerySchema = PageQuerySchema;
-export type InStudioQuery = z.infer<typeof InStudioQuerySchema>;
-
-export const ReceiptListQuerySchema = PageQuerySchema.extend({
-  direction: blankIsUnset(z.enum(["in", "out"], { message: "Choose in or out." })),
-  kind: blankIsUnset(z.enum(CUSTODY_KINDS, { message: "Choose a kind of hand-over from the list." })),
-  from: dateParam("Use a date such as 2026-11-01."),
-  to: dateParam("Use a date such as 2026-11-30."),
-}).refine((q) => !q.from || !q.to || q.from <= q.to, { path: ["to"], message: "The end date is before the start date." });
-export type ReceiptListQuery = z.infer<typeof ReceiptListQuerySchema>;
-
-export type InStudioItem = {
-  objectId: string;
-  objectNumber: string;
-  title: string;
-  clientId: string;
-  clientName: string;
-  location: string | null;
-  /** The latest receipt that brought the object in; null when it was recorded as in the studio without one. */
-  receipt: { id: string; date: string; fromParty: string; condition: string } | null;
-  /** The day it came in: the receipt's date, or the day the object was recorded. */
-  since: string;
-  daysInStudio: number;
-};
-
-/** A real day of the calendar, not just the YYYY-MM-DD shape (2026-02-30 is refused). */
-export function isCalendarDate(s: string): boolean {
-  if (!ISO_DATE.test(s)) return false;
-  const [y, m, d] = s.split("-").map(Number);
-  const t = new Date(Date.UTC(y, m - 1, d));
-  return t.getUTCFullYear() === y && t.getUTCMonth() === m - 1 && t.getUTCDate() === d;
-}
 
 const utcDay = (s: string) => {
   const [y, m, d] = s.split("-").map(Number);

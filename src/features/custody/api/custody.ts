@@ -1,20 +1,10 @@
 import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import type { CustodyCreate, CustodyKind, CustodyReceipt } from "@shared/schemas/custody.ts";
+import type { CustodyCreate, CustodyKind, CustodyReceipt, InStudioItem } from "@shared/schemas/custody.ts";
+
+export type { InStudioItem };
 import type { Page } from "@shared/schemas/common.ts";
 import { api, qs } from "@/lib/api-client.ts";
 
-// These mirror the server's list contract (server/features/custody/custody.service.ts) until it moves to shared/schemas/custody.ts.
-export type InStudioItem = {
-  objectId: string;
-  objectNumber: string;
-  title: string;
-  clientId: string;
-  clientName: string;
-  location: string | null;
-  receipt: { id: string; date: string; fromParty: string; condition: string } | null;
-  since: string;
-  daysInStudio: number;
-};
 export type InStudioParams = { page?: number; pageSize?: number };
 export type ReceiptListParams = { direction?: "in" | "out"; kind?: CustodyKind; from?: string; to?: string; page?: number; pageSize?: number };
 
