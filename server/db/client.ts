@@ -23,3 +23,11 @@ export function openDatabase(file: string, opts: { migrate?: boolean } = {}): Db
   if (opts.migrate !== false) migrate(db, { migrationsFolder: MIGRATIONS_DIR });
   return { db, sqlite, close: () => sqlite.close() };
 }
+
+/**
+ * Runs `fn` in one SQLite transaction. Drizzle types the transaction handle apart from the database,
+ * but it offers the same queries, so repos and appendEvent take it as a Db; this is the one place that says so.
+ */
+export function inTransaction<T>(db: Db, fn: (tx: Db) => T): T {
+  return db.transaction((t) => fn(t as unknown as Db));
+}

@@ -1,4 +1,5 @@
 import type { Db } from "../../db/client.ts";
+import { inTransaction } from "../../db/client.ts";
 import { isCalendarDate } from "../../../shared/domain/dates.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
 import {
@@ -24,7 +25,6 @@ import { appendEvent } from "../history/history.chain.ts";
 import * as repo from "./condition.repo.ts";
 
 const STALE = "Someone else changed this condition report while you were working on it. Your entries are still in the form: reload to see theirs, then try again.";
-const tx = (t: unknown) => t as Db;
 
 /** How a report's context reads in a sentence: "Condition on arrival", "Condition at a periodic check". */
 export const CONTEXT_PHRASES: Record<ConditionContext, string> = {
@@ -200,7 +200,7 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
       const o = loadObject(user, objectId);
       assertCan(user, "condition:write", { clientId: o.clientId }, { readAction: "condition:read", what: "That object" });
       const data = checkContent(user, o, body, null);
-      const id = db.transaction((t) => repo.insertDraft(tx(t), objectId, { ...body, data }, user));
+      const id = inTransaction(db, (t) => repo.insertDraft(t, objectId, { ...body, data }, user));
       return toReport(repo.findReport(db, id)!, o);
     },
 
@@ -208,7 +208,7 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
       const { row, o } = write(user, id);
       if (row.status !== "draft") throw conflict("This condition report is signed and locked; make a correction instead, with a reason.");
       const data = checkContent(user, o, body, repo.revision(db, id, 1)!.data as ConditionData);
-      const ok = db.transaction((t) => repo.updateDraft(tx(t), row, body.version, { ...body, data }));
+      const ok = inTransaction(db, (t) => repo.updateDraft(t, row, body.version, { ...body, data }));
       if (!ok) throw conflict(STALE);
       return toReport(repo.findReport(db, id)!, o);
     },
@@ -221,8 +221,7 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
       const missing = signatureFields(row.context, data);
       if (Object.keys(missing).length) throw invalid(missing);
       const now = clock();
-      const ok = db.transaction((t) => {
-        const d = tx(t);
+      const ok = inTransaction(db, (d) => {
         if (!repo.markSigned(d, row, version, now, user.id)) return false;
         // Read inside the transaction, so two reports signed at once cannot both win with stale dates.
         const fresh = findObject(d, row.objectId)!;
@@ -264,8 +263,7 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
       const changes = diffValues(before, data);
       if (changes.length === 0) throw new AppError(422, "validation_failed", "Check data: the correction changes nothing.", { data: "Change at least one entry, or cancel." });
       const now = clock();
-      const ok = db.transaction((t) => {
-        const d = tx(t);
+      const ok = inTransaction(db, (d) => {
         const n = repo.addRevision(d, row, body.version, data, body.correctionReason, user);
         if (n === null) return false;
         appendEvent(d, {
@@ -326,18 +324,18 @@ export function createTermsService(db: Db) {
     },
 
     create(t: { list: "paper" | "photograph"; term: string; caution: string | null; active: boolean }): Term {
-      const id = db.transaction((d) => {
-        if (repo.findTermByWords(tx(d), t.list, t.term)) throw duplicate(t.list, t.term);
-        return repo.insertTerm(tx(d), t);
+      const id = inTransaction(db, (d) => {
+        if (repo.findTermByWords(d, t.list, t.term)) throw duplicate(t.list, t.term);
+        return repo.insertTerm(d, t);
       });
       return toTerm(repo.findTerm(db, id)!);
     },
 
     update(id: string, t: { list: "paper" | "photograph"; term: string; caution: string | null; active: boolean; sortOrder?: number }): Term {
-      db.transaction((d) => {
-        if (!repo.findTerm(tx(d), id)) throw notFound("That term");
-        if (repo.findTermByWords(tx(d), t.list, t.term, id)) throw duplicate(t.list, t.term);
-        repo.updateTerm(tx(d), id, t);
+      inTransaction(db, (d) => {
+        if (!repo.findTerm(d, id)) throw notFound("That term");
+        if (repo.findTermByWords(d, t.list, t.term, id)) throw duplicate(t.list, t.term);
+        repo.updateTerm(d, id, t);
       });
       return toTerm(repo.findTerm(db, id)!);
     },

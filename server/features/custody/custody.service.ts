@@ -1,4 +1,5 @@
 import { format, parseISO } from "date-fns";
+import { inTransaction } from "../../db/client.ts";
 import type { Db } from "../../db/client.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
 import { CUSTODY_KIND_EFFECT, CUSTODY_KIND_LABELS, type CustodyCreate, type CustodyReceipt, type InStudioItem, type InStudioQuery, type ReceiptListQuery } from "../../../shared/schemas/custody.ts";
@@ -65,8 +66,7 @@ export function recordReceipt(db: Db, objectId: string, body: CustodyCreate, act
   const data: CustodyCreate = { ...body, condition: body.condition.replace(/\s+/g, " ") };
   const effect = CUSTODY_KIND_EFFECT[data.kind];
 
-  const id = db.transaction((tx) => {
-    const t = tx as unknown as Db;
+  const id = inTransaction(db, (t) => {
     const o = findObject(t, objectId);
     if (!o) throw notFound("That object");
     const where = OBJECT_STATUS_LABELS[o.status as ObjectStatus]?.toLowerCase() ?? o.status;

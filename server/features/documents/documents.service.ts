@@ -1,4 +1,5 @@
 import type { ReactElement } from "react";
+import { inTransaction } from "../../db/client.ts";
 import type { DocumentProps } from "@react-pdf/renderer";
 import { renderToBuffer } from "@react-pdf/renderer";
 import { randomBytes, randomUUID } from "node:crypto";
@@ -53,8 +54,7 @@ export function createDocumentsService(db: Db, clock: () => Date = () => new Dat
       };
       registerFonts();
       const pdf = await renderToBuffer(req.render(meta));
-      db.transaction((t) => {
-        const tx = t as unknown as Db;
+      inTransaction(db, (tx) => {
         tx.insert(issuedDocuments)
           .values({ id: randomUUID(), code, kind: req.kind, title: req.title, objectId: req.objectId ?? null, clientId: req.clientId ?? null, paperSize: settings.paperSize, issuedAt, issuedBy: req.user.id, issuedByName: req.user.name })
           .run();

@@ -1,4 +1,5 @@
 import fs from "node:fs";
+import { inTransaction } from "../../db/client.ts";
 import fsp from "node:fs/promises";
 import os from "node:os";
 import path from "node:path";
@@ -464,9 +465,9 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
     // One "exported" event per object in the ZIP, written once the ZIP is whole. Single CSV/JSON
     // downloads write none: one event per object for every spreadsheet download would bury the history.
     const at = clock();
-    db.transaction((tx) => {
+    inTransaction(db, (tx) => {
       for (const o of objs) {
-        appendEvent(tx as unknown as Db, {
+        appendEvent(tx, {
           objectId: o.id,
           type: "exported",
           actor: { id: user.id, name: user.name },

@@ -1,4 +1,5 @@
 import type { Db } from "../../db/client.ts";
+import { inTransaction } from "../../db/client.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
 import { MountPlanInputSchema, type CuttingListRequest, type MountPlanParsed, type SavedPlan, type SavePlan } from "../../../shared/schemas/mount-plan.ts";
 import { computePlan, cuttingList } from "../../../shared/domain/mount-plan/index.ts";
@@ -87,9 +88,9 @@ export function createMountPlansService(db: Db) {
         appendEvent(tx, { objectId, type: "plan-saved", actor: user, summary: `Draft plan saved: window ${plan.display.aperture}, outer ${plan.display.outer}.`, data: { planId } });
       const existing = repo.findDraft(db, objectId);
       if (!existing) {
-        const row = db.transaction((tx) => {
-          const row = repo.insertDraft(tx as unknown as DbT, objectId, body.input, user.id);
-          logSaved(tx as unknown as DbT, row.id);
+        const row = inTransaction(db, (tx) => {
+          const row = repo.insertDraft(tx, objectId, body.input, user.id);
+          logSaved(tx, row.id);
           return row;
         });
         return toSaved(row);
@@ -97,9 +98,9 @@ export function createMountPlansService(db: Db) {
       if (body.version === undefined || body.version !== existing.version) {
         throw conflict("Someone else saved this plan while you were working on it. Your plan is still on screen: reload to see theirs, then save again.");
       }
-      const updated = db.transaction((tx) => {
-        const row = repo.updateDraft(tx as unknown as DbT, existing.id, existing.version, body.input, user.id);
-        if (row) logSaved(tx as unknown as DbT, row.id);
+      const updated = inTransaction(db, (tx) => {
+        const row = repo.updateDraft(tx, existing.id, existing.version, body.input, user.id);
+        if (row) logSaved(tx, row.id);
         return row;
       });
       if (!updated) throw conflict("Someone else saved this plan while you were working on it. Your plan is still on screen: reload to see theirs, then save again.");

@@ -1,4 +1,6 @@
 import type { Db } from "../../db/client.ts";
+import { can } from "../../../shared/permissions.ts";
+import { inTransaction } from "../../db/client.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
 import {
   MountingDataSchema,
@@ -21,7 +23,6 @@ import { appendEvent } from "../history/history.chain.ts";
 import * as repo from "./mountings.repo.ts";
 
 const STALE = "Someone else changed this mounting record while you were working on it. Your entries are still in the form: reload to see theirs, then try again.";
-const tx = (t: unknown) => t as Db;
 
 export function createMountingsService(db: Db) {
   /** Recomputes a revision's plan from its saved input with its materials; a record is never shown from stored numbers. */
@@ -81,7 +82,7 @@ export function createMountingsService(db: Db) {
   function write(user: SessionUser, id: string) {
     const l = load(user, id);
     // A draft is invisible to those who may not write it (GET answers 404), so a write must not reveal it either.
-    if (l.row.status === "draft" && !assertCanWrite(user, l.o)) throw notFound("That mounting record");
+    if (l.row.status === "draft" && !canWrite(user, l.o)) throw notFound("That mounting record");
     assertCan(user, "mounting:write", { clientId: l.o.clientId }, { readAction: "mounting:read", what: "That mounting record" });
     return l;
   }
@@ -92,19 +93,19 @@ export function createMountingsService(db: Db) {
       const rows = repo.mountingsOfObject(db, objectId);
       const revs = repo.currentRevisions(db, rows);
       // Drafts are studio work in progress: the owner sees records once they are completed.
-      const visible = rows.filter((r) => r.status !== "draft" || assertCanWrite(user, o));
+      const visible = rows.filter((r) => r.status !== "draft" || canWrite(user, o));
       return visible.map((r) => toRecord(r, o, revs.get(r.id)));
     },
 
     get(user: SessionUser, id: string): MountingRecord {
       const { row, o } = load(user, id);
-      if (row.status === "draft" && !assertCanWrite(user, o)) throw notFound("That mounting record");
+      if (row.status === "draft" && !canWrite(user, o)) throw notFound("That mounting record");
       return toRecord(row, o);
     },
 
     revisions(user: SessionUser, id: string): (MountingRevision & { changes: Change[] })[] {
       const { row, o } = load(user, id);
-      if (row.status === "draft" && !assertCanWrite(user, o)) throw notFound("That mounting record");
+      if (row.status === "draft" && !canWrite(user, o)) throw notFound("That mounting record");
       const revs = repo.revisionsOf(db, id).map(toRevision);
       return revs.map((r, i) => ({ ...r, changes: i === 0 ? [] : diffValues(revs[i - 1].data, r.data) }));
     },
@@ -113,7 +114,7 @@ export function createMountingsService(db: Db) {
       const o = loadObject(user, objectId);
       assertCan(user, "mounting:write", { clientId: o.clientId }, { readAction: "mounting:read", what: "That object" });
       planFor(body.data);
-      const id = db.transaction((t) => repo.insertDraft(tx(t), objectId, body, user));
+      const id = inTransaction(db, (t) => repo.insertDraft(t, objectId, body, user));
       return toRecord(repo.findMounting(db, id)!, o);
     },
 
@@ -121,7 +122,7 @@ export function createMountingsService(db: Db) {
       const { row, o } = write(user, id);
       if (row.status !== "draft") throw conflict("This mounting record is completed and locked; make a correction instead, with a reason.");
       planFor(body.data);
-      const ok = db.transaction((t) => repo.updateDraft(tx(t), row, body.version, body));
+      const ok = inTransaction(db, (t) => repo.updateDraft(t, row, body.version, body));
       if (!ok) throw conflict(STALE);
       return toRecord(repo.findMounting(db, id)!, o);
     },
@@ -132,8 +133,7 @@ export function createMountingsService(db: Db) {
       const rev = repo.revision(db, id, row.currentRevision)!;
       const data = MountingDataSchema.parse(rev.data);
       const plan = planFor(data);
-      const ok = db.transaction((t) => {
-        const d = tx(t);
+      const ok = inTransaction(db, (d) => {
         const previous = repo.currentCompleted(d, row.objectId, row.id);
         // A mounting dated before the current one is an earlier mounting recorded afterwards: it goes into
         // the history as already superseded, and the current mount stays as it is.
@@ -175,8 +175,7 @@ export function createMountingsService(db: Db) {
       planFor(body.data);
       const changes = diffValues(before, body.data);
       if (changes.length === 0) throw new AppError(422, "validation_failed", "Check data: the correction changes nothing.", { data: "Change at least one entry, or cancel." });
-      const ok = db.transaction((t) => {
-        const d = tx(t);
+      const ok = inTransaction(db, (d) => {
         const n = repo.addRevision(d, row, body.version, body.data, body.correctionReason, user);
         if (n === null) return false;
         if (row.status === "completed") repo.setObjectCurrentMount(d, row.objectId, { id: row.id, data: body.data, mountedOn: row.mountedOn });
@@ -196,8 +195,7 @@ export function createMountingsService(db: Db) {
     remove(user: SessionUser, id: string, body: { version: number; endedOn: string; endReason: string }): MountingRecord {
       const { row, o } = write(user, id);
       if (row.status !== "completed") throw conflict("Only the current mounting can be marked as taken out.");
-      const ok = db.transaction((t) => {
-        const d = tx(t);
+      const ok = inTransaction(db, (d) => {
         if (!repo.setStatus(d, row, body.version, { status: "removed", endedOn: body.endedOn, endReason: body.endReason })) return false;
         repo.setObjectCurrentMount(d, row.objectId, null);
         appendEvent(d, { objectId: row.objectId, type: "mounting-removed", actor: user, summary: `Taken out of the mount of ${row.mountedOn}: ${body.endReason}`, data: { mountingId: row.id } });
@@ -209,11 +207,6 @@ export function createMountingsService(db: Db) {
   };
 }
 
-function assertCanWrite(user: SessionUser, o: ObjectRow): boolean {
-  try {
-    assertCan(user, "mounting:write", { clientId: o.clientId });
-    return true;
-  } catch {
-    return false;
-  }
+function canWrite(user: SessionUser, o: ObjectRow): boolean {
+  return can(user, "mounting:write", { clientId: o.clientId });
 }

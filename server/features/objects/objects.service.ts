@@ -1,4 +1,5 @@
 import type { Db } from "../../db/client.ts";
+import { inTransaction } from "../../db/client.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
 import type { ObjectCreate, ObjectListQuery, ObjectRecord, ObjectUpdate } from "../../../shared/schemas/objects.ts";
 import { can, clientScope } from "../../../shared/permissions.ts";
@@ -93,11 +94,11 @@ export function createObjectsService(db: Db) {
       requireClient(db, data.clientId);
       if (repo.findObjectIdByNumber(db, data.objectNumber)) throw duplicateNumber(data.objectNumber);
       try {
-        const id = db.transaction((tx) => {
-          const id = repo.insertObject(tx as unknown as Db, data, user.id);
-          appendEvent(tx as unknown as Db, { objectId: id, type: "created", actor: user, summary: `Recorded as ${data.objectNumber}, “${data.title}”.`, data: { objectNumber: data.objectNumber } });
+        const id = inTransaction(db, (tx) => {
+          const id = repo.insertObject(tx, data, user.id);
+          appendEvent(tx, { objectId: id, type: "created", actor: user, summary: `Recorded as ${data.objectNumber}, “${data.title}”.`, data: { objectNumber: data.objectNumber } });
           if (data.valuationMinor !== null) {
-            appendEvent(tx as unknown as Db, { objectId: id, type: "valued", actor: user, summary: "Insured value recorded.", data: { valuation: true } });
+            appendEvent(tx, { objectId: id, type: "valued", actor: user, summary: "Insured value recorded.", data: { valuation: true } });
           }
           return id;
         });
@@ -126,12 +127,12 @@ export function createObjectsService(db: Db) {
       const before: Record<string, unknown> = {};
       for (const k of Object.keys(patch) as (keyof ObjectCreate)[]) before[k] = current[k as keyof repo.ObjectRow];
       const changed = diffValues(before, patch);
-      const ok = db.transaction((tx) => {
-        if (!repo.updateObject(tx as unknown as Db, id, version, patch)) return false;
+      const ok = inTransaction(db, (tx) => {
+        if (!repo.updateObject(tx, id, version, patch)) return false;
         const valuationChanges = changed.filter((c) => (VALUATION_KEYS as readonly string[]).includes(c.path.split(".")[0]));
         const catalogueChanges = changed.filter((c) => !valuationChanges.includes(c));
         if (catalogueChanges.length) {
-          appendEvent(tx as unknown as Db, {
+          appendEvent(tx, {
             objectId: id,
             type: "catalogue-changed",
             actor: user,
@@ -141,7 +142,7 @@ export function createObjectsService(db: Db) {
         }
         // The history keeps that the valuation changed, never the amounts: the log is shown to more people than may see values.
         if (valuationChanges.length) {
-          appendEvent(tx as unknown as Db, { objectId: id, type: "valued", actor: user, summary: "Valuation updated.", data: { fields: valuationChanges.map((c) => c.path) } });
+          appendEvent(tx, { objectId: id, type: "valued", actor: user, summary: "Valuation updated.", data: { fields: valuationChanges.map((c) => c.path) } });
         }
         return true;
       });
