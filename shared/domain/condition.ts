@@ -1,3 +1,4 @@
+import { lightGuidance as guidanceFor } from "./light.ts";
 import type { ConditionData, Finding, FindingSeverity, Rating } from "../schemas/condition.ts";
 import { RATINGS, SEVERITIES, SEVERITY_CAP } from "../schemas/condition.ts";
 
@@ -34,21 +35,9 @@ export function compareFindings(earlier: ConditionData, later: ConditionData): C
   return out;
 }
 
-/**
- * Light and display guidance for the object's sensitivity (NISO Z39.79, as summarised by NEDCC
- * Preservation 101; CIE 157:2004 as quoted for the annual budget — verify). Guidance, never a guarantee.
- */
+/** Light and display guidance for the object's catalogue: see shared/domain/light.ts (docs/trade-reference.md §7). */
 export function lightGuidance(sensitivities: string[], objectType?: string, photoProcess?: string | null): string {
-  const very = sensitivities.includes("light-sensitive") || objectType === "watercolour" || objectType === "pastel" || (objectType === "photograph" && photoProcess !== "gelatin-silver");
-  const lines = very
-    ? [
-        "Very sensitive to light: display at 50 lux or less, for no more than 12 weeks at a time and 52 weeks in all, then rest it in the dark.",
-        "An annual budget of about 150,000 lux·hours at 50 lux is often used for works on paper (CIE 157:2004 as quoted).",
-      ]
-    : ["Moderately sensitive to light: display at 100 lux or less and limit the time on display."];
-  lines.push("UV from the light source at most 75 µW/lm; keep relative humidity at 35–50 % (± 5 %).");
-  lines.push("This is guidance from published standards, not a guarantee; a conservator can advise on a particular object.");
-  return lines.join(" ");
+  return guidanceFor({ sensitivities, objectType, photoProcess });
 }
 
 /** When the next condition check falls due: the studio interval after the last check (or mounting), sooner on loan. */

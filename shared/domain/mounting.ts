@@ -1,5 +1,7 @@
-import type { MountPlan, MountPlanParsed } from "../schemas/mount-plan.ts";
+import type { MountPlan, MountPlanParsed, PlanObject } from "../schemas/mount-plan.ts";
 import { MountPlanInputSchema } from "../schemas/mount-plan.ts";
+import { computePlan, type PlanResult } from "./mount-plan/compute.ts";
+import type { Unit } from "./units.ts";
 import type { Board, MountingData } from "../schemas/mountings.ts";
 import { BOARD_GRADE_LABELS, GLAZING_TYPE_LABELS } from "../schemas/mountings.ts";
 
@@ -19,11 +21,68 @@ const METHOD_WORDS: Record<string, [string, string]> = {
   "pressure-sensitive-tape": ["pressure-sensitive tape", "pressure-sensitive tape"],
 };
 
+/** What the checks need of an object's catalogue record (objects table / ObjectRecord). */
+export type CatalogueFacts = {
+  objectType: string;
+  photoProcess?: string | null;
+  sensitivities?: readonly string[] | null;
+  medium?: string | null;
+  support?: string | null;
+  borderLeftMm?: number | null;
+  borderTopMm?: number | null;
+  borderRightMm?: number | null;
+  borderBottomMm?: number | null;
+};
+
+/** A paper weight written in the support ("cotton rag, 300 g/m²", "250gsm"), in g/m²; null when none is given. */
+export function paperWeightOf(support: string | null | undefined): number | null {
+  const m = (support ?? "").match(/(\d{2,4}(?:[.,]\d+)?)\s*(?:g\s*\/\s*m(?:²|2)|gsm)\b|(\d{2,4}(?:[.,]\d+)?)\s*(?:g\s*\/\s*m(?:²|2))/i);
+  const v = m ? Number((m[1] ?? m[2]).replace(",", ".")) : NaN;
+  return Number.isFinite(v) && v > 0 && v <= 2000 ? v : null;
+}
+
+/** The catalogue as the plan's `object`: the checks for photographs, friable media, light and hinges read it. */
+export function planObjectOf(o: CatalogueFacts): PlanObject {
+  return {
+    objectType: o.objectType as PlanObject["objectType"],
+    photoProcess: (o.objectType === "photograph" ? (o.photoProcess ?? null) : null) as PlanObject["photoProcess"],
+    sensitivities: [...(o.sensitivities ?? [])] as PlanObject["sensitivities"],
+    medium: o.medium ?? null,
+    paperWeightGsm: paperWeightOf(o.support),
+  };
+}
+
 /**
- * The plan input of a mounting record with the record's materials filled in, so the plan's
- * conservation checks also cover the boards, attachment and glazing actually chosen.
+ * The plan input of a mounting record: its saved plan, the object's catalogue (so the checks for
+ * photographs, friable media and light see the whole object), the sheet's own borders when the
+ * plan has none, and the record's materials (so the checks cover the boards, attachment and
+ * glazing actually chosen). Every screen, document and export that shows a record's plan uses this.
  */
-export function planInputFor(data: MountingData): MountPlanParsed {
+export function recordPlanInput(data: MountingData, catalogue: CatalogueFacts): MountPlanParsed {
+  const p = planInputFor(data);
+  p.object = planObjectOf(catalogue);
+  const b = [catalogue.borderLeftMm, catalogue.borderTopMm, catalogue.borderRightMm, catalogue.borderBottomMm];
+  if (!p.imageBorders && b.every((v) => typeof v === "number") && b.some((v) => (v as number) > 0)) {
+    p.imageBorders = { left: `${b[0]} mm`, top: `${b[1]} mm`, right: `${b[2]} mm`, bottom: `${b[3]} mm` };
+  }
+  return p;
+}
+
+export type PlanSettings = { minOverlapMm: number; rebateClearanceMm: number; unit: Unit };
+
+/** A mounting record's plan, recomputed from what was saved and the catalogue, shown in the studio's unit. */
+export function recordPlan(data: MountingData, catalogue: CatalogueFacts, settings: PlanSettings): PlanResult {
+  return computePlan(recordPlanInput(data, catalogue), { minOverlapMm: settings.minOverlapMm, rebateClearanceMm: settings.rebateClearanceMm, displayUnit: settings.unit });
+}
+
+/** A draft plan saved on an object, recomputed with the object's catalogue in place of whatever the planner was told. */
+export function draftPlan(input: MountPlanParsed, catalogue: CatalogueFacts, settings: PlanSettings): PlanResult {
+  const p: MountPlanParsed = { ...structuredClone(input), object: planObjectOf(catalogue) };
+  return computePlan(p, { minOverlapMm: settings.minOverlapMm, rebateClearanceMm: settings.rebateClearanceMm, displayUnit: settings.unit });
+}
+
+/** The record's own plan with its materials filled in (no catalogue): use recordPlanInput. */
+function planInputFor(data: MountingData): MountPlanParsed {
   const p: MountPlanParsed = structuredClone(data.plan);
   const wb = data.boards.window;
   const hinges = data.attachment.hinges;

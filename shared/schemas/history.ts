@@ -44,8 +44,12 @@ export const HistoryQuerySchema = z.object({
     .optional()
     .transform((v) => (v ? v.split(",").filter(Boolean) : []))
     .pipe(z.array(z.enum(EVENT_TYPES, { message: "Unknown event type." }))),
-  /** Return events older than this sequence number (for paging back through time). */
-  before: z.coerce.number().int().min(1).optional(),
+  /** The cursor from the previous page ("YYYY-MM-DD:seq"): events that come after it, newest first. */
+  before: z
+    .string()
+    .regex(/^\d{4}-\d{2}-\d{2}:\d{1,12}$/, { message: "Use the nextBefore value of the previous page." })
+    .transform((v) => [v.slice(0, 10), Number(v.slice(11))] as const)
+    .optional(),
   limit: z.coerce.number().int().min(1).max(200).default(50),
 });
 export type HistoryQuery = z.infer<typeof HistoryQuerySchema>;
@@ -54,7 +58,10 @@ export type HistoryEvent = {
   seq: number;
   objectId: string;
   type: EventType;
+  /** When the event was entered. */
   at: string;
+  /** The day the thing happened (ISO date): the timeline orders and shows by this. */
+  occurredOn: string;
   actorName: string;
   summary: string;
   /** What changed: for edits, `{ changes: [{ path, before, after }] }`; otherwise the ids involved. */

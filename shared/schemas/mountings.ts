@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { ADHESIVES, ATTACHMENT_METHODS, MountPlanInputSchema, SIDES, type MountPlan } from "./mount-plan.ts";
 import { optionalText, requiredText } from "./common.ts";
+import type { CatalogueFacts } from "../domain/mounting.ts";
 
 export const MOUNTING_REASONS = [
   "first-mounting",
@@ -152,8 +153,10 @@ export type MountingRevision = {
   correctionReason: string | null;
   createdAt: string;
   createdByName: string | null;
-  /** The plan recomputed from this revision's saved input, with the materials' checks. */
+  /** The plan recomputed from this revision's saved input, the object's catalogue and the materials' checks (recordPlan). */
   plan: MountPlan;
+  /** The object's catalogue facts the plan was computed with, so a screen recomputes the same plan. */
+  catalogue: CatalogueFacts;
 };
 
 export type MountingRecord = {

@@ -77,7 +77,7 @@ export const VALUATION_BASIS_LABELS: Record<(typeof VALUATION_BASES)[number], st
 export type ObjectType = (typeof OBJECT_TYPES)[number];
 export type ObjectStatus = (typeof OBJECT_STATUSES)[number];
 
-const mm = (label: string, max = 5000) =>
+const mm = (label: string, max = 3000) =>
   z
     .number({ message: `${label}: enter a length.` })
     .positive({ message: `${label} must be greater than 0.` })
@@ -87,7 +87,7 @@ const borderMm = (label: string) =>
   z
     .number({ message: `${label}: enter a length.` })
     .min(0, { message: `${label} cannot be negative.` })
-    .max(2000, { message: `${label} must be at most 2000 mm.` })
+    .max(1500, { message: `${label} must be at most 1,500 mm.` })
     .nullable()
     .optional()
     .transform((v) => v ?? null);

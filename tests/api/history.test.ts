@@ -59,7 +59,7 @@ async function mount(objectId: string, data: MountingDataInput, reason: string, 
   if (c.status !== 200) throw new Error(`Complete answered ${c.status}: ${JSON.stringify(c.body)}`);
   return c.body;
 }
-const history = async (agent: Agent, objectId: string, query = ""): Promise<{ items: HistoryEvent[]; nextBefore: number | null }> => {
+const history = async (agent: Agent, objectId: string, query = ""): Promise<{ items: HistoryEvent[]; nextBefore: string | null }> => {
   const res = await agent.get(`/api/objects/${objectId}/history${query}`);
   if (res.status !== 200) throw new Error(`History answered ${res.status}: ${JSON.stringify(res.body)}`);
   return res.body;
@@ -104,11 +104,25 @@ describe("the events each action writes", () => {
     return found[0];
   };
 
-  it("when the journey is read back, then every action is there, newest first", () => {
-    expect(items.map((e) => e.type)).toEqual(["mounting-removed", "mounting-corrected", "reframed", "mounted", "plan-saved", "valued", "catalogue-changed", "created"]);
-    const seqs = items.map((e) => e.seq);
-    expect(seqs).toEqual([...seqs].sort((a, b) => b - a));
+  it("when the journey is read back, then every action is there, newest first by the day it happened, then by entry", () => {
+    expect([...items.map((e) => e.type)].sort()).toEqual(["catalogue-changed", "created", "mounted", "mounting-corrected", "mounting-removed", "plan-saved", "reframed", "valued"]);
+    const keys = items.map((e) => `${e.occurredOn}:${String(e.seq).padStart(9, "0")}`);
+    expect(keys).toEqual([...keys].sort().reverse());
     for (const e of items) expect(e.objectId).toBe(obj.id);
+  });
+
+  it("when a thing happened on another day than it was entered, then the event carries that day and when it was entered", () => {
+    // Mounted on 2026-03-02, reframed on 2027-05-10, taken out on 2028-01-10, valued on 2026-02-01: all entered today.
+    expect(one("mounted").occurredOn).toBe("2026-03-02");
+    expect(one("reframed").occurredOn).toBe("2027-05-10");
+    expect(one("mounting-removed").occurredOn).toBe("2028-01-10");
+    expect(one("valued").occurredOn).toBe("2026-02-01");
+    // A correction or a catalogue edit happens when it is entered.
+    expect(one("mounting-corrected").occurredOn).toBe(one("mounting-corrected").at.slice(0, 10));
+    const mounted = items.findIndex((e) => e.type === "mounted");
+    const reframed = items.findIndex((e) => e.type === "reframed");
+    expect(reframed).toBeLessThan(mounted);
+    expect(items.findIndex((e) => e.type === "valued")).toBeGreaterThan(mounted);
   });
 
   it("when an object is recorded, then a created event names its number and who recorded it", () => {
@@ -216,11 +230,12 @@ describe("reading the history", () => {
   it("when paging with limit and before, then the pages join up to the whole history without gaps or repeats", async () => {
     const all = (await history(as.framer, obj.id)).items;
     const pages: HistoryEvent[][] = [];
-    let before: number | null = null;
+    let before: string | null = null;
     do {
-      const page: { items: HistoryEvent[]; nextBefore: number | null } = await history(as.framer, obj.id, `?limit=3${before ? `&before=${before}` : ""}`);
+      const page: { items: HistoryEvent[]; nextBefore: string | null } = await history(as.framer, obj.id, `?limit=3${before ? `&before=${before}` : ""}`);
       expect(page.items.length).toBeLessThanOrEqual(3);
-      if (page.nextBefore !== null) expect(page.nextBefore).toBe(page.items[page.items.length - 1].seq);
+      const last = page.items[page.items.length - 1];
+      if (page.nextBefore !== null) expect(page.nextBefore).toBe(`${last.occurredOn}:${last.seq}`);
       pages.push(page.items);
       before = page.nextBefore;
     } while (before !== null && pages.length < 10);
@@ -256,7 +271,7 @@ describe("the hash chain", () => {
     let prev: string | null = null;
     for (const r of rows) {
       expect(r.prevHash, `event ${r.seq}`).toBe(prev);
-      const content = { objectId: r.objectId, type: r.type, at: r.at.getTime(), actorId: r.actorId, actorName: r.actorName, summary: r.summary, data: r.data, prevHash: r.prevHash };
+      const content = { objectId: r.objectId, type: r.type, at: r.at.getTime(), actorId: r.actorId, actorName: r.actorName, summary: r.summary, data: r.data, prevHash: r.prevHash, occurredOn: r.occurredOn ?? undefined };
       // Recomputed by hand as well as through eventHash, so a change to eventHash cannot hide a break.
       const byHand = createHash("sha256").update(canonicalJson(content)).digest("hex");
       expect(r.hash, `event ${r.seq}`).toBe(byHand);
@@ -268,9 +283,9 @@ describe("the hash chain", () => {
 
   it("when any part of an event's content or its link changes, then its hash changes", () => {
     const r = rowsOf(t, obj.id)[1];
-    const content = { objectId: r.objectId, type: r.type, at: r.at.getTime(), actorId: r.actorId, actorName: r.actorName, summary: r.summary, data: r.data, prevHash: r.prevHash };
+    const content = { objectId: r.objectId, type: r.type, at: r.at.getTime(), actorId: r.actorId, actorName: r.actorName, summary: r.summary, data: r.data, prevHash: r.prevHash, occurredOn: r.occurredOn ?? undefined };
     const h = eventHash(content);
-    for (const over of [{ summary: `${r.summary} ` }, { at: content.at + 1 }, { prevHash: "0".repeat(64) }, { actorName: "Someone else" }, { data: { ...(r.data as object), extra: 1 } }, { type: "created" }]) {
+    for (const over of [{ summary: `${r.summary} ` }, { at: content.at + 1 }, { prevHash: "0".repeat(64) }, { actorName: "Someone else" }, { data: { ...(r.data as object), extra: 1 } }, { type: "created" }, { occurredOn: "1999-01-01" }]) {
       expect(eventHash({ ...content, ...over }), JSON.stringify(over)).not.toBe(h);
     }
   });

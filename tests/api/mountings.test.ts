@@ -351,16 +351,38 @@ describe("the plan's checks cover the record's materials", () => {
     expect(check(res, "reversible-attachment").verdict).toBe("fail");
   });
 
-  it("when a pastel goes under acrylic, then the friable-glazing check fails (State Archives of Florida)", async () => {
-    const res = await as.framer.post(`/api/objects/${objectId}/mountings`).send(createBody(with_({ plan: { ...DATA.plan, object: { objectType: "pastel" } }, glazing: { type: "uv-acrylic", thicknessMm: 3 } })));
+  // The catalogue is the object's record, not what a plan says of it: each of these objects is catalogued so.
+  const catalogued = (over: Parameters<typeof makeObject>[2]) => makeObject(t.db, studio.institution.id, over);
+
+  it("when a catalogued pastel goes under acrylic, then the friable-glazing check fails (State Archives of Florida)", async () => {
+    const pastel = catalogued({ objectType: "pastel" });
+    const res = await as.framer.post(`/api/objects/${pastel}/mountings`).send(createBody(with_({ glazing: { type: "uv-acrylic", thicknessMm: 3 } })));
     expect(res.status).toBe(201);
     expect(check(res, "friable-glazing").verdict).toBe("fail");
   });
 
+  it("when a drawing's medium is charcoal, then it counts as friable media and acrylic fails (State Archives of Florida)", async () => {
+    const charcoal = catalogued({ objectType: "drawing", medium: "Charcoal and white chalk on laid paper" });
+    const res = await as.framer.post(`/api/objects/${charcoal}/mountings`).send(createBody(with_({ glazing: { type: "uv-acrylic", thicknessMm: 3 } })));
+    expect(check(res, "friable-glazing").verdict).toBe("fail");
+  });
+
   it("when the same pastel goes under UV glass, then the friable-glazing check does not fail", async () => {
-    const res = await as.framer.post(`/api/objects/${objectId}/mountings`).send(createBody(with_({ plan: { ...DATA.plan, object: { objectType: "pastel" } } })));
+    const pastel = catalogued({ objectType: "pastel" });
+    const res = await as.framer.post(`/api/objects/${pastel}/mountings`).send(createBody(DATA));
     expect(res.status).toBe(201);
     expect(check(res, "friable-glazing").verdict).not.toBe("fail");
+  });
+
+  it("when the plan claims another object type than the catalogue, then the catalogue's is the one checked", async () => {
+    const photo = catalogued({ objectType: "photograph", photoProcess: "cyanotype" });
+    const res = await as.framer
+      .post(`/api/objects/${photo}/mountings`)
+      .send(createBody(with_({ plan: { ...DATA.plan, object: { objectType: "print" } }, boards: { ...DATA.boards, window: { grade: "museum", buffered: true, ply: 4, patPassed: true } } })));
+    expect(res.status).toBe(201);
+    expect(check(res, "photo-board").verdict).toBe("fail");
+    expect(check(res, "photo-board").reason).not.toContain("does not apply");
+    expect(res.body.current.catalogue).toMatchObject({ objectType: "photograph", photoProcess: "cyanotype" });
   });
 
   it("when a floated sheet is held with T-hinges, then the hinge-placement check fails", async () => {
@@ -376,17 +398,34 @@ describe("the plan's checks cover the record's materials", () => {
   });
 
   it("when a light-sensitive object has plain float glass, then the uv-glazing check fails (NEDCC leaflet 4.10)", async () => {
-    const res = await as.framer.post(`/api/objects/${objectId}/mountings`).send(createBody(with_({ plan: { ...DATA.plan, object: { sensitivities: ["light-sensitive"] } }, glazing: { type: "float-glass", thicknessMm: 2 } })));
+    const light = catalogued({ sensitivities: ["light-sensitive"] });
+    const res = await as.framer.post(`/api/objects/${light}/mountings`).send(createBody(with_({ glazing: { type: "float-glass", thicknessMm: 2 } })));
     expect(res.status).toBe(201);
     expect(check(res, "uv-glazing").verdict).toBe("fail");
   });
 
-  it("when a cyanotype sits on buffered board, then the photo-board check fails (research consensus, via CCAHA)", async () => {
-    const res = await as.framer.post(`/api/objects/${objectId}/mountings`).send(
-      createBody(with_({ plan: { ...DATA.plan, object: { objectType: "photograph", photoProcess: "cyanotype" } }, boards: { ...DATA.boards, window: { grade: "museum", buffered: true, ply: 4, patPassed: true } } })),
-    );
+  it("when a watercolour with no flag has plain float glass, then the uv-glazing check fails too (very sensitive by the light guidance)", async () => {
+    // Watercolours are very sensitive (NISO Z39.79 via NEDCC; docs/trade-reference.md §7); UV filtering for them: NEDCC 4.10.
+    const wc = catalogued({ objectType: "watercolour", sensitivities: [] });
+    const res = await as.framer.post(`/api/objects/${wc}/mountings`).send(createBody(with_({ glazing: { type: "float-glass", thicknessMm: 2 } })));
+    expect(check(res, "uv-glazing").verdict).toBe("fail");
+  });
+
+  it("when a catalogued cyanotype sits on buffered board, then the photo-board check fails (research consensus, via CCAHA)", async () => {
+    const cyan = catalogued({ objectType: "photograph", photoProcess: "cyanotype" });
+    const res = await as.framer.post(`/api/objects/${cyan}/mountings`).send(createBody(with_({ boards: { ...DATA.boards, window: { grade: "museum", buffered: true, ply: 4, patPassed: true } } })));
     expect(res.status).toBe(201);
     expect(check(res, "photo-board").verdict).toBe("fail");
+  });
+
+  it("when the plan cannot be built (the sheet past the outer edge), then the draft is kept but completing it is refused naming the field", async () => {
+    // 210 mm sheet, 5 mm overlap, 3 mm borders: the sheet reaches 2 mm past the boards on every side.
+    const d = await draftOn(objectId, with_({ plan: { ...DATA.plan, borders: { all: 3 }, frame: { rebateLip: 1 } } }));
+    expect(d.current.plan.findings.filter((f) => f.code === "sheet-past-outer").map((f) => f.side)).toEqual(["left", "top", "right", "bottom"]);
+    const res = await as.framer.post(`/api/mountings/${d.id}/complete`).send({ version: d.version });
+    expect(res.status).toBe(422);
+    expect(Object.keys(expectErrorShape(res.body, "validation_failed").fields!)).toContain("data.plan.borders.all");
+    expect(mountingRow(d.id)!.status).toBe("draft");
   });
 });
 

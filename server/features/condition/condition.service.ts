@@ -234,6 +234,7 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
           type: "condition-reported",
           actor: user,
           at: now,
+          occurredOn: row.reportDate,
           summary: conditionSummary(row.context, row.examinerName, data),
           data: {
             reportId: row.id,

@@ -94,6 +94,7 @@ export function recordReceipt(db: Db, objectId: string, body: CustodyCreate, act
       type: eventType(data.kind),
       actor,
       at: now,
+      occurredOn: data.date,
       summary:
         `${CUSTODY_KIND_LABELS[data.kind]} on ${readable(data.date)}: from ${data.fromParty} to ${data.toParty}. ` +
         `Condition ${conditionWord}: ${sentence(data.condition)}. Signed by ${data.signedBy}.`,

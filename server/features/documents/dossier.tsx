@@ -19,9 +19,9 @@ import {
 } from "../../../shared/schemas/mountings.ts";
 import { MountPlanInputSchema, SIDES, type MountPlan } from "../../../shared/schemas/mount-plan.ts";
 import { CONDITION_CONTEXT_LABELS, type ConditionReport } from "../../../shared/schemas/condition.ts";
-import { computePlan, planDrawing, type DrawingModel, type PlanGeometry } from "../../../shared/domain/mount-plan/index.ts";
-import { mountSummary, planInputFor } from "../../../shared/domain/mounting.ts";
-import { formatLength, formatSize, type Unit } from "../../../shared/domain/units.ts";
+import { lengthText, planDrawing, type DrawingModel, type PlanGeometry } from "../../../shared/domain/mount-plan/index.ts";
+import { draftPlan, mountSummary, recordPlan, type CatalogueFacts, type PlanSettings } from "../../../shared/domain/mounting.ts";
+import { formatSize } from "../../../shared/domain/units.ts";
 import { vocab } from "../../../shared/schemas/settings.ts";
 import { DocShell } from "../../lib/pdf/layout.tsx";
 import { PdfPlanDrawing } from "../../lib/pdf/plan-drawing.tsx";
@@ -49,12 +49,12 @@ const boardLine = (b: Board) => [BOARD_GRADE_LABELS[b.grade], `${b.ply}-ply`, b.
 
 type PlanView = { plan: MountPlan; geometry: PlanGeometry; model: DrawingModel; data: MountingData | null };
 
-/** The plan recomputed from its saved input, exactly as the screen does (mounting-view.tsx), labelled in the studio's unit. */
-function planView(input: unknown, data: MountingData | null, ctx: { minOverlapMm: number; rebateClearanceMm: number }, unit: Unit): PlanView | null {
-  const r = computePlan(data ? planInputFor(data) : MountPlanInputSchema.parse(input), ctx);
+/** The plan recomputed from its saved input and the catalogue, exactly as the screen does (mounting-view.tsx), in the studio's unit. */
+function planView(input: unknown, data: MountingData | null, catalogue: CatalogueFacts, settings: PlanSettings): PlanView | null {
+  const r = data ? recordPlan(data, catalogue, settings) : draftPlan(MountPlanInputSchema.parse(input), catalogue, settings);
   if (!r.ok) return null;
   const hinges = data ? data.attachment.hinges.map((h) => ({ edge: h.edge, offset: h.offsetMm, width: h.widthMm })) : [];
-  return { plan: r.plan, geometry: r.geometry, data, model: planDrawing(r.geometry, { length: (mm) => formatLength(mm, unit, { denominator: 16 }) }, hinges) };
+  return { plan: r.plan, geometry: r.geometry, data, model: planDrawing(r.geometry, hinges) };
 }
 
 export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, clock: () => Date, user: SessionUser, objectId: string) {
@@ -64,14 +64,14 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
   const settings = getSettings(db);
   const unit = settings.unit;
   const w = vocab(settings.vocabulary);
-  const ctx = { minOverlapMm: settings.minOverlapMm, rebateClearanceMm: settings.rebateClearanceMm };
-  const len = (mm: number, rounding: "nearest" | "down" | "up" = "nearest") => formatLength(mm, unit, { denominator: 16, rounding });
-  const size = (b: { width: number; height: number }, rounding: "nearest" | "down" | "up" = "nearest") => formatSize(b.width, b.height, unit, { denominator: 16, rounding });
+  // Lengths outside the plan's figures (the sheet as catalogued, hinge positions, thicknesses) on the same grid.
+  const len = (mm: number) => lengthText(mm, unit);
+  const size = (b: { width: number; height: number }) => formatSize(b.width, b.height, unit, { denominator: 64 });
 
   const mountings = orNothing(() => createMountingsService(db).listForObject(user, objectId), [] as MountingRecord[]);
   const current = mountings.find((m) => m.status === "completed") ?? null;
   const draft = current ? null : orNothing(() => createMountPlansService(db).getDraft(user, objectId), null);
-  const view = current ? planView(null, current.current.data, ctx, unit) : draft ? planView(draft.input, null, ctx, unit) : null;
+  const view = current ? planView(null, current.current.data, object, settings) : draft ? planView(draft.input, null, object, settings) : null;
 
   const reports = orNothing(() => createConditionService(db, clock).listForObject(user, objectId), [] as ConditionReport[]);
   const latest = reports.filter((r) => r.status === "signed").sort((a, b) => (`${a.reportDate}|${a.signedAt}` < `${b.reportDate}|${b.signedAt}` ? 1 : -1))[0] ?? null;
@@ -105,7 +105,7 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
         <Text style={[s.small, { marginBottom: 6 }]}>{[object.objectNumber, object.maker, object.dateMade].filter(Boolean).join(" · ")}</Text>
         {current && view ? (
           <Text style={[para, { color: ACCENT }]}>
-            Current {w.mount}: {mountSummary(current.current.data, { display: { aperture: size(view.geometry.aperture, "down") } })}.
+            Current {w.mount}: {mountSummary(current.current.data, view.plan)}.
           </Text>
         ) : null}
 
@@ -147,13 +147,13 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
               <Text style={[s.small, { marginTop: 3 }]}>{`Front view; dimensions in ${unit === "in" ? "inches" : "mm"}${d && d.attachment.hinges.length ? "; hinges drawn in yellow, positions as listed" : ""}.`}</Text>
             </View>
             <View style={{ flex: 1 }}>
-              <KV labelWidth={84} label="Window (aperture)">{size(view.geometry.aperture, "down")}</KV>
-              <KV labelWidth={84} label="Overlap L · T · R · B">{SIDES.map((x) => len(view.geometry.overlap[x], "down")).join(" · ")}</KV>
-              <KV labelWidth={84} label={`Borders L · T · R · B`}>{SIDES.map((x) => len(view.geometry.borders[x])).join(" · ")}</KV>
-              <KV labelWidth={84} label="Outer = glazing = backing">{size(view.geometry.outer)}</KV>
-              <KV labelWidth={84} label={w.Rebate}>{size(view.geometry.rebate, "up")}</KV>
-              <KV labelWidth={84} label="Sheet">{size(view.geometry.sheet)}</KV>
-              {view.geometry.topWindow ? <KV labelWidth={84} label="Top window">{size(view.geometry.topWindow, "down")}</KV> : null}
+              <KV labelWidth={84} label="Sheet">{view.plan.display.sheet}</KV>
+              <KV labelWidth={84} label="Window (aperture)">{view.plan.display.aperture}</KV>
+              <KV labelWidth={84} label="Overlap L · T · R · B">{SIDES.map((x) => view.plan.display[`overlap.${x}`]).join(" · ")}</KV>
+              <KV labelWidth={84} label={`Borders L · T · R · B`}>{SIDES.map((x) => view.plan.display[`borders.${x}`]).join(" · ")}</KV>
+              <KV labelWidth={84} label="Outer = glazing = backing">{view.plan.display.outer}</KV>
+              <KV labelWidth={84} label={w.Rebate}>{view.plan.display.rebate}</KV>
+              {view.plan.display.topWindow ? <KV labelWidth={84} label="Top window">{view.plan.display.topWindow}</KV> : null}
               {d && d.attachment.hinges.length > 0 ? (
                 <KV labelWidth={84} label="Hinges">
                   <View>
@@ -241,10 +241,8 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
           <Table
             cols={[{ label: "Date", width: 58 }, { label: "Status", width: 58 }, { label: "Reason", width: 80 }, { label: "Framer", width: 72 }, { label: "Summary", flex: 1 }]}
             rows={mountings.map((m) => {
-              const g = computePlan(planInputFor(m.current.data), ctx);
-              const aperture = g.ok ? size(g.geometry.aperture, "down") : m.current.plan.display.aperture;
               const ended = m.endedOn ? ` Ended ${m.endedOn}${m.endReason ? `: ${m.endReason}` : ""}` : "";
-              return [m.mountedOn, MOUNTING_STATUS_LABELS[m.status], MOUNTING_REASON_LABELS[m.reason], m.framerName ?? "—", `${mountSummary(m.current.data, { display: { aperture } })}.${ended}`];
+              return [m.mountedOn, MOUNTING_STATUS_LABELS[m.status], MOUNTING_REASON_LABELS[m.reason], m.framerName ?? "—", `${mountSummary(m.current.data, m.current.plan)}.${ended}`];
             })}
           />
         )}

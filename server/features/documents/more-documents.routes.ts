@@ -12,7 +12,7 @@ import { assertCan, currentUser, requirePermission } from "../../middleware/requ
 import { input, validate } from "../../middleware/validate.ts";
 import { findClient } from "../clients/clients.repo.ts";
 import { findReceipt } from "../custody/custody.repo.ts";
-import { findMounting } from "../mountings/mountings.repo.ts";
+import { findMounting, mountingInPlaceOn } from "../mountings/mountings.repo.ts";
 import { findObject } from "../objects/objects.repo.ts";
 import { getSettings } from "../settings/settings.repo.ts";
 import { createDocumentsService } from "./documents.service.ts";
@@ -83,10 +83,11 @@ export function moreDocumentsRoutes(db: Db, clock: () => Date = () => new Date()
     const object = receipt ? findObject(db, receipt.objectId) : null;
     if (!receipt || !object) throw notFound("That receipt");
     assertCan(user, "custody:read", { clientId: object.clientId }, { readAction: "custody:read", what: "That receipt" });
-    const m = object.currentMountingId ? findMounting(db, object.currentMountingId) : null;
+    // A receipt is about its own day: the mount in place then, not today's.
+    const m = mountingInPlaceOn(db, object.id, receipt.date);
     const detail = m ? mountingDetail(db, m) : null;
     const g = detail?.result.ok ? detail.result.geometry : null;
-    const glazingType = detail?.data.glazing.type ?? (object.currentGlazing as keyof typeof GLAZING_TYPE_LABELS | null);
+    const glazingType = detail?.data.glazing.type ?? null;
     const data = {
       receipt,
       object: { objectNumber: object.objectNumber, title: object.title, maker: object.maker, dimensions: formatSize(object.sheetWidthMm, object.sheetHeightMm, getSettings(db).unit), clientName: object.clientName },

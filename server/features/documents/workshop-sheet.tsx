@@ -2,9 +2,10 @@ import { Rect, Svg, Text, View } from "@react-pdf/renderer";
 import type { Db } from "../../db/client.ts";
 import type { MountingData, Board } from "../../../shared/schemas/mountings.ts";
 import { GLAZING_TYPE_LABELS } from "../../../shared/schemas/mountings.ts";
-import { computePlan, cuttingList, STANDARD_BOARD_SHEETS, type PlanResult } from "../../../shared/domain/mount-plan/index.ts";
+import { cuttingList, STANDARD_BOARD_SHEETS, type PlanResult } from "../../../shared/domain/mount-plan/index.ts";
 import type { CuttingList } from "../../../shared/domain/mount-plan/yield.ts";
-import { mountSummary, planInputFor } from "../../../shared/domain/mounting.ts";
+import { mountSummary, recordPlan } from "../../../shared/domain/mounting.ts";
+import { findObject } from "../objects/objects.repo.ts";
 import { HEAVY_PACKAGE_KG } from "../../../shared/domain/mount-plan/constants.ts";
 import { formatSize, type Unit } from "../../../shared/domain/units.ts";
 import { DocShell, type DocMeta } from "../../lib/pdf/layout.tsx";
@@ -23,8 +24,9 @@ export function mountingDetail(db: Db, row: MountingRow): MountingDetail | null 
   const rev = revision(db, row.id, row.currentRevision);
   if (!rev) return null;
   const data = rev.data as MountingData;
-  const st = getSettings(db);
-  return { row, data, result: computePlan(planInputFor(data), { minOverlapMm: st.minOverlapMm, rebateClearanceMm: st.rebateClearanceMm }) };
+  const o = findObject(db, row.objectId);
+  if (!o) return null;
+  return { row, data, result: recordPlan(data, o, getSettings(db)) };
 }
 
 export function summaryOf(d: MountingDetail, vocabulary: "mount" | "mat"): string | null {
@@ -201,7 +203,7 @@ export function WorkshopSheetDocument({ meta, data }: { meta: DocMeta; data: Wor
                   return (
                     <View key={i} style={{ flexDirection: "row", paddingVertical: 1 }}>
                       <Text style={[cell, { flex: 1 }]}>{piece?.label ?? p.pieceId}</Text>
-                      <Text style={[cell, tab, { width: 110, textAlign: "right" }]}>{formatSize(p.width, p.height, data.unit)}</Text>
+                      <Text style={[cell, tab, { width: 110, textAlign: "right" }]}>{formatSize(p.width, p.height, data.unit, { denominator: 64 })}</Text>
                       <Text style={[cell, tab, { width: 60, textAlign: "right", color: GRAPHITE }]}>{p.rotated ? "turned" : ""}</Text>
                     </View>
                   );

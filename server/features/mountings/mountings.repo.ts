@@ -81,6 +81,15 @@ export function addRevision(db: Db, row: MountingRow, version: number, data: Mou
   return n;
 }
 
+/**
+ * The mounting the object was in on `date` (an ISO date): the latest one mounted on or before it
+ * that had not ended by then. Drafts were never built, so they never count.
+ */
+export function mountingInPlaceOn(db: Db, objectId: string, date: string): MountingRow | null {
+  const rows = db.select().from(mountings).where(and(eq(mountings.objectId, objectId), ne(mountings.status, "draft"))).all();
+  return rows.filter((m) => m.mountedOn <= date && (!m.endedOn || m.endedOn > date)).sort((a, b) => (a.mountedOn < b.mountedOn ? 1 : a.mountedOn > b.mountedOn ? -1 : 0))[0] ?? null;
+}
+
 /** The object's current completed mounting other than `exceptId`, if any. */
 export function currentCompleted(db: Db, objectId: string, exceptId: string): MountingRow | null {
   return db.select().from(mountings).where(and(eq(mountings.objectId, objectId), eq(mountings.status, "completed"), ne(mountings.id, exceptId))).get() ?? null;

@@ -12,8 +12,8 @@ import {
   type MountingRecord,
   type MountingRevision,
 } from "../../../shared/schemas/mountings.ts";
-import { computePlan } from "../../../shared/domain/mount-plan/index.ts";
-import { mountSummary, planInputFor } from "../../../shared/domain/mounting.ts";
+import { UNBUILDABLE } from "../../../shared/domain/mount-plan/index.ts";
+import { mountSummary, recordPlan, type CatalogueFacts } from "../../../shared/domain/mounting.ts";
 import { diffValues, type Change } from "../../../shared/domain/diff.ts";
 import { AppError, conflict, notFound } from "../../lib/errors.ts";
 import { assertCan } from "../../middleware/require-permission.ts";
@@ -22,24 +22,50 @@ import { findObject, type ObjectRow } from "../objects/objects.repo.ts";
 import { appendEvent } from "../history/history.chain.ts";
 import * as repo from "./mountings.repo.ts";
 
+/** The catalogue facts a record's checks read, sent with each revision so the screen computes the same plan. */
+function catalogueOf(o: ObjectRow): CatalogueFacts {
+  return {
+    objectType: o.objectType,
+    photoProcess: o.photoProcess,
+    sensitivities: o.sensitivities,
+    medium: o.medium,
+    support: o.support,
+    borderLeftMm: o.borderLeftMm,
+    borderTopMm: o.borderTopMm,
+    borderRightMm: o.borderRightMm,
+    borderBottomMm: o.borderBottomMm,
+  };
+}
+
 const STALE = "Someone else changed this mounting record while you were working on it. Your entries are still in the form: reload to see theirs, then try again.";
 
 export function createMountingsService(db: Db) {
-  /** Recomputes a revision's plan from its saved input with its materials; a record is never shown from stored numbers. */
-  function planFor(data: MountingData, prefix = "data.plan.") {
-    const s = getSettings(db);
-    const r = computePlan(planInputFor(data), { minOverlapMm: s.minOverlapMm, rebateClearanceMm: s.rebateClearanceMm });
+  /**
+   * Recomputes a revision's plan from its saved input, the object's catalogue and its materials
+   * (recordPlan, the one function every screen and document uses); a record is never shown from
+   * stored numbers. `built`: the record says what was done, so geometry that cannot be built is refused.
+   */
+  function planFor(data: MountingData, o: ObjectRow, opts: { built?: boolean } = {}) {
+    const prefix = "data.plan.";
+    const r = recordPlan(data, o, getSettings(db));
     if (!r.ok) {
       const fields = Object.fromEntries(Object.entries(r.fields).map(([k, v]) => [`${prefix}${k}`, v]));
       const first = Object.entries(fields)[0];
       throw new AppError(422, "validation_failed", `Check ${first[0]}: ${first[1]}`, fields);
     }
+    if (opts.built) {
+      const bad = r.plan.findings.filter((f) => f.severity === "error" && UNBUILDABLE.has(f.code));
+      if (bad.length) {
+        const fields = Object.fromEntries(bad.map((f) => [`${prefix}${f.field ?? "window"}`, f.message]));
+        throw new AppError(422, "validation_failed", `This mount cannot be built as planned: ${bad[0].message}`, fields);
+      }
+    }
     return r.plan;
   }
 
-  function toRevision(r: repo.RevisionRow): MountingRevision {
+  function toRevision(r: repo.RevisionRow, o: ObjectRow): MountingRevision {
     const data = MountingDataSchema.parse(r.data);
-    return { revision: r.revision, data, correctionReason: r.correctionReason, createdAt: r.createdAt.toISOString(), createdByName: r.createdByName, plan: planFor(data) };
+    return { revision: r.revision, data, correctionReason: r.correctionReason, createdAt: r.createdAt.toISOString(), createdByName: r.createdByName, plan: planFor(data, o), catalogue: catalogueOf(o) };
   }
 
   function toRecord(row: repo.MountingRow, o: ObjectRow, rev?: repo.RevisionRow): MountingRecord {
@@ -60,7 +86,7 @@ export function createMountingsService(db: Db) {
       endReason: row.endReason,
       version: row.version,
       updatedAt: row.updatedAt.toISOString(),
-      current: toRevision(current),
+      current: toRevision(current, o),
     };
   }
 
@@ -106,14 +132,14 @@ export function createMountingsService(db: Db) {
     revisions(user: SessionUser, id: string): (MountingRevision & { changes: Change[] })[] {
       const { row, o } = load(user, id);
       if (row.status === "draft" && !canWrite(user, o)) throw notFound("That mounting record");
-      const revs = repo.revisionsOf(db, id).map(toRevision);
+      const revs = repo.revisionsOf(db, id).map((r) => toRevision(r, o));
       return revs.map((r, i) => ({ ...r, changes: i === 0 ? [] : diffValues(revs[i - 1].data, r.data) }));
     },
 
     create(user: SessionUser, objectId: string, body: MountingCreate): MountingRecord {
       const o = loadObject(user, objectId);
       assertCan(user, "mounting:write", { clientId: o.clientId }, { readAction: "mounting:read", what: "That object" });
-      planFor(body.data);
+      planFor(body.data, o);
       const id = inTransaction(db, (t) => repo.insertDraft(t, objectId, body, user));
       return toRecord(repo.findMounting(db, id)!, o);
     },
@@ -121,7 +147,7 @@ export function createMountingsService(db: Db) {
     updateDraft(user: SessionUser, id: string, body: MountingDraftUpdate): MountingRecord {
       const { row, o } = write(user, id);
       if (row.status !== "draft") throw conflict("This mounting record is completed and locked; make a correction instead, with a reason.");
-      planFor(body.data);
+      planFor(body.data, o);
       const ok = inTransaction(db, (t) => repo.updateDraft(t, row, body.version, body));
       if (!ok) throw conflict(STALE);
       return toRecord(repo.findMounting(db, id)!, o);
@@ -132,7 +158,7 @@ export function createMountingsService(db: Db) {
       if (row.status !== "draft") throw conflict("This mounting record is already completed.");
       const rev = repo.revision(db, id, row.currentRevision)!;
       const data = MountingDataSchema.parse(rev.data);
-      const plan = planFor(data);
+      const plan = planFor(data, o, { built: true });
       const ok = inTransaction(db, (d) => {
         const previous = repo.currentCompleted(d, row.objectId, row.id);
         // A mounting dated before the current one is an earlier mounting recorded afterwards: it goes into
@@ -143,6 +169,7 @@ export function createMountingsService(db: Db) {
             objectId: row.objectId,
             type: "mounted",
             actor: user,
+            occurredOn: row.mountedOn,
             summary: `Earlier mounting of ${row.mountedOn} recorded afterwards: ${mountSummary(data, plan)}.`,
             data: { mountingId: row.id, revision: row.currentRevision, recordedLater: true },
           });
@@ -159,6 +186,7 @@ export function createMountingsService(db: Db) {
           objectId: row.objectId,
           type: previous ? "reframed" : "mounted",
           actor: user,
+          occurredOn: row.mountedOn,
           summary: `${verb}${plain ? "" : ` (${reason})`}: ${summary}.`,
           data: { mountingId: row.id, revision: row.currentRevision, ...(previous ? { supersedes: previous.id } : {}) },
         });
@@ -172,7 +200,7 @@ export function createMountingsService(db: Db) {
       const { row, o } = write(user, id);
       if (row.status === "draft") throw conflict("A draft is edited directly; corrections are for completed records.");
       const before = MountingDataSchema.parse(repo.revision(db, id, row.currentRevision)!.data);
-      planFor(body.data);
+      planFor(body.data, o, { built: true });
       const changes = diffValues(before, body.data);
       if (changes.length === 0) throw new AppError(422, "validation_failed", "Check data: the correction changes nothing.", { data: "Change at least one entry, or cancel." });
       const ok = inTransaction(db, (d) => {
@@ -198,7 +226,7 @@ export function createMountingsService(db: Db) {
       const ok = inTransaction(db, (d) => {
         if (!repo.setStatus(d, row, body.version, { status: "removed", endedOn: body.endedOn, endReason: body.endReason })) return false;
         repo.setObjectCurrentMount(d, row.objectId, null);
-        appendEvent(d, { objectId: row.objectId, type: "mounting-removed", actor: user, summary: `Taken out of the mount of ${row.mountedOn}: ${body.endReason}`, data: { mountingId: row.id } });
+        appendEvent(d, { objectId: row.objectId, type: "mounting-removed", actor: user, occurredOn: body.endedOn, summary: `Taken out of the mount of ${row.mountedOn}: ${body.endReason}`, data: { mountingId: row.id } });
         return true;
       });
       if (!ok) throw conflict(STALE);

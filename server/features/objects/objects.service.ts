@@ -98,7 +98,7 @@ export function createObjectsService(db: Db) {
           const id = repo.insertObject(tx, data, user.id);
           appendEvent(tx, { objectId: id, type: "created", actor: user, summary: `Recorded as ${data.objectNumber}, “${data.title}”.`, data: { objectNumber: data.objectNumber } });
           if (data.valuationMinor !== null) {
-            appendEvent(tx, { objectId: id, type: "valued", actor: user, summary: "Insured value recorded.", data: { valuation: true } });
+            appendEvent(tx, { objectId: id, type: "valued", actor: user, summary: "Insured value recorded.", data: { valuation: true }, occurredOn: data.valuationDate ?? undefined });
           }
           return id;
         });
@@ -142,7 +142,9 @@ export function createObjectsService(db: Db) {
         }
         // The history keeps that the valuation changed, never the amounts: the log is shown to more people than may see values.
         if (valuationChanges.length) {
-          appendEvent(tx, { objectId: id, type: "valued", actor: user, summary: "Valuation updated.", data: { fields: valuationChanges.map((c) => c.path) } });
+          // Valued on the valuation's own date when that changed with it; otherwise the day it was entered.
+          const dated = valuationChanges.some((c) => c.path === "valuationDate") && patch.valuationDate ? patch.valuationDate : undefined;
+          appendEvent(tx, { objectId: id, type: "valued", actor: user, summary: "Valuation updated.", data: { fields: valuationChanges.map((c) => c.path) }, occurredOn: dated });
         }
         return true;
       });

@@ -1,6 +1,13 @@
 import type { Check, MountPlanParsed, SideName, Verdict } from "../../schemas/mount-plan.ts";
 import { SIDES } from "../../schemas/mount-plan.ts";
 import type { PlanGeometry } from "./compute.ts";
+import { lightClass } from "../light.ts";
+
+/** The edges the hinges sit on: the top only unless the materials say otherwise. */
+export function hingeEdges(input: Pick<MountPlanParsed, "materials">): SideName[] {
+  const e = input.materials?.hingeEdge;
+  return e === "all-edges" ? [...SIDES] : e === "top-and-sides" ? ["left", "top", "right"] : ["top"];
+}
 
 const RANK: Record<Verdict, number> = { pass: 0, warn: 1, fail: 2 };
 export function worstVerdict(verdicts: Verdict[]): Verdict {
@@ -17,22 +24,47 @@ const SOURCES = {
   friable: "State Archives of Florida, framing guidance for pastels and charcoal",
   loc: "Library of Congress, “Matting and Hinging Works of Art on Paper”",
   hinges: "Common practice (no source); Library of Congress, “Matting and Hinging Works of Art on Paper”",
+  light: "NEDCC Preservation Leaflet 4.10; NISO Z39.79 as summarised by NEDCC Preservation 101 (very sensitive objects)",
 } as const;
+
+/**
+ * Hinges wanted for a sheet (docs/trade-reference.md §6): two for a top edge up to 700 mm, and
+ * one more for each further 350 mm of it begun — i.e. max(2, ⌈width / 350 mm⌉); and, when the
+ * paper's weight is known, at least one hinge for each 40 g of sheet begun. Both are Reversa's
+ * rules of thumb for "more hinges as size and weight grow" (Library of Congress guide): common
+ * practice (no source).
+ */
+export const HINGE_EDGE_MM_PER_HINGE = 350;
+export const HINGE_GRAMS_PER_HINGE = 40;
+export function hingesWanted(sheetMm: { width: number; height: number }, paperWeightGsm?: number | null): { count: number; byWidth: number; byWeight: number; grams: number | null } {
+  const byWidth = Math.max(2, Math.ceil(sheetMm.width / HINGE_EDGE_MM_PER_HINGE - 1e-9));
+  const grams = paperWeightGsm ? (sheetMm.width / 1000) * (sheetMm.height / 1000) * paperWeightGsm : null;
+  const byWeight = grams !== null ? Math.ceil(grams / HINGE_GRAMS_PER_HINGE - 1e-9) : 0;
+  return { count: Math.max(byWidth, byWeight), byWidth, byWeight, grams };
+}
+
+/** Friable media by the catalogue: the flag, a pastel, or a medium named as pastel, charcoal or chalk. */
+export function isFriable(obj: { objectType?: string | null; sensitivities?: readonly string[] | null; medium?: string | null }): boolean {
+  return (obj.sensitivities ?? []).includes("friable-media") || obj.objectType === "pastel" || /\b(pastels?|charcoal|chalks?|cont[eé] crayon)\b/i.test(obj.medium ?? "");
+}
 
 const HINGES = ["t-hinge", "v-hinge", "pendant-hinge", "pass-through-hinge"];
 const FLOAT_METHODS = ["v-hinge", "pass-through-hinge", "edge-strips", "polyester-straps", "sink-mount"];
 const SENSITIVE_PROCESSES = ["albumen", "salted-paper", "platinum-palladium", "dye-transfer", "collodion"];
 
-/** The eight conservation-level rules of the plan (BRIEF §4), each with a verdict, a reason in the framer's words and its source. */
-export type Formatters = { length: (mm: number, r?: "nearest" | "down" | "up") => string; overlap: (mm: number) => string; minimum: (mm: number) => string };
+/**
+ * The eight conservation-level rules of the plan (docs/trade-reference.md §5), each with a verdict, a reason in the framer's words and its source.
+ * `length` formats any length in the display unit; `shown` formats a figure that is already on the shown grid; `minimum` is the studio minimum as shown.
+ */
+export type Formatters = { length: (mm: number, r?: "nearest" | "down" | "up") => string; shown: (mm: number) => string; minimum: () => string };
 
 export function conservationChecks(g: PlanGeometry, input: MountPlanParsed, f: Formatters): Check[] {
   const fmt = f.length;
   const m = input.materials ?? {};
   const obj = input.object ?? {};
-  const sens = obj.sensitivities ?? [];
   const checks: Check[] = [];
-  const floatSides = SIDES.filter((s) => g.modes[s] === "float" || (g.modes[s] === "custom" && g.overlap[s] < 0));
+  const fig = g.figures;
+  const floatSides = SIDES.filter((s) => g.modes[s] === "float");
   const heldSides = SIDES.filter((s) => !floatSides.includes(s));
 
   // 1. Overlap
@@ -42,15 +74,15 @@ export function conservationChecks(g: PlanGeometry, input: MountPlanParsed, f: F
     rule: "Every overlapped side covers the sheet by at least the studio minimum",
     verdict: short.length ? "fail" : "pass",
     reason: short.length
-      ? `The window covers ${list(short.map((s) => `${f.overlap(Math.max(0, g.overlap[s]))} on the ${SIDE_WORD[s]}`))}; each overlapped side needs at least ${f.minimum(g.minOverlapMm)}.`
+      ? `The window covers ${list(short.map((s) => `${f.shown(Math.max(0, fig.overlap[s]))} on the ${SIDE_WORD[s]}`))}; each overlapped side needs at least ${f.minimum()}.`
       : heldSides.length
-        ? `Each overlapped side (${list(heldSides.map((s) => SIDE_WORD[s]))}) covers the sheet by at least ${f.minimum(g.minOverlapMm)}.`
+        ? `Each overlapped side (${list(heldSides.map((s) => SIDE_WORD[s]))}) covers the sheet by at least ${f.minimum()}.`
         : "The sheet floats on every side; no side is held by the window.",
     source: SOURCES.overlap,
   });
 
   // 2. The object never touches the glazing
-  const friable = sens.includes("friable-media") || obj.objectType === "pastel";
+  const friable = isFriable(obj);
   checks.push({
     id: "glazing-separation",
     rule: "The object never touches the glazing",
@@ -111,7 +143,8 @@ export function conservationChecks(g: PlanGeometry, input: MountPlanParsed, f: F
       source: SOURCES.photo,
     });
   } else {
-    checks.push({ id: "photo-board", rule: "Photographs: board has passed the PAT; unbuffered board for sensitive processes", verdict: "pass", reason: "Not a photograph: this rule does not apply.", source: SOURCES.photo });
+    const reason = obj.objectType ? "Not a photograph: this rule does not apply." : "No object type given: this rule applies only if the object is a photograph.";
+    checks.push({ id: "photo-board", rule: "Photographs: board has passed the PAT; unbuffered board for sensitive processes", verdict: "pass", reason, source: SOURCES.photo });
   }
 
   // 5. Friable media: glass, not acrylic, and room to spare
@@ -159,51 +192,65 @@ export function conservationChecks(g: PlanGeometry, input: MountPlanParsed, f: F
   }
   checks.push({ id: "reversible-attachment", rule: "Attachment is reversible and weaker than the object", verdict: v6, reason: r6, source: SOURCES.loc });
 
-  // 7. Hinge placement and kind
+  // 7. Hinge placement and kind: what matters is the edges the hinges sit on (the top, for a hanging work).
   let v7: Verdict = "pass";
   const r7: string[] = [];
+  const edges = hingeEdges(input);
+  const floatingHingeEdges = edges.filter((s) => floatSides.includes(s));
   if (!m.attachment) {
     v7 = "warn";
     r7.push("Attachment not chosen yet.");
   } else if (HINGES.includes(m.attachment)) {
-    if (floatSides.length && m.attachment === "t-hinge") {
+    if (m.attachment === "t-hinge" && floatingHingeEdges.length) {
       v7 = "fail";
-      r7.push(`The sheet floats on the ${list(floatSides.map((s) => SIDE_WORD[s]))}; T-hinges need the window to cover the edge. Use V-hinges or pass-through hinges for a float.`);
+      r7.push(`The sheet floats on the ${list(floatingHingeEdges.map((s) => SIDE_WORD[s]))}, where the T-hinges sit: the window does not cover them there. Use V-hinges or pass-through hinges for a float.`);
+    } else if (m.attachment === "pendant-hinge" && floatingHingeEdges.length) {
+      v7 = "warn";
+      r7.push(`The sheet floats on the ${list(floatingHingeEdges.map((s) => SIDE_WORD[s]))}: pendant hinges would show above the sheet. V-hinges (folded) or pass-through hinges hide behind it.`);
     }
     if (m.hingeEdge && m.hingeEdge !== "top") {
       v7 = worstVerdict([v7, "warn"]);
       r7.push("A hanging work is hinged along the top edge only, so the sheet can move with humidity.");
     }
-    const longSide = Math.max(g.sheet.width, g.sheet.height);
-    // Two hinges, and one more for every further 350 mm or so of top edge: common practice (no source).
-    const wanted = Math.max(2, Math.ceil(g.sheet.width / 350));
-    if (m.hingeCount !== undefined && m.hingeCount < wanted) {
+    const want = hingesWanted(g.sheet, obj.paperWeightGsm);
+    if (m.hingeCount !== undefined && m.hingeCount < want.count) {
       v7 = worstVerdict([v7, "warn"]);
-      r7.push(`${m.hingeCount} hinge${m.hingeCount === 1 ? "" : "s"} for a sheet ${fmt(g.sheet.width)} wide; ${wanted} or more spread along the top suit this size${longSide > 800 ? " and weight" : ""}.`);
+      const why =
+        want.byWeight > want.byWidth && want.grams !== null
+          ? `a sheet of about ${Math.round(want.grams)} g (${obj.paperWeightGsm} g/m²) wants ${want.count} or more, at most ${HINGE_GRAMS_PER_HINGE} g a hinge`
+          : `a sheet ${f.shown(fig.sheet.width)} wide wants ${want.count} or more spread along the top (two up to ${f.length(2 * HINGE_EDGE_MM_PER_HINGE)}, one more for each further ${f.length(HINGE_EDGE_MM_PER_HINGE)})`;
+      r7.push(`${m.hingeCount} hinge${m.hingeCount === 1 ? "" : "s"}: ${why}.`);
     }
-    if (!r7.length) r7.push(floatSides.length ? "Float hinges suit the floated sides, along the top edge." : "Hinges along the top edge, suited to a window that covers the edge.");
+    if (!r7.length) {
+      r7.push(
+        m.attachment === "t-hinge"
+          ? "T-hinges along the top edge, where the window covers the sheet and hides them."
+          : floatingHingeEdges.length
+            ? "Float hinges suit the floated edge, along the top."
+            : "Hinges along the top edge.",
+      );
+    }
   } else if (floatSides.length && !FLOAT_METHODS.includes(m.attachment)) {
     v7 = "warn";
     r7.push(`The sheet floats on the ${list(floatSides.map((s) => SIDE_WORD[s]))}; ${m.attachment.replace(/-/g, " ")} may show. Edge strips, V-hinges or pass-through hinges suit a float.`);
   } else {
     r7.push("No hinges: the object is held without adhesive.");
   }
-  checks.push({ id: "hinge-placement", rule: "Hinges on the top edge; T-hinges under a window, float hinges for a float; more hinges as size grows", verdict: v7, reason: r7.join(" "), source: SOURCES.hinges });
+  checks.push({ id: "hinge-placement", rule: "Hinges on the top edge; T-hinges where the window covers that edge, float hinges where it floats; more hinges as size and weight grow", verdict: v7, reason: r7.join(" "), source: SOURCES.hinges });
 
-  // 8. UV-filtering glazing for light-sensitive objects
-  const lightSensitive = sens.includes("light-sensitive");
+  // 8. UV-filtering glazing for every object the light guidance treats as very sensitive (shared/domain/light.ts).
+  const light = lightClass(obj);
   let v8: Verdict = "pass";
-  let r8 = "No light sensitivity recorded: UV-filtering glazing is still a good choice.";
-  if (lightSensitive) {
-    if (!g.glazing.material) {
-      v8 = "warn";
-      r8 = "Glazing not chosen yet: this light-sensitive object needs UV-filtering glazing.";
-    } else if (!g.glazing.uvFiltering) {
-      v8 = "fail";
-      r8 = "The object is light-sensitive: use UV-filtering glass or acrylic.";
-    } else r8 = "UV-filtering glazing protects this light-sensitive object; keep display light low and time on display limited.";
-  }
-  checks.push({ id: "uv-glazing", rule: "UV-filtering glazing for light-sensitive objects", verdict: v8, reason: r8, source: SOURCES.nedcc });
+  let r8: string;
+  if (!light.verySensitive) r8 = "Not among the very light-sensitive objects: UV-filtering glazing is still a good choice.";
+  else if (!g.glazing.material) {
+    v8 = "warn";
+    r8 = `Glazing not chosen yet: this object is very sensitive to light (${light.why}) and needs UV-filtering glazing.`;
+  } else if (!g.glazing.uvFiltering) {
+    v8 = "fail";
+    r8 = `This object is very sensitive to light (${light.why}): use UV-filtering glass or acrylic.`;
+  } else r8 = `UV-filtering glazing protects this very light-sensitive object (${light.why}); keep display light at ${light.maxLux} lux or less and time on display limited.`;
+  checks.push({ id: "uv-glazing", rule: "UV-filtering glazing for light-sensitive objects", verdict: v8, reason: r8, source: SOURCES.light });
 
   return checks;
 }

@@ -31,6 +31,12 @@ const EPS = 1e-9;
 const MAX_CUTS_TRIED = 40_000;
 /** Above this many cut positions (only with blanks tiny beside the sheet), cuts fall on whole rows and columns only. */
 const MAX_PATTERNS = 1_000;
+/**
+ * Placements are listed for at most this many blanks (the count is always exact): a layout is only
+ * drawn or cut for a batch, and batches are capped at 2,000 boards, so memory stays bounded even
+ * for a tiny blank on a large sheet.
+ */
+export const MAX_PLACEMENTS = 2_000;
 
 /** Standard full board sheets (BRIEF §4). */
 export const STANDARD_BOARD_SHEETS: { id: string; label: string; width: number; height: number }[] = [
@@ -65,7 +71,7 @@ function fitCount(length: number, item: number): number {
  * Placements carry pieceId "blank", are sorted top to bottom then left to right, and `rotated` means turned a quarter from `blank`.
  * `utilisation` is the blanks' area over the sheet's (0..1).
  */
-export function blanksPerSheet(blank: Size, sheet: Size, kerf: number): { perSheet: number; placements: Placement[]; utilisation: number } {
+export function blanksPerSheet(blank: Size, sheet: Size, kerf: number, maxPlacements = MAX_PLACEMENTS): { perSheet: number; placements: Placement[]; utilisation: number } {
   requirePositive("blank.width", blank.width);
   requirePositive("blank.height", blank.height);
   requirePositive("sheet.width", sheet.width);
@@ -158,6 +164,7 @@ export function blanksPerSheet(blank: Size, sheet: Size, kerf: number): { perShe
 
   const placements: Placement[] = [];
   const place = (x: number, y: number, a: number, b: number): void => {
+    if (placements.length >= maxPlacements) return;
     const pick = choice[a * rows + b];
     if (pick < 2) {
       const rotated = pick === 1;
@@ -167,6 +174,7 @@ export function blanksPerSheet(blank: Size, sheet: Size, kerf: number): { perShe
       const down = fitCount(patterns[b], ch);
       for (let j = 0; j < down; j++) {
         for (let i = 0; i < across; i++) {
+          if (placements.length >= maxPlacements) return;
           placements.push({
             pieceId: "blank",
             x: x + i * cw,
@@ -200,7 +208,12 @@ function normalPatterns(sides: number[], limit: number): number[] | null {
   const [s0, s1] = sides;
   for (let i = 0; i * s0 <= limit + EPS; i++) {
     if (s1 === undefined) values.push(i * s0);
-    else for (let j = 0; i * s0 + j * s1 <= limit + EPS; j++) values.push(i * s0 + j * s1);
+    else {
+      for (let j = 0; i * s0 + j * s1 <= limit + EPS; j++) {
+        values.push(i * s0 + j * s1);
+        if (values.length > MAX_PATTERNS) return null;
+      }
+    }
     if (values.length > MAX_PATTERNS) return null;
   }
   return mergeSorted(values);
@@ -297,6 +310,10 @@ export function cuttingList(pieces: CutPiece[], sheet: Size, kerf: number): Cutt
     consider(guillotinePack(sortUnits(units, rule.order), sheet, kerf, rule.fit, rule.split, work, false));
   }
 
+  // Small batches: the fewest sheets, exactly. Larger ones: the emptiest sheets repacked exactly.
+  if (units.length <= EXACT_MAX_BLANKS) consider(exactPack(units, sheet, kerf));
+  else if (chosen.length > 1) consider(repackEmptiest(chosen, units, sheet, kerf));
+
   const sheetArea = sheet.width * sheet.height;
   const sheets: CuttingSheet[] = chosen.map((placements, index) => ({
     index,
@@ -353,7 +370,7 @@ function sizeBySize(units: Unit[], sheet: Size, kerf: number, work: Work): Packi
       continue;
     }
     if (work.left <= 0) return null;
-    const layout = blanksPerSheet({ width: g.w, height: g.h }, sheet, kerf);
+    const layout = blanksPerSheet({ width: g.w, height: g.h }, sheet, kerf, g.units.length);
     work.left -= layout.perSheet + groups.length;
     const n = layout.perSheet;
     const whole = Math.floor(g.units.length / n);
@@ -481,4 +498,155 @@ function splitFree(f: Rect, w: number, h: number, split: Split): Rect[] {
   const right: Rect = { x: f.x + w, y: f.y, w: dw, h: horizontal ? h : f.h };
   const below: Rect = { x: f.x, y: f.y + h, w: horizontal ? f.w : w, h: dh };
   return [below, right].filter((r) => r.w > EPS && r.h > EPS);
+}
+
+// ── Fewest sheets: an exact search for small groups ─────────────────────────
+
+/**
+ * Up to this many blanks, the fewest sheets are found exactly. Every guillotine layout of a set of
+ * blanks has a first straight cut that splits the set in two, each part again a guillotine layout,
+ * so the smallest boxes (width, height) that hold a set can be built from those of its two parts
+ * (side by side, or one above the other). A set fits a sheet when one of its boxes does; the
+ * fewest sheets then follow from a search over the subsets. 3^n pairs of subsets: about 60,000 at 10.
+ */
+export const EXACT_MAX_BLANKS = 10;
+/** Box combinations the exact search may make before it gives up (then the heuristics' answer stands). */
+const MAX_EXACT_WORK = 3_000_000;
+
+type BoxNode = { w: number; h: number; kind: 0 | 1 | 2; a: number; ai: number; b: number; bi: number; rotated: boolean };
+
+/** The fewest sheets for these units, exactly, or null when the search would cost more than its budget. */
+export function exactPack(units: { id: string; w: number; h: number }[], sheet: Size, kerf: number): Packing | null {
+  const n = units.length;
+  if (n === 0) return [];
+  if (n > EXACT_MAX_BLANKS) return null;
+  const W = sheet.width + kerf;
+  const H = sheet.height + kerf;
+  const full = (1 << n) - 1;
+  const boxes: BoxNode[][] = new Array(full + 1);
+  let work = 0;
+  const add = (list: BoxNode[], node: BoxNode) => {
+    if (node.w > W + EPS || node.h > H + EPS) return;
+    for (const o of list) if (o.w <= node.w + EPS && o.h <= node.h + EPS) return;
+    for (let i = list.length - 1; i >= 0; i--) if (node.w <= list[i].w + EPS && node.h <= list[i].h + EPS) list.splice(i, 1);
+    list.push(node);
+  };
+  // Masks by number of blanks, so both parts of a split are known before the whole.
+  const order = Array.from({ length: full }, (_, i) => i + 1).sort((a, b) => popcount(a) - popcount(b) || a - b);
+  for (const mask of order) {
+    const list: BoxNode[] = [];
+    if ((mask & (mask - 1)) === 0) {
+      const i = 31 - Math.clz32(mask);
+      const u = units[i];
+      add(list, { w: u.w + kerf, h: u.h + kerf, kind: 0, a: i, ai: 0, b: 0, bi: 0, rotated: false });
+      if (Math.abs(u.w - u.h) > EPS) add(list, { w: u.h + kerf, h: u.w + kerf, kind: 0, a: i, ai: 0, b: 0, bi: 0, rotated: true });
+    } else {
+      const low = mask & -mask;
+      // Each split once: the part A holds the lowest blank.
+      for (let a = (mask - 1) & mask; a > 0; a = (a - 1) & mask) {
+        if ((a & low) === 0) continue;
+        const b = mask ^ a;
+        const la = boxes[a];
+        const lb = boxes[b];
+        if (!la.length || !lb.length) continue;
+        work += la.length * lb.length;
+        if (work > MAX_EXACT_WORK) return null;
+        for (let ai = 0; ai < la.length; ai++) {
+          for (let bi = 0; bi < lb.length; bi++) {
+            const p = la[ai];
+            const q = lb[bi];
+            add(list, { w: p.w + q.w, h: Math.max(p.h, q.h), kind: 1, a, ai, b, bi, rotated: false });
+            add(list, { w: Math.max(p.w, q.w), h: p.h + q.h, kind: 2, a, ai, b, bi, rotated: false });
+          }
+        }
+      }
+    }
+    boxes[mask] = list;
+  }
+  // Fewest sheets over subsets: a sheet takes a set that fits, holding the lowest blank still to place.
+  const best = new Int32Array(full + 1).fill(-1);
+  const pick = new Int32Array(full + 1);
+  best[0] = 0;
+  const solve = (mask: number): number => {
+    if (best[mask] >= 0) return best[mask];
+    const low = mask & -mask;
+    let value = Infinity;
+    let chosen = 0;
+    for (let s = mask; s > 0; s = (s - 1) & mask) {
+      if ((s & low) === 0 || boxes[s].length === 0) continue;
+      const v = 1 + solve(mask ^ s);
+      if (v < value) {
+        value = v;
+        chosen = s;
+      }
+    }
+    best[mask] = value;
+    pick[mask] = chosen;
+    return value;
+  };
+  solve(full);
+  const packing: Packing = [];
+  const lay = (mask: number, idx: number, x: number, y: number, out: Placement[]) => {
+    const node = boxes[mask][idx];
+    if (node.kind === 0) {
+      const u = units[node.a];
+      out.push({ pieceId: u.id, x, y, width: node.rotated ? u.h : u.w, height: node.rotated ? u.w : u.h, rotated: node.rotated });
+      return;
+    }
+    const first = boxes[node.a][node.ai];
+    lay(node.a, node.ai, x, y, out);
+    if (node.kind === 1) lay(node.b, node.bi, x + first.w, y, out);
+    else lay(node.b, node.bi, x, y + first.h, out);
+  };
+  for (let mask = full; mask; ) {
+    const s = pick[mask];
+    const out: Placement[] = [];
+    lay(s, 0, 0, 0, out);
+    out.sort((p, q) => p.y - q.y || p.x - q.x);
+    packing.push(out);
+    mask ^= s;
+  }
+  return packing;
+}
+
+function popcount(v: number): number {
+  let c = 0;
+  for (; v; v &= v - 1) c++;
+  return c;
+}
+
+/**
+ * Improves a packing by repacking its emptiest sheets together exactly: the contents of the two,
+ * three… least-filled sheets, while they are few enough blanks, are searched for a layout on fewer
+ * sheets. Bounded by the exact search's own limits.
+ */
+function repackEmptiest(packing: Packing, units: Unit[], sheet: Size, kerf: number): Packing {
+  let current = packing;
+  const byId = new Map<string, Unit>();
+  for (const u of units) byId.set(u.id, u);
+  for (let round = 0; round < 8; round++) {
+    const area = (ps: Placement[]) => ps.reduce((s, p) => s + p.width * p.height, 0);
+    const order = current.map((ps, i) => ({ i, a: area(ps), n: ps.length })).sort((p, q) => p.a - q.a);
+    let improved = false;
+    for (let take = Math.min(order.length, 4); take >= 2 && !improved; take--) {
+      const chosen = order.slice(0, take);
+      const count = chosen.reduce((s, c) => s + c.n, 0);
+      if (count > EXACT_MAX_BLANKS) continue;
+      const group = chosen.flatMap((c) => current[c.i].map((p) => ({ id: p.pieceId, w: p.rotated ? p.height : p.width, h: p.rotated ? p.width : p.height })));
+      const packed = exactPack(group, sheet, kerf);
+      if (packed && packed.length < take) {
+        const drop = new Set(chosen.map((c) => c.i));
+        // Repacked placements are relative to the piece as given; recover `rotated` against the input's own sides.
+        const fixed = packed.map((ps) => ps.map((p) => {
+          const u = byId.get(p.pieceId);
+          const rotated = u ? !(Math.abs(p.width - u.w) <= EPS && Math.abs(p.height - u.h) <= EPS) : p.rotated;
+          return { ...p, rotated };
+        }));
+        current = [...current.filter((_, i) => !drop.has(i)), ...fixed];
+        improved = true;
+      }
+    }
+    if (!improved) break;
+  }
+  return current;
 }

@@ -69,6 +69,7 @@ export function Component() {
         mode={mode}
         planInput={planInput}
         settings={settings}
+        catalogue={o}
         initial={initial}
         onCancel={() => navigate(-1)}
         onSubmit={async (v) => {

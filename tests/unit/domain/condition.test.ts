@@ -140,11 +140,12 @@ describe("lightGuidance", () => {
     expect(lightGuidance([], "photograph", "chromogenic")).toContain("50 lux");
   });
 
-  it("when the object is moderately sensitive, then it says 100 lux", () => {
-    const g = lightGuidance([], "print");
-    expect(g).toContain("100 lux");
-    expect(g).not.toContain("50 lux");
-    expect(lightGuidance([], "photograph", "gelatin-silver")).toContain("100 lux");
+  it("when a work on paper is not flagged, then it is treated as very sensitive (50 lux), the cautious default", () => {
+    // BRIEF §7: an unflagged work on paper is treated as very sensitive; NISO Z39.79 via NEDCC: ≤ 50 lux.
+    for (const g of [lightGuidance([], "print"), lightGuidance([], "drawing"), lightGuidance([], "document"), lightGuidance([], "photograph", "gelatin-silver")]) {
+      expect(g).toContain("50 lux");
+      expect(g).not.toContain("100 lux");
+    }
   });
 
   it("when any guidance is given, then it names the UV and humidity limits and says it is not a guarantee", () => {
@@ -155,8 +156,14 @@ describe("lightGuidance", () => {
     }
   });
 
-  it("when the object is very sensitive, then the annual lux-hours budget is quoted as CIE 157:2004 (a figure to verify)", () => {
-    // 150,000 lux·h a year at 50 lux: CIE 157:2004 as quoted — verify against the original.
-    expect(lightGuidance(["light-sensitive"])).toContain("150,000 lux·hours");
+  it("when the yearly exposure is given, then it follows the responsivity category (CIE 157:2004 as quoted; from memory, verify)", () => {
+    // High responsivity (fugitive colour, watercolours, colour photographs, flagged light-sensitive): about 15,000 lux·h a year.
+    expect(lightGuidance(["light-sensitive"])).toContain("15,000 lux·hours");
+    expect(lightGuidance([], "watercolour")).toContain("15,000 lux·hours");
+    expect(lightGuidance([], "photograph", "chromogenic")).toContain("15,000 lux·hours");
+    expect(lightGuidance([], "photograph", "albumen")).toContain("15,000 lux·hours");
+    // Medium (most other works on paper, black-and-white silver prints): about 150,000 lux·h a year.
+    expect(lightGuidance([], "print")).toContain("150,000 lux·hours");
+    expect(lightGuidance([], "photograph", "gelatin-silver")).toContain("150,000 lux·hours");
   });
 });

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { computePlan, type PlanContext, type PlanGeometry } from "../../../shared/domain/mount-plan/compute.ts";
+import { planDrawing } from "../../../shared/domain/mount-plan/drawing.ts";
 import { MountPlanInputSchema, SIDES, type MountPlan, type MountPlanInput, type SideName } from "../../../shared/schemas/mount-plan.ts";
 import { lengthInputValue, MM_PER_INCH, parseLength, type Unit } from "../../../shared/domain/units.ts";
 
@@ -214,14 +215,20 @@ describe("mount plan properties", () => {
     );
   });
 
-  it("property overlap-safe-rounding: when any window is rounded to any step in either unit, then no side's overlap falls below the overlap asked for", () => {
+  it("property overlap-safe-rounding: when any window is rounded to any step in either unit, then no held side's overlap falls below the one asked and no float's reveal below the one asked", () => {
     fc.assert(
       fc.property(windowCase, (c) => {
         const { geometry } = compute(c.input);
         for (const s of SIDES) {
-          expect(geometry.overlap[s], `${s} in ${JSON.stringify(c.input)}`).toBeGreaterThanOrEqual(c.requested[s] - noise(c.stepMm));
-          // …and the rounding takes at most one step across an axis, so no side gains more than that.
-          expect(geometry.overlap[s]).toBeLessThanOrEqual(c.requested[s] + c.stepMm + EXACT);
+          if (geometry.modes[s] === "float") {
+            // A float's overlap is minus its reveal: the reveal never shrinks, and grows by at most one step.
+            expect(-geometry.overlap[s], `${s} reveal in ${JSON.stringify(c.input)}`).toBeGreaterThanOrEqual(-c.requested[s] - noise(c.stepMm));
+            expect(-geometry.overlap[s]).toBeLessThanOrEqual(-c.requested[s] + c.stepMm + EXACT);
+          } else {
+            expect(geometry.overlap[s], `${s} in ${JSON.stringify(c.input)}`).toBeGreaterThanOrEqual(c.requested[s] - noise(c.stepMm));
+            // …and the rounding takes at most one step across an axis, so no side gains more than that.
+            expect(geometry.overlap[s]).toBeLessThanOrEqual(c.requested[s] + c.stepMm + EXACT);
+          }
         }
         // The window sits where the overlaps say, and the sheet is what was asked for.
         expect(geometry.windowOnSheet).toEqual({ left: geometry.overlap.left, top: geometry.overlap.top });
@@ -279,6 +286,91 @@ describe("mount plan properties", () => {
         expect(plan.findings.some((f) => f.code === "board-too-small")).toBe(!fits);
       }),
       { numRuns: 150 },
+    );
+  });
+
+  // ── Shown figures (docs/trade-reference.md §9): one unit, rounded once, parts adding up to the whole ──
+  const shownCase = windowCase.chain(withBorders).chain((c) =>
+    fc.record({
+      display: fc.constantFrom<Unit>("mm", "in"),
+      double: fc.option(typedLength(c.unit, 1, 6), { nil: undefined }),
+    }).map(({ display, double }) => ({ ...c, display, input: { ...c.input, ...(double ? { doubleMount: { reveal: double.value } } : {}) } })),
+  );
+  const read = (text: string, unit: Unit): number => {
+    const r = parseLength(text.replace(/ (mm|in)$/, ""), unit);
+    if (!r.ok) throw new Error(`unreadable figure ${text}`);
+    return r.mm;
+  };
+
+  it("property figures-add-up: when any plan is shown in mm or in inches, then overlaps + window = sheet and borders + window = outer exactly, in the one unit shown", () => {
+    fc.assert(
+      fc.property(shownCase, (c) => {
+        const r = computePlan(MountPlanInputSchema.parse(c.input), { ...CTX, displayUnit: c.display });
+        if (!r.ok) return; // a top board whose reveal eats a border is refused; nothing is shown
+        const d = r.plan.display;
+        const u = c.display;
+        expect(r.plan.displayUnit).toBe(u);
+        const tol = 1e-6;
+        const sum = (a: string, b: string, m: string) => read(d[a], u) + read(d[m], u) + read(d[b], u);
+        expect(Math.abs(sum("overlap.left", "overlap.right", "aperture.width") - read(d["sheet.width"], u)), JSON.stringify(d)).toBeLessThanOrEqual(tol);
+        expect(Math.abs(sum("overlap.top", "overlap.bottom", "aperture.height") - read(d["sheet.height"], u)), JSON.stringify(d)).toBeLessThanOrEqual(tol);
+        expect(Math.abs(sum("borders.left", "borders.right", "aperture.width") - read(d["outer.width"], u)), JSON.stringify(d)).toBeLessThanOrEqual(tol);
+        expect(Math.abs(sum("borders.top", "borders.bottom", "aperture.height") - read(d["outer.height"], u)), JSON.stringify(d)).toBeLessThanOrEqual(tol);
+        // Every length written is in the unit shown (the minimum in inches also gives the studio's mm in brackets).
+        const other = u === "in" ? / mm\b/ : / in\b/;
+        for (const [k, v] of Object.entries(d)) expect(v, k).not.toMatch(other);
+        for (const text of [...r.plan.findings.map((f) => f.message), ...r.plan.checks.map((x) => x.reason)]) {
+          expect(text.replace(/\(\d+(\.\d+)? mm\)/g, "")).not.toMatch(u === "in" ? /\d mm\b/ : /\d in\b/);
+        }
+        // The drawing writes the same figures as the table.
+        const labels = planDrawing(r.geometry).shapes.filter((x) => x.kind === "text").map((x) => (x as { text: string }).text);
+        expect(labels).toContain(`outer ${d["outer.width"]}`);
+        expect(labels).toContain(`window ${d["aperture.height"]}`);
+        for (const s of SIDES) expect(labels).toContain(d[`borders.${s}`]);
+      }),
+      { numRuns: 400 },
+    );
+  });
+
+  it("property shown-overlap-honest: when a side passes the overlap check, then its shown overlap is at least the shown minimum; when it fails, less; a float never shows less reveal than asked", () => {
+    fc.assert(
+      fc.property(shownCase, (c) => {
+        const r = computePlan(MountPlanInputSchema.parse(c.input), { ...CTX, displayUnit: c.display });
+        if (!r.ok) return;
+        const u = c.display;
+        const d = r.plan.display;
+        const min = read(d.minOverlap, u);
+        expect(min).toBeGreaterThanOrEqual(CTX.minOverlapMm - 1e-9);
+        for (const s of SIDES) {
+          const shown = read(d[`overlap.${s}`], u);
+          const truth = r.geometry.overlap[s];
+          if (r.geometry.modes[s] === "float") {
+            expect(-truth, `${s} true reveal`).toBeGreaterThanOrEqual(-c.requested[s] - 1e-9);
+            // The asked reveal as shown on the same grid: never more than the reveal shown.
+            const grid = u === "in" ? MM_PER_INCH / 64 : 0.1;
+            expect(-shown, `${s} shown reveal ${d[`overlap.${s}`]}`).toBeGreaterThanOrEqual(Math.round(-c.requested[s] / grid) * grid - 1e-6);
+          } else if (truth >= CTX.minOverlapMm - 1e-9) {
+            expect(shown, `${s}: ${d[`overlap.${s}`]} against ${d.minOverlap}`).toBeGreaterThanOrEqual(min - 1e-6);
+          } else {
+            expect(shown, `${s}: ${d[`overlap.${s}`]} against ${d.minOverlap}`).toBeLessThan(min - 1e-6);
+          }
+          // Shown within two grid steps of the truth.
+          expect(Math.abs(shown - truth)).toBeLessThanOrEqual(2 * (u === "in" ? MM_PER_INCH / 16 : 0.1) + 1e-6);
+        }
+      }),
+      { numRuns: 400 },
+    );
+  });
+
+  it("property same-unit-exact: when a plan is shown in its own unit, then its window and outer size are shown exactly as computed", () => {
+    fc.assert(
+      fc.property(windowCase.chain(withBorders), (c) => {
+        const r = computePlan(MountPlanInputSchema.parse(c.input), CTX);
+        if (!r.ok) return;
+        expect(read(r.plan.display["aperture.width"], c.unit)).toBeCloseTo(r.geometry.aperture.width, 6);
+        expect(read(r.plan.display["aperture.height"], c.unit)).toBeCloseTo(r.geometry.aperture.height, 6);
+      }),
+      { numRuns: 300 },
     );
   });
 });

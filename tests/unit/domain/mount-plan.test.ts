@@ -78,13 +78,15 @@ describe("window in overlap mode", () => {
     expect(plan.overlap).toEqual({ left: 6, top: 7, right: 10, bottom: 12 });
   });
 
-  it("when the exact aperture is not a multiple of the cutting step, then it rounds down and both overlaps grow", () => {
-    // 210 − 2 × 5.2 = 199.6 mm → 199.5 mm at the 0.5 mm step; the 0.1 mm goes half to each side.
-    const { geometry } = planOf({ ...A4_OVERLAP_5, window: { all: { mode: "overlap", overlap: 5.2 } } });
+  it("when the exact aperture is not a multiple of the cutting step, then it rounds down and both overlaps grow, on the shown 0.1 mm grid", () => {
+    // 210 − 2 × 5.2 = 199.6 mm → 199.5 mm at the 0.5 mm step; the 0.1 mm lost goes to the two sides on the
+    // shown grid (0.0 to the left, 0.1 to the right), so every shown figure is exact and the sheet adds up.
+    const { geometry, plan } = planOf({ ...A4_OVERLAP_5, window: { all: { mode: "overlap", overlap: 5.2 } } });
     expect(geometry.aperture.width).toBe(199.5);
-    expect(geometry.overlap.left).toBeCloseTo(5.25, 9);
-    expect(geometry.overlap.right).toBeCloseTo(5.25, 9);
+    expect(geometry.overlap.left).toBeCloseTo(5.2, 9);
+    expect(geometry.overlap.right).toBeCloseTo(5.3, 9);
     expect(geometry.overlap.left).toBeGreaterThanOrEqual(5.2);
+    expect([plan.display["overlap.left"], plan.display["aperture.width"], plan.display["overlap.right"]]).toEqual(["5.2 mm", "199.5 mm", "5.3 mm"]);
   });
 
   it("when the sheet's own border is wider than the overlap, then the plan says the border shows", () => {
@@ -167,15 +169,35 @@ describe("window in float mode", () => {
     expect(checkOf(plan, "overlap-minimum")).toMatchObject({ verdict: "pass", reason: "The sheet floats on every side; no side is held by the window." });
   });
 
-  it("when a floated sheet is to be T-hinged, then every float side is an error and the hinge check fails", () => {
+  it("when a floated sheet is to be T-hinged along the top, then the top edge is an error and the hinge check fails", () => {
+    // T-hinges hide under a window that covers the edge they sit on; on a float they show (LoC guide; common practice).
     const { plan } = planOf({ ...FLOAT_10, materials: { attachment: "t-hinge", adhesive: "wheat-starch-paste" } });
     const errors = plan.findings.filter((f) => f.code === "float-needs-float-hinge");
-    expect(errors.map((f) => f.side)).toEqual(["left", "top", "right", "bottom"]);
-    expect(errors.every((f) => f.severity === "error")).toBe(true);
-    expect(codes(plan)).not.toContain("float");
+    expect(errors.map((f) => f.side)).toEqual(["top"]);
+    expect(errors.every((f) => f.severity === "error" && f.field === "materials.attachment")).toBe(true);
+    expect(plan.findings.filter((f) => f.code === "float").map((f) => f.side)).toEqual(["left", "right", "bottom"]);
     expect(checkOf(plan, "hinge-placement").verdict).toBe("fail");
-    expect(checkOf(plan, "hinge-placement").reason).toContain("T-hinges need the window to cover the edge");
+    expect(checkOf(plan, "hinge-placement").reason).toContain("where the T-hinges sit");
     expect(plan.level).toBe("fail");
+  });
+
+  it("when the window covers the top edge and only the bottom floats, then T-hinges along the top are right", () => {
+    // Common practice (no source): T-hinges wherever the window covers the hinged (top) edge.
+    const { plan } = planOf({
+      unit: "mm",
+      sheet: { width: 210, height: 297 },
+      window: { left: { mode: "overlap", overlap: 6 }, top: { mode: "overlap", overlap: 6 }, right: { mode: "overlap", overlap: 6 }, bottom: { mode: "float", reveal: 8 } },
+      materials: { attachment: "t-hinge", adhesive: "wheat-starch-paste", hingeEdge: "top", hingeCount: 2 },
+    });
+    expect(codes(plan)).not.toContain("float-needs-float-hinge");
+    expect(checkOf(plan, "hinge-placement").verdict).toBe("pass");
+  });
+
+  it("when a sheet floats on every side with pendant hinges, then the hinge check warns that they show above the sheet", () => {
+    // A pendant hinge stands up past the top edge: on a float it is in view (common practice, no source).
+    const { plan } = planOf({ ...FLOAT_10, materials: { attachment: "pendant-hinge", adhesive: "wheat-starch-paste", hingeEdge: "top", hingeCount: 2 } });
+    expect(checkOf(plan, "hinge-placement").verdict).toBe("warn");
+    expect(checkOf(plan, "hinge-placement").reason).toContain("pendant hinges would show above the sheet");
   });
 
   it("when a floated sheet is V-hinged, then there is no hinge error", () => {
@@ -213,26 +235,36 @@ describe("custom window", () => {
     expect(plan.level).toBe("fail");
   });
 
-  it("when a custom window opens past the sheet's edge, then that side is reported as not held, not as short", () => {
+  it("when a custom window runs past the sheet's edge, then that side is an error naming the side and the field, never a warning", () => {
+    // A custom window must lie on the sheet; showing the whole sheet is a float (docs/trade-reference.md §3).
     const { plan } = planOf({ unit: "mm", sheet: { width: 210, height: 297 }, window: { mode: "custom", width: 200, height: 280, left: -4, top: 8 } });
     expect(plan.overlap.left).toBe(-4);
-    const past = plan.findings.filter((f) => f.code === "window-past-sheet");
-    expect(past.map((f) => f.side)).toEqual(["left"]);
-    expect(past[0].message).toContain("4 mm past the edge");
-    expect(plan.findings.filter((f) => f.code === "overlap-below-minimum")).toEqual([]);
+    const off = plan.findings.filter((f) => f.code === "window-off-sheet");
+    expect(off.map((f) => [f.side, f.field, f.severity])).toEqual([["left", "window.left", "error"]]);
+    expect(off[0].message).toContain("Left edge: the window runs 4 mm past the edge of the sheet");
+    expect(plan.level).toBe("fail");
   });
 
-  it("when a custom window is wider than the sheet, then the plan says so", () => {
+  it("when a custom window lies wholly off the sheet, then it is an error at the window's position", () => {
+    const { plan } = planOf({ unit: "mm", sheet: { width: 210, height: 297 }, window: { mode: "custom", width: 100, height: 100, left: 220, top: 8 } });
+    const off = plan.findings.filter((f) => f.code === "window-off-sheet");
+    expect(off).toHaveLength(1);
+    expect(off[0]).toMatchObject({ severity: "error", field: "window.left" });
+    expect(off[0].message).toContain("wholly off the sheet");
+  });
+
+  it("when a custom window is wider than the sheet, then it is an error at window.width", () => {
     const { plan } = planOf({ unit: "mm", sheet: { width: 210, height: 297 }, window: { mode: "custom", width: 220, height: 280, left: -5, top: 8 } });
-    expect(codes(plan)).toContain("window-larger-than-sheet");
-    expect(plan.findings.find((f) => f.code === "window-larger-than-sheet")!.message).toContain("its width");
+    const big = plan.findings.find((f) => f.code === "window-larger-than-sheet")!;
+    expect(big).toMatchObject({ severity: "error", field: "window.width" });
+    expect(big.message).toContain("The window's width (220 mm) is larger than the sheet's (210 mm)");
   });
 
-  it("when the custom window is not a multiple of the step, then it rounds down and the lost width goes to both overlaps", () => {
+  it("when the custom window is not a multiple of the step, then it rounds down and the lost width goes to both overlaps, on the shown grid", () => {
     const { geometry } = planOf({ unit: "mm", sheet: { width: 210, height: 297 }, window: { mode: "custom", width: 190.3, height: 280, left: 10, top: 8 } });
     expect(geometry.aperture.width).toBe(190);
-    expect(geometry.overlap.left).toBeCloseTo(10.15, 9);
-    expect(geometry.overlap.right).toBeCloseTo(9.85, 9);
+    expect(geometry.overlap.left).toBeCloseTo(10.1, 9);
+    expect(geometry.overlap.right).toBeCloseTo(9.9, 9);
   });
 });
 
@@ -602,9 +634,19 @@ describe("conservation checks", () => {
       expect(verdict("uv-glazing", { ...light, glazing: { material: "glass", thickness: 2 } })).toBe("fail");
     });
 
-    it("when no glazing is chosen for a light-sensitive object, then it warns; an object not light-sensitive passes", () => {
+    it("when no glazing is chosen for a light-sensitive object, then it warns", () => {
       expect(verdict("uv-glazing", { ...light, glazing: undefined })).toBe("warn");
-      expect(verdict("uv-glazing", { glazing: { material: "glass", thickness: 2 } })).toBe("pass");
+    });
+
+    it("when an unflagged work on paper or a very sensitive medium is under plain glass, then it fails too", () => {
+      // An unflagged work on paper is very sensitive, the cautious default; watercolours and colour photographs
+      // are very sensitive too (NISO Z39.79 via NEDCC Preservation 101; BRIEF §7). UV filtering for them: NEDCC 4.10.
+      const plain = { glazing: { material: "glass" as const, thickness: 2 } };
+      expect(verdict("uv-glazing", { ...plain, object: { objectType: "print" } })).toBe("fail");
+      expect(verdict("uv-glazing", { ...plain, object: { objectType: "watercolour" } })).toBe("fail");
+      expect(verdict("uv-glazing", { ...plain, object: { objectType: "photograph", photoProcess: "chromogenic" } })).toBe("fail");
+      expect(verdict("uv-glazing", plain)).toBe("fail");
+      expect(verdict("uv-glazing", { glazing: { material: "glass", thickness: 2, uvFiltering: true }, object: { objectType: "watercolour" } })).toBe("pass");
     });
   });
 
@@ -663,8 +705,10 @@ describe("impossible plans", () => {
     // 210 − 2 × 104.9 = 0.2 mm, which rounds down to 0 at the 0.5 mm step.
     const fields = refusalOf({ ...A4_OVERLAP_5, window: { all: { mode: "overlap", overlap: 104.9 } } });
     expect(Object.keys(fields)).toEqual(["window"]);
-    const custom = refusalOf({ ...A4_OVERLAP_5, window: { mode: "custom", width: 0.3, height: 100, left: 10, top: 10 } });
-    expect(Object.keys(custom)).toEqual(["window.width"]);
+    // A custom window narrower than the smallest size (5 mm) is refused by the contract, at its field.
+    const custom = MountPlanInputSchema.safeParse({ ...A4_OVERLAP_5, window: { mode: "custom", width: 0.3, height: 100, left: 10, top: 10 } });
+    expect(custom.success).toBe(false);
+    expect(custom.error!.issues.map((i) => i.path.join("."))).toEqual(["window.width"]);
   });
 
   it("when the fitted outer is narrower than the window, then it is refused at fitOuter.width", () => {
@@ -697,7 +741,7 @@ describe("the drawing model", () => {
   const numbersOf = (s: Shape): number[] => Object.values(s).filter((v): v is number => typeof v === "number");
   const drawingOf = (input: MountPlanInput) => {
     const { geometry } = planOf(input);
-    return { geometry, drawing: planDrawing(geometry, { length: (mm) => formatLength(mm, geometry.unit) }, [{ edge: "top", offset: 20, width: 25 }]) };
+    return { geometry, drawing: planDrawing(geometry, [{ edge: "top", offset: 20, width: 25 }]) };
   };
   const band = (shapes: Shape[], side: string) => shapes.find((s) => s.kind === "rect" && s.role.startsWith("band-") && s.side === side) as Extract<Shape, { kind: "rect" }> | undefined;
 
@@ -795,15 +839,14 @@ describe("the plan's level and cross-checks", () => {
     expect(plan.level).toBe("warn");
   });
 
-  it("when a custom window opens past the sheet and the sheet is T-hinged, then that side is an error", () => {
+  it("when a custom window opens past the sheet, then that side is an error whatever the hinges", () => {
     const { plan } = planOf({
       unit: "mm",
       sheet: { width: 210, height: 297 },
       window: { mode: "custom", width: 210, height: 280, left: 5, top: 8 },
       materials: { attachment: "t-hinge", adhesive: "wheat-starch-paste" },
     });
-    const errors = plan.findings.filter((f) => f.code === "float-needs-float-hinge");
-    expect(errors.map((f) => f.side)).toEqual(["right"]);
+    expect(plan.findings.filter((f) => f.code === "window-off-sheet").map((f) => f.side)).toEqual(["right"]);
     expect(plan.level).toBe("fail");
   });
 

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import {
+  MAX_PLACEMENTS,
   STANDARD_BOARD_SHEETS,
   blanksPerSheet,
   cuttingList,
@@ -298,12 +299,15 @@ describe("blanksPerSheet: properties", () => {
     const small = { width: 1, height: 1.5 };
     const r = blanksPerSheet(small, { width: 200, height: 200 }, 0.2);
     expect(r.perSheet).toBeGreaterThanOrEqual(bestGrid(small, { width: 200, height: 200 }, 0.2));
-    expect(r.placements).toHaveLength(r.perSheet);
+    // The count is exact; placements are listed for at most MAX_PLACEMENTS blanks, so memory stays bounded.
+    expect(r.placements).toHaveLength(Math.min(r.perSheet, MAX_PLACEMENTS));
     expectValidLayout(r.placements, { width: 200, height: 200 }, 0.2);
     const tiny = { width: 0.3, height: 0.4 };
     const t = blanksPerSheet(tiny, { width: 200, height: 200 }, 0);
     expect(t.perSheet).toBe(bestGrid(tiny, { width: 200, height: 200 }, 0));
-    expect(t.placements).toHaveLength(t.perSheet);
+    expect(t.placements).toHaveLength(Math.min(t.perSheet, MAX_PLACEMENTS));
+    // Asked for no placements (the planner only counts), none are built.
+    expect(blanksPerSheet(tiny, { width: 3000, height: 3000 }, 0, 0).placements).toHaveLength(0);
   });
 
   it("when 30 typical blanks are sized against sheets up to 1524 × 1016 mm, then each returns a layout", () => {

@@ -61,8 +61,8 @@ describe("ObjectCreateSchema", () => {
     expect(fieldsOf({ ...VALID, sheetWidthMm: "210" })).toEqual({ sheetWidthMm: "Sheet width: enter a length." });
   });
 
-  it("when the sheet is larger than 5 m, then it is refused", () => {
-    expect(fieldsOf({ ...VALID, sheetWidthMm: 5001 })).toEqual({ sheetWidthMm: "Sheet width must be at most 5000 mm." });
+  it("when the sheet is larger than 3 m (the planner's bound, docs/trade-reference.md §10), then it is refused", () => {
+    expect(fieldsOf({ ...VALID, sheetWidthMm: 3001 })).toEqual({ sheetWidthMm: "Sheet width must be at most 3000 mm." });
   });
 
   it("when a border is negative, then that border is named", () => {

@@ -3,7 +3,7 @@ import { Link } from "react-router";
 import { EVENT_TYPE_LABELS, type EventType, type HistoryEvent } from "@shared/schemas/history.ts";
 import { EmptyState, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { Button } from "@/components/ui/button.tsx";
-import { formatDateTime } from "@/lib/format.ts";
+import { formatDate, formatDateTime } from "@/lib/format.ts";
 import { useHistory } from "../api/history.ts";
 
 /** Filter groups in the framer's words. */
@@ -56,7 +56,8 @@ export function Timeline({ objectId }: { objectId: string }) {
               <li key={e.seq} className="relative">
                 <span aria-hidden="true" className="absolute -left-[1.6rem] top-1.5 h-2.5 w-2.5 rounded-full border-2 border-paper-sheet bg-accent" />
                 <p className="text-xs text-graphite">
-                  <span className="font-semibold text-ink-soft">{EVENT_TYPE_LABELS[e.type]}</span> · {formatDateTime(e.at)} · {e.actorName}
+                  <span className="font-semibold text-ink-soft">{EVENT_TYPE_LABELS[e.type]}</span> · <time dateTime={e.occurredOn}>{formatDate(e.occurredOn)}</time> · {e.actorName}
+                  {e.at.slice(0, 10) !== e.occurredOn && <span> · entered {formatDateTime(e.at)}</span>}
                 </p>
                 <p className="text-sm">{e.summary}</p>
                 {Array.isArray(e.data.changes) && e.data.changes.length > 0 && (

@@ -19,9 +19,8 @@ import {
 } from "@shared/schemas/mountings.ts";
 import { ADHESIVES, ATTACHMENT_METHODS, MountPlanInputSchema, SIDES, type MountPlanInput } from "@shared/schemas/mount-plan.ts";
 import { issuesToFields } from "@shared/schemas/errors.ts";
-import { computePlan, planDrawing } from "@shared/domain/mount-plan/index.ts";
-import { planInputFor } from "@shared/domain/mounting.ts";
-import { formatLength } from "@shared/domain/units.ts";
+import { draftPlan, planObjectOf, recordPlan, type CatalogueFacts, type PlanSettings } from "@shared/domain/mounting.ts";
+import { hingesWanted, planDrawing } from "@shared/domain/mount-plan/index.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
 import { Button } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
@@ -70,13 +69,15 @@ function resolverFor(planInput: MountPlanInput, mode: MountingFormMode): Resolve
 type Props = {
   mode: MountingFormMode;
   planInput: MountPlanInput;
-  settings: { minOverlapMm: number; rebateClearanceMm: number };
+  settings: PlanSettings;
+  /** The object's catalogue: the live checks read it, as the record page's do. */
+  catalogue: CatalogueFacts;
   initial?: { reason: string; mountedOn: string; data: MountingData | FormData };
   onSubmit: (values: MountingCreate & { correctionReason: string }) => Promise<void>;
   onCancel: () => void;
 };
 
-export function MountingForm({ mode, planInput, settings, initial, onSubmit, onCancel }: Props) {
+export function MountingForm({ mode, planInput, settings, catalogue, initial, onSubmit, onCancel }: Props) {
   const hasTop = !!planInput.doubleMount;
   const defaults: MountingFormValues = {
     reason: initial?.reason ?? "first-mounting",
@@ -96,13 +97,12 @@ export function MountingForm({ mode, planInput, settings, initial, onSubmit, onC
   const live = useMemo(() => {
     const parsed = MountingDataSchema.safeParse({ ...watched.data, plan: planInput });
     const data = parsed.success ? parsed.data : null;
-    const r = computePlan(data ? planInputFor(data) : MountPlanInputSchema.parse(planInput), settings);
+    const r = data ? recordPlan(data, catalogue, settings) : draftPlan(MountPlanInputSchema.parse(planInput), catalogue, settings);
     return { result: r, complete: parsed.success };
-  }, [watched, planInput, settings]);
+  }, [watched, planInput, settings, catalogue]);
   const geometry = live.result.ok ? live.result.geometry : null;
-  const unit = planInput.unit;
   const hingeMarks = (watched.data?.attachment?.hinges ?? []).filter(Boolean).map((h) => ({ edge: h.edge, offset: Number(h.offsetMm) || 0, width: Number(h.widthMm) || 0 }));
-  const model = geometry ? planDrawing(geometry, { length: (mm) => formatLength(mm, unit, { denominator: 16 }) }, hingeMarks) : null;
+  const model = geometry ? planDrawing(geometry, hingeMarks) : null;
   const method = watched.data?.attachment?.method ?? "";
 
   function edgeLength(edge: string) {
@@ -118,7 +118,7 @@ export function MountingForm({ mode, planInput, settings, initial, onSubmit, onC
   function placeHinges() {
     if (!geometry) return;
     const w = geometry.sheet.width;
-    const n = Math.max(2, Math.ceil(w / 350));
+    const n = hingesWanted(geometry.sheet, planObjectOf(catalogue).paperWeightGsm).count;
     const width = Math.min(25, Math.round(w / (n * 3)));
     hinges.replace(Array.from({ length: n }, (_, i) => ({ edge: "top" as const, offsetMm: Math.round(((i + 0.5) * w) / n - width / 2), widthMm: width })));
   }

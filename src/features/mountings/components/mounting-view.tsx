@@ -1,9 +1,8 @@
 import type { ReactNode } from "react";
 import { BACKING_TYPE_LABELS, BOARD_GRADE_LABELS, GLAZING_TYPE_LABELS, SEALING_TYPE_LABELS, type Board, type MountingRevision } from "@shared/schemas/mountings.ts";
 import { SIDES } from "@shared/schemas/mount-plan.ts";
-import { computePlan, planDrawing } from "@shared/domain/mount-plan/index.ts";
-import { planInputFor } from "@shared/domain/mounting.ts";
-import { formatLength } from "@shared/domain/units.ts";
+import { lengthText, planDrawing } from "@shared/domain/mount-plan/index.ts";
+import { recordPlan, type PlanSettings } from "@shared/domain/mounting.ts";
 import { PlanDrawing } from "@/components/plan-drawing.tsx";
 import { ChecksList, LevelBadge } from "@/components/checks-list.tsx";
 import { ADHESIVE_LABELS, ATTACHMENT_METHOD_LABELS as ATTACHMENT_LABELS } from "@shared/schemas/mountings.ts";
@@ -22,15 +21,15 @@ const boardLine = (b: Board) =>
   [BOARD_GRADE_LABELS[b.grade], `${b.ply}-ply`, b.buffered ? "buffered" : "unbuffered", b.colour, b.maker, b.batch && `batch ${b.batch}`, b.patPassed ? "PAT passed" : null].filter(Boolean).join(" · ");
 
 /** One revision of a mounting record: the plan drawn with its hinges, the materials, the checks and how to undo it. */
-export function MountingView({ revision, settings }: { revision: MountingRevision; settings: { minOverlapMm: number; rebateClearanceMm: number } }) {
+export function MountingView({ revision, settings }: { revision: MountingRevision; settings: PlanSettings }) {
   const d = revision.data;
-  const plan = revision.plan;
-  const unit = d.plan.unit;
-  // The drawing is recomputed here from the saved input, exactly as the server did for `plan`.
-  const r = computePlan(planInputFor(d), settings);
-  const model = r.ok
-    ? planDrawing(r.geometry, { length: (mm) => formatLength(mm, unit, { denominator: 16 }) }, d.attachment.hinges.map((h) => ({ edge: h.edge, offset: h.offsetMm, width: h.widthMm })))
-    : null;
+  // Recomputed here from the saved input and the catalogue with the same function as the server's `plan`.
+  const r = recordPlan(d, revision.catalogue, settings);
+  const plan = r.ok ? r.plan : revision.plan;
+  // One unit on the screen: the studio's, for the plan's figures and every other length alike.
+  const unit = settings.unit;
+  const len = (mm: number) => lengthText(mm, unit);
+  const model = r.ok ? planDrawing(r.geometry, d.attachment.hinges.map((h) => ({ edge: h.edge, offset: h.offsetMm, width: h.widthMm }))) : null;
   return (
     <div className="grid gap-5 lg:grid-cols-2">
       <div className="space-y-3">
@@ -42,8 +41,11 @@ export function MountingView({ revision, settings }: { revision: MountingRevisio
       </div>
       <div className="space-y-3">
         <dl className="rounded-card bg-paper-sheet p-4 text-sm shadow-card">
+          <Row label="Sheet"><span className="num">{plan.display.sheet}</span></Row>
           <Row label="Window (aperture)"><span className="num">{plan.display.aperture}</span></Row>
           <Row label="Overlap L · T · R · B"><span className="num">{SIDES.map((s) => plan.display[`overlap.${s}`]).join(" · ")}</span></Row>
+          <Row label="Borders L · T · R · B"><span className="num">{SIDES.map((s) => plan.display[`borders.${s}`]).join(" · ")}</span></Row>
+          {plan.display.topWindow && <Row label="Top board window"><span className="num">{plan.display.topWindow}</span></Row>}
           <Row label="Outer = glazing = backing"><span className="num">{plan.display.outer}</span></Row>
           <Row label="Rebate"><span className="num">{plan.display.rebate}</span></Row>
           <Row label="Window board">{boardLine(d.boards.window)}</Row>
@@ -57,15 +59,15 @@ export function MountingView({ revision, settings }: { revision: MountingRevisio
               <ol className="num">
                 {d.attachment.hinges.map((h, i) => (
                   <li key={i}>
-                    {i + 1}. {h.edge} edge, {formatLength(h.offsetMm, unit, { denominator: 16 })} from the corner, {formatLength(h.widthMm, unit, { denominator: 16 })} wide
+                    {i + 1}. {h.edge} edge, {len(h.offsetMm)} from the corner, {len(h.widthMm)} wide
                   </li>
                 ))}
               </ol>
             </Row>
           )}
-          <Row label="Glazing">{[GLAZING_TYPE_LABELS[d.glazing.type], d.glazing.thicknessMm && `${d.glazing.thicknessMm} mm`].filter(Boolean).join(" · ")}</Row>
-          <Row label="Spacer">{[d.spacer?.type, d.spacer?.depthMm && `${d.spacer.depthMm} mm deep`].filter(Boolean).join(" · ")}</Row>
-          <Row label="Frame">{[d.frame?.moulding, d.frame?.finish, d.frame?.faceWidthMm && `${d.frame.faceWidthMm} mm face`, d.frame?.rebateDepthMm && `${d.frame.rebateDepthMm} mm rebate depth`].filter(Boolean).join(" · ")}</Row>
+          <Row label="Glazing">{[GLAZING_TYPE_LABELS[d.glazing.type], d.glazing.thicknessMm && len(d.glazing.thicknessMm)].filter(Boolean).join(" · ")}</Row>
+          <Row label="Spacer">{[d.spacer?.type, d.spacer?.depthMm && `${len(d.spacer.depthMm)} deep`].filter(Boolean).join(" · ")}</Row>
+          <Row label="Frame">{[d.frame?.moulding, d.frame?.finish, d.frame?.faceWidthMm && `${len(d.frame.faceWidthMm)} face`, d.frame?.rebateDepthMm && `${len(d.frame.rebateDepthMm)} rebate depth`].filter(Boolean).join(" · ")}</Row>
           <Row label="Backing">{d.backing && [BACKING_TYPE_LABELS[d.backing.type], d.backing.notes].filter(Boolean).join(" · ")}</Row>
           <Row label="Sealing">{d.sealing && [SEALING_TYPE_LABELS[d.sealing.type], d.sealing.notes].filter(Boolean).join(" · ")}</Row>
           <Row label="Hanging">{[d.hanging?.hardware, d.hanging?.wire, d.hanging?.notes].filter(Boolean).join(" · ")}</Row>

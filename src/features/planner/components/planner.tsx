@@ -67,7 +67,7 @@ export function Planner({ settings, initial, context, onSave, saveState }: Props
     if (!result.ok) for (const [path, msg] of Object.entries(result.fields)) map[fieldForPath(path, values)] ??= msg;
     return map;
   }, [result, values]);
-  const model = useMemo(() => (result.ok ? planDrawing(result.geometry, { length: (mm) => formatLength(mm, unit, { denominator: 16 }) }) : null), [result, unit]);
+  const model = useMemo(() => (result.ok ? planDrawing(result.geometry) : null), [result, unit]);
 
   function switchUnit(next: Unit) {
     const from = getValues("unit");
