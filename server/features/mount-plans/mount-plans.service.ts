@@ -8,7 +8,8 @@ import { DEFAULT_KERF_MM } from "../../../shared/domain/mount-plan/constants.ts"
 import { AppError, conflict, notFound } from "../../lib/errors.ts";
 import { assertCan } from "../../middleware/require-permission.ts";
 import { getSettings } from "../settings/settings.repo.ts";
-import { findObject } from "../objects/objects.repo.ts";
+import { findObject, type ObjectRow } from "../objects/objects.repo.ts";
+import { draftPlan } from "../../../shared/domain/mounting.ts";
 import * as repo from "./mount-plans.repo.ts";
 import { appendEvent } from "../history/history.chain.ts";
 import type { Db as DbT } from "../../db/client.ts";
@@ -27,16 +28,24 @@ export function createMountPlansService(db: Db) {
     return result.plan;
   }
 
+  /** A draft on an object: recomputed with the object's catalogue (draftPlan), shown in the studio's unit. */
+  function draftOf(input: MountPlanParsed, o: ObjectRow, at = "") {
+    const result = draftPlan(input, o, getSettings(db));
+    if (!result.ok) throw impossible(Object.fromEntries(Object.entries(result.fields).map(([path, message]) => [at + path, message])));
+    return result.plan;
+  }
+
   function toSaved(row: repo.PlanRow): SavedPlan {
     // A saved plan is recomputed from its input every time it is shown, never stored as numbers.
     const input = MountPlanInputSchema.parse(row.input);
+    const o = findObject(db, row.objectId)!;
     return {
       id: row.id,
       objectId: row.objectId,
       status: "draft",
       version: row.version,
       input: row.input as SavedPlan["input"],
-      plan: calculate(input),
+      plan: draftOf(input, o),
       updatedAt: row.updatedAt.toISOString(),
       updatedBy: row.updatedBy,
     };
@@ -83,7 +92,7 @@ export function createMountPlansService(db: Db) {
     saveDraft(user: SessionUser, objectId: string, body: SavePlan): SavedPlan {
       const o = loadObject(user, objectId);
       assertCan(user, "plan:write", { clientId: o.clientId }, { what: "That object" });
-      const plan = calculate(body.input, "input.");
+      const plan = draftOf(body.input, o, "input.");
       const logSaved = (tx: DbT, planId: string) =>
         appendEvent(tx, { objectId, type: "plan-saved", actor: user, summary: `Draft plan saved: window ${plan.display.aperture}, outer ${plan.display.outer}.`, data: { planId } });
       const existing = repo.findDraft(db, objectId);

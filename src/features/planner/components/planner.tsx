@@ -65,6 +65,8 @@ export function Planner({ settings, initial, context, onSave, saveState }: Props
   const errors = useMemo(() => {
     const map: Record<string, string> = {};
     if (!result.ok) for (const [path, msg] of Object.entries(result.fields)) map[fieldForPath(path, values)] ??= msg;
+    // Geometry that cannot be built is an error on its field as well as in the findings.
+    else for (const f of result.plan.findings) if (f.severity === "error" && f.field) map[fieldForPath(f.field, values)] ??= f.message;
     return map;
   }, [result, values]);
   const model = useMemo(() => (result.ok ? planDrawing(result.geometry) : null), [result, unit]);
