@@ -1,0 +1,107 @@
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import { randomUUID } from "node:crypto";
+import { spawnSync } from "node:child_process";
+import { beforeAll, describe, expect, it } from "vitest";
+import { agentFor, createTestApp, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
+import { recordPlanInput } from "../../shared/domain/mounting.ts";
+import type { MountingDataInput, MountingRecord } from "../../shared/schemas/mountings.ts";
+import { MountingDataSchema } from "../../shared/schemas/mountings.ts";
+import type { MountPlan } from "../../shared/schemas/mount-plan.ts";
+
+// One record, three surfaces: the record page's API, the dossier (read back with pdftotext) and
+// POST /api/mount-plans/calculate with the same input and catalogue must give the same checks.
+// Sources of the rules: docs/trade-reference.md §5–§7. A4 = 210 × 297 mm (ISO 216).
+const t = createTestApp();
+let framer: Agent;
+let admin: Agent;
+let clientId: string;
+const tmp = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-consistency-"));
+
+const binary = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
+  const chunks: Buffer[] = [];
+  res.on("data", (c: Buffer) => chunks.push(c));
+  res.on("end", () => cb(null, Buffer.concat(chunks)));
+};
+function pdfText(pdf: Buffer): string {
+  const file = path.join(tmp, `${randomUUID()}.pdf`);
+  fs.writeFileSync(file, pdf);
+  const r = spawnSync("/usr/bin/pdftotext", [file, "-"], { encoding: "utf8" });
+  expect(r.status, r.stderr).toBe(0);
+  return r.stdout.replace(/\s+/g, " ");
+}
+
+const BASE: MountingDataInput = {
+  plan: { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 6 } }, borders: { all: 60 } },
+  boards: { window: { grade: "museum", buffered: true, ply: 4, patPassed: true }, backing: { grade: "museum", buffered: false, ply: 4 } },
+  attachment: { method: "t-hinge", tissue: "Kozo", adhesive: "wheat-starch-paste", hinges: [{ edge: "top", offsetMm: 40, widthMm: 20 }, { edge: "top", offsetMm: 150, widthMm: 20 }] },
+  glazing: { type: "float-glass", thicknessMm: 2 },
+  undoNotes: "Release the hinges with a damp blotter.",
+};
+
+const CASES: [string, Parameters<typeof makeObject>[2], MountingDataInput][] = [
+  ["a cyanotype photograph", { objectType: "photograph", photoProcess: "cyanotype" }, BASE],
+  ["a float on V-hinges", { objectType: "print" }, { ...BASE, plan: { ...BASE.plan, window: { all: { mode: "float", reveal: 12 } } }, attachment: { ...BASE.attachment, method: "v-hinge" } }],
+  ["a double mount of a pastel", { objectType: "pastel" }, { ...BASE, plan: { ...BASE.plan, doubleMount: { reveal: 4 } }, boards: { ...BASE.boards, top: { grade: "museum", buffered: true, ply: 4 } } }],
+];
+
+beforeAll(async () => {
+  const studio = await makeStudio(t);
+  framer = await agentFor(t, studio.people.framer);
+  admin = await agentFor(t, studio.people.admin);
+  clientId = studio.institution.id;
+});
+
+async function surfaces(objectOver: Parameters<typeof makeObject>[2], data: MountingDataInput) {
+  const objectId = makeObject(t.db, clientId, objectOver);
+  const draft = await framer.post(`/api/objects/${objectId}/mountings`).send({ reason: "first-mounting", mountedOn: "2026-03-02", data });
+  expect(draft.status, JSON.stringify(draft.body)).toBe(201);
+  const done = await framer.post(`/api/mountings/${draft.body.id}/complete`).send({ version: draft.body.version });
+  expect(done.status, JSON.stringify(done.body)).toBe(200);
+  const record = (await framer.get(`/api/mountings/${draft.body.id}`)).body as MountingRecord;
+  const input = recordPlanInput(MountingDataSchema.parse(data), record.current.catalogue);
+  const calc = (await framer.post("/api/mount-plans/calculate").send(input)).body as MountPlan;
+  const dossier = await framer.post(`/api/objects/${objectId}/documents/dossier`).buffer(true).parse(binary as never);
+  expect(dossier.status).toBe(200);
+  return { record: record.current.plan, calc, text: pdfText(dossier.body as Buffer) };
+}
+
+function expectSame(s: Awaited<ReturnType<typeof surfaces>>) {
+  expect(s.calc.checks.map((c) => [c.id, c.verdict])).toEqual(s.record.checks.map((c) => [c.id, c.verdict]));
+  expect(s.calc.level).toBe(s.record.level);
+  for (const c of s.record.checks) {
+    // Each reason as the record page shows it is printed in the dossier (its first words; the PDF wraps lines).
+    const start = c.reason.split(" ").slice(0, 6).join(" ");
+    expect(s.text, c.id).toContain(start);
+  }
+}
+
+describe("the same checks on the record page, in the dossier and from calculate", () => {
+  it.each(CASES)("when the object is %s, then the three agree", async (_name, obj, data) => {
+    const s = await surfaces(obj, data);
+    expectSame(s);
+    if (obj?.objectType === "photograph") expect(s.record.checks.find((c) => c.id === "photo-board")!.verdict).toBe("fail");
+    if (obj?.objectType === "pastel") expect(s.record.checks.find((c) => c.id === "friable-glazing")!.reason).not.toContain("does not apply");
+    // Plain float glass on a work on paper: very sensitive by default, so the UV check fails everywhere.
+    expect(s.record.checks.find((c) => c.id === "uv-glazing")!.verdict).toBe("fail");
+  });
+
+  it("when the studio works in inches and the record was made in mm, then the verdicts are unchanged and every figure shown is in inches", async () => {
+    const mm = await surfaces({ objectType: "photograph", photoProcess: "gelatin-silver" }, BASE);
+    const before = (await admin.get("/api/settings")).body;
+    try {
+      expect((await admin.put("/api/settings").send({ ...before, unit: "in" })).status).toBe(200);
+      const inch = await surfaces({ objectType: "photograph", photoProcess: "gelatin-silver" }, BASE);
+      expectSame(inch);
+      expect(inch.record.checks.map((c) => c.verdict)).toEqual(mm.record.checks.map((c) => c.verdict));
+      // As built: the same window in mm whatever the display (200 − 2 × 6 = 198, 297 − 12 = 285).
+      expect(inch.record.aperture).toEqual({ width: 198, height: 285 });
+      expect(inch.record.displayUnit).toBe("in");
+      for (const v of Object.values(inch.record.display)) expect(v).toMatch(/ in$/);
+      expect(inch.text).toContain(inch.record.display.aperture);
+    } finally {
+      await admin.put("/api/settings").send(before);
+    }
+  });
+});
