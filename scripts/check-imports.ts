@@ -1,4 +1,4 @@
-// Keeps imports running one way (STYLE.md rule 1): shared/ imports neither src/ nor server/;
+// Keeps imports running one way (DEVELOPERS.md, Architecture): shared/ imports neither src/ nor server/;
 // src/ and server/ never import each other; client features do not import other features.
 import fs from "node:fs";
 import path from "node:path";

@@ -71,7 +71,7 @@ export function can(actor: Actor | null | undefined, action: Action, resource?: 
     case "custody:read":
     case "client:read":
     case "valuation:read":
-      // Valuations are confidential: studio staff and the owning client's users only (BRIEF §3).
+      // Valuations are confidential: studio staff and the owning client's users only (docs/trade-reference.md §13).
       return studio || ownsResource(actor, resource);
     case "object:update":
     case "condition:write":

@@ -84,7 +84,7 @@ export const verification = sqliteTable("verification", {
   ...timestamps,
 });
 
-// ── Objects: the catalogue record (BRIEF §3). Lengths in mm. ─────────────
+// ── Objects: the catalogue record (docs/trade-reference.md §4). Lengths in mm. ─────────────
 export const objects = sqliteTable(
   "objects",
   {

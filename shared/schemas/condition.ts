@@ -13,7 +13,7 @@ export const CONDITION_CONTEXT_LABELS: Record<ConditionContext, string> = {
   incident: "Incident",
   claim: "Claim",
 };
-/** Reports for loans are signed by both parties (BRIEF §6). */
+/** Reports for loans are signed by both parties (docs/trade-reference.md §14). */
 export const TWO_PARTY_CONTEXTS: readonly ConditionContext[] = ["loan-out", "loan-return"];
 
 /** Overall rating, best first (Spectrum 5.0 "Condition": the overall rating is the worst finding's). */

@@ -1,7 +1,7 @@
 import { afterAll, afterEach } from "vitest";
 import { format } from "node:util";
 
-// STYLE.md rule 8: a console error fails the test. Calls are still printed, then the test
+// The house rule (DEVELOPERS.md, Tests): a console error fails the test. Calls are still printed, then the test
 // (or, outside any test, the file) fails with what was logged.
 const original = console.error.bind(console);
 let logged: string[] = [];

@@ -19,7 +19,7 @@ const RESOURCES: Record<Case, Resource | undefined> = {
   none: undefined,
 };
 
-// The expected answers, written out by hand from BRIEF §1 and §3 (not derived from the code):
+// The expected answers, written out by hand from docs/trade-reference.md §13 (not derived from the code):
 // each cell is [own client's record, another client's record, no record].
 type Row = Record<Role, [boolean, boolean, boolean]>;
 const Y = true;
@@ -46,15 +46,15 @@ const EXPECTED: Record<Action, Row> = {
   "condition:write": STUDIO_AND_REGISTRAR,
   "terms:manage": ADMIN_ONLY,
   "object:update": STUDIO_AND_REGISTRAR,
-  // BRIEF §3: valuations are confidential — admin, framers and the owning client's users only.
+  // docs/trade-reference.md §13: valuations are confidential — admin, framers and the owning client's users only.
   "valuation:read": STUDIO_AND_OWNER,
-  // BRIEF §1: a registrar keeps catalogue data and valuations current.
+  // docs/trade-reference.md §13: a registrar keeps catalogue data and valuations current.
   "valuation:update": STUDIO_AND_REGISTRAR,
   "client:read": STUDIO_AND_OWNER,
   "client:list": STUDIO_ONLY,
   "client:write": STUDIO_ONLY,
   "settings:read": EVERYONE,
-  // BRIEF §1: studio details, users and roles are the studio admin's.
+  // docs/trade-reference.md §13: studio details, users and roles are the studio admin's.
   "settings:update": ADMIN_ONLY,
   "user:manage": ADMIN_ONLY,
   "planner:use": EVERYONE,

@@ -47,7 +47,7 @@ function invalid(fields: Record<string, string>): AppError {
   return new AppError(422, "validation_failed", message, fields);
 }
 
-/** Photographs may use the paper terms as well as their own (BRIEF §6); everything else uses the paper list. */
+/** Photographs may use the paper terms as well as their own (docs/trade-reference.md §14); everything else uses the paper list. */
 const listsFor = (objectType: string): ("paper" | "photograph")[] => (objectType === "photograph" ? ["paper", "photograph"] : ["paper"]);
 
 const distinct = <T>(xs: T[]) => [...new Set(xs)];

@@ -25,7 +25,7 @@ import { createConditionService } from "../condition/condition.service.ts";
 import { findPhoto, type PhotoRow } from "../photos/photos.repo.ts";
 import { createDocumentsService } from "./documents.service.ts";
 
-/** The sentence every condition document carries (BRIEF §9). */
+/** The sentence every condition document carries (docs/trade-reference.md §12). */
 export const NOT_TREATMENT = "Condition notes are observations, not conservation treatment; refer treatment to a qualified conservator.";
 
 export const COMPARISON_WORDS: Record<ComparisonStatus, string> = {

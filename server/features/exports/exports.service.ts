@@ -44,7 +44,7 @@ export type ExportFilters = { status?: ObjectStatus; objectType?: ObjectType };
  * "Current location", "Owner", "Condition", "Condition check date", "Condition note",
  * "Condition checker/assessor", "Valuation", "Valuation currency", "Valuation date", "Valuer".
  * Everything else has a plain name. Lengths are in millimetres, with the unit in the name.
- * Columns marked `valuation` are confidential (BRIEF §3) and are left out, header and all, for a
+ * Columns marked `valuation` are confidential (docs/trade-reference.md §13) and are left out, header and all, for a
  * user without "valuation:read" on the client.
  */
 export const EXPORT_COLUMNS = {

@@ -7,7 +7,7 @@ let done = false;
 
 /**
  * Libre Franklin from the installed @fontsource files. The .woff files are registered: the .woff2
- * files register and embed without error but render blank pages (STACK.md).
+ * files register and embed without error but render blank pages (seen here; see DEVELOPERS.md, decision log).
  */
 export function registerFonts() {
   if (done) return;

@@ -1,5 +1,5 @@
 /**
- * Board yield and cutting list (BRIEF §4): how many blanks a full board sheet gives, and how a
+ * Board yield and cutting list (docs/trade-reference.md §11): how many blanks a full board sheet gives, and how a
  * batch of blanks packs onto the fewest sheets, with guillotine (edge-to-edge) cuts and blade kerf.
  *
  * One idea carries both: a cut removes `kerf` mm and blanks need no kerf at the sheet's outer edge,
@@ -38,7 +38,7 @@ const MAX_PATTERNS = 1_000;
  */
 export const MAX_PLACEMENTS = 2_000;
 
-/** Standard full board sheets (BRIEF §4). */
+/** Standard full board sheets (docs/trade-reference.md §11). */
 export const STANDARD_BOARD_SHEETS: { id: string; label: string; width: number; height: number }[] = [
   // 32 × 40 in and 40 × 60 in: suppliers' sizes; 1 in = 25.4 mm exactly (1959 agreement; NIST HB 44 App. C).
   { id: "32x40in", label: "32 × 40 in", width: 32 * MM_PER_INCH, height: 40 * MM_PER_INCH },

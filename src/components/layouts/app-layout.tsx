@@ -10,7 +10,7 @@ import { Skeleton } from "@/components/ui/feedback.tsx";
 
 type NavItem = { to: string; label: string; end?: boolean };
 
-/** The left rail differs by role (DESIGN.md "Where things live"). */
+/** The left rail differs by role: studio staff, collectors and registrars each see their own sections (DEVELOPERS.md, "The look"). */
 export function navFor(user: SessionUser): NavItem[] {
   if (isStudio(user)) {
     return [
