@@ -2,7 +2,7 @@ import type { Db } from "../../db/client.ts";
 import { inTransaction } from "../../db/client.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
 import { MountPlanInputSchema, type CuttingListRequest, type MountPlanParsed, type SavedPlan, type SavePlan } from "../../../shared/schemas/mount-plan.ts";
-import { computePlan, cuttingList } from "../../../shared/domain/mount-plan/index.ts";
+import { computePlan, cuttingList, type PlanResult } from "../../../shared/domain/mount-plan/index.ts";
 import { parseLength } from "../../../shared/domain/units.ts";
 import { DEFAULT_KERF_MM } from "../../../shared/domain/mount-plan/constants.ts";
 import { AppError, conflict, notFound } from "../../lib/errors.ts";
@@ -19,20 +19,22 @@ function impossible(fields: Record<string, string>) {
   return new AppError(422, "validation_failed", first ? `Check ${first[0]}: ${first[1]}` : "The plan cannot be computed.", fields);
 }
 
+/** The plan, or a 422 whose field paths name the request body's own fields (`at` is where the plan input sits). */
+function planOrRefuse(result: PlanResult, at: string) {
+  if (!result.ok) throw impossible(Object.fromEntries(Object.entries(result.fields).map(([path, message]) => [at + path, message])));
+  return result.plan;
+}
+
 export function createMountPlansService(db: Db) {
   /** `at` is where the plan input sits in the request body, so that field paths name the body's own fields. */
   function calculate(input: MountPlanParsed, at = "") {
     const s = getSettings(db);
-    const result = computePlan(input, { minOverlapMm: s.minOverlapMm, rebateClearanceMm: s.rebateClearanceMm });
-    if (!result.ok) throw impossible(Object.fromEntries(Object.entries(result.fields).map(([path, message]) => [at + path, message])));
-    return result.plan;
+    return planOrRefuse(computePlan(input, { minOverlapMm: s.minOverlapMm, rebateClearanceMm: s.rebateClearanceMm }), at);
   }
 
   /** A draft on an object: recomputed with the object's catalogue (draftPlan), shown in the studio's unit. */
   function draftOf(input: MountPlanParsed, o: ObjectRow, at = "") {
-    const result = draftPlan(input, o, getSettings(db));
-    if (!result.ok) throw impossible(Object.fromEntries(Object.entries(result.fields).map(([path, message]) => [at + path, message])));
-    return result.plan;
+    return planOrRefuse(draftPlan(input, o, getSettings(db)), at);
   }
 
   function toSaved(row: repo.PlanRow): SavedPlan {
