@@ -59,7 +59,6 @@ const SENSITIVE_PROCESSES = ["albumen", "salted-paper", "platinum-palladium", "d
 export type Formatters = { length: (mm: number, r?: "nearest" | "down" | "up") => string; shown: (mm: number) => string; minimum: () => string };
 
 export function conservationChecks(g: PlanGeometry, input: MountPlanParsed, f: Formatters): Check[] {
-  const fmt = f.length;
   const m = input.materials ?? {};
   const obj = input.object ?? {};
   const checks: Check[] = [];
@@ -89,7 +88,7 @@ export function conservationChecks(g: PlanGeometry, input: MountPlanParsed, f: F
     verdict: "pass",
     reason:
       g.spacerDepth > 0
-        ? `The window board and a ${fmt(g.spacerDepth)} spacer keep the glazing off the object.`
+        ? `The window board and a ${f.length(g.spacerDepth)} spacer keep the glazing off the object.`
         : `The window board (${g.topWindow ? "two boards, double mount" : "one board"}) keeps the glazing off the object.`,
     source: SOURCES.nedcc,
   });

@@ -2,7 +2,7 @@ import { formatMm, MM_PER_INCH, parseLength, roundTo, type Unit } from "../units
 import type { Check, Finding, MountPlan, MountPlanParsed, Side, SideName, Verdict } from "../../schemas/mount-plan.ts";
 import { PLAN_SCHEMA_VERSION, SIDES } from "../../schemas/mount-plan.ts";
 import * as K from "./constants.ts";
-import { conservationChecks, hingeEdges, worstVerdict } from "./checks.ts";
+import { conservationChecks, hingeEdges, worstVerdict, type Formatters } from "./checks.ts";
 import { blanksPerSheet } from "./yield.ts";
 import { figureLength, figureSize, figureText, fineGridMm, shownFigures, shownLength, type Figures } from "./figures.ts";
 
@@ -60,13 +60,71 @@ export const LARGE_IMAGE_SHARE = 0.1;
 /** Findings that mean the mount cannot be built as planned: a record of work done may not hold them. */
 export const UNBUILDABLE = new Set(["sheet-past-outer", "window-off-sheet", "window-larger-than-sheet", "image-borders-exceed-sheet", "lip-covers-window", "board-too-small"]);
 
+type BorderKind = "fitOuter" | "default" | "all" | "side" | "each";
+
+/** The field a side's border comes from, for messages about it. */
+function borderPath(kind: BorderKind, s: SideName): string {
+  if (kind === "fitOuter") return AXIS_OF[s] === "width" ? "fitOuter.width" : "fitOuter.height";
+  if (kind === "default") return "borders";
+  if (kind === "all") return "borders.all";
+  if (kind === "side" && AXIS_OF[s] === "width") return "borders.side";
+  return `borders.${s}`;
+}
+
+/**
+ * Reads one plan's lengths into mm, collecting field errors, and shows lengths in the display unit.
+ * A class rather than closures inside computePlan: the planner is a hot path, and the server's
+ * TypeScript loader names every local function it creates on each call.
+ */
+class PlanText implements Formatters {
+  readonly fields: Record<string, string> = {};
+  /** The studio minimum overlap as shown; set once the figures are known. */
+  minText = "";
+  constructor(
+    readonly unit: Unit,
+    readonly du: Unit,
+  ) {}
+
+  failed(): boolean {
+    for (const _ in this.fields) return true;
+    return false;
+  }
+
+  /** Reads a length into mm; records a field error and returns NaN when it is not one. */
+  len(v: string | number | undefined, path: string, opts: { min?: number; positive?: boolean; label: string }): number {
+    if (v === undefined) return NaN;
+    const r = parseLength(v, this.unit);
+    if (!r.ok) {
+      this.fields[path] = `${opts.label}: ${r.message}`;
+      return NaN;
+    }
+    if (opts.positive && !(r.mm > 0)) this.fields[path] = `${opts.label} must be greater than 0.`;
+    else if (opts.min !== undefined && r.mm < opts.min) this.fields[path] = `${opts.label} cannot be negative.`;
+    return r.mm;
+  }
+
+  /** Any length in the display unit, on the shown grid: for lengths that are not part of a sum. */
+  length(mm: number, rounding: "nearest" | "down" | "up" = "nearest"): string {
+    return figureLength(shownLength(mm, this.du, rounding), this.du);
+  }
+
+  /** A figure already on the shown grid, with its unit. */
+  shown(mm: number): string {
+    return figureLength(mm, this.du);
+  }
+
+  minimum(): string {
+    return this.minText;
+  }
+}
+
 /** Computes a mount plan. Pure: the same input and context always give the same plan. */
 export function computePlan(input: MountPlanParsed, ctx: PlanContext): PlanResult {
   const unit = input.unit;
   const du: Unit = ctx.displayUnit ?? unit;
-  const fields: Record<string, string> = {};
+  const t = new PlanText(unit, du);
+  const fields = t.fields;
   const findings: Finding[] = [];
-  const failed = () => Object.keys(fields).length > 0;
 
   const precision = input.precision ?? (unit === "in" ? 16 : 0.5);
   let stepMm: number;
@@ -78,27 +136,12 @@ export function computePlan(input: MountPlanParsed, ctx: PlanContext): PlanResul
     stepMm = precision || 0.5;
   }
   const gridMm = fineGridMm(unit);
-  /** Any length in the display unit, on the shown grid: for lengths that are not part of a sum. */
-  const fmt = (mm: number, rounding: "nearest" | "down" | "up" = "nearest") => figureLength(shownLength(mm, du, rounding), du);
-
-  /** Reads a length into mm; records a field error and returns NaN when it is not one. */
-  function len(v: string | number | undefined, path: string, opts: { min?: number; positive?: boolean; label: string }): number {
-    if (v === undefined) return NaN;
-    const r = parseLength(v, unit);
-    if (!r.ok) {
-      fields[path] = `${opts.label}: ${r.message}`;
-      return NaN;
-    }
-    if (opts.positive && !(r.mm > 0)) fields[path] = `${opts.label} must be greater than 0.`;
-    else if (opts.min !== undefined && r.mm < opts.min) fields[path] = `${opts.label} cannot be negative.`;
-    return r.mm;
-  }
 
   const sheet = {
-    width: len(input.sheet.width, "sheet.width", { positive: true, label: "Sheet width" }),
-    height: len(input.sheet.height, "sheet.height", { positive: true, label: "Sheet height" }),
+    width: t.len(input.sheet.width, "sheet.width", { positive: true, label: "Sheet width" }),
+    height: t.len(input.sheet.height, "sheet.height", { positive: true, label: "Sheet height" }),
   };
-  const minOverlapMm = input.minOverlap !== undefined ? len(input.minOverlap, "minOverlap", { min: 0, label: "Minimum overlap" }) : ctx.minOverlapMm;
+  const minOverlapMm = input.minOverlap !== undefined ? t.len(input.minOverlap, "minOverlap", { min: 0, label: "Minimum overlap" }) : ctx.minOverlapMm;
   if (input.bottomWeight !== undefined && input.bottomWeightPercent !== undefined) {
     fields.bottomWeightPercent = "Give the bottom weighting either as an amount or as a percentage, not both.";
   }
@@ -106,10 +149,10 @@ export function computePlan(input: MountPlanParsed, ctx: PlanContext): PlanResul
   if (input.imageBorders) {
     const b = input.imageBorders;
     imageBorders = {
-      left: len(b.left, "imageBorders.left", { min: 0, label: "Left border of the sheet" }),
-      top: len(b.top, "imageBorders.top", { min: 0, label: "Top border of the sheet" }),
-      right: len(b.right, "imageBorders.right", { min: 0, label: "Right border of the sheet" }),
-      bottom: len(b.bottom, "imageBorders.bottom", { min: 0, label: "Bottom border of the sheet" }),
+      left: t.len(b.left, "imageBorders.left", { min: 0, label: "Left border of the sheet" }),
+      top: t.len(b.top, "imageBorders.top", { min: 0, label: "Top border of the sheet" }),
+      right: t.len(b.right, "imageBorders.right", { min: 0, label: "Right border of the sheet" }),
+      bottom: t.len(b.bottom, "imageBorders.bottom", { min: 0, label: "Bottom border of the sheet" }),
     };
   }
 
@@ -124,10 +167,10 @@ export function computePlan(input: MountPlanParsed, ctx: PlanContext): PlanResul
   let custom: { width: number; height: number; left: number; top: number } | null = null;
   if ("mode" in w) {
     custom = {
-      width: len(w.width, "window.width", { positive: true, label: "Window width" }),
-      height: len(w.height, "window.height", { positive: true, label: "Window height" }),
-      left: len(w.left, "window.left", { label: "Window position from the left" }),
-      top: len(w.top, "window.top", { label: "Window position from the top" }),
+      width: t.len(w.width, "window.width", { positive: true, label: "Window width" }),
+      height: t.len(w.height, "window.height", { positive: true, label: "Window height" }),
+      left: t.len(w.left, "window.left", { label: "Window position from the left" }),
+      top: t.len(w.top, "window.top", { label: "Window position from the top" }),
     };
     overlap.left = custom.left;
     overlap.top = custom.top;
@@ -142,26 +185,26 @@ export function computePlan(input: MountPlanParsed, ctx: PlanContext): PlanResul
       const path = "all" in w ? "window.all" : `window.${s}`;
       modes[s] = spec.mode;
       if (spec.mode === "overlap") {
-        overlap[s] = len(spec.overlap, `${path}.overlap`, { min: 0, label: `${SIDE_WORD[s]} overlap` });
+        overlap[s] = t.len(spec.overlap, `${path}.overlap`, { min: 0, label: `${SIDE_WORD[s]} overlap` });
         askedPath[s] = `${path}.overlap`;
       } else if (spec.mode === "float") {
-        askedReveal[s] = len(spec.reveal, `${path}.reveal`, { min: 0, label: `${SIDE_WORD[s]} reveal` });
+        askedReveal[s] = t.len(spec.reveal, `${path}.reveal`, { min: 0, label: `${SIDE_WORD[s]} reveal` });
         overlap[s] = -(askedReveal[s] as number);
         askedPath[s] = `${path}.reveal`;
       } else {
-        hideBorder[s] = len(spec.border, `${path}.border`, { min: 0, label: `${SIDE_WORD[s]} border of the sheet` });
-        into[s] = len(spec.into, `${path}.into`, { label: `${SIDE_WORD[s]} cover into the image` });
+        hideBorder[s] = t.len(spec.border, `${path}.border`, { min: 0, label: `${SIDE_WORD[s]} border of the sheet` });
+        into[s] = t.len(spec.into, `${path}.into`, { label: `${SIDE_WORD[s]} cover into the image` });
         overlap[s] = (hideBorder[s] as number) + (into[s] as number);
         askedPath[s] = `${path}.into`;
       }
     }
   }
-  if (failed()) return { ok: false, fields };
+  if (t.failed()) return { ok: false, fields };
 
   const exact = { width: sheet.width - overlap.left - overlap.right, height: sheet.height - overlap.top - overlap.bottom };
-  if (!(exact.width > 0)) fields[custom ? "window.width" : "window"] = `The overlaps leave no window across: the sheet is ${fmt(sheet.width)} wide and the left and right overlaps take ${fmt(overlap.left + overlap.right)}.`;
-  if (!(exact.height > 0)) fields[custom ? "window.height" : "window"] = `The overlaps leave no window down: the sheet is ${fmt(sheet.height)} high and the top and bottom overlaps take ${fmt(overlap.top + overlap.bottom)}.`;
-  if (failed()) return { ok: false, fields };
+  if (!(exact.width > 0)) fields[custom ? "window.width" : "window"] = `The overlaps leave no window across: the sheet is ${t.length(sheet.width)} wide and the left and right overlaps take ${t.length(overlap.left + overlap.right)}.`;
+  if (!(exact.height > 0)) fields[custom ? "window.height" : "window"] = `The overlaps leave no window down: the sheet is ${t.length(sheet.height)} high and the top and bottom overlaps take ${t.length(overlap.top + overlap.bottom)}.`;
+  if (t.failed()) return { ok: false, fields };
 
   // Round toward safety, axis by axis. A held side never loses overlap: the window rounds down and
   // what it loses goes to the held sides (half each, on the shown grid). A float never loses reveal:
@@ -189,97 +232,97 @@ export function computePlan(input: MountPlanParsed, ctx: PlanContext): PlanResul
       }
     }
   }
-  if (!(aperture.width > 0)) fields[custom ? "window.width" : "window"] = `The window comes out narrower than one cutting step (${fmt(stepMm)}).`;
-  if (!(aperture.height > 0)) fields[custom ? "window.height" : "window"] = `The window comes out shorter than one cutting step (${fmt(stepMm)}).`;
-  if (failed()) return { ok: false, fields };
+  if (!(aperture.width > 0)) fields[custom ? "window.width" : "window"] = `The window comes out narrower than one cutting step (${t.length(stepMm)}).`;
+  if (!(aperture.height > 0)) fields[custom ? "window.height" : "window"] = `The window comes out shorter than one cutting step (${t.length(stepMm)}).`;
+  if (t.failed()) return { ok: false, fields };
   const windowOnSheet = { left: overlap.left, top: overlap.top };
 
   // ── Borders and outer size ───────────────────────────────────────────────
-  const weightMm = input.bottomWeight !== undefined ? len(input.bottomWeight, "bottomWeight", { min: 0, label: "Bottom weighting" }) : 0;
+  const weightMm = input.bottomWeight !== undefined ? t.len(input.bottomWeight, "bottomWeight", { min: 0, label: "Bottom weighting" }) : 0;
   const weightPct = input.bottomWeightPercent ?? 0;
   let borders: Sides;
-  /** Where a side's border comes from, for messages about it. */
-  let borderPath: (s: SideName) => string;
+  /** Where the borders come from, for messages about a side's border. */
+  let borderKind: BorderKind;
   if (input.fitOuter) {
-    const ow = len(input.fitOuter.width, "fitOuter.width", { positive: true, label: "Outer width" });
-    const oh = len(input.fitOuter.height, "fitOuter.height", { positive: true, label: "Outer height" });
-    if (failed()) return { ok: false, fields };
-    if (ow <= aperture.width) fields["fitOuter.width"] = `The outer width ${fmt(ow)} is not wider than the window (${fmt(aperture.width, "down")}).`;
+    const ow = t.len(input.fitOuter.width, "fitOuter.width", { positive: true, label: "Outer width" });
+    const oh = t.len(input.fitOuter.height, "fitOuter.height", { positive: true, label: "Outer height" });
+    if (t.failed()) return { ok: false, fields };
+    if (ow <= aperture.width) fields["fitOuter.width"] = `The outer width ${t.length(ow)} is not wider than the window (${t.length(aperture.width, "down")}).`;
     const vTotal = oh - aperture.height;
-    if (vTotal <= weightMm) fields["fitOuter.height"] = `The outer height ${fmt(oh)} leaves no room for top and bottom borders around a ${fmt(aperture.height, "down")} window${weightMm ? ` with ${fmt(weightMm)} bottom weighting` : ""}.`;
-    if (failed()) return { ok: false, fields };
+    if (vTotal <= weightMm) fields["fitOuter.height"] = `The outer height ${t.length(oh)} leaves no room for top and bottom borders around a ${t.length(aperture.height, "down")} window${weightMm ? ` with ${t.length(weightMm)} bottom weighting` : ""}.`;
+    if (t.failed()) return { ok: false, fields };
     const left = roundTo((ow - aperture.width) / 2, stepMm, "nearest");
     // The same rule as with given borders: bottom = top + amount, or bottom = top × (1 + percentage).
     const top = roundTo(weightPct ? vTotal / (2 + weightPct / 100) : (vTotal - weightMm) / 2, stepMm, "nearest");
     borders = { left, right: ow - aperture.width - left, top, bottom: vTotal - top };
-    borderPath = (s) => (AXIS_OF[s] === "width" ? "fitOuter.width" : "fitOuter.height");
+    borderKind = "fitOuter";
   } else {
     const b = input.borders;
     if (!b) {
       borders = { left: K.DEFAULT_BORDER_MM, top: K.DEFAULT_BORDER_MM, right: K.DEFAULT_BORDER_MM, bottom: K.DEFAULT_BORDER_MM };
-      findings.push({ code: "borders-assumed", severity: "info", message: `No borders were given, so ${fmt(K.DEFAULT_BORDER_MM)} all round is assumed.` });
-      borderPath = () => "borders";
+      findings.push({ code: "borders-assumed", severity: "info", message: `No borders were given, so ${t.length(K.DEFAULT_BORDER_MM)} all round is assumed.` });
+      borderKind = "default";
     } else if ("all" in b) {
-      const v = len(b.all, "borders.all", { min: 0, label: "Border" });
+      const v = t.len(b.all, "borders.all", { min: 0, label: "Border" });
       borders = { left: v, top: v, right: v, bottom: v };
-      borderPath = () => "borders.all";
+      borderKind = "all";
     } else if ("side" in b) {
-      const side = len(b.side, "borders.side", { min: 0, label: "Side border" });
-      borders = { left: side, right: side, top: len(b.top, "borders.top", { min: 0, label: "Top border" }), bottom: len(b.bottom, "borders.bottom", { min: 0, label: "Bottom border" }) };
-      borderPath = (s) => (AXIS_OF[s] === "width" ? "borders.side" : `borders.${s}`);
+      const side = t.len(b.side, "borders.side", { min: 0, label: "Side border" });
+      borders = { left: side, right: side, top: t.len(b.top, "borders.top", { min: 0, label: "Top border" }), bottom: t.len(b.bottom, "borders.bottom", { min: 0, label: "Bottom border" }) };
+      borderKind = "side";
     } else {
       borders = {
-        left: len(b.left, "borders.left", { min: 0, label: "Left border" }),
-        top: len(b.top, "borders.top", { min: 0, label: "Top border" }),
-        right: len(b.right, "borders.right", { min: 0, label: "Right border" }),
-        bottom: len(b.bottom, "borders.bottom", { min: 0, label: "Bottom border" }),
+        left: t.len(b.left, "borders.left", { min: 0, label: "Left border" }),
+        top: t.len(b.top, "borders.top", { min: 0, label: "Top border" }),
+        right: t.len(b.right, "borders.right", { min: 0, label: "Right border" }),
+        bottom: t.len(b.bottom, "borders.bottom", { min: 0, label: "Bottom border" }),
       };
-      borderPath = (s) => `borders.${s}`;
+      borderKind = "each";
     }
-    if (failed()) return { ok: false, fields };
+    if (t.failed()) return { ok: false, fields };
     borders.bottom += weightMm + (borders.top * weightPct) / 100;
     for (const s of SIDES) borders[s] = roundTo(borders[s], stepMm, "nearest");
   }
   const outer = { width: aperture.width + borders.left + borders.right, height: aperture.height + borders.top + borders.bottom };
-  const minB = input.minBorder !== undefined ? len(input.minBorder, "minBorder", { min: 0, label: "Minimum border" }) : undefined;
+  const minB = input.minBorder !== undefined ? t.len(input.minBorder, "minBorder", { min: 0, label: "Minimum border" }) : undefined;
 
   // ── Double mount ────────────────────────────────────────────────────────
   let topWindow: Box | null = null;
   let doubleReveal: number | null = null;
   if (input.doubleMount) {
-    doubleReveal = len(input.doubleMount.reveal, "doubleMount.reveal", { min: 0, label: "Double mount reveal" });
-    if (failed()) return { ok: false, fields };
+    doubleReveal = t.len(input.doubleMount.reveal, "doubleMount.reveal", { min: 0, label: "Double mount reveal" });
+    if (t.failed()) return { ok: false, fields };
     topWindow = { width: aperture.width + 2 * doubleReveal, height: aperture.height + 2 * doubleReveal };
     if (SIDES.some((s) => borders[s] <= doubleReveal!)) {
-      fields["doubleMount.reveal"] = `The ${fmt(doubleReveal)} reveal is as wide as a border; the top board would have no border left.`;
+      fields["doubleMount.reveal"] = `The ${t.length(doubleReveal)} reveal is as wide as a border; the top board would have no border left.`;
       return { ok: false, fields };
     }
   }
 
   // ── Glazing, package and frame ──────────────────────────────────────────
   const fr = input.frame ?? {};
-  const clearance = fr.clearance !== undefined ? len(fr.clearance, "frame.clearance", { min: 0, label: "Rebate clearance" }) : ctx.rebateClearanceMm;
-  const lip = fr.rebateLip !== undefined ? len(fr.rebateLip, "frame.rebateLip", { min: 0, label: "Rebate lip" }) : K.DEFAULT_REBATE_LIP_MM;
-  const faceWidth = fr.faceWidth !== undefined ? len(fr.faceWidth, "frame.faceWidth", { positive: true, label: "Moulding face width" }) : K.DEFAULT_FACE_WIDTH_MM;
+  const clearance = fr.clearance !== undefined ? t.len(fr.clearance, "frame.clearance", { min: 0, label: "Rebate clearance" }) : ctx.rebateClearanceMm;
+  const lip = fr.rebateLip !== undefined ? t.len(fr.rebateLip, "frame.rebateLip", { min: 0, label: "Rebate lip" }) : K.DEFAULT_REBATE_LIP_MM;
+  const faceWidth = fr.faceWidth !== undefined ? t.len(fr.faceWidth, "frame.faceWidth", { positive: true, label: "Moulding face width" }) : K.DEFAULT_FACE_WIDTH_MM;
   const wastePercent = fr.wastePercent ?? K.DEFAULT_WASTE_PERCENT;
-  const rebateDepth = fr.rebateDepth !== undefined ? len(fr.rebateDepth, "frame.rebateDepth", { positive: true, label: "Rebate depth" }) : undefined;
+  const rebateDepth = fr.rebateDepth !== undefined ? t.len(fr.rebateDepth, "frame.rebateDepth", { positive: true, label: "Rebate depth" }) : undefined;
   const gl = input.glazing;
-  const glazingThickness = gl ? len(gl.thickness, "glazing.thickness", { positive: true, label: "Glazing thickness" }) : undefined;
-  const spacerDepth = input.spacer ? len(input.spacer.depth, "spacer.depth", { min: 0, label: "Spacer depth" }) : 0;
+  const glazingThickness = gl ? t.len(gl.thickness, "glazing.thickness", { positive: true, label: "Glazing thickness" }) : undefined;
+  const spacerDepth = input.spacer ? t.len(input.spacer.depth, "spacer.depth", { min: 0, label: "Spacer depth" }) : 0;
   const bd = input.boards ?? {};
-  const windowBoard = bd.window !== undefined ? len(bd.window, "boards.window", { positive: true, label: "Window board thickness" }) : K.FOUR_PLY_MM;
-  const backingBoard = bd.backing !== undefined ? len(bd.backing, "boards.backing", { positive: true, label: "Backing board thickness" }) : K.FOUR_PLY_MM;
-  const extraBacking = bd.extraBacking !== undefined ? len(bd.extraBacking, "boards.extraBacking", { min: 0, label: "Extra backing thickness" }) : 0;
+  const windowBoard = bd.window !== undefined ? t.len(bd.window, "boards.window", { positive: true, label: "Window board thickness" }) : K.FOUR_PLY_MM;
+  const backingBoard = bd.backing !== undefined ? t.len(bd.backing, "boards.backing", { positive: true, label: "Backing board thickness" }) : K.FOUR_PLY_MM;
+  const extraBacking = bd.extraBacking !== undefined ? t.len(bd.extraBacking, "boards.extraBacking", { min: 0, label: "Extra backing thickness" }) : 0;
   let boardSheet: Box | null = null;
   let kerf = K.DEFAULT_KERF_MM;
   if (input.boardSheet) {
     boardSheet = {
-      width: len(input.boardSheet.width, "boardSheet.width", { positive: true, label: "Board sheet width" }),
-      height: len(input.boardSheet.height, "boardSheet.height", { positive: true, label: "Board sheet height" }),
+      width: t.len(input.boardSheet.width, "boardSheet.width", { positive: true, label: "Board sheet width" }),
+      height: t.len(input.boardSheet.height, "boardSheet.height", { positive: true, label: "Board sheet height" }),
     };
-    if (input.kerf !== undefined) kerf = len(input.kerf, "kerf", { min: 0, label: "Kerf" });
+    if (input.kerf !== undefined) kerf = t.len(input.kerf, "kerf", { min: 0, label: "Kerf" });
   }
-  if (failed()) return { ok: false, fields };
+  if (t.failed()) return { ok: false, fields };
 
   // Glazing and boards are cut to the outer size; the rebate takes the clearance, rounded up.
   const glazing: PlanGeometry["glazing"] = { width: outer.width, height: outer.height };
@@ -307,7 +350,7 @@ export function computePlan(input: MountPlanParsed, ctx: PlanContext): PlanResul
     yieldResult = { perSheet: y.perSheet, sheet: boardSheet, kerf, utilisation: y.utilisation };
   }
 
-  const partial: Omit<PlanGeometry, "figures"> = {
+  const base: Omit<PlanGeometry, "figures"> = {
     unit,
     stepMm,
     minOverlapMm,
@@ -330,11 +373,14 @@ export function computePlan(input: MountPlanParsed, ctx: PlanContext): PlanResul
     yield: yieldResult,
     spacerDepth,
   };
-  const fig = shownFigures(partial as PlanGeometry, du, askedReveal);
-  const geometry: PlanGeometry = { ...partial, figures: fig };
-  const L = (mm: number) => figureLength(mm, du);
-  const fmtMin = () => (du === "in" ? `${figureText(fig.minOverlap, du)} in (${formatMm(minOverlapMm, "up", 0.1)} mm)` : L(fig.minOverlap));
-  const shownImage = imageBorders ? (Object.fromEntries(SIDES.map((s) => [s, shownLength(imageBorders![s], du)])) as Sides) : null;
+  const fig = shownFigures(base, du, askedReveal);
+  // The figures go onto the same object: a copy of it would cost the planner a tenth of its time.
+  const geometry = base as PlanGeometry;
+  geometry.figures = fig;
+  t.minText = du === "in" ? `${figureText(fig.minOverlap, du)} in (${formatMm(minOverlapMm, "up", 0.1)} mm)` : t.shown(fig.minOverlap);
+  const shownImage: Sides | null = imageBorders
+    ? { left: shownLength(imageBorders.left, du), top: shownLength(imageBorders.top, du), right: shownLength(imageBorders.right, du), bottom: shownLength(imageBorders.bottom, du) }
+    : null;
 
   // ── Geometry that cannot be built: errors that name the side and the field ──
   if (imageBorders) {
@@ -345,7 +391,7 @@ export function computePlan(input: MountPlanParsed, ctx: PlanContext): PlanResul
           severity: "error",
           side: b,
           field: `imageBorders.${b}`,
-          message: `The sheet's ${a} and ${b} borders (${L(shownImage![a])} + ${L(shownImage![b])}) add up to the sheet's whole ${dim} (${L(fig.sheet[dim])}) or more, leaving no image: correct the borders on the object record.`,
+          message: `The sheet's ${a} and ${b} borders (${t.shown(shownImage![a])} + ${t.shown(shownImage![b])}) add up to the sheet's whole ${dim} (${t.shown(fig.sheet[dim])}) or more, leaving no image: correct the borders on the object record.`,
         });
       }
     }
@@ -357,8 +403,8 @@ export function computePlan(input: MountPlanParsed, ctx: PlanContext): PlanResul
         code: "sheet-past-outer",
         severity: "error",
         side: s,
-        field: borderPath(s),
-        message: `${SIDE_WORD[s]}: the sheet reaches ${fmt(overlap[s] - borders[s], "up")} past the outer edge of the boards (it runs ${L(fig.overlap[s])} under a ${L(fig.borders[s])} border), so it would stand proud of the boards and glazing. Widen the border or choose a larger outer size.`,
+        field: borderPath(borderKind, s),
+        message: `${SIDE_WORD[s]}: the sheet reaches ${t.length(overlap[s] - borders[s], "up")} past the outer edge of the boards (it runs ${t.shown(fig.overlap[s])} under a ${t.shown(fig.borders[s])} border), so it would stand proud of the boards and glazing. Widen the border or choose a larger outer size.`,
       });
     }
   }
@@ -375,14 +421,14 @@ export function computePlan(input: MountPlanParsed, ctx: PlanContext): PlanResul
             severity: "error",
             side: s,
             field: askedPath[s],
-            message: `${SIDE_WORD[s]}: the window runs ${fmt(-overlap[s], "up")} past the edge of the sheet, off the sheet. A custom window must lie within the sheet; to show the whole sheet, float it instead.`,
+            message: `${SIDE_WORD[s]}: the window runs ${t.length(-overlap[s], "up")} past the edge of the sheet, off the sheet. A custom window must lie within the sheet; to show the whole sheet, float it instead.`,
           });
         }
       }
     }
     for (const dim of ["width", "height"] as const) {
       if (custom[dim] > sheet[dim] + 1e-9) {
-        findings.push({ code: "window-larger-than-sheet", severity: "error", field: `window.${dim}`, message: `The window's ${dim} (${fmt(custom[dim])}) is larger than the sheet's (${L(fig.sheet[dim])}): it cannot hold the sheet on that axis.` });
+        findings.push({ code: "window-larger-than-sheet", severity: "error", field: `window.${dim}`, message: `The window's ${dim} (${t.length(custom[dim])}) is larger than the sheet's (${t.shown(fig.sheet[dim])}): it cannot hold the sheet on that axis.` });
       }
     }
   }
@@ -396,25 +442,25 @@ export function computePlan(input: MountPlanParsed, ctx: PlanContext): PlanResul
         code: "lip-covers-window",
         severity: "error",
         side: s,
-        field: fr.rebateLip !== undefined ? "frame.rebateLip" : borderPath(s),
+        field: fr.rebateLip !== undefined ? "frame.rebateLip" : borderPath(borderKind, s),
         message: topWindow
-          ? `${SIDE_WORD[s]}: the frame's ${fmt(lip)} rebate lip would cover the top board's ${L(shownVisible)} border and reach into its window.`
-          : `${SIDE_WORD[s]}: the frame's ${fmt(lip)} rebate lip would cover the ${L(fig.borders[s])} border and reach into the window.`,
+          ? `${SIDE_WORD[s]}: the frame's ${t.length(lip)} rebate lip would cover the top board's ${t.shown(shownVisible)} border and reach into its window.`
+          : `${SIDE_WORD[s]}: the frame's ${t.length(lip)} rebate lip would cover the ${t.shown(fig.borders[s])} border and reach into the window.`,
       });
     }
   }
   if (yieldResult && yieldResult.perSheet === 0) {
-    findings.push({ code: "board-too-small", severity: "error", field: "boardSheet", message: `A ${figureSize(fig.outer, du)} board does not fit on a ${fmt(yieldResult.sheet.width)} × ${fmt(yieldResult.sheet.height)} sheet.` });
+    findings.push({ code: "board-too-small", severity: "error", field: "boardSheet", message: `A ${figureSize(fig.outer, du)} board does not fit on a ${t.length(yieldResult.sheet.width)} × ${t.length(yieldResult.sheet.height)} sheet.` });
   }
 
   // ── Findings on each side ───────────────────────────────────────────────
   if (minB !== undefined) {
     for (const s of SIDES) {
-      if (borders[s] < minB - 1e-9) findings.push({ code: "border-below-minimum", severity: "warn", side: s, field: borderPath(s), message: `${SIDE_WORD[s]}: the border comes out at ${L(fig.borders[s])}, below the ${fmt(minB)} you asked for.` });
+      if (borders[s] < minB - 1e-9) findings.push({ code: "border-below-minimum", severity: "warn", side: s, field: borderPath(borderKind, s), message: `${SIDE_WORD[s]}: the border comes out at ${t.shown(fig.borders[s])}, below the ${t.length(minB)} you asked for.` });
     }
   }
   if (rebateDepth !== undefined && rebateDepth + 1e-9 < thickness) {
-    findings.push({ code: "rebate-too-shallow", severity: "warn", field: "frame.rebateDepth", message: `The rebate is ${fmt(rebateDepth)} deep but the package (glazing, spacer, boards and backing) is ${fmt(thickness, "up")} thick.` });
+    findings.push({ code: "rebate-too-shallow", severity: "warn", field: "frame.rebateDepth", message: `The rebate is ${t.length(rebateDepth)} deep but the package (glazing, spacer, boards and backing) is ${t.length(thickness, "up")} thick.` });
   }
   for (const s of SIDES) {
     const o = overlap[s];
@@ -426,28 +472,28 @@ export function computePlan(input: MountPlanParsed, ctx: PlanContext): PlanResul
         severity: "error",
         side: s,
         field: askedPath[s],
-        message: `${word}: the window covers ${L(Math.max(0, fig.overlap[s]))} of the sheet; the studio minimum is ${fmtMin()}.`,
+        message: `${word}: the window covers ${t.shown(Math.max(0, fig.overlap[s]))} of the sheet; the studio minimum is ${t.minimum()}.`,
       });
     }
     if (mode === "float") {
-      findings.push({ code: "float", severity: "info", side: s, message: `${word}: the sheet floats, with a ${L(-fig.overlap[s])} reveal between its edge and the window.` });
+      findings.push({ code: "float", severity: "info", side: s, message: `${word}: the sheet floats, with a ${t.shown(-fig.overlap[s])} reveal between its edge and the window.` });
     }
     if (mode === "hide-border") {
       const c = into[s] as number;
       if (c < 0) {
-        findings.push({ code: "window-shows-border", severity: "error", side: s, field: askedPath[s], message: `${word}: the window edge sits ${fmt(-c, "up")} outside the image, so the border shows.` });
+        findings.push({ code: "window-shows-border", severity: "error", side: s, field: askedPath[s], message: `${word}: the window edge sits ${t.length(-c, "up")} outside the image, so the border shows.` });
       } else {
         // How much of the image this side's window edge hides, against the image's size on that axis.
         const dim = AXIS_OF[s];
-        const borderOf = (side: SideName) => hideBorder[side] ?? imageBorders?.[side] ?? 0;
-        const image = sheet[dim] - borderOf(s) - borderOf(OPPOSITE[s]);
+        const o = OPPOSITE[s];
+        const image = sheet[dim] - (hideBorder[s] ?? imageBorders?.[s] ?? 0) - (hideBorder[o] ?? imageBorders?.[o] ?? 0);
         if (image > 0 && c > LARGE_IMAGE_SHARE * image + 1e-9) {
           findings.push({
             code: "window-hides-image",
             severity: "warn",
             side: s,
             field: askedPath[s],
-            message: `${word}: hiding the border, the window also covers ${fmt(c, "up")} of the image, ${Math.round((c / image) * 100)} % of its ${dim}. Check that this is the crop you want.`,
+            message: `${word}: hiding the border, the window also covers ${t.length(c, "up")} of the image, ${Math.round((c / image) * 100)} % of its ${dim}. Check that this is the crop you want.`,
           });
         }
       }
@@ -455,9 +501,9 @@ export function computePlan(input: MountPlanParsed, ctx: PlanContext): PlanResul
     if (imageBorders && shownImage && mode !== "float" && mode !== "hide-border" && o >= -1e-9) {
       const b = imageBorders[s];
       if (o < b - 1e-9) {
-        findings.push({ code: "window-shows-border", severity: "info", side: s, message: `${word}: ${L(Math.max(0, shownImage[s] - fig.overlap[s]))} of the sheet's border shows inside the window.` });
+        findings.push({ code: "window-shows-border", severity: "info", side: s, message: `${word}: ${t.shown(Math.max(0, shownImage[s] - fig.overlap[s]))} of the sheet's border shows inside the window.` });
       } else if (o > b + 1e-9 && b > 0) {
-        findings.push({ code: "window-covers-image", severity: "warn", side: s, message: `${word}: the window covers ${L(Math.max(0, fig.overlap[s] - shownImage[s]))} of the image itself, past the ${L(shownImage[s])} border.` });
+        findings.push({ code: "window-covers-image", severity: "warn", side: s, message: `${word}: the window covers ${t.shown(Math.max(0, fig.overlap[s] - shownImage[s]))} of the image itself, past the ${t.shown(shownImage[s])} border.` });
       }
     }
   }
@@ -478,7 +524,7 @@ export function computePlan(input: MountPlanParsed, ctx: PlanContext): PlanResul
     });
   }
 
-  const checks: Check[] = conservationChecks(geometry, input, { length: fmt, shown: L, minimum: fmtMin });
+  const checks: Check[] = conservationChecks(geometry, input, t);
   // A hinge that shows or cannot hold where the sheet floats: the check says why; the finding puts it on the side.
   const hingeCheck = checks.find((c) => c.id === "hinge-placement");
   if (hingeCheck && hingeCheck.verdict === "fail" && input.materials?.attachment === "t-hinge") {
@@ -507,62 +553,73 @@ function halfOnGrid(d: number, gridMm: number): number {
 }
 
 const round6 = (v: number) => Math.round(v * 1e6) / 1e6;
+function inUnit(mm: number, inch: boolean): number {
+  return round6(inch ? mm / MM_PER_INCH : mm);
+}
+function boxIn(b: Box, inch: boolean): Box {
+  return { width: inUnit(b.width, inch), height: inUnit(b.height, inch) };
+}
+function sidesIn(s: Sides, inch: boolean): Sides {
+  return { left: inUnit(s.left, inch), top: inUnit(s.top, inch), right: inUnit(s.right, inch), bottom: inUnit(s.bottom, inch) };
+}
 
 function toPlan(g: PlanGeometry, findings: Finding[], checks: Check[], level: Verdict, precision: number): MountPlan {
-  const u = (mm: number) => round6(g.unit === "in" ? mm / MM_PER_INCH : mm);
-  const box = (b: Box) => ({ width: u(b.width), height: u(b.height) });
-  const sides = (s: Sides) => ({ left: u(s.left), top: u(s.top), right: u(s.right), bottom: u(s.bottom) });
+  const inch = g.unit === "in";
   const f = g.figures;
   const du = f.unit;
-  const size = (b: Box) => figureSize(b, du);
-  const L = (mm: number) => figureLength(mm, du);
+  const outerSize = figureSize(f.outer, du);
   const display: Record<string, string> = {
-    sheet: size(f.sheet),
-    aperture: size(f.aperture),
-    outer: size(f.outer),
-    glazing: size(f.outer),
-    rebate: size(f.rebate),
-    sight: size(f.sight),
-    moulding: L(f.moulding),
-    minOverlap: L(f.minOverlap),
-  };
-  for (const dim of ["width", "height"] as const) {
-    display[`sheet.${dim}`] = L(f.sheet[dim]);
-    display[`aperture.${dim}`] = L(f.aperture[dim]);
-    display[`outer.${dim}`] = L(f.outer[dim]);
-  }
-  for (const s of SIDES) {
+    sheet: figureSize(f.sheet, du),
+    aperture: figureSize(f.aperture, du),
+    outer: outerSize,
+    glazing: outerSize,
+    rebate: figureSize(f.rebate, du),
+    sight: figureSize(f.sight, du),
+    moulding: figureLength(f.moulding, du),
+    minOverlap: figureLength(f.minOverlap, du),
+    "sheet.width": figureLength(f.sheet.width, du),
+    "sheet.height": figureLength(f.sheet.height, du),
+    "aperture.width": figureLength(f.aperture.width, du),
+    "aperture.height": figureLength(f.aperture.height, du),
+    "outer.width": figureLength(f.outer.width, du),
+    "outer.height": figureLength(f.outer.height, du),
     // A float's overlap is its reveal, shown as a negative overlap.
-    display[`overlap.${s}`] = L(f.overlap[s]);
-    display[`borders.${s}`] = L(f.borders[s]);
-  }
-  if (f.topWindow) display.topWindow = size(f.topWindow);
+    "overlap.left": figureLength(f.overlap.left, du),
+    "overlap.top": figureLength(f.overlap.top, du),
+    "overlap.right": figureLength(f.overlap.right, du),
+    "overlap.bottom": figureLength(f.overlap.bottom, du),
+    "borders.left": figureLength(f.borders.left, du),
+    "borders.top": figureLength(f.borders.top, du),
+    "borders.right": figureLength(f.borders.right, du),
+    "borders.bottom": figureLength(f.borders.bottom, du),
+  };
+  if (f.topWindow) display.topWindow = figureSize(f.topWindow, du);
   return {
     schemaVersion: PLAN_SCHEMA_VERSION,
     unit: g.unit,
     displayUnit: du,
     precision,
-    sheet: box(g.sheet),
-    aperture: box(g.aperture),
-    overlap: sides(g.overlap),
-    windowOnSheet: { left: u(g.windowOnSheet.left), top: u(g.windowOnSheet.top) },
-    borders: sides(g.borders),
-    outer: box(g.outer),
-    ...(g.topWindow ? { topWindow: box(g.topWindow) } : {}),
+    sheet: boxIn(g.sheet, inch),
+    aperture: boxIn(g.aperture, inch),
+    overlap: sidesIn(g.overlap, inch),
+    windowOnSheet: { left: inUnit(g.windowOnSheet.left, inch), top: inUnit(g.windowOnSheet.top, inch) },
+    borders: sidesIn(g.borders, inch),
+    outer: boxIn(g.outer, inch),
+    ...(g.topWindow ? { topWindow: boxIn(g.topWindow, inch) } : {}),
     glazing: {
-      ...box(g.glazing),
+      ...boxIn(g.glazing, inch),
       ...(g.glazing.weightKg !== undefined ? { weightKg: Math.round(g.glazing.weightKg * 1000) / 1000 } : {}),
-      ...(g.glazing.material ? { material: g.glazing.material, thickness: u(g.glazing.thickness!) } : {}),
+      ...(g.glazing.material ? { material: g.glazing.material, thickness: inUnit(g.glazing.thickness!, inch) } : {}),
     },
-    rebate: box(g.rebate),
-    sight: box(g.sight),
-    moulding: { length: u(g.moulding.length), faceWidth: u(g.moulding.faceWidth), wastePercent: g.moulding.wastePercent },
+    rebate: boxIn(g.rebate, inch),
+    sight: boxIn(g.sight, inch),
+    moulding: { length: inUnit(g.moulding.length, inch), faceWidth: inUnit(g.moulding.faceWidth, inch), wastePercent: g.moulding.wastePercent },
     package: {
-      thickness: u(g.package.thickness),
-      ...(g.package.rebateDepth !== undefined ? { rebateDepth: u(g.package.rebateDepth) } : {}),
+      thickness: inUnit(g.package.thickness, inch),
+      ...(g.package.rebateDepth !== undefined ? { rebateDepth: inUnit(g.package.rebateDepth, inch) } : {}),
       ...(g.package.weightKg !== undefined ? { weightKg: Math.round(g.package.weightKg * 1000) / 1000 } : {}),
     },
-    ...(g.yield ? { yield: { perSheet: g.yield.perSheet, sheet: box(g.yield.sheet), kerf: u(g.yield.kerf), utilisation: Math.round(g.yield.utilisation * 1000) / 1000 } } : {}),
+    ...(g.yield ? { yield: { perSheet: g.yield.perSheet, sheet: boxIn(g.yield.sheet, inch), kerf: inUnit(g.yield.kerf, inch), utilisation: Math.round(g.yield.utilisation * 1000) / 1000 } } : {}),
     findings,
     checks,
     level,

@@ -69,87 +69,88 @@ export function lengthText(mm: number, unit: Unit, rounding: "nearest" | "down" 
 
 type AxisIn = { sheet: number; aperture: number; oA: number; oB: number; bA: number; outer: number; sideA: SideName; sideB: SideName };
 
-export function shownFigures(g: PlanGeometry, unit: Unit, askedReveal: Partial<Sides>): Figures {
+/** What every axis of one plan's figures is rounded against. Plain functions over it keep the planner's hot path free of per-call closures. */
+type FigureGrid = { g: Omit<PlanGeometry, "figures">; askedReveal: Partial<Sides>; f: number; same: boolean; coarse: number; minShown: number };
+
+/** −1: the shown overlap must grow; +1: it must shrink; 0: it tells the truth. */
+function want(c: FigureGrid, side: SideName, trueO: number, shownO: number): -1 | 0 | 1 {
+  if (c.g.modes[side] === "float") {
+    const asked = c.askedReveal[side];
+    if (asked === undefined) return 0;
+    // The true reveal is never below the asked one (compute rounds a float's window up); nor is the shown one.
+    return -shownO < roundTo(asked, c.f, "nearest") - EPS ? 1 : 0;
+  }
+  const passes = trueO >= c.g.minOverlapMm - 1e-9;
+  if (passes && shownO < c.minShown - EPS) return -1;
+  if (!passes && shownO >= c.minShown - EPS) return 1;
+  return 0;
+}
+
+function axisFigures(c: FigureGrid, a: AxisIn) {
+  const { f, same, coarse } = c;
+  let S = roundTo(a.sheet, f, "nearest");
+  let A = same ? roundTo(a.aperture, f, "nearest") : roundTo(a.aperture, coarse, "down");
+  const T = same ? roundTo(a.outer, f, "nearest") : roundTo(a.outer, coarse, "nearest");
+  let OA = roundTo(a.oA, f, "nearest");
+  let OB = S - A - OA;
+  // At most a few grid steps ever move; the bound keeps a contradictory case from looping.
+  for (let i = 0; i < 8; i++) {
+    const nA = want(c, a.sideA, a.oA, OA);
+    const nB = want(c, a.sideB, a.oB, OB);
+    if (nA === 0 && nB === 0) break;
+    // The measured sheet may be shown one grid step the other way when it lies between two (it is a measurement, not a cut).
+    if (nA === -1 || nB === -1) {
+      const growA = nA === -1;
+      const [other, nOther, otherSide] = growA ? [a.oB, OB, a.sideB] : [a.oA, OA, a.sideA];
+      if (want(c, otherSide, other, nOther - f) === 0) {
+        if (growA) [OA, OB] = [OA + f, OB - f];
+        else [OA, OB] = [OA - f, OB + f];
+      } else if (Math.abs(S + f - a.sheet) < f - 1e-9) {
+        S += f;
+        if (growA) OA += f;
+        else OB += f;
+      } else {
+        // Both sides are tight: the shown window gives up a step (it is shown rounded down anyway).
+        A -= f;
+        if (growA) OA += f;
+        else OB += f;
+      }
+    } else {
+      const shrinkA = nA === 1;
+      const otherSide = shrinkA ? a.sideB : a.sideA;
+      const other = shrinkA ? a.oB : a.oA;
+      const nOther = shrinkA ? OB : OA;
+      if (want(c, otherSide, other, nOther + f) === 0) {
+        if (shrinkA) [OA, OB] = [OA - f, OB + f];
+        else [OA, OB] = [OA + f, OB - f];
+      } else if (Math.abs(S - f - a.sheet) < f - 1e-9) {
+        S -= f;
+        if (shrinkA) OA -= f;
+        else OB -= f;
+      } else {
+        A += f;
+        if (shrinkA) OA -= f;
+        else OB -= f;
+      }
+    }
+  }
+  const BA = roundTo(a.bA, f, "nearest");
+  return { S, A, T, OA, OB, BA, BB: T - A - BA };
+}
+
+export function shownFigures(g: Omit<PlanGeometry, "figures">, unit: Unit, askedReveal: Partial<Sides>): Figures {
   const f = fineGridMm(unit);
   const same = unit === g.unit;
   const coarse = same ? f : unit === "in" ? MM_PER_INCH / 16 : 0.1;
-  const R = (v: number) => roundTo(v, f, "nearest");
-  const minShown = roundTo(g.minOverlapMm, f, "up");
-
-  /** −1: the shown overlap must grow; +1: it must shrink; 0: it tells the truth. */
-  const want = (side: SideName, trueO: number, shownO: number): -1 | 0 | 1 => {
-    if (g.modes[side] === "float") {
-      const asked = askedReveal[side];
-      if (asked === undefined) return 0;
-      // The true reveal is never below the asked one (compute rounds a float's window up); nor is the shown one.
-      return -shownO < R(asked) - EPS ? 1 : 0;
-    }
-    const passes = trueO >= g.minOverlapMm - 1e-9;
-    if (passes && shownO < minShown - EPS) return -1;
-    if (!passes && shownO >= minShown - EPS) return 1;
-    return 0;
-  };
-
-  const axis = (a: AxisIn) => {
-    let S = R(a.sheet);
-    /** The measured sheet may be shown one grid step the other way when it lies between two (it is a measurement, not a cut). */
-    const sheetCanMove = (d: number) => Math.abs(S + d - a.sheet) < f - 1e-9;
-    let A = same ? R(a.aperture) : roundTo(a.aperture, coarse, "down");
-    const T = same ? R(a.outer) : roundTo(a.outer, coarse, "nearest");
-    let OA = R(a.oA);
-    let OB = S - A - OA;
-    // At most a few grid steps ever move; the bound keeps a contradictory case from looping.
-    for (let i = 0; i < 8; i++) {
-      const nA = want(a.sideA, a.oA, OA);
-      const nB = want(a.sideB, a.oB, OB);
-      if (nA === 0 && nB === 0) break;
-      if (nA === -1 || nB === -1) {
-        const [grow, other, nOther] = nA === -1 ? (["A", a.oB, OB] as const) : (["B", a.oA, OA] as const);
-        const otherSide = grow === "A" ? a.sideB : a.sideA;
-        if (want(otherSide, other, nOther - f) === 0) {
-          if (grow === "A") [OA, OB] = [OA + f, OB - f];
-          else [OA, OB] = [OA - f, OB + f];
-        } else if (sheetCanMove(f)) {
-          S += f;
-          if (grow === "A") OA += f;
-          else OB += f;
-        } else {
-          // Both sides are tight: the shown window gives up a step (it is shown rounded down anyway).
-          A -= f;
-          if (grow === "A") OA += f;
-          else OB += f;
-        }
-      } else {
-        const shrinkA = nA === 1;
-        const otherSide = shrinkA ? a.sideB : a.sideA;
-        const other = shrinkA ? a.oB : a.oA;
-        const nOther = shrinkA ? OB : OA;
-        if (want(otherSide, other, nOther + f) === 0) {
-          if (shrinkA) [OA, OB] = [OA - f, OB + f];
-          else [OA, OB] = [OA + f, OB - f];
-        } else if (sheetCanMove(-f)) {
-          S -= f;
-          if (shrinkA) OA -= f;
-          else OB -= f;
-        } else {
-          A += f;
-          if (shrinkA) OA -= f;
-          else OB -= f;
-        }
-      }
-    }
-    const BA = R(a.bA);
-    return { S, A, T, OA, OB, BA, BB: T - A - BA };
-  };
-
-  const x = axis({ sheet: g.sheet.width, aperture: g.aperture.width, oA: g.overlap.left, oB: g.overlap.right, bA: g.borders.left, outer: g.outer.width, sideA: "left", sideB: "right" });
-  const y = axis({ sheet: g.sheet.height, aperture: g.aperture.height, oA: g.overlap.top, oB: g.overlap.bottom, bA: g.borders.top, outer: g.outer.height, sideA: "top", sideB: "bottom" });
-  const reveal = g.doubleReveal !== null ? R(g.doubleReveal) : null;
+  const c: FigureGrid = { g, askedReveal, f, same, coarse, minShown: roundTo(g.minOverlapMm, f, "up") };
+  const x = axisFigures(c, { sheet: g.sheet.width, aperture: g.aperture.width, oA: g.overlap.left, oB: g.overlap.right, bA: g.borders.left, outer: g.outer.width, sideA: "left", sideB: "right" });
+  const y = axisFigures(c, { sheet: g.sheet.height, aperture: g.aperture.height, oA: g.overlap.top, oB: g.overlap.bottom, bA: g.borders.top, outer: g.outer.height, sideA: "top", sideB: "bottom" });
+  const reveal = g.doubleReveal !== null ? roundTo(g.doubleReveal, f, "nearest") : null;
   const rebate = {
-    width: Math.max(x.T, same ? R(g.rebate.width) : roundTo(g.rebate.width, coarse, "up")),
-    height: Math.max(y.T, same ? R(g.rebate.height) : roundTo(g.rebate.height, coarse, "up")),
+    width: Math.max(x.T, same ? roundTo(g.rebate.width, f, "nearest") : roundTo(g.rebate.width, coarse, "up")),
+    height: Math.max(y.T, same ? roundTo(g.rebate.height, f, "nearest") : roundTo(g.rebate.height, coarse, "up")),
   };
-  const lip = R(g.rebateLip);
+  const lip = roundTo(g.rebateLip, f, "nearest");
   return {
     unit,
     gridMm: f,
@@ -163,6 +164,6 @@ export function shownFigures(g: PlanGeometry, unit: Unit, askedReveal: Partial<S
     lip,
     sight: { width: rebate.width - 2 * lip, height: rebate.height - 2 * lip },
     moulding: roundTo(g.moulding.length, same ? f : coarse, "up"),
-    minOverlap: minShown,
+    minOverlap: c.minShown,
   };
 }
