@@ -10,8 +10,9 @@ import type { MountingDataInput, MountingRecord } from "../../shared/schemas/mou
 import { MountingDataSchema } from "../../shared/schemas/mountings.ts";
 import type { MountPlan } from "../../shared/schemas/mount-plan.ts";
 
-// One record, three surfaces: the record page's API, the dossier (read back with pdftotext) and
-// POST /api/mount-plans/calculate with the same input and catalogue must give the same checks.
+// One record, four surfaces: the record page's API, the dossier (read back with pdftotext), the
+// registrar's mountings export and POST /api/mount-plans/calculate with the same input and
+// catalogue must give the same checks.
 // Sources of the rules: docs/trade-reference.md §5–§7. A4 = 210 × 297 mm (ISO 216).
 const t = createTestApp();
 let framer: Agent;
@@ -64,7 +65,10 @@ async function surfaces(objectOver: Parameters<typeof makeObject>[2], data: Moun
   const calc = (await framer.post("/api/mount-plans/calculate").send(input)).body as MountPlan;
   const dossier = await framer.post(`/api/objects/${objectId}/documents/dossier`).buffer(true).parse(binary as never);
   expect(dossier.status).toBe(200);
-  return { record: record.current.plan, calc, text: pdfText(dossier.body as Buffer) };
+  const exported = (await framer.get(`/api/clients/${clientId}/exports/mountings.json`)).body as Record<string, string | number | null>[];
+  const row = exported.find((r) => r["Mounting record id"] === draft.body.id)!;
+  expect(row).toBeDefined();
+  return { record: record.current.plan, calc, text: pdfText(dossier.body as Buffer), row };
 }
 
 function expectSame(s: Awaited<ReturnType<typeof surfaces>>) {
@@ -75,10 +79,19 @@ function expectSame(s: Awaited<ReturnType<typeof surfaces>>) {
     const start = c.reason.split(" ").slice(0, 6).join(" ");
     expect(s.text, c.id).toContain(start);
   }
+  // The export: the same verdicts counted, each one not passed named with its reason.
+  const count = (v: string) => s.record.checks.filter((c) => c.verdict === v).length;
+  const words = [["pass", "pass"], ["warn", "caution"], ["fail", "fail"]].filter(([v]) => count(v) > 0).map(([v, w]) => `${count(v)} ${w}`);
+  expect(s.row["Conservation checks"]).toBe(words.join(", "));
+  for (const c of s.record.checks.filter((c) => c.verdict !== "pass")) expect(s.row["Checks not passed"], c.id).toContain(`${c.rule} (`);
+  // Its figures are in mm on every studio, and the parts add up: border + window + border = outer.
+  const n = (k: string) => s.row[k] as number;
+  expect(Math.round((n("Border left (mm)") + n("Window width (mm)") + n("Border right (mm)")) * 10) / 10).toBe(n("Outer width (mm)"));
+  expect(Math.round((n("Border top (mm)") + n("Window height (mm)") + n("Border bottom (mm)")) * 10) / 10).toBe(n("Outer height (mm)"));
 }
 
-describe("the same checks on the record page, in the dossier and from calculate", () => {
-  it.each(CASES)("when the object is %s, then the three agree", async (_name, obj, data) => {
+describe("the same checks on the record page, in the dossier, in the export and from calculate", () => {
+  it.each(CASES)("when the object is %s, then the four agree", async (_name, obj, data) => {
     const s = await surfaces(obj, data);
     expectSame(s);
     if (obj?.objectType === "photograph") expect(s.record.checks.find((c) => c.id === "photo-board")!.verdict).toBe("fail");
@@ -100,6 +113,9 @@ describe("the same checks on the record page, in the dossier and from calculate"
       expect(inch.record.displayUnit).toBe("in");
       for (const v of Object.values(inch.record.display)) expect(v).toMatch(/ in$/);
       expect(inch.text).toContain(inch.record.display.aperture);
+      // The registrar's export stays in mm, as its headers say: the as-built window, 198 × 285 mm.
+      expect([inch.row["Window width (mm)"], inch.row["Window height (mm)"]]).toEqual([198, 285]);
+      expect([inch.row["Outer width (mm)"], inch.row["Outer height (mm)"]]).toEqual([318, 405]);
     } finally {
       await admin.put("/api/settings").send(before);
     }

@@ -29,6 +29,9 @@ import { AppError, conflict, notFound } from "../../lib/errors.ts";
 import { createStorage } from "../../lib/storage.ts";
 import { appendEvent } from "../history/history.chain.ts";
 import { issueDossier } from "../documents/dossier.tsx";
+import { getSettings } from "../settings/settings.repo.ts";
+import { recordPlan, type PlanSettings } from "../../../shared/domain/mounting.ts";
+import type { Verdict } from "../../../shared/schemas/mount-plan.ts";
 
 export const DATASETS = ["objects", "mountings", "condition", "valuations"] as const;
 export type Dataset = (typeof DATASETS)[number];
@@ -92,6 +95,18 @@ export const EXPORT_COLUMNS = {
     { key: "Hinge tissue" },
     { key: "Hinge adhesive" },
     { key: "Number of hinges" },
+    { key: "Sheet width (mm)" },
+    { key: "Sheet height (mm)" },
+    { key: "Window width (mm)" },
+    { key: "Window height (mm)" },
+    { key: "Border top (mm)" },
+    { key: "Border bottom (mm)" },
+    { key: "Border left (mm)" },
+    { key: "Border right (mm)" },
+    { key: "Outer width (mm)" },
+    { key: "Outer height (mm)" },
+    { key: "Conservation checks" },
+    { key: "Checks not passed" },
     { key: "Window board" },
     { key: "Window board batch" },
     { key: "Backing board" },
@@ -214,6 +229,8 @@ function mountingRows(db: Db, user: SessionUser, objs: ObjectRow[]): Row[] {
     .all()
     .filter((r) => withDrafts || r.m.status !== "draft");
   rows.sort((a, b) => cmp(byId.get(a.m.objectId)!.objectNumber, byId.get(b.m.objectId)!.objectNumber));
+  // Figures in mm whatever the studio's unit (the header says so), from the same plan the record page shows.
+  const settings = { ...getSettings(db), unit: "mm" as const };
   return rows.map(({ m, data }) => {
     const o = byId.get(m.objectId)!;
     const d = data as MountingData;
@@ -232,6 +249,7 @@ function mountingRows(db: Db, user: SessionUser, objs: ObjectRow[]): Row[] {
       "Hinge tissue": text(d.attachment?.tissue),
       "Hinge adhesive": text(d.attachment?.adhesive),
       "Number of hinges": d.attachment?.hinges?.length ?? 0,
+      ...planCells(d, o, settings),
       "Window board": board(d.boards?.window),
       "Window board batch": text(d.boards?.window?.batch),
       "Backing board": board(d.boards?.backing),
@@ -245,6 +263,43 @@ function mountingRows(db: Db, user: SessionUser, objs: ObjectRow[]): Row[] {
     };
   });
 }
+
+const CHECK_WORDS: Record<Verdict, string> = { pass: "pass", warn: "caution", fail: "fail" };
+
+/**
+ * A mounting record's plan figures and checks, recomputed with recordPlan from the saved record and the
+ * object's catalogue, as on the record page and in the dossier. Shown figures, so the borders and the
+ * window add up to the outer size in the export too (docs/trade-reference.md §9).
+ */
+function planCells(d: MountingData, o: ObjectRow, settings: PlanSettings): Row {
+  const r = recordPlan(d, o, settings);
+  if (!r.ok) {
+    const why = Object.values(r.fields).join(" ");
+    return { ...EMPTY_PLAN_CELLS, "Conservation checks": `The saved plan cannot be computed: ${why}`, "Checks not passed": why };
+  }
+  const f = r.geometry.figures;
+  const n = (mm: number) => Math.round(mm * 10) / 10;
+  const counts = (["pass", "warn", "fail"] as const).map((v) => [v, r.plan.checks.filter((c) => c.verdict === v).length] as const).filter(([, c]) => c > 0);
+  const notPassed = r.plan.checks.filter((c) => c.verdict !== "pass");
+  return {
+    "Sheet width (mm)": n(f.sheet.width),
+    "Sheet height (mm)": n(f.sheet.height),
+    "Window width (mm)": n(f.aperture.width),
+    "Window height (mm)": n(f.aperture.height),
+    "Border top (mm)": n(f.borders.top),
+    "Border bottom (mm)": n(f.borders.bottom),
+    "Border left (mm)": n(f.borders.left),
+    "Border right (mm)": n(f.borders.right),
+    "Outer width (mm)": n(f.outer.width),
+    "Outer height (mm)": n(f.outer.height),
+    "Conservation checks": counts.map(([v, c]) => `${c} ${CHECK_WORDS[v]}`).join(", ") || "none",
+    "Checks not passed": notPassed.length ? notPassed.map((c) => `${c.rule} (${CHECK_WORDS[c.verdict]}): ${c.reason}`).join(" | ") : null,
+  };
+}
+
+const EMPTY_PLAN_CELLS: Row = Object.fromEntries(
+  ["Sheet width (mm)", "Sheet height (mm)", "Window width (mm)", "Window height (mm)", "Border top (mm)", "Border bottom (mm)", "Border left (mm)", "Border right (mm)", "Outer width (mm)", "Outer height (mm)"].map((k) => [k, null]),
+);
 
 function conditionRows(db: Db, user: SessionUser, objs: ObjectRow[]): Row[] {
   if (!objs.length) return [];
