@@ -67,7 +67,7 @@ export function lengthText(mm: number, unit: Unit, rounding: "nearest" | "down" 
   return figureLength(shownLength(mm, unit, rounding), unit);
 }
 
-type AxisIn = { sheet: number; aperture: number; oA: number; oB: number; bA: number; outer: number; sideA: SideName; sideB: SideName };
+type AxisIn = { sheet: number; aperture: number; oA: number; oB: number; bA: number; bB: number; outer: number; sideA: SideName; sideB: SideName };
 
 /** What every axis of one plan's figures is rounded against. Plain functions over it keep the planner's hot path free of per-call closures. */
 type FigureGrid = { g: Omit<PlanGeometry, "figures">; askedReveal: Partial<Sides>; f: number; same: boolean; coarse: number; minShown: number };
@@ -90,8 +90,13 @@ function axisFigures(c: FigureGrid, a: AxisIn) {
   const { f, same, coarse } = c;
   let S = roundTo(a.sheet, f, "nearest");
   let A = same ? roundTo(a.aperture, f, "nearest") : roundTo(a.aperture, coarse, "down");
-  const T = same ? roundTo(a.outer, f, "nearest") : roundTo(a.outer, coarse, "nearest");
-  let OA = roundTo(a.oA, f, "nearest");
+  let T = same ? roundTo(a.outer, f, "nearest") : roundTo(a.outer, coarse, "nearest");
+  const equalBorders = Math.abs(a.bA - a.bB) < 1e-6;
+  // Equal borders shown in the other unit: the outer takes the neighbouring step on the truth's side
+  // when the window and outer would differ by an odd number of grid steps (only possible on a 0.1 mm grid).
+  if (!same && equalBorders && Math.round((T - A) / f) % 2 !== 0) T += a.outer >= T ? f : -f;
+  // Equal overlaps are shown as near equal as the grid allows; the loop below then keeps each side truthful.
+  let OA = Math.abs(a.oA - a.oB) < 1e-6 ? roundTo((S - A) / 2, f, "nearest") : roundTo(a.oA, f, "nearest");
   let OB = S - A - OA;
   // At most a few grid steps ever move; the bound keeps a contradictory case from looping.
   for (let i = 0; i < 8; i++) {
@@ -134,7 +139,8 @@ function axisFigures(c: FigureGrid, a: AxisIn) {
       }
     }
   }
-  const BA = roundTo(a.bA, f, "nearest");
+  // Equal borders stay equal when shown: the outer and the window are on the coarse step, so half their difference is on the grid.
+  const BA = equalBorders ? roundTo((T - A) / 2, f, "nearest") : roundTo(a.bA, f, "nearest");
   return { S, A, T, OA, OB, BA, BB: T - A - BA };
 }
 
@@ -143,8 +149,8 @@ export function shownFigures(g: Omit<PlanGeometry, "figures">, unit: Unit, asked
   const same = unit === g.unit;
   const coarse = same ? f : unit === "in" ? MM_PER_INCH / 16 : 0.1;
   const c: FigureGrid = { g, askedReveal, f, same, coarse, minShown: roundTo(g.minOverlapMm, f, "up") };
-  const x = axisFigures(c, { sheet: g.sheet.width, aperture: g.aperture.width, oA: g.overlap.left, oB: g.overlap.right, bA: g.borders.left, outer: g.outer.width, sideA: "left", sideB: "right" });
-  const y = axisFigures(c, { sheet: g.sheet.height, aperture: g.aperture.height, oA: g.overlap.top, oB: g.overlap.bottom, bA: g.borders.top, outer: g.outer.height, sideA: "top", sideB: "bottom" });
+  const x = axisFigures(c, { sheet: g.sheet.width, aperture: g.aperture.width, oA: g.overlap.left, oB: g.overlap.right, bA: g.borders.left, bB: g.borders.right, outer: g.outer.width, sideA: "left", sideB: "right" });
+  const y = axisFigures(c, { sheet: g.sheet.height, aperture: g.aperture.height, oA: g.overlap.top, oB: g.overlap.bottom, bA: g.borders.top, bB: g.borders.bottom, outer: g.outer.height, sideA: "top", sideB: "bottom" });
   const reveal = g.doubleReveal !== null ? roundTo(g.doubleReveal, f, "nearest") : null;
   const rebate = {
     width: Math.max(x.T, same ? roundTo(g.rebate.width, f, "nearest") : roundTo(g.rebate.width, coarse, "up")),

@@ -332,6 +332,30 @@ describe("mount plan properties", () => {
     );
   });
 
+  it("property equal-borders-shown-equal: when a side's border equals the opposite one, then they are shown as the same figure in either unit (common practice (no source): a mount cut with equal borders is read back as equal)", () => {
+    fc.assert(
+      fc.property(shownCase, (c) => {
+        const r = computePlan(MountPlanInputSchema.parse(c.input), { ...CTX, displayUnit: c.display });
+        if (!r.ok) return;
+        const b = r.geometry.borders;
+        const d = r.plan.display;
+        const u = c.display;
+        const grid = u === "in" ? MM_PER_INCH / 64 : 0.1;
+        const coarse = u === c.unit ? grid : u === "in" ? MM_PER_INCH / 16 : 0.1;
+        for (const [x, y, dim] of [["left", "right", "width"], ["top", "bottom", "height"]] as const) {
+          if (Math.abs(b[x] - b[y]) >= 1e-9) continue;
+          // The one exception: both overlaps on the axis were tight, so the shown window itself gave up a
+          // grid step to keep them honest (see shown-overlap-honest); the borders then differ by that step.
+          const usual = u === c.unit ? Math.round(r.geometry.aperture[dim] / grid) * grid : Math.floor(r.geometry.aperture[dim] / coarse + 1e-9) * coarse;
+          const moved = Math.abs(read(d[`aperture.${dim}`], u) - usual) > 1e-6;
+          if (!moved) expect(d[`borders.${x}`], JSON.stringify(d)).toBe(d[`borders.${y}`]);
+          else expect(Math.abs(read(d[`borders.${x}`], u) - read(d[`borders.${y}`], u))).toBeLessThanOrEqual(grid + 1e-6);
+        }
+      }),
+      { numRuns: 400 },
+    );
+  });
+
   it("property shown-overlap-honest: when a side passes the overlap check, then its shown overlap is at least the shown minimum; when it fails, less; a float never shows less reveal than asked", () => {
     fc.assert(
       fc.property(shownCase, (c) => {
