@@ -31,6 +31,13 @@ for (const file of [...walk("shared"), ...walk("server"), ...walk("src")]) {
     if (f && t && f[1] !== t[1]) problems.push(`${file}: feature "${f[1]}" imports feature "${t[1]}"; compose them in a page instead`);
   }
 }
+// Documents set text through server/lib/pdf/text.tsx, so every glyph comes from the embedded font.
+for (const file of walk("server")) {
+  const text = fs.readFileSync(file, "utf8");
+  for (const m of text.matchAll(/import\s*\{([^}]*)\}\s*from\s*["']@react-pdf\/renderer["']/g)) {
+    if (m[1].split(",").some((n) => n.trim() === "Text")) problems.push(`${file}: import Text from server/lib/pdf/text.tsx, not from @react-pdf/renderer`);
+  }
+}
 if (problems.length) {
   console.error(problems.join("\n"));
   process.exit(1);

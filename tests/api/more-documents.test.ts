@@ -219,10 +219,12 @@ describe("the workshop sheet", () => {
     for (const r of rows) expect(text).toContain(r.objects.objectNumber);
     expect(text).toContain("Cutting list");
     expect(text).toMatch(/\d+ sheets? · shaded: offcut · utilisation \d+\.\d %/);
-    expect(text).toContain("32 × 40 in");
+    // The board sheet in the studio's unit, like every length on the sheet: 32 × 40 in = 812.8 × 1016 mm (1 in = 25.4 mm exactly), shown to the mm.
+    const unit = getSettings(t.db).unit;
+    expect(text).toContain(unit === "mm" ? "813 × 1016 mm" : "32 × 40 in");
     expect(text).toMatch(/sharps container/);
     const other = await post(as.framer, "/api/documents/workshop-sheet", { mountingIds: [rows[0].mountings.id], boardSheetId: "40x60in" });
-    expect((await expectDocument(other, "workshop-sheet")).text).toContain("40 × 60 in");
+    expect((await expectDocument(other, "workshop-sheet")).text).toContain(unit === "mm" ? "1016 × 1524 mm" : "40 × 60 in");
   });
 
   it("is the studio's only", async () => {

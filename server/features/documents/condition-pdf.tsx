@@ -1,6 +1,7 @@
 import fs from "node:fs";
 import type { ReactNode } from "react";
-import { Image, Path, Polygon, Svg, Text, View } from "@react-pdf/renderer";
+import { Image, Path, Polygon, Svg, View } from "@react-pdf/renderer";
+import { Text } from "../../lib/pdf/text.tsx";
 import type { Styles } from "@react-pdf/renderer";
 
 type Style = Styles[string];
@@ -82,7 +83,7 @@ export function Table({ cols, rows }: { cols: { label: string; width?: number; f
   const style = (i: number) => ({ ...t.cell, ...(cols[i].width ? { width: cols[i].width } : { flex: cols[i].flex ?? 1 }), textAlign: cols[i].align ?? "left" }) as Style;
   return (
     <View style={t.table}>
-      <View style={t.th} fixed={false} wrap={false}>
+      <View style={t.th} fixed wrap={false}>
         {cols.map((c, i) => (
           <Text key={i} style={style(i)}>
             {c.label}
@@ -358,8 +359,10 @@ export async function issueConditionReport(db: Db, config: Pick<Config, "uploads
           </>
         ) : null}
 
+        {/* The signatures keep their heading and the closing note with them: one block that never splits. */}
+        <View wrap={false}>
         <Text style={s.h2}>Signatures</Text>
-        <View style={{ flexDirection: "row", gap: 16 }} wrap={false}>
+        <View style={{ flexDirection: "row", gap: 16 }}>
           {[
             { label: "Examiner", v: sig.examiner },
             ...(sig.otherParty ? [{ label: "Other party", v: sig.otherParty }] : []),
@@ -375,6 +378,7 @@ export async function issueConditionReport(db: Db, config: Pick<Config, "uploads
         </View>
 
         <Text style={[para, { marginTop: 14, color: GRAPHITE }]}>{NOT_TREATMENT}</Text>
+        </View>
       </DocShell>
     ),
   });

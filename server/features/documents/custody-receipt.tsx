@@ -1,4 +1,5 @@
-import { Text, View } from "@react-pdf/renderer";
+import { View } from "@react-pdf/renderer";
+import { Text } from "../../lib/pdf/text.tsx";
 import { format, parseISO } from "date-fns";
 import { CUSTODY_KIND_LABELS, type CustodyKind } from "../../../shared/schemas/custody.ts";
 import { GLAZING_TYPE_LABELS } from "../../../shared/schemas/mountings.ts";

@@ -1,4 +1,5 @@
-import { Text, View } from "@react-pdf/renderer";
+import { View } from "@react-pdf/renderer";
+import { Text } from "../../lib/pdf/text.tsx";
 import type { Db } from "../../db/client.ts";
 import type { Config } from "../../lib/config.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
@@ -137,11 +138,13 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
           </View>
         </View>
 
-        <Text style={s.h2} minPresenceAhead={200}>
+        {/* The heading and the drawing are one block: the drawing cannot split, so neither leaves the other. */}
+        <View wrap={false}>
+        <Text style={s.h2}>
           {current ? `Current ${w.mount}, drawn to scale` : draft ? `Planned ${w.mount} (draft plan, not yet mounted), drawn to scale` : `${w.Mount}`}
         </Text>
         {view ? (
-          <View style={{ flexDirection: "row", gap: 14 }} wrap={false}>
+          <View style={{ flexDirection: "row", gap: 14 }}>
             <View style={{ width: drawingWidth }}>
               <PdfPlanDrawing model={view.model} width={drawingWidth} />
               <Text style={[s.small, { marginTop: 3 }]}>{`Front view; dimensions in ${unit === "in" ? "inches" : "mm"}${d && d.attachment.hinges.length ? "; hinges drawn in yellow, positions as listed" : ""}.`}</Text>
@@ -169,6 +172,7 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
         ) : (
           <Text style={para}>No {w.mount} has been recorded or planned for this object yet.</Text>
         )}
+        </View>
 
         {d ? (
           <>

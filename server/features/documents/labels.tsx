@@ -1,4 +1,5 @@
-import { Document, Image, Link, Page, Text, View } from "@react-pdf/renderer";
+import { Document, Image, Link, Page, View } from "@react-pdf/renderer";
+import { Text } from "../../lib/pdf/text.tsx";
 import { format, parseISO } from "date-fns";
 import QRCode from "qrcode";
 import type { DocMeta } from "../../lib/pdf/layout.tsx";

@@ -1,4 +1,5 @@
-import { Document, Page, renderToBuffer, StyleSheet, Text, View } from "@react-pdf/renderer";
+import { Document, Page, renderToBuffer, StyleSheet, View } from "@react-pdf/renderer";
+import { Text } from "../../lib/pdf/text.tsx";
 import { and, desc, eq, inArray, type SQL } from "drizzle-orm";
 import { format, parseISO } from "date-fns";
 import type { Db } from "../../db/client.ts";

@@ -1,7 +1,10 @@
-import { Rect, Svg, Text, View } from "@react-pdf/renderer";
+import { Rect, Svg, Text as SvgText, View } from "@react-pdf/renderer";
+import { Text } from "../../lib/pdf/text.tsx";
+import { Mark } from "./condition-pdf.tsx";
 import type { Db } from "../../db/client.ts";
 import type { MountingData, Board } from "../../../shared/schemas/mountings.ts";
-import { GLAZING_TYPE_LABELS } from "../../../shared/schemas/mountings.ts";
+import { ADHESIVE_LABELS, ATTACHMENT_METHOD_LABELS, GLAZING_TYPE_LABELS, MOUNTING_STATUS_LABELS } from "../../../shared/schemas/mountings.ts";
+import { lengthText } from "../../../shared/domain/mount-plan/index.ts";
 import { cuttingList, STANDARD_BOARD_SHEETS, type PlanResult } from "../../../shared/domain/mount-plan/index.ts";
 import type { CuttingList } from "../../../shared/domain/mount-plan/yield.ts";
 import { mountSummary, recordPlan } from "../../../shared/domain/mounting.ts";
@@ -100,18 +103,25 @@ function Pair({ label, value }: { label: string; value: string | null | undefine
 function MountingBlock({ it, unit }: { it: WorkshopItem; unit: Unit }) {
   const { data, result, row } = it.detail;
   const d = result.ok ? result.plan.display : null;
+  // Lengths outside the plan's figures (hinges, thicknesses) in the same unit, on the same grid.
+  const len = (mm: number) => lengthText(mm, unit);
   const boards = (["window", "backing", "top"] as const)
     .map((role) => (data.boards[role] ? `${role}: ${boardLabel(data.boards[role]!)}${data.boards[role]!.batch ? ` · batch ${data.boards[role]!.batch}` : ""}` : null))
     .filter(Boolean)
     .join("\n");
+  const a = data.attachment;
+  const attachment = [ATTACHMENT_METHOD_LABELS[a.method], a.tissue, a.adhesive ? ADHESIVE_LABELS[a.adhesive] : null].filter(Boolean).join(" · ");
+  const hinges = a.hinges.map((h, i) => `${i + 1}. ${h.edge}, ${len(h.offsetMm)} from the corner, ${len(h.widthMm)} wide`).join("\n");
+  const spacer = result.ok && result.geometry.spacerDepth > 0 ? len(result.geometry.spacerDepth) : null;
+  const glazing = `${GLAZING_TYPE_LABELS[data.glazing.type]}${data.glazing.type !== "none" && d ? `, cut ${d.glazing}` : ""}${data.glazing.thicknessMm ? `, ${len(data.glazing.thicknessMm)} thick` : ""}`;
   return (
     <View style={{ borderBottomWidth: 0.5, borderBottomColor: STONE, paddingVertical: 6 }} wrap={false}>
-      <View style={{ flexDirection: "row", justifyContent: "space-between", marginBottom: 3 }}>
-        <Text style={{ fontSize: 10, fontWeight: 700, color: ACCENT }}>
+      <View style={{ flexDirection: "row", justifyContent: "space-between", gap: 10, marginBottom: 3 }}>
+        <Text style={{ fontSize: 10, fontWeight: 700, color: ACCENT, flex: 1 }}>
           {it.objectNumber} <Text style={{ color: INK, fontWeight: 400 }}>· {it.title}</Text>
         </Text>
-        <Text style={[s.small]}>
-          Revision {row.currentRevision} · {row.status} · {row.framerName}
+        <Text style={[s.small, { width: 150, textAlign: "right" }]}>
+          Revision {row.currentRevision} · {MOUNTING_STATUS_LABELS[row.status as keyof typeof MOUNTING_STATUS_LABELS] ?? row.status} · {row.framerName}
         </Text>
       </View>
       {d ? (
@@ -122,25 +132,32 @@ function MountingBlock({ it, unit }: { it: WorkshopItem; unit: Unit }) {
             <Pair label="Outer" value={d.outer} />
             <Pair label="Borders" value={`left ${d["borders.left"]} · top ${d["borders.top"]} · right ${d["borders.right"]} · bottom ${d["borders.bottom"]}`} />
             <Pair label="Overlap" value={`left ${d["overlap.left"]} · top ${d["overlap.top"]} · right ${d["overlap.right"]} · bottom ${d["overlap.bottom"]}`} />
+            <Pair label="Rebate" value={d.rebate} />
+            <Pair label="Glazing" value={glazing} />
+            {spacer ? <Pair label="Spacer" value={`${spacer} deep`} /> : null}
           </View>
           <View style={{ flex: 1 }}>
-            <Pair label="Rebate" value={d.rebate} />
-            <Pair label="Glazing" value={`${GLAZING_TYPE_LABELS[data.glazing.type]}${data.glazing.type !== "none" ? `, cut ${d.glazing}` : ""}`} />
-            <Pair label="Attachment" value={`${data.attachment.method.replace(/-/g, " ")}${data.attachment.hinges.length ? ` (${data.attachment.hinges.length})` : ""}${data.attachment.adhesive ? `, ${data.attachment.adhesive.replace(/-/g, " ")}` : ""}`} />
+            <Pair label="Attachment" value={attachment} />
+            {hinges ? <Pair label="Hinges" value={hinges} /> : null}
             <Pair label="Boards" value={boards} />
+            {data.undoNotes ? <Pair label="To undo" value={data.undoNotes} /> : null}
           </View>
         </View>
       ) : (
         <Text style={[cell, { color: "#9a2b2b" }]}>The plan of this record cannot be computed: {Object.values((result as { fields: Record<string, string> }).fields).join(" ")}</Text>
       )}
       {result.ok && result.plan.level === "fail" ? (
-        <Text style={[cell, { color: "#9a2b2b", marginTop: 2 }]}>✕ Fails a conservation check: {result.plan.checks.filter((c) => c.verdict === "fail").map((c) => c.reason).join(" ")}</Text>
+        <View style={{ flexDirection: "row", marginTop: 2 }}>
+          <Mark verdict="fail" />
+          <Text style={[cell, { color: "#9a2b2b", marginLeft: 3, flex: 1 }]}>Fails a conservation check: {result.plan.checks.filter((c) => c.verdict === "fail").map((c) => c.reason).join(" ")}</Text>
+        </View>
       ) : null}
     </View>
   );
 }
 
-function SheetDiagram({ sheet, placements, labels }: { sheet: { width: number; height: number }; placements: { pieceId: string; x: number; y: number; width: number; height: number }[]; labels: string[] }) {
+/** A board sheet to scale with its pieces, each numbered as in the list beside it. */
+function SheetDiagram({ sheet, placements }: { sheet: { width: number; height: number }; placements: { pieceId: string; x: number; y: number; width: number; height: number }[] }) {
   const W = 150;
   const H = (W * sheet.height) / sheet.width;
   const k = sheet.width / W;
@@ -150,17 +167,28 @@ function SheetDiagram({ sheet, placements, labels }: { sheet: { width: number; h
       {placements.map((p, i) => (
         <Rect key={i} x={p.x} y={p.y} width={p.width} height={p.height} fill="#fffdf8" stroke={INK} strokeWidth={0.7 * k} />
       ))}
+      {placements.map((p, i) => {
+        // The number is as large as the piece allows, from 5 to 9 pt.
+        const size = Math.max(5, Math.min(9, Math.min(p.width, p.height) / k / 2.2)) * k;
+        return (
+          <SvgText key={`n${i}`} x={p.x + p.width / 2} y={p.y + p.height / 2 + size * 0.35} textAnchor="middle" fill={INK} style={{ fontSize: size, fontFamily: "Libre Franklin", fontWeight: 700 }}>
+            {String(i + 1)}
+          </SvgText>
+        );
+      })}
     </Svg>
   );
 }
 
 export function WorkshopSheetDocument({ meta, data }: { meta: DocMeta; data: WorkshopData }) {
+  // The board sheet in the studio's unit, like every other length on the sheet.
+  const sheetSize = formatSize(data.sheet.width, data.sheet.height, data.unit, { denominator: 64 });
   const sheetCount = data.groups.reduce((n, g) => n + g.list.sheetCount, 0);
   return (
     <DocShell meta={meta}>
       <Text style={s.h1}>Workshop sheet</Text>
       <Text style={{ fontSize: 9, lineHeight: 1.4, marginBottom: 4 }}>
-        {data.items.length} mounting{data.items.length === 1 ? "" : "s"} · cutting list on {data.sheet.label} sheets · {sheetCount} full sheet{sheetCount === 1 ? "" : "s"} in all
+        {data.items.length} mounting{data.items.length === 1 ? "" : "s"} · cutting list on {sheetSize} sheets · {sheetCount} full sheet{sheetCount === 1 ? "" : "s"} in all
       </Text>
 
       <View style={s.caution} wrap={false}>
@@ -190,11 +218,11 @@ export function WorkshopSheetDocument({ meta, data }: { meta: DocMeta; data: Wor
           </View>
           {g.list.sheets.map((sh) => (
             <View key={sh.index} style={{ flexDirection: "row", gap: 12, paddingVertical: 4, borderBottomWidth: 0.4, borderBottomColor: STONE }} wrap={false}>
-              <SheetDiagram sheet={data.sheet} placements={sh.placements} labels={[]} />
+              <SheetDiagram sheet={data.sheet} placements={sh.placements} />
               <View style={{ flex: 1 }}>
                 <View style={{ flexDirection: "row", marginBottom: 2 }}>
                   <Text style={[cell, { fontWeight: 600, flex: 1 }]}>
-                    Sheet {sh.index + 1} · {data.sheet.label}
+                    Sheet {sh.index + 1} · {sheetSize}
                   </Text>
                   <Text style={[cell, tab, { width: 90, textAlign: "right" }]}>{(sh.utilisation * 100).toFixed(1)} % used</Text>
                 </View>
@@ -202,6 +230,7 @@ export function WorkshopSheetDocument({ meta, data }: { meta: DocMeta; data: Wor
                   const piece = g.pieces[Number(p.pieceId)];
                   return (
                     <View key={i} style={{ flexDirection: "row", paddingVertical: 1 }}>
+                      <Text style={[cell, tab, { width: 16, fontWeight: 700 }]}>{i + 1}</Text>
                       <Text style={[cell, { flex: 1 }]}>{piece?.label ?? p.pieceId}</Text>
                       <Text style={[cell, tab, { width: 110, textAlign: "right" }]}>{formatSize(p.width, p.height, data.unit, { denominator: 64 })}</Text>
                       <Text style={[cell, tab, { width: 60, textAlign: "right", color: GRAPHITE }]}>{p.rotated ? "turned" : ""}</Text>

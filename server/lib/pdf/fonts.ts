@@ -16,7 +16,16 @@ export function registerFonts() {
     family: "Libre Franklin",
     fonts: [400, 600, 700].map((w) => ({ src: path.join(dir, `libre-franklin-latin-${w}-normal.woff`), fontWeight: w })),
   });
-  // Words are never split with hyphens in dimensions and object numbers.
-  Font.registerHyphenationCallback((word) => [word]);
+  // Words are not hyphenated: dimensions, object numbers and codes stay whole. Only a word too long
+  // for any column (a pasted reference, a URL) may break, every few characters, so it wraps inside its cell.
+  Font.registerHyphenationCallback(breakLongWord);
   done = true;
+}
+
+/** The break points react-pdf may use inside a word: none for words up to 20 characters, else every 8. */
+export function breakLongWord(word: string): string[] {
+  if (word.length <= 20) return [word];
+  const parts: string[] = [];
+  for (let i = 0; i < word.length; i += 8) parts.push(word.slice(i, i + 8));
+  return parts;
 }

@@ -1,5 +1,6 @@
 import type { ReactNode } from "react";
-import { Document, Image, Page, Text, View } from "@react-pdf/renderer";
+import { Document, Image, Page, View } from "@react-pdf/renderer";
+import { Text } from "./text.tsx";
 import { format } from "date-fns";
 import { s } from "./theme.ts";
 
