@@ -298,6 +298,8 @@ export const custodyReceipts = sqliteTable(
     /** Where the object went or was put on this hand-over. */
     location: text("location"),
     notes: text("notes"),
+    /** For a loan: the day the object is agreed to come back. */
+    returnDue: text("return_due"),
     createdBy: text("created_by"),
     ...timestamps,
   },
@@ -412,6 +414,9 @@ export const issuedDocuments = sqliteTable(
     issuedAt: integer("issued_at", { mode: "timestamp_ms" }).notNull(),
     issuedBy: text("issued_by"),
     issuedByName: text("issued_by_name").notNull(),
+    /** The issued file's fingerprint: SHA-256 of its bytes (hex) and its page count; null for documents issued before they were kept. */
+    sha256: text("sha256"),
+    pages: integer("pages"),
   },
   (t) => [index("issued_object_idx").on(t.objectId, t.issuedAt), index("issued_at_idx").on(t.issuedAt)],
 );

@@ -22,16 +22,29 @@ export const CUSTODY_KIND_EFFECT: Record<CustodyKind, { direction: "in" | "out";
   "from-conservator": { direction: "in", status: "in-studio" },
 };
 
-export const CustodyCreateSchema = z.object({
-  kind: z.enum(CUSTODY_KINDS, { message: "Choose what kind of hand-over this is." }),
-  date: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: "Use a date such as 2026-11-30." }),
-  fromParty: requiredText(200, "Say who handed the object over."),
-  toParty: requiredText(200, "Say who received the object."),
-  condition: requiredText(300, "Note the condition at the hand-over in one line."),
-  signedBy: requiredText(200, "Give the name of the person who signed."),
-  location: optionalText(200),
-  notes: optionalText(2000),
-});
+/** The hand-overs that send an object away for a while and so carry an agreed return date. */
+export const RETURN_DUE_KINDS: readonly CustodyKind[] = ["loan-out", "to-conservator"];
+
+export const CustodyCreateSchema = z
+  .object({
+    kind: z.enum(CUSTODY_KINDS, { message: "Choose what kind of hand-over this is." }),
+    date: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: "Use a date such as 2026-11-30." }),
+    fromParty: requiredText(200, "Say who handed the object over."),
+    toParty: requiredText(200, "Say who received the object."),
+    condition: requiredText(300, "Note the condition at the hand-over in one line."),
+    signedBy: requiredText(200, "Give the name of the person who signed."),
+    location: optionalText(200),
+    notes: optionalText(2000),
+    /** For a loan or a stay with a conservator: the day it is agreed to come back. */
+    returnDue: z.preprocess(
+      (v) => (v === "" || v === undefined ? null : v),
+      z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: "Use a date such as 2027-03-31." }).refine(isCalendarDate, { message: "Use a date such as 2027-03-31." }).nullable(),
+    ).optional(),
+  })
+  .superRefine((d, ctx) => {
+    if (d.returnDue && !RETURN_DUE_KINDS.includes(d.kind)) ctx.addIssue({ code: "custom", path: ["returnDue"], message: "Only a loan or a stay with a conservator has a return date." });
+    else if (d.returnDue && d.returnDue < d.date) ctx.addIssue({ code: "custom", path: ["returnDue"], message: "The agreed return date is before the hand-over date." });
+  });
 export type CustodyCreate = z.infer<typeof CustodyCreateSchema>;
 
 export type CustodyReceipt = CustodyCreate & { id: string; objectId: string; objectNumber: string; objectTitle: string; direction: "in" | "out"; createdAt: string };

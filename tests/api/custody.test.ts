@@ -71,6 +71,21 @@ describe("POST /api/objects/:id/custody", () => {
     expect(receiptsOf(t, id)).toHaveLength(1);
   });
 
+  it("when a loan is recorded with an agreed return date, then it is kept; a return date on an intake or before the hand-over is refused naming the field", async () => {
+    const id = makeObject(t.db, studio.collectorClient.id, { status: "in-studio" });
+    const early = await post(as.framer, id, receipt({ kind: "loan-out", fromParty: "The studio", toParty: "A borrowing gallery", returnDue: "2026-11-01" }));
+    expect(early.status).toBe(422);
+    expect(early.body.error.fields.returnDue).toMatch(/before the hand-over date/);
+    const lent = await post(as.framer, id, receipt({ kind: "loan-out", fromParty: "The studio", toParty: "A borrowing gallery", returnDue: "2027-03-31" }));
+    expect(lent.status, JSON.stringify(lent.body)).toBe(201);
+    expect(lent.body.returnDue).toBe("2027-03-31");
+    const other = makeObject(t.db, studio.collectorClient.id, { status: "with-owner" });
+    const wrong = await post(as.framer, other, receipt({ returnDue: "2027-03-31" }));
+    expect(wrong.status).toBe(422);
+    expect(wrong.body.error.fields.returnDue).toMatch(/Only a loan or a stay with a conservator/);
+    expect(receiptsOf(t, other)).toHaveLength(0);
+  });
+
   it("when an admin records a return to the owner without a location, then the object is with its owner and keeps its location", async () => {
     const id = makeObject(t.db, studio.collectorClient.id, { status: "in-studio", location: "Bench 1" });
     const res = await post(as.admin, id, receipt({ kind: "return-to-owner", fromParty: "The studio", toParty: "Ada Collector", condition: "Framed; as received." }));

@@ -120,6 +120,7 @@ beforeAll(async () => {
     condition: "As in the condition report of 2 March 2026.",
     signedBy: "Test framer",
     notes: LINES,
+    returnDue: "2026-09-30",
   });
   expect(receipt.status, JSON.stringify(receipt.body)).toBe(201);
   receiptId = receipt.body.id;
@@ -228,7 +229,11 @@ describe.each(CONFIGS)("documents on $paperSize in $unit, with a long record", (
 
   it("the custody receipt is readable page by page", async () => {
     const pdf = await issue(`/api/custody/${receiptId}/document`);
-    expectReadable(`custody-${tag}`, pdf, cfg);
+    const pages = expectReadable(`custody-${tag}`, pdf, cfg);
+    // A loan's receipt carries the agreed return date and the value it travels at (the object's insured value).
+    const text = pages.flatMap((p) => p.lines.map((l) => l.text)).join(" ");
+    expect(text).toContain("Agreed return 30 September 2026");
+    expect(text).toContain("Value in transit £12,500.00 (market value), valued 2019-05-01");
   });
 
   it("the workshop sheet is readable page by page", async () => {

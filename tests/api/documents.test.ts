@@ -124,6 +124,20 @@ describe("the object dossier", () => {
     expect(made.body).toEqual({ valid: false, code: "ABCD-1234-EF00" });
   });
 
+  it("when the code is typed in lower case or without its dashes, then it still checks, and the check shows the file's fingerprint and nothing more", async () => {
+    const signedOut = request(t.app);
+    for (const typed of [code.toLowerCase(), code.replace(/-/g, ""), ` ${code.replace(/-/g, " ").toLowerCase()} `]) {
+      const res = await signedOut.get(`/api/verify/${encodeURIComponent(typed)}`);
+      expect(res.body, typed).toMatchObject({ valid: true, code });
+    }
+    const res = await signedOut.get(`/api/verify/${code}`);
+    // The fingerprint is the issued file's own: its SHA-256 (FIPS 180-4, as node:crypto and sha256sum compute it) and pdfinfo's page count.
+    const { createHash } = await import("node:crypto");
+    expect(res.body.sha256).toBe(createHash("sha256").update(pdf).digest("hex"));
+    expect(res.body.pages).toBe(Number(/Pages:\s+(\d+)/.exec(poppler("pdfinfo", pdf))![1]));
+    expect(Object.keys(res.body).sort()).toEqual(["code", "issuedAt", "kind", "kindLabel", "objectNumber", "pages", "sha256", "valid"]);
+  });
+
   it("when it is issued, then the object's history and document list show it", async () => {
     const history = (await as.framer.get(`/api/objects/${objectId()}/history`)).body;
     const events = (history.items ?? history) as { type: string; summary: string }[];

@@ -41,6 +41,7 @@ export function insertReceipt(
       location: data.location,
       signedBy: data.signedBy,
       notes: data.notes,
+      returnDue: data.returnDue ?? null,
       createdBy,
     })
     .run();

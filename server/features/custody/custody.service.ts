@@ -50,6 +50,7 @@ export function toReceipt(row: repo.ReceiptRow): CustodyReceipt {
     signedBy: row.signedBy,
     location: row.location,
     notes: row.notes,
+    returnDue: row.returnDue,
     createdAt: row.createdAt.toISOString(),
   };
 }

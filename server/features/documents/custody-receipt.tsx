@@ -25,8 +25,10 @@ import type { ReceiptRow } from "../custody/custody.repo.ts";
 export type CustodyDocData = {
   receipt: ReceiptRow;
   object: { objectNumber: string; title: string; maker: string | null; dimensions: string; clientName: string };
-  /** From the current mounting, when there is one. */
+  /** From the mounting in place on the day, when there is one. */
   glazing: string | null;
+  /** The insured value as it stands, for a loan ("value in transit"); null when not a loan or not to be shown. */
+  valueInTransit: string | null;
   glass: boolean;
   weightKg: number | null;
 };
@@ -45,7 +47,7 @@ export function handlingCautions(d: Pick<CustodyDocData, "glass" | "weightKg">):
   if (d.glass)
     out.push({
       title: "Glazed with glass",
-      text: "Glass cuts if it breaks. Carry the frame upright with the glass towards you and never stack frames glass to glass. If the glass breaks, wear cut-resistant gloves and eye protection, lift the pieces away from the object, not across it, and put them in a sharps container.",
+      text: "Glass cuts if it breaks. Carry the frame upright with the glass towards you and never stack frames glass to glass. If the glass breaks, lay the frame flat, glass up, and leave it so: do not lift pieces off the work or try to clean it, as the edges can cut both you and the object. Call the framer or a conservator. If loose pieces must be swept up away from the work, wear cut-resistant gloves and eye protection and put them in a sharps container.",
     });
   if (d.weightKg != null && d.weightKg >= HEAVY_PACKAGE_KG)
     out.push({
@@ -92,6 +94,8 @@ export function CustodyReceiptDocument({ meta, data }: { meta: DocMeta; data: Cu
       <Field label="From">{r.fromParty}</Field>
       <Field label="To">{r.toParty}</Field>
       <Field label="Location">{r.location}</Field>
+      {r.returnDue ? <Field label="Agreed return">{day(r.returnDue)}</Field> : null}
+      {data.valueInTransit ? <Field label="Value in transit">{data.valueInTransit}</Field> : null}
       <Field label="Condition on hand-over">{r.condition}</Field>
       <Field label="Signed by">{r.signedBy}</Field>
       <Field label="Notes">{r.notes}</Field>

@@ -2,12 +2,13 @@ import type { ReactElement } from "react";
 import { inTransaction } from "../../db/client.ts";
 import type { DocumentProps } from "@react-pdf/renderer";
 import { renderToBuffer } from "@react-pdf/renderer";
-import { randomBytes, randomUUID } from "node:crypto";
+import { createHash, randomBytes, randomUUID } from "node:crypto";
+import { PDFDocument } from "pdf-lib";
 import { and, desc, eq } from "drizzle-orm";
 import type { Db } from "../../db/client.ts";
 import { issuedDocuments, objects } from "../../db/schema.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
-import { DOCUMENT_KIND_LABELS, type DocumentKind, type IssuedDocument, type Verification } from "../../../shared/schemas/documents.ts";
+import { DOCUMENT_KIND_LABELS, normaliseCode, type DocumentKind, type IssuedDocument, type Verification } from "../../../shared/schemas/documents.ts";
 import { registerFonts } from "../../lib/pdf/fonts.ts";
 import type { DocMeta } from "../../lib/pdf/layout.tsx";
 import { getLogo, getSettings } from "../settings/settings.repo.ts";
@@ -54,9 +55,12 @@ export function createDocumentsService(db: Db, clock: () => Date = () => new Dat
       };
       registerFonts();
       const pdf = await renderToBuffer(req.render(meta));
+      // The fingerprint the public check shows: the file's SHA-256 and its page count.
+      const sha256 = createHash("sha256").update(pdf).digest("hex");
+      const pages = (await PDFDocument.load(pdf, { updateMetadata: false })).getPageCount();
       inTransaction(db, (tx) => {
         tx.insert(issuedDocuments)
-          .values({ id: randomUUID(), code, kind: req.kind, title: req.title, objectId: req.objectId ?? null, clientId: req.clientId ?? null, paperSize: settings.paperSize, issuedAt, issuedBy: req.user.id, issuedByName: req.user.name })
+          .values({ id: randomUUID(), code, kind: req.kind, title: req.title, objectId: req.objectId ?? null, clientId: req.clientId ?? null, paperSize: settings.paperSize, issuedAt, issuedBy: req.user.id, issuedByName: req.user.name, sha256, pages })
           .run();
         if (req.objectId) {
           appendEvent(tx, { objectId: req.objectId, type: "document-issued", actor: req.user, summary: `${DOCUMENT_KIND_LABELS[req.kind]} issued, verification code ${code}.`, data: { code, kind: req.kind }, at: issuedAt });
@@ -68,16 +72,16 @@ export function createDocumentsService(db: Db, clock: () => Date = () => new Dat
 
     /** Public: whether a code was issued, of what kind, for which object and when — nothing more. */
     verify(code: string): Verification {
-      const norm = code.trim().toUpperCase();
+      const norm = normaliseCode(code);
       const row = db
-        .select({ code: issuedDocuments.code, kind: issuedDocuments.kind, issuedAt: issuedDocuments.issuedAt, objectNumber: objects.objectNumber })
+        .select({ code: issuedDocuments.code, kind: issuedDocuments.kind, issuedAt: issuedDocuments.issuedAt, objectNumber: objects.objectNumber, sha256: issuedDocuments.sha256, pages: issuedDocuments.pages })
         .from(issuedDocuments)
         .leftJoin(objects, eq(objects.id, issuedDocuments.objectId))
         .where(eq(issuedDocuments.code, norm))
         .get();
       if (!row) return { valid: false, code: norm };
       const kind = row.kind as DocumentKind;
-      return { valid: true, code: row.code, kind, kindLabel: DOCUMENT_KIND_LABELS[kind], objectNumber: row.objectNumber ?? null, issuedAt: row.issuedAt.toISOString() };
+      return { valid: true, code: row.code, kind, kindLabel: DOCUMENT_KIND_LABELS[kind], objectNumber: row.objectNumber ?? null, issuedAt: row.issuedAt.toISOString(), sha256: row.sha256, pages: row.pages };
     },
 
     list(filter: { objectId?: string; clientId?: string } = {}): IssuedDocument[] {

@@ -29,7 +29,17 @@ export function Component() {
         {v.isError && <Notice tone="fail" title="Could not check">{v.error.message}</Notice>}
         {v.data && (v.data.valid ? (
           <Notice tone="pass" title="This document was issued by the studio">
-            {v.data.kindLabel}{v.data.objectNumber ? ` for object ${v.data.objectNumber}` : ""}, issued {formatDateTime(v.data.issuedAt)}. Code <span className="font-mono">{v.data.code}</span>.
+            <p>{v.data.kindLabel}{v.data.objectNumber ? ` for object ${v.data.objectNumber}` : ""}, issued {formatDateTime(v.data.issuedAt)}. Code <span className="font-mono">{v.data.code}</span>.</p>
+            {v.data.sha256 ? (
+              <div className="mt-2">
+                <p>
+                  The issued file has {v.data.pages} page{v.data.pages === 1 ? "" : "s"} and this SHA-256 fingerprint. A copy whose fingerprint differs (for example from <span className="font-mono">sha256sum</span> or <span className="font-mono">certutil -hashfile … SHA256</span>) is not the file as issued.
+                </p>
+                <p className="mt-1 break-all font-mono text-xs" data-testid="fingerprint">{v.data.sha256}</p>
+              </div>
+            ) : (
+              <p className="mt-2">This document was issued before Reversa kept file fingerprints, so only its code can be checked.</p>
+            )}
           </Notice>
         ) : (
           <Notice tone="fail" title="Unknown code">No document with the code <span className="font-mono">{v.data.code}</span> was issued. Check the code for typing mistakes; if it is right, the document did not come from this studio.</Notice>

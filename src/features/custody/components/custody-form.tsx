@@ -6,6 +6,7 @@ import type { z } from "zod";
 import {
   CUSTODY_KINDS,
   CUSTODY_KIND_EFFECT,
+  RETURN_DUE_KINDS,
   CUSTODY_KIND_LABELS,
   CustodyCreateSchema,
   type CustodyCreate,
@@ -21,7 +22,7 @@ import { formatDate } from "@/lib/format.ts";
 import { useRecordCustody } from "../api/custody.ts";
 
 type Values = z.input<typeof CustodyCreateSchema>;
-const FIELDS = ["kind", "date", "fromParty", "toParty", "condition", "signedBy", "location", "notes"] as const satisfies readonly (keyof Values)[];
+const FIELDS = ["kind", "date", "fromParty", "toParty", "condition", "signedBy", "location", "returnDue", "notes"] as const satisfies readonly (keyof Values)[];
 
 type Parties = { owner: string; studio: string };
 
@@ -111,6 +112,7 @@ function ReceiptForm({ objectId, status, ownerName, studioName, onDone, onCancel
       condition: "",
       signedBy: "",
       location: "",
+      returnDue: "",
       notes: "",
     },
   });
@@ -124,6 +126,8 @@ function ReceiptForm({ objectId, status, ownerName, studioName, onDone, onCancel
       // Offer the usual parties for the new kind, but never over what the framer has typed.
       const next = suggestedParties(ev.target.value as CustodyKind, parties);
       for (const f of ["fromParty", "toParty"] as const) if (!getFieldState(f).isDirty) setValue(f, next[f]);
+      // A return date belongs to a loan or a stay with a conservator: it goes with the field.
+      if (!RETURN_DUE_KINDS.includes(ev.target.value as CustodyKind)) setValue("returnDue", "");
     },
   });
 
@@ -179,6 +183,9 @@ function ReceiptForm({ objectId, status, ownerName, studioName, onDone, onCancel
           hint={inward ? "Where it is kept in the studio, e.g. Plan chest B, drawer 2" : "Where it goes, e.g. the owner's home or the venue"}
           {...register("location")}
         />
+        {RETURN_DUE_KINDS.includes(kind) ? (
+          <TextField label="Agreed return date" type="date" className="num" error={e.returnDue?.message} hint="The day it is agreed to come back (optional); printed on the receipt" {...register("returnDue")} />
+        ) : null}
         <TextAreaField label="Notes" wrapClassName="md:col-span-2" error={e.notes?.message} hint="Packing, transport, anything agreed at the hand-over" {...register("notes")} />
       </div>
       <div className="flex flex-wrap gap-3">
