@@ -157,6 +157,8 @@ const TOL = 1.5;
 
 type Expect = { tableHeaders?: { header: RegExp; row: RegExp }[] };
 
+const allText = (pages: PdfPage[]) => pages.flatMap((p) => p.lines.map((l) => l.text)).join(" ");
+
 function bodyLines(page: PdfPage) {
   return page.lines.filter((l) => l.yMin >= BODY_TOP - TOL && l.yMin < page.height - FOOTER_BAND);
 }
@@ -214,11 +216,22 @@ describe.each(CONFIGS)("documents on $paperSize in $unit, with a long record", (
 
   it("the object dossier is readable page by page", async () => {
     const pdf = await issue(`/api/objects/${longId}/documents/dossier`);
+    const text = allText(pdfPages(pdf));
+    // For the owner: the report's recommendations with the referral, and undoing is bench work, not theirs.
+    expect(text).toContain("Referral to a conservator Refer the tideline staining to a qualified conservator");
+    expect(text).toMatch(/undoing it is bench work, not something for the owner/);
+    expect(text).toContain("T-hinges");
+    expect(text).not.toMatch(/t-hinge|wheat-starch-paste/);
     expectReadable(`dossier-${tag}`, pdf, cfg, { tableHeaders: [{ header: /^(No\.?|#)?\s*Finding\b.*Severity/, row: /^\d+ (foxing|tear|abrasion|crease|stain|cockling|flyspecks|loss|fading|tide line)\b/i }] });
   });
 
   it("the condition report is readable page by page", async () => {
     const pdf = await issue(`/api/condition/${reportId}/document`);
+    const text = allText(pdfPages(pdf));
+    // For the insurer: the support, the mount in place on the day, where it was examined.
+    expect(text).toContain("Support Cotton rag paper, 300 g/m²");
+    expect(text).toMatch(/Framed or unframed In its mount and glazed frame: .* \(mounted 2024-03-05\)/);
+    expect(text).toMatch(/Location at examination Store B, plan chest 4, drawer 2/);
     expectReadable(`condition-${tag}`, pdf, cfg, { tableHeaders: [{ header: /^(No\.?|#)?\s*Finding\b.*Severity/, row: /^\d+ (foxing|tear|abrasion|crease|stain|cockling|flyspecks|loss|fading|tide line)\b/i }] });
   });
 

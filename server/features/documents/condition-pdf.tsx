@@ -25,6 +25,10 @@ import { createObjectsService } from "../objects/objects.service.ts";
 import { createConditionService } from "../condition/condition.service.ts";
 import { findPhoto, type PhotoRow } from "../photos/photos.repo.ts";
 import { createDocumentsService } from "./documents.service.ts";
+import { and, desc, eq, isNotNull, lte } from "drizzle-orm";
+import { custodyReceipts } from "../../db/schema.ts";
+import { mountingInPlaceOn } from "../mountings/mountings.repo.ts";
+import { mountingDetail, summaryOf } from "./workshop-sheet.tsx";
 
 /** The sentence every condition document carries (docs/trade-reference.md §12). */
 export const NOT_TREATMENT = "Condition notes are observations, not conservation treatment; refer treatment to a qualified conservator.";
@@ -82,7 +86,10 @@ export function KV({ label, children, labelWidth = 130 }: { label: string; child
 export function Table({ cols, rows }: { cols: { label: string; width?: number; flex?: number; align?: "left" | "right" }[]; rows: ReactNode[][] }) {
   const style = (i: number) => ({ ...t.cell, ...(cols[i].width ? { width: cols[i].width } : { flex: cols[i].flex ?? 1 }), textAlign: cols[i].align ?? "left" }) as Style;
   return (
-    <View style={t.table}>
+    <>
+      {/* A table never starts in the last lines of a page: its header and first rows go over together. */}
+      <View minPresenceAhead={48} />
+      <View style={t.table}>
       <View style={t.th} fixed wrap={false}>
         {cols.map((c, i) => (
           <Text key={i} style={style(i)}>
@@ -107,7 +114,8 @@ export function Table({ cols, rows }: { cols: { label: string; width?: number; f
           )}
         </View>
       ))}
-    </View>
+      </View>
+    </>
   );
 }
 
@@ -277,6 +285,19 @@ export async function issueConditionReport(db: Db, config: Pick<Config, "uploads
   const compared = prev ? compareFindings(prev.current.data, data) : null;
   const value = showValue ? valuationLine(object) : null;
   const sig = data.signatures;
+  // The object as it was on the day of examination: the mount in place then, and where the custody record put it.
+  const inPlace = mountingInPlaceOn(db, object.id, report.reportDate);
+  const inPlaceDetail = inPlace ? mountingDetail(db, inPlace) : null;
+  const framed = inPlace
+    ? `In its ${settings.vocabulary === "mat" ? "mat" : "mount"}${inPlaceDetail && inPlaceDetail.data.glazing.type !== "none" ? " and glazed frame" : ""}: ${(inPlaceDetail && summaryOf(inPlaceDetail, settings.vocabulary)) ?? "see the mounting record"} (mounted ${inPlace.mountedOn})`
+    : "Unframed: no mounting recorded in place on that day";
+  const custodyThen = db
+    .select({ location: custodyReceipts.location, date: custodyReceipts.date })
+    .from(custodyReceipts)
+    .where(and(eq(custodyReceipts.objectId, object.id), lte(custodyReceipts.date, report.reportDate), isNotNull(custodyReceipts.location)))
+    .orderBy(desc(custodyReceipts.date), desc(custodyReceipts.createdAt))
+    .get();
+  const locationThen = custodyThen?.location ? `${custodyThen.location} (custody record of ${custodyThen.date})` : object.location ? `${object.location} (as recorded now; no custody record gives the place on that day)` : null;
 
   return createDocumentsService(db, clock, config.uploadsDir).issue({
     kind: "condition-report",
@@ -302,6 +323,9 @@ export async function issueConditionReport(db: Db, config: Pick<Config, "uploads
           <RatingTag rating={report.rating} />
         </KV>
         <KV label="Medium">{object.medium}</KV>
+        <KV label="Support">{object.support}</KV>
+        <KV label="Framed or unframed">{framed}</KV>
+        <KV label="Location at examination">{locationThen}</KV>
         {value ? <KV label="Insured value">{value}</KV> : null}
         <KV label="Summary">{data.summary}</KV>
 

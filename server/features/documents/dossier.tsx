@@ -36,6 +36,16 @@ import { findPhoto, listForObject as photosOfObject } from "../photos/photos.rep
 import { createDocumentsService } from "./documents.service.ts";
 import { Caution, FindingsTable, KV, Lines, para, loadPhoto, NOT_TREATMENT, PhotoGrid, RatingTag, Table, valuationLine, VerdictTag, type LoadedPhoto } from "./condition-pdf.tsx";
 
+/** Said before the framer's undo notes: the owner keeps the record, the bench does the work. */
+export const UNDO_IS_BENCH_WORK = "For the framer or conservator who will take this mount apart: undoing it is bench work, not something for the owner to try at home. Ask the studio, or a qualified conservator, to do it.";
+
+/** The report's recommendations with their labels, the referral to a conservator last, leaving out the empty ones. */
+function recommendationRows(d: ConditionReport["current"]["data"]): [string, string][] {
+  const r = d.recommendations;
+  const rows: [string, string | null][] = [["Display", r.display], ["Handling", r.handling], ["Environment", r.environment], ["Light", d.lightNotes], ["Referral to a conservator", r.referral]];
+  return rows.filter((x): x is [string, string] => !!x[1]);
+}
+
 /** Reads what the user may read; a refusal (403/404) of a section leaves that section out rather than the whole dossier. */
 function orNothing<T>(f: () => T, fallback: T): T {
   try {
@@ -194,6 +204,7 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
             <KV label="Notes">{d.notes}</KV>
             <View style={{ borderLeftWidth: 2, borderLeftColor: ACCENT, paddingLeft: 8, paddingVertical: 4, marginTop: 6 }} wrap={false}>
               <Text style={{ fontWeight: 700, marginBottom: 2 }}>How to undo this {w.mount}</Text>
+              <Text style={[para, { color: GRAPHITE }]}>{UNDO_IS_BENCH_WORK}</Text>
               <Lines text={d.undoNotes} style={para} />
             </View>
           </>
@@ -224,9 +235,19 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
             {latest.cautions.map((c, i) => (
               <Caution key={i}>{c}</Caution>
             ))}
-            <View style={{ marginTop: 4 }}>
-              <FindingsTable data={latest.current.data} photoNumber={photoNumber} />
-            </View>
+            {/* Not wrapped in a View: the table keeps itself off the last lines of a page only among its siblings. */}
+            <View style={{ height: 4 }} />
+            <FindingsTable data={latest.current.data} photoNumber={photoNumber} />
+            {recommendationRows(latest.current.data).length > 0 ? (
+              <>
+                <Text style={[s.h2, { fontSize: 9.5 }]}>Recommendations in that report</Text>
+                {recommendationRows(latest.current.data).map(([label, text]) => (
+                  <KV key={label} label={label}>
+                    {text}
+                  </KV>
+                ))}
+              </>
+            ) : null}
             <Text style={[s.small, { marginTop: 4 }]}>{NOT_TREATMENT}</Text>
           </>
         ) : (
