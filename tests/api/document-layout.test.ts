@@ -237,6 +237,9 @@ describe.each(CONFIGS)("documents on $paperSize in $unit, with a long record", (
 
   it("the schedule of values is readable page by page", async () => {
     const pdf = await issue(`/api/clients/${wrenfold}/documents/schedule`);
+    // An object with no signed condition report says so, rather than claiming it was never examined.
+    expect(allText(pdfPages(pdf))).toMatch(/No signed (\S+ )*?report/);
+    expect(allText(pdfPages(pdf))).not.toMatch(/Not examined/);
     expectReadable(`schedule-${tag}`, pdf, cfg, { tableHeaders: [{ header: /insured value/i, row: /^LONG-\d{4}\b/ }] });
   });
 

@@ -214,7 +214,7 @@ function Row({ r, i }: { r: ScheduleRow; i: number }) {
         {r.location ? <Text style={t.sub}>{r.location}</Text> : null}
       </View>
       <View style={t.cCond}>
-        <Text style={[t.td, tabular]}>{r.conditionDate ? day(r.conditionDate) : "Not examined"}</Text>
+        <Text style={[t.td, tabular]}>{r.conditionDate ? day(r.conditionDate) : "No signed report"}</Text>
         {r.conditionRating ? <Text style={t.sub}>{r.conditionRating}</Text> : null}
       </View>
       <Text style={[t.num, t.cVal, tabular]}>{r.valueMinor != null && r.currency ? formatMoney(r.valueMinor, r.currency) : "Not valued"}</Text>
