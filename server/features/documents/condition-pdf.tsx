@@ -242,8 +242,13 @@ export function PhotoGrid({ photos, data, columnWidth }: { photos: LoadedPhoto[]
 }
 
 export function valuationLine(o: ObjectRecord): string | null {
-  if (!o.valuationVisible || o.valuationMinor === null || !o.valuationCurrency) return null;
-  const basis = o.valuationBasis ? ` (${VALUATION_BASIS_LABELS[o.valuationBasis].toLowerCase()})` : "";
+  return o.valuationVisible ? valuationText(o) : null;
+}
+
+/** A recorded valuation in words: amount, basis, date and valuer; null when none is recorded. The caller decides who may see it. */
+export function valuationText(o: Pick<ObjectRecord, "valuationMinor" | "valuationCurrency" | "valuationDate" | "valuer"> & { valuationBasis: string | null }): string | null {
+  if (o.valuationMinor === null || !o.valuationCurrency) return null;
+  const basis = o.valuationBasis ? ` (${((VALUATION_BASIS_LABELS as Record<string, string>)[o.valuationBasis] ?? o.valuationBasis).toLowerCase()})` : "";
   return `${formatMoney(o.valuationMinor, o.valuationCurrency)}${basis}${o.valuationDate ? `, valued ${o.valuationDate}` : ""}${o.valuer ? ` by ${o.valuer}` : ""}`;
 }
 

@@ -13,8 +13,7 @@ import { input, validate } from "../../middleware/validate.ts";
 import { findClient } from "../clients/clients.repo.ts";
 import { findReceipt } from "../custody/custody.repo.ts";
 import { RETURN_DUE_KINDS, type CustodyKind } from "../../../shared/schemas/custody.ts";
-import { VALUATION_BASIS_LABELS } from "../../../shared/schemas/objects.ts";
-import { formatMoney } from "../../../shared/domain/money.ts";
+import { valuationText } from "./condition-pdf.tsx";
 import { can } from "../../../shared/permissions.ts";
 import { findMounting, mountingInPlaceOn } from "../mountings/mountings.repo.ts";
 import { findObject } from "../objects/objects.repo.ts";
@@ -41,13 +40,6 @@ export const WorkshopBodySchema = z.object({
 });
 export const LabelSheetBodySchema = z.object({ objectIds: Ids(400, "objects") });
 const ReceiptParam = z.object({ receiptId: z.string().min(1).max(64) });
-
-/** The object's insured value with its basis and date, for a loan's receipt; null when none is recorded. */
-function valueLine(o: { valuationMinor: number | null; valuationCurrency: string | null; valuationBasis: string | null; valuationDate: string | null }): string | null {
-  if (o.valuationMinor === null || !o.valuationCurrency) return null;
-  const basis = o.valuationBasis ? ` (${(VALUATION_BASIS_LABELS as Record<string, string>)[o.valuationBasis]?.toLowerCase() ?? o.valuationBasis})` : "";
-  return `${formatMoney(o.valuationMinor, o.valuationCurrency)}${basis}${o.valuationDate ? `, valued ${o.valuationDate}` : ""}`;
-}
 
 /** A document component as the service's render wants it: a react-pdf <Document> element. */
 const pdf = <P extends object>(c: FunctionComponent<P>, props: P) => createElement(c, props) as unknown as ReactElement<DocumentProps>;
@@ -106,7 +98,7 @@ export function moreDocumentsRoutes(db: Db, clock: () => Date = () => new Date()
       glass: g ? g.glazing.material === "glass" : !!glazingType && glazingType.includes("glass"),
       weightKg: g?.package.weightKg ?? null,
       // A loan travels at its insured value; shown only to those who may read valuations.
-      valueInTransit: RETURN_DUE_KINDS.includes(receipt.kind as CustodyKind) && can(user, "valuation:read", { clientId: object.clientId }) ? valueLine(object) : null,
+      valueInTransit: RETURN_DUE_KINDS.includes(receipt.kind as CustodyKind) && can(user, "valuation:read", { clientId: object.clientId }) ? valuationText(object) : null,
     };
     const doc = await docs.issue({
       kind: "custody-receipt",

@@ -29,6 +29,7 @@ import { AppError, conflict, notFound } from "../../lib/errors.ts";
 import { createStorage } from "../../lib/storage.ts";
 import { appendEvent } from "../history/history.chain.ts";
 import { issueDossier } from "../documents/dossier.tsx";
+import { VERDICT_WORDS } from "../documents/condition-pdf.tsx";
 import { getSettings } from "../settings/settings.repo.ts";
 import { recordPlan, type PlanSettings } from "../../../shared/domain/mounting.ts";
 import type { Verdict } from "../../../shared/schemas/mount-plan.ts";
@@ -264,7 +265,7 @@ function mountingRows(db: Db, user: SessionUser, objs: ObjectRow[]): Row[] {
   });
 }
 
-const CHECK_WORDS: Record<Verdict, string> = { pass: "pass", warn: "caution", fail: "fail" };
+const checkWord = (v: Verdict) => VERDICT_WORDS[v].toLowerCase();
 
 /**
  * A mounting record's plan figures and checks, recomputed with recordPlan from the saved record and the
@@ -292,8 +293,8 @@ function planCells(d: MountingData, o: ObjectRow, settings: PlanSettings): Row {
     "Border right (mm)": n(f.borders.right),
     "Outer width (mm)": n(f.outer.width),
     "Outer height (mm)": n(f.outer.height),
-    "Conservation checks": counts.map(([v, c]) => `${c} ${CHECK_WORDS[v]}`).join(", ") || "none",
-    "Checks not passed": notPassed.length ? notPassed.map((c) => `${c.rule} (${CHECK_WORDS[c.verdict]}): ${c.reason}`).join(" | ") : null,
+    "Conservation checks": counts.map(([v, c]) => `${c} ${checkWord(v)}`).join(", ") || "none",
+    "Checks not passed": notPassed.length ? notPassed.map((c) => `${c.rule} (${checkWord(c.verdict)}): ${c.reason}`).join(" | ") : null,
   };
 }
 
