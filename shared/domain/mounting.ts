@@ -146,3 +146,18 @@ export function boardBatches(data: MountingData): { role: string; batch: string 
 }
 
 export { BOARD_GRADE_LABELS };
+
+/**
+ * How big the object is as it leaves the studio (trade reference §15): the frame's outside, sight size
+ * + 2 × moulding face width, when a frame with its face width is recorded; otherwise the mount's outer
+ * size (a frame recorded without its face width says so rather than guess the moulding).
+ */
+export type PackageSize = { kind: "framed" | "framed-no-face-width" | "mount"; widthMm: number; heightMm: number };
+export function packageSize(data: MountingData, result: PlanResult): PackageSize | null {
+  if (!result.ok) return null;
+  const g = result.geometry;
+  const f = data.frame;
+  const framed = !!f && !!(f.moulding || f.finish || f.faceWidthMm || f.rebateDepthMm);
+  if (framed && f.faceWidthMm) return { kind: "framed", widthMm: g.sight.width + 2 * f.faceWidthMm, heightMm: g.sight.height + 2 * f.faceWidthMm };
+  return { kind: framed ? "framed-no-face-width" : "mount", widthMm: g.outer.width, heightMm: g.outer.height };
+}

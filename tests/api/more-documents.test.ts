@@ -135,6 +135,67 @@ describe("the schedule of values", () => {
     expect((await post(as.framer, `/api/clients/${wrenfold}/documents/schedule`, { status: "nowhere" })).status).toBe(422);
   });
 
+  it("gives per object its type and medium, sheet and framed size, valuation basis and date, and says when a total mixes bases or holds old values", async () => {
+    const c = makeClient(t.db, { kind: "private", name: "Orla Fenwick-Hay" });
+    const recent = new Date(Date.now() - 200 * 86_400_000).toISOString().slice(0, 10);
+    const a = makeObject(t.db, c.id, { objectNumber: "SV-1", title: "Estuary at dusk", objectType: "print", medium: "Etching and aquatint", sheetWidthMm: 300, sheetHeightMm: 400, valuationMinor: 100_000, valuationCurrency: "GBP", valuationBasis: "market", valuationDate: "2015-04-01" } as never);
+    makeObject(t.db, c.id, { objectNumber: "SV-2", title: "Two herons", objectType: "drawing", medium: "Graphite", valuationMinor: 50_000, valuationCurrency: "GBP", valuationBasis: "replacement", valuationDate: recent } as never);
+    makeObject(t.db, c.id, { objectNumber: "SV-3", title: "Pier, low tide", objectType: "photograph", medium: "Gelatin silver print", valuationMinor: 20_000, valuationCurrency: "EUR", valuationBasis: "agreed" } as never);
+    makeObject(t.db, c.id, { objectNumber: "SV-4", title: "Unvalued sketch", objectType: "drawing" } as never);
+    // Sheet 300 × 400, 5 mm overlap a side: window 290 × 390; 60 mm borders: outer 410 × 510. Rebate = outer + 2 mm
+    // clearance = 412 × 512; sight = rebate − 2 × 6 mm lip = 400 × 500; frame outside = sight + 2 × 25 mm face = 450 × 550
+    // (trade reference §8 and §15: common practice, no source).
+    const data = {
+      plan: { unit: "mm", sheet: { width: 300, height: 400 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 60 } },
+      boards: { window: { grade: "museum", buffered: true, ply: 4 }, backing: { grade: "museum", buffered: false, ply: 4 } },
+      attachment: { method: "t-hinge", tissue: "Kozo", adhesive: "wheat-starch-paste", hinges: [{ edge: "top", offsetMm: 60, widthMm: 25 }, { edge: "top", offsetMm: 240, widthMm: 25 }] },
+      glazing: { type: "uv-acrylic", thicknessMm: 3 },
+      frame: { moulding: "Oak, 25 mm flat", faceWidthMm: 25 },
+      undoNotes: "Release the hinges with a damp blotter.",
+    };
+    const d = await as.framer.post(`/api/objects/${a}/mountings`).send({ reason: "first-mounting", mountedOn: "2026-02-01", data });
+    expect(d.status, JSON.stringify(d.body)).toBe(201);
+    expect((await as.framer.post(`/api/mountings/${d.body.id}/complete`).send({ version: d.body.version })).status).toBe(200);
+
+    const { text } = await expectDocument(await post(as.admin, `/api/clients/${c.id}/documents/schedule`), "schedule-of-values");
+    expect(text).toContain("Print · Etching and aquatint");
+    expect(text).toContain("Photograph · Gelatin silver print");
+    expect(text).toMatch(/SV-1 .*300 × 400 mm/);
+    expect(text).toContain("Framed 450 × 550 mm");
+    expect(text).toContain("Not mounted");
+    expect(text).toContain("Market value");
+    expect(text).toContain("Valued 1 Apr 2015");
+    expect(text).toContain("Over 3 years old");
+    expect(text).toContain("No valuation date");
+    expect(text).toContain("Mixes bases: market value, replacement value.");
+    // The total split by basis: the parts add up to the whole (£1,000 + £500 = £1,500).
+    expect(text).toContain("Total £1,500.00");
+    expect(text).toMatch(/Market value · 1 object £1,000\.00/);
+    expect(text).toMatch(/Replacement value · 1 object £500\.00/);
+    expect(text).not.toContain("Drawing · Drawing");
+    expect(text).toContain("1 of the 2 values is more than 3 years old");
+    expect(text).toContain("The value has no valuation date.");
+    expect(text).toContain("EUR · 1 object · agreed value");
+    expect(text).toContain("1 object has no valuation");
+    expect(text.match(/Over 3 years old/g)).toHaveLength(1);
+  });
+
+  it("is produced for the register's filter, listing exactly the objects the register lists for it", async () => {
+    for (const filter of [{ status: "in-studio" }, { objectType: "print" }, { method: "t-hinge" }, { q: "toller" }, { status: "with-owner", objectType: "photograph" }]) {
+      const listed = await as.framer.get("/api/objects").query({ ...filter, clientId: wrenfold, pageSize: 200 });
+      expect(listed.status).toBe(200);
+      const want = (listed.body.items as { objectNumber: string }[]).map((o) => o.objectNumber);
+      const all = t.db.select().from(objects).where(eq(objects.clientId, wrenfold)).all().map((o) => o.objectNumber);
+      const res = await post(as.framer, `/api/clients/${wrenfold}/documents/schedule`, filter);
+      const { text } = await expectDocument(res, "schedule-of-values");
+      const shown = all.filter((n) => new RegExp(`^\\s*${n}\\b`, "m").test(text));
+      expect(shown.sort(), JSON.stringify(filter)).toEqual(want.sort());
+      expect(text).toContain(`${want.length} object${want.length === 1 ? "" : "s"} (`);
+    }
+    const bad = await post(as.framer, `/api/clients/${wrenfold}/documents/schedule`, { type: "print" });
+    expect(bad.status).toBe(422);
+  });
+
   it("follows the studio's paper size", async () => {
     const before = getSettings(t.db);
     const a4 = await post(as.admin, `/api/clients/${wrenfold}/documents/schedule`);

@@ -1,3 +1,7 @@
+import { spawnSync } from "node:child_process";
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
 import { describe, expect, inject, it } from "vitest";
 import { signIn, useBrowser } from "./support/browser.ts";
 
@@ -28,6 +32,32 @@ describe("documents journey", () => {
     await page.getByText("Unknown code").waitFor();
     expect(w.consoleErrors).toEqual([]);
     expect(w.foreignRequests).toEqual([]);
+    await page.close();
+  });
+
+  it("when the registrar filters their collection and asks for the schedule, then it lists exactly the objects on screen", async () => {
+    const { page, w } = await browser.fresh();
+    await signIn(page, baseUrl, "registrar@reversa.test");
+    await page.goto(`${baseUrl}/objects`);
+    await page.locator('section[aria-label="Objects"] tbody tr').first().waitFor();
+    const filteredList = page.waitForResponse((r) => r.url().includes("/api/objects?") && r.url().includes("status=with-owner"));
+    await page.getByLabel("Status").selectOption({ label: "With the owner" });
+    await filteredList;
+    await page.locator('section[aria-label="Objects"][aria-busy="false"] tbody tr').first().waitFor();
+    const shown = (await page.locator('section[aria-label="Objects"] tbody tr td:first-child').allTextContents()).map((x) => x.trim().split(/\s/)[0]);
+    expect(shown.length).toBeGreaterThan(0);
+    const download = page.waitForEvent("download");
+    await page.getByRole("button", { name: "Schedule of values for these objects (PDF)" }).click();
+    const file = await download;
+    const dir = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-e2e-schedule-"));
+    const pdf = path.join(dir, "schedule.pdf");
+    await file.saveAs(pdf);
+    const text = spawnSync("/usr/bin/pdftotext", ["-layout", pdf, "-"], { encoding: "utf8" }).stdout;
+    fs.rmSync(dir, { recursive: true, force: true });
+    expect(text).toContain("status: with the owner");
+    const listed = [...text.matchAll(/^\s*(\d{4}-\d{4})\b/gm)].map((m) => m[1]);
+    expect(listed.sort()).toEqual(shown.sort());
+    expect(w.consoleErrors).toEqual([]);
     await page.close();
   });
 });

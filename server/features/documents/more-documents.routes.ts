@@ -4,7 +4,7 @@ import type { DocumentProps } from "@react-pdf/renderer";
 import { z } from "zod";
 import type { Db } from "../../db/client.ts";
 import { IdParamSchema } from "../../../shared/schemas/common.ts";
-import { OBJECT_STATUSES, OBJECT_TYPES } from "../../../shared/schemas/objects.ts";
+import { ObjectListQuerySchema } from "../../../shared/schemas/objects.ts";
 import { STANDARD_BOARD_SHEETS } from "../../../shared/domain/mount-plan/index.ts";
 import { formatSize } from "../../../shared/domain/units.ts";
 import { AppError, notFound } from "../../lib/errors.ts";
@@ -27,12 +27,10 @@ import { BackLabelDocument, LabelSheetDocument, objectUrl, qrFor, type LabelData
 const Ids = (max: number, what: string) =>
   z.array(z.string().min(1).max(64), { message: `Give the ${what} as a list of ids.` }).min(1, { message: `Choose at least one ${what.replace(/s$/, "")}.` }).max(max, { message: `At most ${max} ${what} at once.` });
 
-export const ScheduleBodySchema = z
-  .object({
-    objectIds: Ids(5000, "objects").optional(),
-    status: z.enum(OBJECT_STATUSES).optional(),
-    objectType: z.enum(OBJECT_TYPES).optional(),
-  })
+/** Chosen objects, or the register's filter as the register screen holds it (the owner is the route's client). */
+export const ScheduleBodySchema = ObjectListQuerySchema.pick({ q: true, status: true, objectType: true, method: true, boardGrade: true, glazing: true, checkDueBy: true })
+  .extend({ objectIds: Ids(5000, "objects").optional() })
+  .strict()
   .default({});
 export const WorkshopBodySchema = z.object({
   mountingIds: Ids(200, "mountings"),
@@ -66,7 +64,7 @@ export function moreDocumentsRoutes(db: Db, clock: () => Date = () => new Date()
     if (!client) throw notFound("That client");
     assertCan(user, "client:read", { clientId: id }, { readAction: "client:read", what: "That client" });
     assertCan(user, "valuation:read", { clientId: id }, { readAction: "client:read", what: "That client" });
-    const data = loadSchedule(db, id, body, user.name);
+    const data = loadSchedule(db, id, body, user.name, clock());
     if (!data) throw notFound("One of those objects");
     const doc = await docs.issue({
       kind: "schedule-of-values",

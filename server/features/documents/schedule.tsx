@@ -5,7 +5,13 @@ import { format, parseISO } from "date-fns";
 import type { Db } from "../../db/client.ts";
 import { clients, conditionReports, objects } from "../../db/schema.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
-import { OBJECT_STATUS_LABELS } from "../../../shared/schemas/objects.ts";
+import { OBJECT_STATUS_LABELS, OBJECT_TYPE_LABELS, VALUATION_BASIS_LABELS, type ObjectType } from "../../../shared/schemas/objects.ts";
+import { ATTACHMENT_METHOD_LABELS, BOARD_GRADE_LABELS, GLAZING_TYPE_LABELS } from "../../../shared/schemas/mountings.ts";
+import { packageSize } from "../../../shared/domain/mounting.ts";
+import { valuationIsOld, VALUATION_REVIEW_YEARS } from "../../../shared/domain/valuation.ts";
+import { objectFilterWhere, type ObjectFilter } from "../objects/objects.repo.ts";
+import { findMounting } from "../mountings/mountings.repo.ts";
+import { mountingDetail } from "./workshop-sheet.tsx";
 import { RATING_LABELS, type Rating } from "../../../shared/schemas/condition.ts";
 import { formatSize, type Unit } from "../../../shared/domain/units.ts";
 import { formatMoney } from "../../../shared/domain/money.ts";
@@ -20,15 +26,35 @@ export type ScheduleRow = {
   objectNumber: string;
   title: string;
   maker: string | null;
+  /** "Print · etching and aquatint": the object type in words and the medium. */
+  kind: string;
+  /** The sheet, and the object as it leaves the studio (framed outside, or the mount's outer size). */
   dimensions: string;
+  packageSize: string | null;
   status: string;
   location: string | null;
   conditionDate: string | null;
   conditionRating: string | null;
   valueMinor: number | null;
   currency: string | null;
+  /** The valuation's basis in words ("Market value"), its date, and whether it is past review (trade reference §15). */
+  basis: string | null;
+  valuedOn: string | null;
+  valuationOld: boolean;
 };
-export type ScheduleTotal = { currency: string; minor: number; count: number };
+export type ScheduleTotal = {
+  currency: string;
+  minor: number;
+  count: number;
+  /** The bases this total adds, in words; more than one means the total mixes bases. */
+  bases: string[];
+  /** The total split by basis ("No recorded basis" for values without one): the parts add up to the total. */
+  byBasis: { basis: string; minor: number; count: number }[];
+  /** Values in this total with no basis, more than VALUATION_REVIEW_YEARS old, or with no date. */
+  noBasis: number;
+  old: number;
+  undated: number;
+};
 export type ScheduleData = {
   clientName: string;
   rows: ScheduleRow[];
@@ -37,9 +63,11 @@ export type ScheduleData = {
   producedBy: string;
   filterNote: string | null;
 };
-export type ScheduleFilter = { objectIds?: string[]; status?: string; objectType?: string };
+/** A chosen set of objects, or the register's filter (the same conditions the register's list reads). */
+export type ScheduleFilter = ObjectFilter & { objectIds?: string[] };
 
 const CHUNK = 500;
+const NO_BASIS = "No recorded basis";
 
 /** The latest signed condition report per object: date and rating. */
 function latestSigned(db: Db, ids: string[]): Map<string, { date: string; rating: string }> {
@@ -56,8 +84,8 @@ function latestSigned(db: Db, ids: string[]): Map<string, { date: string; rating
   return out;
 }
 
-/** Sums per currency in integer minor units (exact), in order of first appearance by object number. */
-export function totalsOf(rows: Pick<ScheduleRow, "valueMinor" | "currency">[]): { totals: ScheduleTotal[]; unvalued: number } {
+/** Sums per currency in integer minor units (exact), sorted by currency code, with the bases and ages each sum adds. */
+export function totalsOf(rows: Pick<ScheduleRow, "valueMinor" | "currency" | "basis" | "valuedOn" | "valuationOld">[]): { totals: ScheduleTotal[]; unvalued: number } {
   const by = new Map<string, ScheduleTotal>();
   let unvalued = 0;
   for (const r of rows) {
@@ -65,37 +93,67 @@ export function totalsOf(rows: Pick<ScheduleRow, "valueMinor" | "currency">[]): 
       unvalued++;
       continue;
     }
-    const t = by.get(r.currency) ?? { currency: r.currency, minor: 0, count: 0 };
+    const t = by.get(r.currency) ?? { currency: r.currency, minor: 0, count: 0, bases: [], byBasis: [], noBasis: 0, old: 0, undated: 0 };
     t.minor += r.valueMinor;
     t.count++;
+    const label = r.basis ?? NO_BASIS;
+    const part = t.byBasis.find((b) => b.basis === label) ?? t.byBasis[t.byBasis.push({ basis: label, minor: 0, count: 0 }) - 1];
+    part.minor += r.valueMinor;
+    part.count++;
+    if (!r.basis) t.noBasis++;
+    else if (!t.bases.includes(r.basis)) t.bases.push(r.basis);
+    if (!r.valuedOn) t.undated++;
+    else if (r.valuationOld) t.old++;
     by.set(r.currency, t);
+  }
+  for (const t of by.values()) {
+    t.bases.sort();
+    t.byBasis.sort((a, b) => (a.basis === NO_BASIS ? 1 : b.basis === NO_BASIS ? -1 : a.basis.localeCompare(b.basis)));
   }
   for (const t of by.values()) if (!Number.isSafeInteger(t.minor)) throw new RangeError(`The ${t.currency} total is too large to add up exactly.`);
   return { totals: [...by.values()].sort((a, b) => a.currency.localeCompare(b.currency)), unvalued };
 }
 
-/** Loads the rows of a schedule: a client's objects (optionally a filtered set), or, with clientId null, the given objects. */
-export function loadSchedule(db: Db, clientId: string | null, filter: ScheduleFilter, producedBy: string): ScheduleData | null {
+/** "Print · Etching": the type in words and the medium, the medium left out when it only repeats the type. */
+function kindOf(objectType: string, medium: string | null): string {
+  const type = OBJECT_TYPE_LABELS[objectType as ObjectType] ?? objectType;
+  return medium && medium.trim().toLowerCase() !== type.toLowerCase() ? `${type} · ${medium}` : type;
+}
+
+/** The object as it leaves the studio, from its current mounting, in the studio's unit; null when it has none. */
+function packageLine(db: Db, mountingId: string | null, unit: Unit): string | null {
+  const m = mountingId ? findMounting(db, mountingId) : null;
+  const d = m && m.status === "completed" ? mountingDetail(db, m) : null;
+  const p = d ? packageSize(d.data, d.result) : null;
+  if (!p) return null;
+  const size = formatSize(p.widthMm, p.heightMm, unit);
+  return p.kind === "framed" ? `Framed ${size}` : p.kind === "framed-no-face-width" ? `Framed; mount ${size}` : `Mount ${size}`;
+}
+
+/** Loads the rows of a schedule: a client's objects (the register's filter, or chosen ones), or, with clientId null, the given objects. */
+export function loadSchedule(db: Db, clientId: string | null, filter: ScheduleFilter, producedBy: string, on: Date = new Date()): ScheduleData | null {
   const unit: Unit = getSettings(db).unit;
-  const where: SQL[] = [];
-  if (clientId) where.push(eq(objects.clientId, clientId));
-  if (filter.status) where.push(eq(objects.status, filter.status));
-  if (filter.objectType) where.push(eq(objects.objectType, filter.objectType));
+  const where: SQL[] = objectFilterWhere(filter, clientId);
   const cols = {
     id: objects.id,
     objectNumber: objects.objectNumber,
     title: objects.title,
     maker: objects.maker,
+    objectType: objects.objectType,
+    medium: objects.medium,
+    mountingId: objects.currentMountingId,
     w: objects.sheetWidthMm,
     h: objects.sheetHeightMm,
     status: objects.status,
     location: objects.location,
     valueMinor: objects.valuationMinor,
     currency: objects.valuationCurrency,
+    valuedOn: objects.valuationDate,
+    basis: objects.valuationBasis,
     clientName: clients.name,
   };
   const base = () => db.select(cols).from(objects).innerJoin(clients, eq(clients.id, objects.clientId));
-  let raw: { id: string; objectNumber: string; title: string; maker: string | null; w: number; h: number; status: string; location: string | null; valueMinor: number | null; currency: string | null; clientName: string }[];
+  let raw: ReturnType<ReturnType<typeof base>["all"]>;
   if (filter.objectIds) {
     const wanted = [...new Set(filter.objectIds)];
     raw = [];
@@ -114,13 +172,18 @@ export function loadSchedule(db: Db, clientId: string | null, filter: ScheduleFi
       objectNumber: r.objectNumber,
       title: r.title,
       maker: r.maker,
+      kind: kindOf(r.objectType, r.medium),
       dimensions: formatSize(r.w, r.h, unit),
+      packageSize: packageLine(db, r.mountingId, unit),
       status: OBJECT_STATUS_LABELS[r.status as keyof typeof OBJECT_STATUS_LABELS] ?? r.status,
       location: r.location,
       conditionDate: c?.date ?? null,
       conditionRating: c ? (RATING_LABELS[c.rating as Rating] ?? c.rating) : null,
       valueMinor: r.valueMinor,
       currency: r.currency,
+      basis: r.basis ? (VALUATION_BASIS_LABELS[r.basis as keyof typeof VALUATION_BASIS_LABELS] ?? r.basis) : null,
+      valuedOn: r.valuedOn,
+      valuationOld: !!r.valuedOn && valuationIsOld(r.valuedOn, on),
     };
   });
   const clientName = clientId
@@ -128,8 +191,13 @@ export function loadSchedule(db: Db, clientId: string | null, filter: ScheduleFi
     : [...new Set(raw.map((r) => r.clientName))].join(", ");
   const parts: string[] = [];
   if (filter.objectIds) parts.push(`${rows.length} selected object${rows.length === 1 ? "" : "s"}`);
-  if (filter.status) parts.push(`status: ${OBJECT_STATUS_LABELS[filter.status as keyof typeof OBJECT_STATUS_LABELS] ?? filter.status}`);
-  if (filter.objectType) parts.push(`object type: ${filter.objectType}`);
+  if (filter.status) parts.push(`status: ${(OBJECT_STATUS_LABELS[filter.status] ?? filter.status).toLowerCase()}`);
+  if (filter.objectType) parts.push(`object type: ${(OBJECT_TYPE_LABELS[filter.objectType] ?? filter.objectType).toLowerCase()}`);
+  if (filter.method) parts.push(`held by: ${(ATTACHMENT_METHOD_LABELS[filter.method] ?? filter.method).toLowerCase()}`);
+  if (filter.boardGrade) parts.push(`board: ${(BOARD_GRADE_LABELS[filter.boardGrade] ?? filter.boardGrade).toLowerCase()}`);
+  if (filter.glazing) parts.push(`glazing: ${(GLAZING_TYPE_LABELS[filter.glazing] ?? filter.glazing).toLowerCase()}`);
+  if (filter.checkDueBy) parts.push(`check due by ${day(filter.checkDueBy)}`);
+  if (filter.q) parts.push(`matching “${filter.q}”`);
   return { clientName, rows, ...totalsOf(rows), producedBy, filterNote: parts.length ? parts.join(" · ") : null };
 }
 
@@ -140,15 +208,17 @@ const t = StyleSheet.create({
   zebra: { backgroundColor: "#f6f1e7" },
   td: { fontSize: 8 },
   sub: { fontSize: 7, color: GRAPHITE, marginTop: 1 },
+  flag: { fontSize: 7, color: ACCENT, fontWeight: 600, marginTop: 1 },
   num: { fontSize: 8, textAlign: "right" },
-  cNo: { width: 68, paddingRight: 6 },
+  cNo: { width: 60, paddingRight: 6 },
   cTitle: { flex: 1, paddingRight: 6 },
-  cDim: { width: 86, paddingRight: 6 },
-  cLoc: { width: 88, paddingRight: 6 },
-  cCond: { width: 66, paddingRight: 6 },
-  cVal: { width: 78, textAlign: "right" },
-  totals: { marginTop: 10, alignSelf: "flex-end", width: 250 },
-  totalRow: { flexDirection: "row", justifyContent: "space-between", paddingVertical: 3, borderBottomWidth: 0.4, borderBottomColor: STONE },
+  cDim: { width: 96, paddingRight: 6 },
+  cLoc: { width: 78, paddingRight: 6 },
+  cCond: { width: 62, paddingRight: 6 },
+  cVal: { width: 82, textAlign: "right" },
+  totals: { marginTop: 10, alignSelf: "flex-end", width: 300 },
+  totalRow: { flexDirection: "row", justifyContent: "space-between", paddingTop: 3, paddingBottom: 1 },
+  totalBlock: { borderBottomWidth: 0.4, borderBottomColor: STONE, paddingBottom: 3 },
   totalStrong: { fontSize: 9, fontWeight: 700, textAlign: "right" },
 });
 const day = (iso: string) => {
@@ -156,13 +226,14 @@ const day = (iso: string) => {
   return Number.isNaN(d.getTime()) ? iso : format(d, "d MMM yyyy");
 };
 const tabular = { fontFeatureSettings: ["tnum" as const] };
+const OLD = `Over ${VALUATION_REVIEW_YEARS} years old`;
 
 function HeaderRow() {
   return (
     <View style={t.head} fixed>
       <Text style={[t.th, t.cNo]}>Object number</Text>
-      <Text style={[t.th, t.cTitle]}>Title · maker</Text>
-      <Text style={[t.th, t.cDim]}>Dimensions</Text>
+      <Text style={[t.th, t.cTitle]}>Title · maker · type</Text>
+      <Text style={[t.th, t.cDim]}>Sheet · framed size</Text>
       <Text style={[t.th, t.cLoc]}>Status · location</Text>
       <Text style={[t.th, t.cCond]}>Last condition</Text>
       <Text style={[t.th, t.cVal]}>Insured value</Text>
@@ -170,12 +241,17 @@ function HeaderRow() {
   );
 }
 
+/** Lines of text at about `perLine` characters a line (never fewer than one). */
+const lines = (text: string | null, perLine: number) => (text ? Math.max(1, Math.ceil(text.length / perLine)) : 0);
+
 /** A row's height in points, estimated from its text, to fill each page without overflowing it. */
 function rowHeight(r: ScheduleRow): number {
-  const titleLines = Math.max(1, Math.ceil((r.title.length * 4.1) / 150)) + (r.maker ? 1 : 0);
-  const locLines = Math.max(1, Math.ceil(r.status.length * 4.1 / 88)) + (r.location ? Math.ceil((r.location.length * 3.6) / 88) : 0);
-  const condLines = r.conditionRating ? 2 : 1;
-  return 9.5 + Math.max(titleLines, locLines, condLines) * 10.2;
+  const title = lines(r.title, 34) + lines(r.maker, 38) + lines(r.kind, 38);
+  const dim = lines(r.dimensions, 22) + lines(r.packageSize, 24);
+  const loc = lines(r.status, 18) + lines(r.location, 20);
+  const cond = r.conditionRating ? 2 : 1;
+  const val = 1 + (r.valueMinor != null ? 1 + (r.basis ? 1 : 0) + (r.valuationOld ? 1 : 0) : 0);
+  return 9.5 + Math.max(title, dim, loc, cond, val) * 10.2;
 }
 
 /**
@@ -200,6 +276,18 @@ function paginate(rows: ScheduleRow[], pageHeight: number): ScheduleRow[][] {
   return pages;
 }
 
+function Value({ r }: { r: ScheduleRow }) {
+  if (r.valueMinor == null || !r.currency) return <Text style={[t.num, t.cVal]}>Not valued</Text>;
+  return (
+    <View style={t.cVal}>
+      <Text style={[t.num, tabular]}>{formatMoney(r.valueMinor, r.currency)}</Text>
+      {r.basis ? <Text style={[t.sub, { textAlign: "right" }]}>{r.basis}</Text> : null}
+      <Text style={[t.sub, tabular, { textAlign: "right" }]}>{r.valuedOn ? `Valued ${day(r.valuedOn)}` : "No valuation date"}</Text>
+      {r.valuationOld ? <Text style={[t.flag, { textAlign: "right" }]}>{OLD}</Text> : null}
+    </View>
+  );
+}
+
 function Row({ r, i }: { r: ScheduleRow; i: number }) {
   return (
     <View style={i % 2 === 1 ? [t.row, t.zebra] : t.row} wrap={false}>
@@ -207,8 +295,12 @@ function Row({ r, i }: { r: ScheduleRow; i: number }) {
       <View style={t.cTitle}>
         <Text style={t.td}>{r.title}</Text>
         {r.maker ? <Text style={t.sub}>{r.maker}</Text> : null}
+        {r.kind ? <Text style={t.sub}>{r.kind}</Text> : null}
       </View>
-      <Text style={[t.td, t.cDim, tabular]}>{r.dimensions}</Text>
+      <View style={t.cDim}>
+        <Text style={[t.td, tabular]}>{r.dimensions}</Text>
+        <Text style={[t.sub, tabular]}>{r.packageSize ?? "Not mounted"}</Text>
+      </View>
       <View style={t.cLoc}>
         <Text style={t.td}>{r.status}</Text>
         {r.location ? <Text style={t.sub}>{r.location}</Text> : null}
@@ -217,7 +309,7 @@ function Row({ r, i }: { r: ScheduleRow; i: number }) {
         <Text style={[t.td, tabular]}>{r.conditionDate ? day(r.conditionDate) : "No signed report"}</Text>
         {r.conditionRating ? <Text style={t.sub}>{r.conditionRating}</Text> : null}
       </View>
-      <Text style={[t.num, t.cVal, tabular]}>{r.valueMinor != null && r.currency ? formatMoney(r.valueMinor, r.currency) : "Not valued"}</Text>
+      <Value r={r} />
     </View>
   );
 }
@@ -270,17 +362,46 @@ export function ScheduleDocument({ meta, data }: { meta: DocMeta; data: Schedule
   );
 }
 
+/** What a total adds that an insurer must know: mixed bases, values past review, values without a date or basis. */
+export function totalCaveats(x: ScheduleTotal): string[] {
+  const out: string[] = [];
+  const of = (n: number) => (n === x.count ? (n === 1 ? "The value" : `All ${n} values`) : `${n} of the ${x.count} values`);
+  if (x.bases.length > 1) out.push(`Mixes bases: ${x.bases.map((b) => b.toLowerCase()).join(", ")}. Values on different bases are not the same measure.`);
+  if (x.noBasis) out.push(`${of(x.noBasis)} ${x.noBasis === 1 ? "has" : "have"} no recorded basis.`);
+  if (x.old) out.push(`${of(x.old)} ${x.old === 1 ? "is" : "are"} more than ${VALUATION_REVIEW_YEARS} years old: ask for a revaluation.`);
+  if (x.undated) out.push(`${of(x.undated)} ${x.undated === 1 ? "has" : "have"} no valuation date.`);
+  return out;
+}
+
 function Totals({ data }: { data: ScheduleData }) {
   return (
     <>
       <View style={t.totals} wrap={false}>
         <Text style={[s.h2, { marginTop: 4 }]}>Totals per currency</Text>
         {data.totals.map((x) => (
-          <View key={x.currency} style={t.totalRow}>
-            <Text style={t.td}>
-              {x.currency} · {x.count} object{x.count === 1 ? "" : "s"}
-            </Text>
-            <Text style={[t.totalStrong, tabular]}>Total {formatMoney(x.minor, x.currency)}</Text>
+          <View key={x.currency} style={t.totalBlock}>
+            <View style={t.totalRow}>
+              <Text style={t.td}>
+                {x.currency} · {x.count} object{x.count === 1 ? "" : "s"}
+                {x.bases.length === 1 && !x.noBasis ? ` · ${x.bases[0].toLowerCase()}` : ""}
+              </Text>
+              <Text style={[t.totalStrong, tabular]}>Total {formatMoney(x.minor, x.currency)}</Text>
+            </View>
+            {x.byBasis.length > 1
+              ? x.byBasis.map((b) => (
+                  <View key={b.basis} style={[t.totalRow, { paddingTop: 1 }]}>
+                    <Text style={t.sub}>
+                      {b.basis} · {b.count} object{b.count === 1 ? "" : "s"}
+                    </Text>
+                    <Text style={[t.sub, tabular]}>{formatMoney(b.minor, x.currency)}</Text>
+                  </View>
+                ))
+              : null}
+            {totalCaveats(x).map((c) => (
+              <Text key={c} style={t.flag}>
+                {c}
+              </Text>
+            ))}
           </View>
         ))}
         {data.totals.length === 0 ? <Text style={t.td}>No object in this schedule has a valuation.</Text> : null}
@@ -291,7 +412,7 @@ function Totals({ data }: { data: ScheduleData }) {
         ) : null}
       </View>
       <Text style={[s.small, { marginTop: 14, fontSize: 7.5, lineHeight: 1.4 }]} wrap={false}>
-        Values are as recorded in Reversa on the date above, in each valuation's own currency; currencies are never converted or added together. Condition dates are those of the latest signed condition report. This schedule is confidential to the owner and the studio.
+        Values are as recorded in Reversa on the date above, in each valuation's own currency, with the basis and date each was given; currencies are never converted or added together. Values more than {VALUATION_REVIEW_YEARS} years old are marked. Sizes are width × height: the sheet, then the frame's outside where a frame is recorded, or the mount's outer size. Condition dates are those of the latest signed condition report. This schedule is confidential to the owner and the studio.
       </Text>
     </>
   );

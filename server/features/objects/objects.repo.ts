@@ -50,7 +50,9 @@ const listColumns = {
   checkDueOn: objects.checkDueOn,
 };
 
-export function listObjects(db: Db, query: ObjectListQuery, scopeClientId: string | null) {
+/** The register's filter (everything in the list query but sort and page) as SQL conditions: the list and the schedule of values read the same set. */
+export type ObjectFilter = Omit<ObjectListQuery, "sort" | "dir" | "page" | "pageSize">;
+export function objectFilterWhere(query: ObjectFilter, scopeClientId: string | null): SQL[] {
   const where: SQL[] = [];
   const clientId = scopeClientId ?? query.clientId;
   if (scopeClientId && query.clientId && query.clientId !== scopeClientId) where.push(sql`0`);
@@ -65,6 +67,11 @@ export function listObjects(db: Db, query: ObjectListQuery, scopeClientId: strin
     const fts = toFtsQuery(query.q);
     if (fts) where.push(sql`${objects.id} in (select object_id from objects_fts where objects_fts match ${fts})`);
   }
+  return where;
+}
+
+export function listObjects(db: Db, query: ObjectListQuery, scopeClientId: string | null) {
+  const where = objectFilterWhere(query, scopeClientId);
   const cond = where.length ? and(...where) : undefined;
   const col = SORT_COLUMNS[query.sort];
   const order = query.dir === "desc" ? [desc(col), desc(objects.id)] : [asc(col), asc(objects.id)];

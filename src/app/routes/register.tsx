@@ -26,6 +26,7 @@ import { ButtonLink } from "@/components/ui/button.tsx";
 import { EmptyState, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { Pagination } from "@/components/ui/pagination.tsx";
 import { useDebounced } from "@/lib/use-debounced.ts";
+import { DocumentButton } from "@/features/documents/components/document-button.tsx";
 
 const PAGE_SIZE = 50;
 /** "Last mounted" opens newest first: recent mountings are the ones usually asked about. */
@@ -86,6 +87,10 @@ export function Component() {
   const clients = useClients(studio);
   const title = studio ? "Register" : user?.role === "registrar" ? "Collection" : "My collection";
   const filtered = !!(debouncedQ || status || objectType || clientId || method || boardGrade || glazing || due);
+  // A schedule of values is one owner's: the chosen owner for the studio, the signed-in client's own otherwise.
+  const scheduleOwner = studio ? clientId : (user?.clientId ?? undefined);
+  const mayValue = !!scheduleOwner && can(user, "valuation:read", { clientId: scheduleOwner });
+  const scheduleFilter = { q: debouncedQ || undefined, status, objectType, method, boardGrade, glazing, checkDueBy: due ? today : undefined };
 
   return (
     <div className="space-y-5">
@@ -96,7 +101,19 @@ export function Component() {
             {studio ? "Every object the studio has recorded. Search by object number, title or maker." : "The objects recorded for you by the studio."}
           </p>
         </div>
-        {can(user, "object:create") && <ButtonLink to="/objects/new">New object</ButtonLink>}
+        <div className="flex flex-wrap items-start gap-3">
+          {mayValue && scheduleOwner ? (
+            <DocumentButton
+              url={`/api/clients/${scheduleOwner}/documents/schedule`}
+              body={scheduleFilter}
+              label={Object.values(scheduleFilter).some(Boolean) ? "Schedule of values for these objects (PDF)" : "Schedule of values (PDF)"}
+              fallbackName="schedule-of-values.pdf"
+            />
+          ) : studio ? (
+            <span className="max-w-56 text-xs text-graphite">Choose an owner to produce a schedule of values for the objects shown.</span>
+          ) : null}
+          {can(user, "object:create") && <ButtonLink to="/objects/new">New object</ButtonLink>}
+        </div>
       </header>
 
       <div role="search" className="flex flex-wrap items-center gap-3">
