@@ -124,7 +124,7 @@ export function createApp({ config, database, clock = () => new Date() }: AppDep
   app.use("/api", photoRoutes(db, config));
   app.use("/api", conditionRoutes(db, clock));
   app.use("/api", termRoutes(db));
-  app.use("/api", moreDocumentsRoutes(db, clock, config.publicUrl, config.uploadsDir));
+  app.use("/api", moreDocumentsRoutes(db, clock, { publicUrl: config.publicUrl, publicUrlGiven: config.publicUrlGiven }, config.uploadsDir));
   app.use("/api", documentsRoutes(db, config, clock));
   app.use("/api", exportRoutes(db, config, clock));
   app.use("/api/objects", objectRoutes(db, clock));

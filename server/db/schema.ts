@@ -155,6 +155,8 @@ export const studioSettings = sqliteTable("studio_settings", {
   id: integer("id").primaryKey(),
   studioName: text("studio_name").notNull(),
   studioAddress: text("studio_address"),
+  /** Telephone and e-mail as the studio wants them printed on documents and back labels. */
+  studioContact: text("studio_contact"),
   unit: text("unit", { enum: ["mm", "in"] }).notNull().default("mm"),
   vocabulary: text("vocabulary", { enum: ["mount", "mat"] }).notNull().default("mount"),
   paperSize: text("paper_size", { enum: ["A4", "Letter"] }).notNull().default("A4"),

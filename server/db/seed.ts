@@ -63,6 +63,7 @@ export async function seedDemo(db: Db): Promise<boolean> {
   saveSettings(db, {
     studioName: "Tidewell & Marr Conservation Framing",
     studioAddress: "Unit 4, Ropewalk Yard, Eastharbour (an invented demo studio)",
+    studioContact: "01632 960 417 · bench@tidewell-marr.example",
     unit: "mm",
     vocabulary: "mount",
     paperSize: "A4",

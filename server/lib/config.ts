@@ -32,6 +32,8 @@ export type Config = {
   maxUploadMegapixels: number;
   seedDemo: boolean;
   publicUrl: string;
+  /** Whether PUBLIC_URL was given: back labels refuse to print a QR code to a guessed localhost address. */
+  publicUrlGiven: boolean;
   trustedOrigins: string[];
   authSecret?: string;
   logLevel: string;
@@ -59,6 +61,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     maxUploadMegapixels: e.MAX_UPLOAD_MEGAPIXELS,
     seedDemo: e.SEED_DEMO,
     publicUrl,
+    publicUrlGiven: e.PUBLIC_URL !== undefined,
     trustedOrigins: [publicUrl, `http://localhost:${e.PORT}`, `http://127.0.0.1:${e.PORT}`, ...e.TRUSTED_ORIGINS.split(",").map((s) => s.trim()).filter(Boolean)],
     authSecret: e.BETTER_AUTH_SECRET,
     logLevel: e.LOG_LEVEL,

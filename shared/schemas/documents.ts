@@ -25,3 +25,6 @@ export function normaliseCode(typed: string): string {
   const hex = typed.toUpperCase().replace(/[^0-9A-F]/g, "");
   return hex.length === 12 ? `${hex.slice(0, 4)}-${hex.slice(4, 8)}-${hex.slice(8)}` : typed.trim().toUpperCase();
 }
+
+/** The most back labels one sheet prints at once. */
+export const LABEL_SHEET_MAX = 400;

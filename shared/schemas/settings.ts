@@ -9,6 +9,7 @@ export const PAPER_SIZES = ["A4", "Letter"] as const;
 export const StudioSettingsSchema = z.object({
   studioName: requiredText(200, "Give the studio's name."),
   studioAddress: optionalText(500),
+  studioContact: optionalText(200),
   unit: z.enum(UNITS, { message: "Choose mm or inches." }),
   vocabulary: z.enum(VOCABULARIES, { message: "Choose mount or mat." }),
   paperSize: z.enum(PAPER_SIZES, { message: "Choose A4 or US Letter." }),

@@ -316,7 +316,7 @@ describe("back labels", () => {
     expect((await post(as.registrar, `/api/objects/${o.id}/documents/back-label`)).status).toBe(403);
   });
 
-  it("prints a sheet of labels, 8 to a page, on the studio's paper size, with one code for the sheet", async () => {
+  it("prints a sheet of labels, 8 to an A4 page, on the studio's paper size, with one code for the sheet", async () => {
     const os = t.db.select().from(objects).innerJoin(clients, eq(clients.id, objects.clientId)).all().slice(0, 9).map((r) => r.objects);
     const res = await post(as.framer, "/api/documents/label-sheet", { objectIds: os.map((o) => o.id) });
     const { text, pdf } = await expectDocument(res, "label-sheet");
@@ -325,6 +325,7 @@ describe("back labels", () => {
     expect(info).toMatch(/Pages:\s+2/);
     expect(info).toMatch(/\(A4\)/);
     for (const o of os) expect(text).toContain(o.objectNumber);
-    expect(text.match(/Reversible mount/g)!.length).toBe(9);
+    // The reversible-mount line only on the labels of objects that have a mount.
+    expect(text.match(/Reversible mount/g)?.length ?? 0).toBe(os.filter((o) => o.currentMountingId).length);
   });
 });

@@ -8,6 +8,7 @@ let as: Record<"admin" | "framer" | "collector" | "registrar", Agent>;
 const SETTINGS: StudioSettings = {
   studioName: "Tidewell & Marr",
   studioAddress: "Unit 4, Ropewalk Yard",
+  studioContact: "01632 960 417",
   unit: "in",
   vocabulary: "mat",
   paperSize: "Letter",
@@ -40,6 +41,7 @@ describe("GET /api/settings", () => {
       expect(res.body).toEqual({
         studioName: "My framing studio",
         studioAddress: null,
+        studioContact: null,
         unit: "mm",
         vocabulary: "mount",
         paperSize: "A4",

@@ -60,4 +60,17 @@ describe("documents journey", () => {
     expect(w.consoleErrors).toEqual([]);
     await page.close();
   });
+
+  it("when the studio runs on this machine's own address, then the framer is warned before printing labels and no label button is offered", async () => {
+    const { page, w } = await browser.fresh();
+    await signIn(page, baseUrl, "framer@reversa.test");
+    await page.goto(`${baseUrl}/objects?q=2026-0003`);
+    await page.getByRole("link", { name: "2026-0003" }).click();
+    // The e2e server's PUBLIC_URL is a 127.0.0.1 address: a QR code to it would open nothing anywhere else.
+    await page.getByText("Labels are not ready to print").waitFor();
+    await page.getByText(/PUBLIC_URL is http:\/\/127\.0\.0\.1/).waitFor();
+    expect(await page.getByRole("button", { name: "Back label (PDF)" }).count()).toBe(0);
+    expect(w.consoleErrors).toEqual([]);
+    await page.close();
+  });
 });

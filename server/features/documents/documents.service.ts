@@ -45,6 +45,7 @@ export function createDocumentsService(db: Db, clock: () => Date = () => new Dat
       const meta: DocMeta = {
         studioName: settings.studioName,
         studioAddress: settings.studioAddress,
+        studioContact: settings.studioContact,
         kindLabel: DOCUMENT_KIND_LABELS[req.kind],
         objectNumber: req.objectNumber ?? null,
         code,

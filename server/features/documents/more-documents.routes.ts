@@ -2,12 +2,16 @@ import { Router, type Response } from "express";
 import { createElement, type FunctionComponent, type ReactElement } from "react";
 import type { DocumentProps } from "@react-pdf/renderer";
 import { z } from "zod";
+import { and } from "drizzle-orm";
+import { objects } from "../../db/schema.ts";
+import { objectFilterWhere } from "../objects/objects.repo.ts";
 import type { Db } from "../../db/client.ts";
 import { IdParamSchema } from "../../../shared/schemas/common.ts";
 import { ObjectListQuerySchema } from "../../../shared/schemas/objects.ts";
+import { LABEL_SHEET_MAX } from "../../../shared/schemas/documents.ts";
 import { STANDARD_BOARD_SHEETS } from "../../../shared/domain/mount-plan/index.ts";
 import { formatSize } from "../../../shared/domain/units.ts";
-import { AppError, notFound } from "../../lib/errors.ts";
+import { AppError, conflict, notFound } from "../../lib/errors.ts";
 import { assertCan, currentUser, requirePermission } from "../../middleware/require-permission.ts";
 import { input, validate } from "../../middleware/validate.ts";
 import { findClient } from "../clients/clients.repo.ts";
@@ -36,7 +40,28 @@ export const WorkshopBodySchema = z.object({
   mountingIds: Ids(200, "mountings"),
   boardSheetId: z.enum(STANDARD_BOARD_SHEETS.map((b) => b.id) as [string, ...string[]], { message: `Choose a board sheet: ${STANDARD_BOARD_SHEETS.map((b) => b.label).join(", ")}.` }).optional(),
 });
-export const LabelSheetBodySchema = z.object({ objectIds: Ids(400, "objects") });
+/** Chosen objects, or the register's filter as the register screen holds it (with its owner, if one is chosen). */
+export const LabelSheetBodySchema = ObjectListQuerySchema.pick({ q: true, clientId: true, status: true, objectType: true, method: true, boardGrade: true, glazing: true, checkDueBy: true })
+  .extend({ objectIds: Ids(LABEL_SHEET_MAX, "objects").optional() })
+  .strict();
+
+/**
+ * Why labels cannot be printed now, or null when they can: a QR code must lead to the address people
+ * open Reversa at, never to a guessed localhost that only works on the studio's own machine.
+ */
+export function labelAddressProblem(address: { publicUrl: string; publicUrlGiven: boolean }): string | null {
+  const host = (() => {
+    try {
+      return new URL(address.publicUrl).hostname;
+    } catch {
+      return "";
+    }
+  })();
+  const loopback = host === "localhost" || host.endsWith(".localhost") || /^127\./.test(host) || host === "[::1]" || host === "::1" || host === "0.0.0.0";
+  if (!address.publicUrlGiven) return `Reversa does not know the address people open it at, so the QR code would point at ${address.publicUrl}, this machine only. Set PUBLIC_URL (for example https://records.your-studio.example) and restart.`;
+  if (loopback) return `PUBLIC_URL is ${address.publicUrl}, an address that opens only on this machine. Set it to the address people open Reversa at and restart.`;
+  return null;
+}
 const ReceiptParam = z.object({ receiptId: z.string().min(1).max(64) });
 
 /** A document component as the service's render wants it: a react-pdf <Document> element. */
@@ -51,7 +76,8 @@ function sendPdf(res: Response, doc: { pdf: Buffer; code: string; filename: stri
 }
 
 /** Schedule of values, custody receipt, workshop sheet, back labels. Mounted at /api, after the session check. */
-export function moreDocumentsRoutes(db: Db, clock: () => Date = () => new Date(), publicUrl = "http://localhost:3000", uploadsDir?: string) {
+export function moreDocumentsRoutes(db: Db, clock: () => Date, address: { publicUrl: string; publicUrlGiven: boolean }, uploadsDir?: string) {
+  const { publicUrl } = address;
   const docs = createDocumentsService(db, clock, uploadsDir);
   const r = Router();
 
@@ -135,6 +161,16 @@ export function moreDocumentsRoutes(db: Db, clock: () => Date = () => new Date()
     sendPdf(res, doc);
   });
 
+  // Before a framer prints: whether the labels' QR codes would lead anywhere (the screen warns when not).
+  r.get("/documents/labels/readiness", requirePermission("mounting:write"), (_req, res) => {
+    const problem = labelAddressProblem(address);
+    res.json({ ready: problem === null, publicUrl, problem });
+  });
+  const assertLabelsReady = () => {
+    const problem = labelAddressProblem(address);
+    if (problem) throw conflict(`Labels cannot be printed yet. ${problem}`);
+  };
+
   async function labelFor(objectId: string): Promise<LabelData> {
     const o = findObject(db, objectId);
     if (!o) throw notFound("That object");
@@ -154,6 +190,7 @@ export function moreDocumentsRoutes(db: Db, clock: () => Date = () => new Date()
 
   r.post("/objects/:id/documents/back-label", requirePermission("mounting:write"), validate({ params: IdParamSchema }), async (req, res) => {
     const user = currentUser(req);
+    assertLabelsReady();
     const label = await labelFor(input(req, "params", IdParamSchema).id);
     const o = findObject(db, label.objectId)!;
     const doc = await docs.issue({
@@ -163,7 +200,7 @@ export function moreDocumentsRoutes(db: Db, clock: () => Date = () => new Date()
       objectId: label.objectId,
       objectNumber: label.objectNumber,
       clientId: o.clientId,
-      render: (meta) => pdf(BackLabelDocument, { meta, label }),
+      render: (meta) => pdf(BackLabelDocument, { meta, label, address: { publicUrl } }),
     });
     sendPdf(res, doc);
   });
@@ -171,16 +208,25 @@ export function moreDocumentsRoutes(db: Db, clock: () => Date = () => new Date()
   // One verification code for the whole sheet, recorded without an object (no per-object history event).
   r.post("/documents/label-sheet", requirePermission("mounting:write"), validate({ body: LabelSheetBodySchema }), async (req, res) => {
     const user = currentUser(req);
-    const ids = [...new Set(input(req, "body", LabelSheetBodySchema).objectIds)];
+    assertLabelsReady();
+    const body = input(req, "body", LabelSheetBodySchema);
+    const { objectIds, ...filter } = body;
+    let ids: string[];
+    if (objectIds) ids = [...new Set(objectIds)];
+    else {
+      const where = objectFilterWhere(filter, null);
+      ids = db.select({ id: objects.id }).from(objects).where(where.length ? and(...where) : undefined).limit(LABEL_SHEET_MAX + 1).all().map((o) => o.id);
+      if (ids.length > LABEL_SHEET_MAX) throw new AppError(400, "validation_failed", `At most ${LABEL_SHEET_MAX} labels at once: these filters match more. Narrow them (an owner, a status) and print in parts.`);
+    }
     const labels: LabelData[] = [];
     for (const id of ids) labels.push(await labelFor(id).catch(() => Promise.reject(notFound("One of those objects"))));
     labels.sort((a, b) => a.objectNumber.localeCompare(b.objectNumber));
-    if (labels.length === 0) throw new AppError(400, "validation_failed", "Choose at least one object.");
+    if (labels.length === 0) throw new AppError(400, "validation_failed", objectIds ? "Choose at least one object." : "No object matches these filters: there is nothing to label.");
     const doc = await docs.issue({
       kind: "label-sheet",
       title: `Sheet of back labels — ${labels.length} object${labels.length === 1 ? "" : "s"}`,
       user,
-      render: (meta) => pdf(LabelSheetDocument, { meta, labels }),
+      render: (meta) => pdf(LabelSheetDocument, { meta, labels, address: { publicUrl } }),
     });
     sendPdf(res, doc);
   });

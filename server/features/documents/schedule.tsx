@@ -426,6 +426,7 @@ export async function renderScheduleForBench(db: Db, user: SessionUser, objectId
   const meta: DocMeta = {
     studioName: settings.studioName,
     studioAddress: settings.studioAddress,
+    studioContact: settings.studioContact,
     kindLabel: "Schedule of values",
     objectNumber: null,
     code: newVerificationCode(),

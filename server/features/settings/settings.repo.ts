@@ -8,6 +8,7 @@ import type { StudioSettings, StudioSettingsRecord } from "../../../shared/schem
 export const DEFAULT_SETTINGS: StudioSettingsRecord = {
   studioName: "My framing studio",
   studioAddress: null,
+  studioContact: null,
   unit: "mm",
   vocabulary: "mount",
   paperSize: "A4",

@@ -7,6 +7,8 @@ import { s } from "./theme.ts";
 export type DocMeta = {
   studioName: string;
   studioAddress: string | null;
+  /** Telephone and e-mail, as the studio gave them; absent or null for none. */
+  studioContact?: string | null;
   kindLabel: string;
   objectNumber?: string | null;
   code: string;
@@ -25,6 +27,7 @@ export function StudioBlock({ meta }: { meta: DocMeta }) {
       <View>
         <Text style={s.studio}>{meta.studioName}</Text>
         {meta.studioAddress ? <Text style={s.small}>{meta.studioAddress}</Text> : null}
+        {meta.studioContact ? <Text style={s.small}>{meta.studioContact}</Text> : null}
       </View>
     </View>
   );

@@ -26,6 +26,7 @@ import { PhotoUploader } from "@/features/photos/components/photo-uploader.tsx";
 import { PhotoGrid } from "@/features/photos/components/photo-grid.tsx";
 import { useObjectDocuments, useRefreshDocuments } from "@/features/documents/api/documents.ts";
 import { DocumentButton } from "@/features/documents/components/document-button.tsx";
+import { LabelButton } from "@/features/documents/components/label-button.tsx";
 import { DocumentsList } from "@/features/documents/components/documents-list.tsx";
 import { Cautions, RatingBadge } from "@/features/condition/components/report-view.tsx";
 import { CONDITION_CONTEXT_LABELS } from "@shared/schemas/condition.ts";
@@ -263,7 +264,7 @@ export function Component() {
             <div className="flex flex-wrap gap-3">
               <DocumentButton url={`/api/objects/${o.id}/documents/dossier`} label="Object dossier (PDF)" fallbackName={`dossier-${o.objectNumber}.pdf`} onIssued={() => refreshDocuments(o.id)} />
               {can(user, "object:create") && (
-                <DocumentButton url={`/api/objects/${o.id}/documents/back-label`} label="Back label (PDF)" fallbackName={`back-label-${o.objectNumber}.pdf`} onIssued={() => refreshDocuments(o.id)} />
+                <LabelButton url={`/api/objects/${o.id}/documents/back-label`} label="Back label (PDF)" fallbackName={`back-label-${o.objectNumber}.pdf`} onIssued={() => refreshDocuments(o.id)} />
               )}
             </div>
             <DocumentsList items={documents.data ?? []} />

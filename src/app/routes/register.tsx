@@ -27,6 +27,8 @@ import { EmptyState, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { Pagination } from "@/components/ui/pagination.tsx";
 import { useDebounced } from "@/lib/use-debounced.ts";
 import { DocumentButton } from "@/features/documents/components/document-button.tsx";
+import { LabelButton } from "@/features/documents/components/label-button.tsx";
+import { LABEL_SHEET_MAX } from "@shared/schemas/documents.ts";
 
 const PAGE_SIZE = 50;
 /** "Last mounted" opens newest first: recent mountings are the ones usually asked about. */
@@ -111,6 +113,14 @@ export function Component() {
             />
           ) : studio ? (
             <span className="max-w-56 text-xs text-graphite">Choose an owner to produce a schedule of values for the objects shown.</span>
+          ) : null}
+          {can(user, "mounting:write") && filtered && list.data && list.data.total > 0 && list.data.total <= LABEL_SHEET_MAX ? (
+            <LabelButton
+              url="/api/documents/label-sheet"
+              body={{ ...scheduleFilter, clientId }}
+              label={`Back labels for these ${list.data.total} object${list.data.total === 1 ? "" : "s"} (PDF)`}
+              fallbackName="back-labels.pdf"
+            />
           ) : null}
           {can(user, "object:create") && <ButtonLink to="/objects/new">New object</ButtonLink>}
         </div>

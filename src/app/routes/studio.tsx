@@ -37,6 +37,7 @@ function SettingsForm({ initial, readOnly }: { initial: StudioSettings; readOnly
         <h2 className="col-span-full text-base font-semibold">Studio</h2>
         <TextField label="Studio name" error={e.studioName?.message} {...form.register("studioName")} />
         <TextAreaField label="Address" error={e.studioAddress?.message} {...form.register("studioAddress")} />
+        <TextField label="Telephone and e-mail" hint="Printed under the address on every document and back label." error={e.studioContact?.message} {...form.register("studioContact")} />
         <h2 className="col-span-full mt-2 text-base font-semibold">Measures and words</h2>
         <SelectField label="Unit" error={e.unit?.message} {...form.register("unit")}>
           <option value="mm">Millimetres</option>

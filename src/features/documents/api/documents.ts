@@ -15,3 +15,8 @@ export function useRefreshDocuments() {
     if (objectId) qc.invalidateQueries({ queryKey: ["history", objectId] });
   };
 }
+
+export type LabelReadiness = { ready: boolean; publicUrl: string; problem: string | null };
+/** Whether back labels' QR codes would lead anywhere: asked before a framer prints, so the screen can warn first. */
+export const useLabelReadiness = (enabled: boolean) =>
+  useQuery({ queryKey: ["documents", "label-readiness"], queryFn: () => api.get<LabelReadiness>("/api/documents/labels/readiness"), enabled, staleTime: 5 * 60_000 });

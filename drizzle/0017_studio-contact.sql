@@ -1,0 +1,1 @@
+ALTER TABLE `studio_settings` ADD `studio_contact` text;
