@@ -34,7 +34,7 @@ export const EVENT_TYPE_LABELS: Record<EventType, string> = {
   "loan-out": "Lent",
   "loan-return": "Returned from loan",
   shared: "Shared",
-  exported: "Exported",
+  exported: "Archive exported",
   "document-issued": "Document issued",
 };
 

@@ -267,7 +267,7 @@ function previousSigned(all: ConditionReport[], r: ConditionReport): ConditionRe
   return all.filter((x) => x.id !== r.id && x.status === "signed" && key(x) < key(r)).sort((a, b) => (key(a) < key(b) ? 1 : -1))[0] ?? null;
 }
 
-export async function issueConditionReport(db: Db, config: Pick<Config, "uploadsDir">, clock: () => Date, user: SessionUser, reportId: string) {
+export async function issueConditionReport(db: Db, config: Pick<Config, "uploadsDir">, clock: () => Date, user: SessionUser, reportId: string, opts: { inHistory?: boolean } = {}) {
   const conditions = createConditionService(db, clock);
   // get() answers 404 for reports the user may not see (collectors: drafts) and for other clients' reports.
   const report = conditions.get(user, reportId);
@@ -308,6 +308,7 @@ export async function issueConditionReport(db: Db, config: Pick<Config, "uploads
     kind: "condition-report",
     title: `Condition report ${object.objectNumber}, ${report.reportDate}`,
     user,
+    inHistory: opts.inHistory,
     objectId: object.id,
     objectNumber: object.objectNumber,
     clientId: object.clientId,

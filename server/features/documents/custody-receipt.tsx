@@ -7,6 +7,20 @@ import { HEAVY_PACKAGE_KG } from "../../../shared/domain/mount-plan/constants.ts
 import { DocShell, type DocMeta } from "../../lib/pdf/layout.tsx";
 import { GRAPHITE, INK, STONE, s } from "../../lib/pdf/theme.ts";
 import type { ReactNode } from "react";
+import type { Db } from "../../db/client.ts";
+import type { SessionUser } from "../../../shared/schemas/auth.ts";
+import { RETURN_DUE_KINDS } from "../../../shared/schemas/custody.ts";
+import { formatSize } from "../../../shared/domain/units.ts";
+import { can } from "../../../shared/permissions.ts";
+import { notFound } from "../../lib/errors.ts";
+import { assertCan } from "../../middleware/require-permission.ts";
+import { findReceipt } from "../custody/custody.repo.ts";
+import { findObject } from "../objects/objects.repo.ts";
+import { mountingInPlaceOn } from "../mountings/mountings.repo.ts";
+import { getSettings } from "../settings/settings.repo.ts";
+import { valuationText } from "./condition-pdf.tsx";
+import { createDocumentsService } from "./documents.service.ts";
+import { mountingDetail } from "./workshop-sheet.tsx";
 
 // A unitless lineHeight in react-pdf 4 multiplies the font size set on the same style (18 when inherited), so both are given here.
 const P = { fontSize: 9, lineHeight: 1.4, marginBottom: 4 } as const;
@@ -122,3 +136,36 @@ export function CustodyReceiptDocument({ meta, data }: { meta: DocMeta; data: Cu
 }
 
 export { GLAZING_TYPE_LABELS };
+
+/**
+ * Issues the custody receipt of one hand-over. It reads the mount in place on the receipt's day, not
+ * today's; a loan shows its value in transit to those who may read valuations. 404 for a receipt the user may not read.
+ */
+export async function issueCustodyReceipt(db: Db, clock: () => Date, uploadsDir: string | undefined, user: SessionUser, receiptId: string, opts: { inHistory?: boolean } = {}) {
+  const receipt = findReceipt(db, receiptId);
+  const object = receipt ? findObject(db, receipt.objectId) : null;
+  if (!receipt || !object) throw notFound("That receipt");
+  assertCan(user, "custody:read", { clientId: object.clientId }, { readAction: "custody:read", what: "That receipt" });
+  const m = mountingInPlaceOn(db, object.id, receipt.date);
+  const detail = m ? mountingDetail(db, m) : null;
+  const g = detail?.result.ok ? detail.result.geometry : null;
+  const glazingType = detail?.data.glazing.type ?? null;
+  const data = {
+    receipt,
+    object: { objectNumber: object.objectNumber, title: object.title, maker: object.maker, dimensions: formatSize(object.sheetWidthMm, object.sheetHeightMm, getSettings(db).unit), clientName: object.clientName },
+    glazing: glazingType ? (GLAZING_TYPE_LABELS[glazingType] ?? glazingType) : null,
+    glass: g ? g.glazing.material === "glass" : !!glazingType && glazingType.includes("glass"),
+    weightKg: g?.package.weightKg ?? null,
+    valueInTransit: RETURN_DUE_KINDS.includes(receipt.kind as CustodyKind) && can(user, "valuation:read", { clientId: object.clientId }) ? valuationText(object) : null,
+  };
+  return createDocumentsService(db, clock, uploadsDir).issue({
+    kind: "custody-receipt",
+    title: `Custody receipt — ${object.objectNumber}, ${receipt.date}`,
+    user,
+    objectId: object.id,
+    objectNumber: object.objectNumber,
+    clientId: object.clientId,
+    inHistory: opts.inHistory,
+    render: (meta) => <CustodyReceiptDocument meta={meta} data={data} />,
+  });
+}

@@ -27,6 +27,8 @@ export type IssueRequest = {
   objectId?: string | null;
   objectNumber?: string | null;
   clientId?: string | null;
+  /** False for documents issued into an archive: the archive writes one event per object naming them all. */
+  inHistory?: boolean;
   /** Builds the PDF for the document's header and footer data. */
   render: (meta: DocMeta) => ReactElement<DocumentProps>;
 };
@@ -63,7 +65,7 @@ export function createDocumentsService(db: Db, clock: () => Date = () => new Dat
         tx.insert(issuedDocuments)
           .values({ id: randomUUID(), code, kind: req.kind, title: req.title, objectId: req.objectId ?? null, clientId: req.clientId ?? null, paperSize: settings.paperSize, issuedAt, issuedBy: req.user.id, issuedByName: req.user.name, sha256, pages })
           .run();
-        if (req.objectId) {
+        if (req.objectId && req.inHistory !== false) {
           appendEvent(tx, { objectId: req.objectId, type: "document-issued", actor: req.user, summary: `${DOCUMENT_KIND_LABELS[req.kind]} issued, verification code ${code}.`, data: { code, kind: req.kind }, at: issuedAt });
         }
       });

@@ -68,7 +68,7 @@ function planView(input: unknown, data: MountingData | null, catalogue: Catalogu
   return { plan: r.plan, geometry: r.geometry, data, model: planDrawing(r.geometry, hinges) };
 }
 
-export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, clock: () => Date, user: SessionUser, objectId: string) {
+export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, clock: () => Date, user: SessionUser, objectId: string, opts: { inHistory?: boolean } = {}) {
   // get() answers 404 to anyone who may not read the object and strips valuations the user may not see.
   const object = createObjectsService(db).get(user, objectId);
   const showValue = can(user, "valuation:read", { clientId: object.clientId });
@@ -107,6 +107,7 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
     kind: "dossier",
     title: `Object dossier ${object.objectNumber}`,
     user,
+    inHistory: opts.inHistory,
     objectId: object.id,
     objectNumber: object.objectNumber,
     clientId: object.clientId,

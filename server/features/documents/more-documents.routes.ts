@@ -10,21 +10,16 @@ import { IdParamSchema } from "../../../shared/schemas/common.ts";
 import { ObjectListQuerySchema } from "../../../shared/schemas/objects.ts";
 import { LABEL_SHEET_MAX } from "../../../shared/schemas/documents.ts";
 import { STANDARD_BOARD_SHEETS } from "../../../shared/domain/mount-plan/index.ts";
-import { formatSize } from "../../../shared/domain/units.ts";
 import { AppError, conflict, notFound } from "../../lib/errors.ts";
 import { assertCan, currentUser, requirePermission } from "../../middleware/require-permission.ts";
 import { input, validate } from "../../middleware/validate.ts";
 import { findClient } from "../clients/clients.repo.ts";
-import { findReceipt } from "../custody/custody.repo.ts";
-import { RETURN_DUE_KINDS, type CustodyKind } from "../../../shared/schemas/custody.ts";
-import { valuationText } from "./condition-pdf.tsx";
-import { can } from "../../../shared/permissions.ts";
-import { findMounting, mountingInPlaceOn } from "../mountings/mountings.repo.ts";
+import { findMounting } from "../mountings/mountings.repo.ts";
 import { findObject } from "../objects/objects.repo.ts";
 import { getSettings } from "../settings/settings.repo.ts";
 import { createDocumentsService } from "./documents.service.ts";
 import { loadSchedule, ScheduleDocument } from "./schedule.tsx";
-import { CustodyReceiptDocument, GLAZING_TYPE_LABELS } from "./custody-receipt.tsx";
+import { issueCustodyReceipt } from "./custody-receipt.tsx";
 import { mountingDetail, summaryOf, workshopData, WorkshopSheetDocument, type WorkshopItem } from "./workshop-sheet.tsx";
 import { BackLabelDocument, LabelSheetDocument, objectUrl, qrFor, type LabelData } from "./labels.tsx";
 
@@ -105,35 +100,7 @@ export function moreDocumentsRoutes(db: Db, clock: () => Date, address: { public
   });
 
   r.post("/custody/:receiptId/document", validate({ params: ReceiptParam }), async (req, res) => {
-    const user = currentUser(req);
-    const receipt = findReceipt(db, input(req, "params", ReceiptParam).receiptId);
-    const object = receipt ? findObject(db, receipt.objectId) : null;
-    if (!receipt || !object) throw notFound("That receipt");
-    assertCan(user, "custody:read", { clientId: object.clientId }, { readAction: "custody:read", what: "That receipt" });
-    // A receipt is about its own day: the mount in place then, not today's.
-    const m = mountingInPlaceOn(db, object.id, receipt.date);
-    const detail = m ? mountingDetail(db, m) : null;
-    const g = detail?.result.ok ? detail.result.geometry : null;
-    const glazingType = detail?.data.glazing.type ?? null;
-    const data = {
-      receipt,
-      object: { objectNumber: object.objectNumber, title: object.title, maker: object.maker, dimensions: formatSize(object.sheetWidthMm, object.sheetHeightMm, getSettings(db).unit), clientName: object.clientName },
-      glazing: glazingType ? (GLAZING_TYPE_LABELS[glazingType] ?? glazingType) : null,
-      glass: g ? g.glazing.material === "glass" : !!glazingType && glazingType.includes("glass"),
-      weightKg: g?.package.weightKg ?? null,
-      // A loan travels at its insured value; shown only to those who may read valuations.
-      valueInTransit: RETURN_DUE_KINDS.includes(receipt.kind as CustodyKind) && can(user, "valuation:read", { clientId: object.clientId }) ? valuationText(object) : null,
-    };
-    const doc = await docs.issue({
-      kind: "custody-receipt",
-      title: `Custody receipt — ${object.objectNumber}, ${receipt.date}`,
-      user,
-      objectId: object.id,
-      objectNumber: object.objectNumber,
-      clientId: object.clientId,
-      render: (meta) => pdf(CustodyReceiptDocument, { meta, data }),
-    });
-    sendPdf(res, doc);
+    sendPdf(res, await issueCustodyReceipt(db, clock, uploadsDir, currentUser(req), input(req, "params", ReceiptParam).receiptId));
   });
 
   r.post("/documents/workshop-sheet", requirePermission("mounting:write"), validate({ body: WorkshopBodySchema }), async (req, res) => {

@@ -13,7 +13,7 @@ import { DATASETS, FORMATS, buildTable, createExportsService, toCsv, toJson } fr
 
 const DatasetParamsSchema = z.object({
   id: z.string().min(1).max(64),
-  dataset: z.enum(DATASETS, { message: "Choose objects, mountings, condition or valuations." }),
+  dataset: z.enum(DATASETS, { message: "Choose objects, mountings, condition, custody or valuations." }),
   format: z.enum(FORMATS, { message: "Choose csv or json." }),
 });
 const FilterQuerySchema = z.object({ status: z.enum(OBJECT_STATUSES).optional(), objectType: z.enum(OBJECT_TYPES).optional() });

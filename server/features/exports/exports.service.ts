@@ -3,13 +3,13 @@ import { inTransaction } from "../../db/client.ts";
 import fsp from "node:fs/promises";
 import os from "node:os";
 import path from "node:path";
-import { randomUUID } from "node:crypto";
+import { createHash, randomUUID } from "node:crypto";
 import { and, asc, eq, inArray, type SQL } from "drizzle-orm";
 import { stringify } from "csv-stringify/sync";
 import { ZipArchive } from "archiver";
 import type { Db } from "../../db/client.ts";
 import type { Config } from "../../lib/config.ts";
-import { conditionReports, conditionRevisions, mountingRevisions, mountings, objects, photos } from "../../db/schema.ts";
+import { conditionReports, conditionRevisions, custodyReceipts, mountingRevisions, mountings, objects, photos } from "../../db/schema.ts";
 import { can } from "../../../shared/permissions.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
 import type { ClientRecord } from "../../../shared/schemas/clients.ts";
@@ -22,19 +22,30 @@ import {
   type ObjectStatus,
   type ObjectType,
 } from "../../../shared/schemas/objects.ts";
-import { BOARD_GRADE_LABELS, GLAZING_TYPE_LABELS, MOUNTING_REASON_LABELS, MOUNTING_STATUS_LABELS, type MountingData } from "../../../shared/schemas/mountings.ts";
-import { CONDITION_CONTEXT_LABELS, RATING_LABELS, type ConditionData } from "../../../shared/schemas/condition.ts";
+import {
+  ADHESIVE_LABELS,
+  ATTACHMENT_METHOD_LABELS,
+  BOARD_GRADE_LABELS,
+  GLAZING_TYPE_LABELS,
+  MOUNTING_REASON_LABELS,
+  MOUNTING_STATUS_LABELS,
+  type MountingData,
+} from "../../../shared/schemas/mountings.ts";
+import { CONDITION_CONTEXT_LABELS, RATING_LABELS, SEVERITY_LABELS, type ConditionData } from "../../../shared/schemas/condition.ts";
+import { CUSTODY_KIND_LABELS } from "../../../shared/schemas/custody.ts";
+import { PHOTO_KIND_LABELS } from "../../../shared/schemas/photos.ts";
 import { minorDigits } from "../../../shared/domain/money.ts";
 import { AppError, conflict, notFound } from "../../lib/errors.ts";
 import { createStorage } from "../../lib/storage.ts";
 import { appendEvent } from "../history/history.chain.ts";
 import { issueDossier } from "../documents/dossier.tsx";
-import { VERDICT_WORDS } from "../documents/condition-pdf.tsx";
+import { issueConditionReport, VERDICT_WORDS, whereWords } from "../documents/condition-pdf.tsx";
+import { issueCustodyReceipt } from "../documents/custody-receipt.tsx";
 import { getSettings } from "../settings/settings.repo.ts";
 import { recordPlan, type PlanSettings } from "../../../shared/domain/mounting.ts";
 import type { Verdict } from "../../../shared/schemas/mount-plan.ts";
 
-export const DATASETS = ["objects", "mountings", "condition", "valuations"] as const;
+export const DATASETS = ["objects", "mountings", "condition", "custody", "valuations"] as const;
 export type Dataset = (typeof DATASETS)[number];
 export const FORMATS = ["csv", "json"] as const;
 export type Format = (typeof FORMATS)[number];
@@ -47,7 +58,9 @@ export type ExportFilters = { status?: ObjectStatus; objectType?: ObjectType };
  * "Title", "Production person", "Production date", "Dimension …", "Inscription content",
  * "Current location", "Owner", "Condition", "Condition check date", "Condition note",
  * "Condition checker/assessor", "Valuation", "Valuation currency", "Valuation date", "Valuer".
- * Everything else has a plain name. Lengths are in millimetres, with the unit in the name.
+ * Everything else has a plain name. Lengths are in millimetres, with the unit in the name. Every value
+ * is in words ("T-hinge", "Wheat starch paste", "Signed"), never a stored code; the only identifiers are
+ * record ids, named as such. docs/exports.md lists every column.
  * Columns marked `valuation` are confidential (docs/trade-reference.md §13) and are left out, header and all, for a
  * user without "valuation:read" on the client.
  */
@@ -131,7 +144,28 @@ export const EXPORT_COLUMNS = {
     { key: "Condition note" },
     { key: "Number of findings" },
     { key: "Unresolved findings" },
+    { key: "Findings" },
+    { key: "Recommendation: display" },
+    { key: "Recommendation: handling" },
+    { key: "Recommendation: environment" },
+    { key: "Referral to a conservator" },
+    { key: "Light notes" },
     { key: "Revision" },
+  ],
+  custody: [
+    { key: "Object number" },
+    { key: "Title" },
+    { key: "Receipt id" },
+    { key: "Direction" },
+    { key: "Hand-over" },
+    { key: "Date" },
+    { key: "From" },
+    { key: "To" },
+    { key: "Condition at hand-over" },
+    { key: "Signed by" },
+    { key: "Location" },
+    { key: "Agreed return date" },
+    { key: "Notes" },
   ],
   valuations: [
     { key: "Object number" },
@@ -246,9 +280,9 @@ function mountingRows(db: Db, user: SessionUser, objs: ObjectRow[]): Row[] {
       "Mounted on": m.mountedOn,
       Framer: m.framerName,
       Revision: m.currentRevision,
-      "Attachment method": text(d.attachment?.method),
+      "Attachment method": label(ATTACHMENT_METHOD_LABELS, d.attachment?.method),
       "Hinge tissue": text(d.attachment?.tissue),
-      "Hinge adhesive": text(d.attachment?.adhesive),
+      "Hinge adhesive": label(ADHESIVE_LABELS, d.attachment?.adhesive),
       "Number of hinges": d.attachment?.hinges?.length ?? 0,
       ...planCells(d, o, settings),
       "Window board": board(d.boards?.window),
@@ -331,7 +365,54 @@ function conditionRows(db: Db, user: SessionUser, objs: ObjectRow[]): Row[] {
       "Condition note": text(d.summary),
       "Number of findings": d.findings?.length ?? 0,
       "Unresolved findings": r.unresolvedCount,
+      Findings: findingsText(d),
+      "Recommendation: display": text(d.recommendations?.display),
+      "Recommendation: handling": text(d.recommendations?.handling),
+      "Recommendation: environment": text(d.recommendations?.environment),
+      "Referral to a conservator": text(d.recommendations?.referral),
+      "Light notes": text(d.lightNotes),
       Revision: r.currentRevision,
+    };
+  });
+}
+
+/**
+ * A report's findings in one cell, numbered as in the report: "1. Foxing — Lower right — about 3 mm — Slight",
+ * one per line. A finding marked on a photo names the photo by its number in the report.
+ */
+function findingsText(d: ConditionData): string | null {
+  if (!d.findings?.length) return null;
+  const photoNo = (id: string) => (d.photoIds?.indexOf(id) ?? -1) + 1 || null;
+  return d.findings
+    .map((f, i) => [`${i + 1}. ${f.term}`, whereWords(f, photoNo), f.extent, SEVERITY_LABELS[f.severity], f.resolved ? "resolved" : null, f.notes].filter(Boolean).join(" — "))
+    .join("\n");
+}
+
+function custodyRows(db: Db, objs: ObjectRow[]): Row[] {
+  if (!objs.length) return [];
+  const byId = new Map(objs.map((o) => [o.id, o]));
+  const rows: (typeof custodyReceipts.$inferSelect)[] = [];
+  const ids = [...byId.keys()];
+  for (let i = 0; i < ids.length; i += 500) {
+    rows.push(...db.select().from(custodyReceipts).where(inArray(custodyReceipts.objectId, ids.slice(i, i + 500))).orderBy(asc(custodyReceipts.date), asc(custodyReceipts.createdAt)).all());
+  }
+  rows.sort((a, b) => cmp(byId.get(a.objectId)!.objectNumber, byId.get(b.objectId)!.objectNumber) || cmp(a.date, b.date));
+  return rows.map((c) => {
+    const o = byId.get(c.objectId)!;
+    return {
+      "Object number": o.objectNumber,
+      Title: o.title,
+      "Receipt id": c.id,
+      Direction: c.direction === "in" ? "Into the studio" : "Out of the studio",
+      "Hand-over": label(CUSTODY_KIND_LABELS, c.kind),
+      Date: c.date,
+      From: c.fromParty,
+      To: c.toParty,
+      "Condition at hand-over": c.condition,
+      "Signed by": c.signedBy,
+      Location: text(c.location),
+      "Agreed return date": text(c.returnDue),
+      Notes: text(c.notes),
     };
   });
 }
@@ -366,6 +447,9 @@ export function buildTable(db: Db, user: SessionUser, client: ClientRecord, data
     case "condition":
       rows = conditionRows(db, user, list);
       break;
+    case "custody":
+      rows = custodyRows(db, list);
+      break;
     case "valuations":
       // The current valuation of each object that has one (the record keeps one value; earlier ones are in its history).
       rows = list.filter((o) => o.valuationMinor != null).map((o) => ({ "Object number": o.objectNumber, Title: o.title, ...valuationCells(o) }));
@@ -380,7 +464,7 @@ export function buildTable(db: Db, user: SessionUser, client: ClientRecord, data
  * Text beginning with = + - @ or a tab is prefixed with ' so a spreadsheet does not run it as a formula
  * (OWASP "CSV injection"); numbers are written as they are.
  */
-export function toCsv(t: Table): string {
+export function toCsv(t: Pick<Table, "columns" | "rows">): string {
   return stringify(t.rows, {
     bom: true,
     header: true,
@@ -392,8 +476,14 @@ export function toCsv(t: Table): string {
   });
 }
 
+/** Columns that CSV writes as exact decimal text and JSON as numbers. */
+const DECIMAL_COLUMNS = new Set(["Valuation"]);
+
+/** JSON with the same keys as the CSV; numbers are JSON numbers (an amount such as 12500.5, never "12500.50"). */
 export function toJson(t: Table): string {
-  return JSON.stringify(t.rows, null, 2);
+  const decimals = t.columns.filter((c) => DECIMAL_COLUMNS.has(c));
+  const rows = decimals.length ? t.rows.map((r) => ({ ...r, ...Object.fromEntries(decimals.map((c) => [c, typeof r[c] === "string" ? Number(r[c]) : r[c]])) })) : t.rows;
+  return JSON.stringify(rows, null, 2);
 }
 
 // ── Bulk ZIP of one client's records, as an in-memory background job ──────────
@@ -429,7 +519,18 @@ function trackDir(dir: string) {
 }
 
 const safeSegment = (s: string) => s.replace(/[\\/:*?"<>|\u0000-\u001f]/g, "_").replace(/^\.+/, "_") || "_";
-const slug = (s: string) => s.normalize("NFKD").replace(/[^\w\s-]/g, "").trim().replace(/\s+/g, "-").toLowerCase().slice(0, 60) || "client";
+const slug = (s: string, fallback = "client") => s.normalize("NFKD").replace(/[^\w\s-]/g, "").trim().replace(/\s+/g, "-").toLowerCase().slice(0, 60) || fallback;
+
+/** One line of the archive's manifest. */
+export type ManifestEntry = { file: string; kind: string; objectNumber: string | null; caption: string | null; bytes: number; sha256: string };
+export const MANIFEST_COLUMNS = ["File", "Kind", "Object number", "Caption", "Bytes", "SHA-256"] as const;
+const DATASET_CAPTIONS: Record<Dataset, string> = {
+  objects: "Catalogue data of every object",
+  mountings: "Every mounting record, with its plan figures in mm and its checks",
+  condition: "Every condition report, with its findings and recommendations",
+  custody: "Every hand-over into and out of the studio",
+  valuations: "The current valuation of each valued object",
+};
 
 export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">, clock: () => Date) {
   const storage = createStorage(config.uploadsDir);
@@ -458,13 +559,31 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
     const withValuation = can(user, "valuation:read", { clientId: client.id });
     const datasets = DATASETS.filter((d) => d !== "valuations" || withValuation);
     const tables = datasets.map((d) => buildTable(db, user, client, d, {}, objs));
-    const numberOf = new Map(objs.map((o) => [o.id, o.objectNumber]));
-    const photoRows = objs.length
-      ? db.select({ id: photos.id, objectId: photos.objectId, originalKey: photos.originalKey }).from(photos).where(inArray(photos.objectId, [...numberOf.keys()])).orderBy(asc(photos.createdAt)).all()
-      : [];
-    const files: { file: string; name: string }[] = [];
+    const byId = new Map(objs.map((o) => [o.id, o]));
+    const ids = [...byId.keys()];
+    const inChunks = <T,>(read: (part: string[]) => T[]): T[] => {
+      const out: T[] = [];
+      for (let i = 0; i < ids.length; i += 500) out.push(...read(ids.slice(i, i + 500)));
+      return out;
+    };
+    const photoRows = inChunks((part) =>
+      db.select({ id: photos.id, objectId: photos.objectId, originalKey: photos.originalKey, kind: photos.kind, caption: photos.caption }).from(photos).where(inArray(photos.objectId, part)).orderBy(asc(photos.createdAt), asc(photos.id)).all(),
+    );
+    // Signed reports only: a draft can still change, and a document is issued only for a signed report.
+    const reportRows = inChunks((part) =>
+      db.select({ id: conditionReports.id, objectId: conditionReports.objectId, date: conditionReports.reportDate }).from(conditionReports).where(and(inArray(conditionReports.objectId, part), eq(conditionReports.status, "signed"))).orderBy(asc(conditionReports.reportDate), asc(conditionReports.id)).all(),
+    );
+    const receiptRows = inChunks((part) =>
+      db.select({ id: custodyReceipts.id, objectId: custodyReceipts.objectId, date: custodyReceipts.date, kind: custodyReceipts.kind }).from(custodyReceipts).where(inArray(custodyReceipts.objectId, part)).orderBy(asc(custodyReceipts.date), asc(custodyReceipts.createdAt)).all(),
+    );
+
+    // Photos named so a person can tell them apart: object number, its order on the object, kind and caption.
+    const files: { file: string; name: string; objectId: string; caption: string | null }[] = [];
+    const perObject = new Map<string, number>();
     let missing = 0;
     for (const p of photoRows) {
+      const n = (perObject.get(p.objectId) ?? 0) + 1;
+      perObject.set(p.objectId, n);
       let file: string;
       try {
         file = storage.path(p.originalKey);
@@ -476,12 +595,13 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
         missing++;
         continue;
       }
+      const number = safeSegment(byId.get(p.objectId)!.objectNumber);
       const ext = path.extname(p.originalKey).slice(1) || "bin";
-      files.push({ file, name: `photos/${safeSegment(numberOf.get(p.objectId)!)}/${safeSegment(p.id)}.${ext}` });
+      const words = [label(PHOTO_KIND_LABELS, p.kind), p.caption].filter(Boolean).map((w) => slug(w!, "")).filter(Boolean).join("-").slice(0, 60);
+      files.push({ file, name: `photos/${number}/${number}-${String(n).padStart(2, "0")}${words ? `-${words}` : ""}.${ext}`, objectId: p.objectId, caption: p.caption });
     }
-    // One dossier PDF per object, rendered by the documents feature (each is an issued document with its own
-    // verification code). A dossier that fails to render is left out and said so; the rest of the ZIP still builds.
-    let total = tables.length * 2 + files.length + objs.length;
+
+    let total = tables.length * 2 + files.length + objs.length + reportRows.length + receiptRows.length + 2;
     let added = 0;
     const out = fs.createWriteStream(job.file, { mode: 0o600 });
     const archive = new ZipArchive({ zlib: { level: 6 } });
@@ -498,47 +618,107 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
       job.message = `Added ${added} of ${total} files.`;
     });
     archive.pipe(out);
+
+    // Every file with its SHA-256, for the manifest: a reader can check each file against it.
+    const manifest: ManifestEntry[] = [];
+    const put = (data: Buffer | string, entry: Omit<ManifestEntry, "sha256" | "bytes">) => {
+      const buf = typeof data === "string" ? Buffer.from(data, "utf8") : data;
+      archive.append(buf, { name: entry.file });
+      manifest.push({ ...entry, bytes: buf.length, sha256: createHash("sha256").update(buf).digest("hex") });
+    };
     for (const t of tables) {
-      archive.append(toCsv(t), { name: `${t.dataset}.csv` });
-      archive.append(toJson(t), { name: `${t.dataset}.json` });
+      put(toCsv(t), { file: `${t.dataset}.csv`, kind: "dataset (CSV)", objectNumber: null, caption: DATASET_CAPTIONS[t.dataset] });
+      put(toJson(t), { file: `${t.dataset}.json`, kind: "dataset (JSON)", objectNumber: null, caption: DATASET_CAPTIONS[t.dataset] });
     }
-    for (const f of files) archive.file(f.file, { name: f.name });
-    let dossiers = 0;
-    const noDossier: string[] = [];
-    for (const o of objs) {
+    for (const f of files) {
+      const hash = createHash("sha256");
+      let bytes = 0;
+      for await (const chunk of fs.createReadStream(f.file)) {
+        hash.update(chunk as Buffer);
+        bytes += (chunk as Buffer).length;
+      }
+      archive.file(f.file, { name: f.name });
+      manifest.push({ file: f.name, kind: "photo (original file)", objectNumber: byId.get(f.objectId)!.objectNumber, caption: f.caption, bytes, sha256: hash.digest("hex") });
+    }
+
+    // Documents rendered by the documents feature, each an issued document with its own verification code.
+    // They are issued without a history event each: the one "archive exported" event per object names them.
+    // A document that fails to render is left out and said so; the rest of the ZIP still builds.
+    const issued = new Map<string, { kind: string; code: string; file: string }[]>();
+    const failed: string[] = [];
+    const issue = async (objectId: string, what: string, file: string, kind: string, caption: string, make: () => Promise<{ pdf: Buffer; code: string }>) => {
       try {
-        const { pdf } = await issueDossier(db, config, clock, user, o.id);
-        archive.append(pdf, { name: `dossiers/${safeSegment(o.objectNumber)}.pdf` });
-        dossiers++;
+        const { pdf, code } = await make();
+        put(pdf, { file, kind, objectNumber: byId.get(objectId)!.objectNumber, caption: `${caption} · verification code ${code}` });
+        issued.set(objectId, [...(issued.get(objectId) ?? []), { kind, code, file }]);
       } catch {
-        noDossier.push(o.objectNumber);
+        failed.push(what);
         total--;
       }
+    };
+    const quiet = { inHistory: false };
+    for (const o of objs) {
+      const n = safeSegment(o.objectNumber);
+      await issue(o.id, `the dossier of ${o.objectNumber}`, `dossiers/${n}.pdf`, "object dossier", `Object dossier of ${o.objectNumber}`, () => issueDossier(db, config, clock, user, o.id, quiet));
     }
+    const seq = (m: Map<string, number>, key: string) => {
+      const v = (m.get(key) ?? 0) + 1;
+      m.set(key, v);
+      return v > 1 ? `-${v}` : "";
+    };
+    const reportSeq = new Map<string, number>();
+    for (const r of reportRows) {
+      const n = safeSegment(byId.get(r.objectId)!.objectNumber);
+      const file = `condition-reports/${n}-${r.date}${seq(reportSeq, `${n}-${r.date}`)}.pdf`;
+      await issue(r.objectId, `the condition report of ${byId.get(r.objectId)!.objectNumber} of ${r.date}`, file, "condition report", `Condition report of ${r.date}`, () => issueConditionReport(db, config, clock, user, r.id, quiet));
+    }
+    const receiptSeq = new Map<string, number>();
+    for (const c of receiptRows) {
+      const n = safeSegment(byId.get(c.objectId)!.objectNumber);
+      const file = `custody-receipts/${n}-${c.date}-${c.kind}${seq(receiptSeq, `${n}-${c.date}-${c.kind}`)}.pdf`;
+      const what = label(CUSTODY_KIND_LABELS, c.kind) ?? c.kind;
+      await issue(c.objectId, `the custody receipt of ${byId.get(c.objectId)!.objectNumber} of ${c.date}`, file, "custody receipt", `Custody receipt: ${what}, ${c.date}`, () => issueCustodyReceipt(db, clock, config.uploadsDir, user, c.id, quiet));
+    }
+
+    // The manifest lists every other file; it cannot hold its own hash.
+    const manifestTable = { columns: [...MANIFEST_COLUMNS], rows: manifest.map((m) => ({ File: m.file, Kind: m.kind, "Object number": m.objectNumber, Caption: m.caption, Bytes: m.bytes, "SHA-256": m.sha256 })) };
+    archive.append(toCsv(manifestTable), { name: "manifest.csv" });
+    archive.append(JSON.stringify(manifest, null, 2), { name: "manifest.json" });
     await archive.finalize();
     await closed;
 
-    // One "exported" event per object in the ZIP, written once the ZIP is whole. Single CSV/JSON
-    // downloads write none: one event per object for every spreadsheet download would bury the history.
+    // One "archive exported" event per object in the ZIP, written once the ZIP is whole, naming what of the
+    // object went in. Single CSV/JSON downloads write none: one event per object for every spreadsheet
+    // download would bury the history.
     const at = clock();
     inTransaction(db, (tx) => {
       for (const o of objs) {
+        const docs = issued.get(o.id) ?? [];
+        const photoCount = files.filter((f) => f.objectId === o.id).length;
+        const parts = [
+          ...(["object dossier", "condition report", "custody receipt"] as const).map((k) => {
+            const of = docs.filter((d) => d.kind === k);
+            return of.length === 0 ? null : of.length === 1 ? `${k} ${of[0].code}` : `${of.length} ${k}s (${of.map((d) => d.code).join(", ")})`;
+          }),
+          photoCount ? `${photoCount} photo${photoCount === 1 ? "" : "s"}` : null,
+        ].filter(Boolean);
         appendEvent(tx, {
           objectId: o.id,
           type: "exported",
           actor: { id: user.id, name: user.name },
           at,
-          summary: `Included in a ZIP export of ${client.name}'s records.`,
-          data: { jobId: job.id, datasets: [...datasets], photos: files.filter((f) => f.name.startsWith(`photos/${safeSegment(o.objectNumber)}/`)).length },
+          summary: `Included in an archive of ${client.name}'s records: ${parts.length ? parts.join(", ") : "its catalogue data"}.`,
+          data: { jobId: job.id, datasets: [...datasets], photos: photoCount, documents: docs },
         });
       }
     });
+    const count = (k: string) => [...issued.values()].flat().filter((d) => d.kind === k).length;
     job.state = "done";
     job.progress = 1;
     job.message =
-      `Ready: ${objs.length} objects, ${files.length} photos, ${dossiers} dossiers.` +
+      `Ready: ${objs.length} objects, ${files.length} photos, ${count("object dossier")} dossiers, ${count("condition report")} condition reports, ${count("custody receipt")} custody receipts, and a manifest with each file's SHA-256.` +
       (missing ? ` ${missing} photo file${missing === 1 ? " was" : "s were"} missing from storage and left out.` : "") +
-      (noDossier.length ? ` The dossier of ${noDossier.join(", ")} could not be made and was left out.` : "");
+      (failed.length ? ` Left out because it could not be made: ${failed.join("; ")}.` : "");
   }
 
   return {

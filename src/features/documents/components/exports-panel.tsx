@@ -7,7 +7,8 @@ import { downloadFile } from "@/lib/download.ts";
 const DATASETS = [
   { id: "objects", label: "Objects" },
   { id: "mountings", label: "Mountings" },
-  { id: "condition", label: "Condition reports" },
+  { id: "condition", label: "Condition reports, with findings and recommendations" },
+  { id: "custody", label: "Custody (every hand-over in and out)" },
   { id: "valuations", label: "Valuations" },
 ] as const;
 
@@ -77,16 +78,16 @@ export function ExportsPanel({ clientId, showValuations }: { clientId: string; s
             }
           }}
         >
-          Everything as a ZIP (with photos)
+          Everything as a ZIP (photos and PDFs)
         </Button>
         {job && (
           <span className="flex items-center gap-2" role="status">
             <progress max={1} value={job.progress} className="h-2 w-40" aria-label="Archive progress" />
-            <span className="text-graphite num">{job.state === "done" ? "Ready, downloading" : job.state === "failed" ? job.message ?? "Failed" : `${Math.round(job.progress * 100)} %`}</span>
+            <span className="text-graphite num">{job.state === "done" ? `${job.message ?? "Ready"} Downloading.` : job.state === "failed" ? job.message ?? "Failed" : `${Math.round(job.progress * 100)} %`}</span>
           </span>
         )}
       </div>
-      <p className="text-xs text-graphite">CSV files are UTF-8 with a byte-order mark so spreadsheets open them; column names follow Spectrum 5.0 units of information where one fits.</p>
+      <p className="text-xs text-graphite">CSV files are UTF-8 with a byte-order mark so spreadsheets open them; column names follow Spectrum 5.0 units of information where one fits, and every value is in words. The ZIP adds the photo originals, each object's dossier, its signed condition reports and custody receipts as PDFs, and a manifest giving each file's SHA-256.</p>
     </div>
   );
 }
