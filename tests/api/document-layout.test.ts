@@ -196,6 +196,10 @@ function expectReadable(name: string, pdf: Buffer, paper: { width: number; heigh
       // A heading (set larger than the body text) is never the last line of a page.
       const last = lines[lines.length - 1];
       expect(last.height, `${where}: the heading "${last.text}" is the last line of the page`).toBeLessThan(body * 1.12);
+      // A block too tall for what is left moves on, but it never leaves more than 40% of a page empty behind it.
+      const bodyHeight = page.height - BODY_BOTTOM - BODY_TOP;
+      const used = (last.yMax - BODY_TOP) / bodyHeight;
+      expect(used, `${where}: the page is left ${Math.round((1 - used) * 100)}% empty after "${last.text}"`).toBeGreaterThan(0.6);
     }
     if (i === pages.length - 1 && pages.length > 1) expect(lines.length, `${where}: a near-empty last page`).toBeGreaterThanOrEqual(3);
     for (const { header, row } of opts.tableHeaders ?? []) {

@@ -121,35 +121,9 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
           </Text>
         ) : null}
 
-        <Text style={s.h2}>Catalogue</Text>
-        <View style={{ flexDirection: "row", gap: 16 }}>
-          <View style={{ flex: 1 }}>
-            <KV labelWidth={88} label="Object number">{object.objectNumber}</KV>
-            <KV labelWidth={88} label="Title">{object.title}</KV>
-            <KV labelWidth={88} label="Maker">{object.maker}</KV>
-            <KV labelWidth={88} label="Date made">{object.dateMade}</KV>
-            <KV labelWidth={88} label="Object type">{OBJECT_TYPE_LABELS[object.objectType]}</KV>
-            <KV labelWidth={88} label="Process">{object.photoProcess ? PHOTO_PROCESS_LABELS[object.photoProcess] : null}</KV>
-            <KV labelWidth={88} label="Medium">{object.medium}</KV>
-            <KV labelWidth={88} label="Support">{object.support}</KV>
-            <KV labelWidth={88} label="Edition">{object.edition}</KV>
-            <KV labelWidth={88} label="Inscriptions">{object.inscriptions}</KV>
-          </View>
-          <View style={{ flex: 1 }}>
-            <KV labelWidth={88} label="Sheet (W × H)">{size({ width: object.sheetWidthMm, height: object.sheetHeightMm })}</KV>
-            <KV labelWidth={88} label="Image borders">
-              {object.borderLeftMm !== null || object.borderTopMm !== null ? (["L", "T", "R", "B"] as const).map((k, i) => { const v = [object.borderLeftMm, object.borderTopMm, object.borderRightMm, object.borderBottomMm][i]; return `${k} ${v === null ? "—" : len(v)}`; }).join(" · ") : null}
-            </KV>
-            <KV labelWidth={88} label="Thickness">{object.thicknessNotes}</KV>
-            <KV labelWidth={88} label="Sensitivities">{object.sensitivities.length ? object.sensitivities.map((x) => SENSITIVITY_LABELS[x]).join(", ") : null}</KV>
-            <KV labelWidth={88} label="Owner">{object.clientName}</KV>
-            <KV labelWidth={88} label="Status">{OBJECT_STATUS_LABELS[object.status]}</KV>
-            <KV labelWidth={88} label="Location">{object.location}</KV>
-            {value ? <KV labelWidth={88} label="Insured value">{value}</KV> : null}
-          </View>
-        </View>
-
-        {/* The heading and the drawing are one block: the drawing cannot split, so neither leaves the other. */}
+        {/* The heading and the drawing are one block: the drawing cannot split, so neither leaves the other.
+            It comes first, under the title, where it always fits: after a long catalogue it would jump to
+            the next page and leave half a page empty. The catalogue's rows wrap from page to page. */}
         <View wrap={false}>
         <Text style={s.h2}>
           {current ? `Current ${w.mount}, drawn to scale` : draft ? `Planned ${w.mount} (draft plan, not yet mounted), drawn to scale` : `${w.Mount}`}
@@ -183,6 +157,34 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
         ) : (
           <Text style={para}>No {w.mount} has been recorded or planned for this object yet.</Text>
         )}
+        </View>
+
+        <Text style={s.h2}>Catalogue</Text>
+        <View style={{ flexDirection: "row", gap: 16 }}>
+          <View style={{ flex: 1 }}>
+            <KV labelWidth={88} label="Object number">{object.objectNumber}</KV>
+            <KV labelWidth={88} label="Title">{object.title}</KV>
+            <KV labelWidth={88} label="Maker">{object.maker}</KV>
+            <KV labelWidth={88} label="Date made">{object.dateMade}</KV>
+            <KV labelWidth={88} label="Object type">{OBJECT_TYPE_LABELS[object.objectType]}</KV>
+            <KV labelWidth={88} label="Process">{object.photoProcess ? PHOTO_PROCESS_LABELS[object.photoProcess] : null}</KV>
+            <KV labelWidth={88} label="Medium">{object.medium}</KV>
+            <KV labelWidth={88} label="Support">{object.support}</KV>
+            <KV labelWidth={88} label="Edition">{object.edition}</KV>
+            <KV labelWidth={88} label="Inscriptions">{object.inscriptions}</KV>
+          </View>
+          <View style={{ flex: 1 }}>
+            <KV labelWidth={88} label="Sheet (W × H)">{size({ width: object.sheetWidthMm, height: object.sheetHeightMm })}</KV>
+            <KV labelWidth={88} label="Image borders">
+              {object.borderLeftMm !== null || object.borderTopMm !== null ? (["L", "T", "R", "B"] as const).map((k, i) => { const v = [object.borderLeftMm, object.borderTopMm, object.borderRightMm, object.borderBottomMm][i]; return `${k} ${v === null ? "—" : len(v)}`; }).join(" · ") : null}
+            </KV>
+            <KV labelWidth={88} label="Thickness">{object.thicknessNotes}</KV>
+            <KV labelWidth={88} label="Sensitivities">{object.sensitivities.length ? object.sensitivities.map((x) => SENSITIVITY_LABELS[x]).join(", ") : null}</KV>
+            <KV labelWidth={88} label="Owner">{object.clientName}</KV>
+            <KV labelWidth={88} label="Status">{OBJECT_STATUS_LABELS[object.status]}</KV>
+            <KV labelWidth={88} label="Location">{object.location}</KV>
+            {value ? <KV labelWidth={88} label="Insured value">{value}</KV> : null}
+          </View>
         </View>
 
         {d ? (
