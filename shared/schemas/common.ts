@@ -1,4 +1,12 @@
 import { z } from "zod";
+import { isCalendarDate } from "../domain/dates.ts";
+
+/**
+ * A day as YYYY-MM-DD that is a real day of the calendar: every date written or filtered on goes
+ * through this one schema (no 30 February, month 13 or year 0000).
+ */
+export const isoDate = (example = "2026-11-30") =>
+  z.string({ message: `Use a real date such as ${example}.` }).refine(isCalendarDate, { message: `Use a real date such as ${example}.` });
 
 export const IdParamSchema = z.object({ id: z.string().min(1).max(64) });
 

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { optionalText, requiredText } from "./common.ts";
+import { optionalText, requiredText, isoDate as isoDateOf } from "./common.ts";
 
 export const CONDITION_CONTEXTS = ["arrival", "before-mounting", "after-mounting", "periodic-check", "loan-out", "loan-return", "incident", "claim"] as const;
 export type ConditionContext = (typeof CONDITION_CONTEXTS)[number];
@@ -68,7 +68,7 @@ export const FindingSchema = z.object({
 });
 export type Finding = z.infer<typeof FindingSchema>;
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: "Use a date such as 2026-11-30." });
+const isoDate = isoDateOf();
 const Signature = z.object({ name: requiredText(200, "Give the name of the person signing."), date: isoDate, role: optionalText(120) });
 
 export const ConditionDataSchema = z

@@ -1,6 +1,5 @@
 import { z } from "zod";
-import { optionalText, PageQuerySchema, requiredText } from "./common.ts";
-import { isCalendarDate } from "../domain/dates.ts";
+import { optionalText, PageQuerySchema, requiredText, isoDate as isoDateOf } from "./common.ts";
 
 export const CUSTODY_KINDS = ["intake", "return-to-owner", "loan-out", "loan-return", "to-conservator", "from-conservator"] as const;
 export type CustodyKind = (typeof CUSTODY_KINDS)[number];
@@ -28,7 +27,7 @@ export const RETURN_DUE_KINDS: readonly CustodyKind[] = ["loan-out", "to-conserv
 export const CustodyCreateSchema = z
   .object({
     kind: z.enum(CUSTODY_KINDS, { message: "Choose what kind of hand-over this is." }),
-    date: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: "Use a date such as 2026-11-30." }),
+    date: isoDateOf(),
     fromParty: requiredText(200, "Say who handed the object over."),
     toParty: requiredText(200, "Say who received the object."),
     condition: requiredText(300, "Note the condition at the hand-over in one line."),
@@ -38,7 +37,7 @@ export const CustodyCreateSchema = z
     /** For a loan or a stay with a conservator: the day it is agreed to come back. */
     returnDue: z.preprocess(
       (v) => (v === "" || v === undefined ? null : v),
-      z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: "Use a date such as 2027-03-31." }).refine(isCalendarDate, { message: "Use a date such as 2027-03-31." }).nullable(),
+      isoDateOf("2027-03-31").nullable(),
     ).optional(),
   })
   .superRefine((d, ctx) => {
@@ -51,7 +50,7 @@ export type CustodyReceipt = CustodyCreate & { id: string; objectId: string; obj
 
 // ── The list queries (GET /api/custody/in-studio, GET /api/custody/receipts) ──
 const blankIsUnset = <T extends z.ZodType>(schema: T) => z.preprocess((v) => (v === "" ? undefined : v), schema.optional());
-const dateParam = (message: string) => blankIsUnset(z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message }).refine(isCalendarDate, { message }));
+const dateParam = (example: string) => blankIsUnset(isoDateOf(example));
 
 export const InStudioQuerySchema = PageQuerySchema;
 export type InStudioQuery = z.infer<typeof InStudioQuerySchema>;
@@ -59,8 +58,8 @@ export type InStudioQuery = z.infer<typeof InStudioQuerySchema>;
 export const ReceiptListQuerySchema = PageQuerySchema.extend({
   direction: blankIsUnset(z.enum(["in", "out"], { message: "Choose in or out." })),
   kind: blankIsUnset(z.enum(CUSTODY_KINDS, { message: "Choose a kind of hand-over from the list." })),
-  from: dateParam("Use a date such as 2026-11-01."),
-  to: dateParam("Use a date such as 2026-11-30."),
+  from: dateParam("2026-11-01"),
+  to: dateParam("2026-11-30"),
 }).refine((q) => !q.from || !q.to || q.from <= q.to, { path: ["to"], message: "The end date is before the start date." });
 export type ReceiptListQuery = z.infer<typeof ReceiptListQuerySchema>;
 

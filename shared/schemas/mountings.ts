@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { ADHESIVES, ATTACHMENT_METHODS, MountPlanInputSchema, SIDES, type MountPlan } from "./mount-plan.ts";
-import { optionalText, requiredText } from "./common.ts";
+import { optionalText, requiredText, isoDate as isoDateOf } from "./common.ts";
 import type { CatalogueFacts } from "../domain/mounting.ts";
 
 export const MOUNTING_REASONS = [
@@ -109,7 +109,7 @@ export const MountingDataSchema = z
 export type MountingData = z.infer<typeof MountingDataSchema>;
 export type MountingDataInput = z.input<typeof MountingDataSchema>;
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: "Use a date such as 2026-11-30." });
+const isoDate = isoDateOf();
 
 export const MountingCreateSchema = z.object({
   reason: z.enum(MOUNTING_REASONS, { message: "Choose why the object is being mounted." }),

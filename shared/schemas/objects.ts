@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { optionalText, requiredText } from "./common.ts";
+import { optionalText, requiredText, isoDate as isoDateOf } from "./common.ts";
 import { isCurrencyCode } from "../domain/money.ts";
 import type { ATTACHMENT_METHODS, BOARD_GRADES } from "./mount-plan.ts";
 import type { GLAZING_TYPES } from "./mountings.ts";
@@ -92,9 +92,7 @@ const borderMm = (label: string) =>
     .optional()
     .transform((v) => v ?? null);
 
-const isoDate = z
-  .string()
-  .regex(/^\d{4}-\d{2}-\d{2}$/, { message: "Use a date such as 2026-11-30." })
+const isoDate = isoDateOf()
   .nullable()
   .optional()
   .transform((v) => v ?? null);
@@ -218,7 +216,7 @@ export const ObjectListQuerySchema = z.object({
   boardGrade: z.enum(REGISTER_BOARD_GRADES).optional(),
   glazing: z.enum(REGISTER_GLAZINGS).optional(),
   /** Objects due for a check on or before this date. The client sends its own today, so the register needs no clock. */
-  checkDueBy: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: "Use a date such as 2026-11-30." }).optional(),
+  checkDueBy: isoDateOf().optional(),
   sort: z.enum(OBJECT_SORTS).default("objectNumber"),
   dir: z.enum(["asc", "desc"]).default("asc"),
   page: z.coerce.number().int().min(1).default(1),

@@ -359,9 +359,8 @@ describe("signing", () => {
     }
   });
 
-  it("when a signature's date is not a real day, then signing answers 422 at that date", async () => {
-    const d = await draftOn(makeObject(t.db, studio.institution.id), with_({ signatures: { examiner: { name: "Test framer", date: "2026-02-30" } } }));
-    const res = await as.framer.post(`/api/condition/${d.id}/sign`).send({ version: d.version });
+  it("when a signature's date is not a real day, then even the draft is refused, at that date", async () => {
+    const res = await as.framer.post(`/api/objects/${makeObject(t.db, studio.institution.id)}/condition`).send(createBody(with_({ signatures: { examiner: { name: "Test framer", date: "2026-02-30" } } })));
     expect(res.status).toBe(422);
     expect(Object.keys(expectErrorShape(res.body, "validation_failed").fields ?? {})).toEqual(["data.signatures.examiner.date"]);
   });

@@ -110,7 +110,7 @@ describe("ObjectCreateSchema", () => {
   });
 
   it("when the valuation date is not YYYY-MM-DD, then the field shows an example", () => {
-    expect(fieldsOf({ ...VALID, valuationDate: "14/09/2025" })).toEqual({ valuationDate: "Use a date such as 2026-11-30." });
+    expect(fieldsOf({ ...VALID, valuationDate: "14/09/2025" })).toEqual({ valuationDate: "Use a real date such as 2026-11-30." });
   });
 
   it("when a photographic process is given for a print, then the process is named", () => {
