@@ -107,10 +107,12 @@ function axisFigures(c: FigureGrid, a: AxisIn) {
     if (nA === -1 || nB === -1) {
       const growA = nA === -1;
       const [other, nOther, otherSide] = growA ? [a.oB, OB, a.sideB] : [a.oA, OA, a.sideA];
-      if (want(c, otherSide, other, nOther - f) === 0) {
+      // The step goes to the other side unless that would carry it far from its truth and the sheet can take it instead.
+      const sheetCanGrow = Math.abs(S + f - a.sheet) < f - 1e-9;
+      if (want(c, otherSide, other, nOther - f) === 0 && !(sheetCanGrow && Math.abs(nOther - f - other) > 1.5 * f)) {
         if (growA) [OA, OB] = [OA + f, OB - f];
         else [OA, OB] = [OA - f, OB + f];
-      } else if (Math.abs(S + f - a.sheet) < f - 1e-9) {
+      } else if (sheetCanGrow) {
         S += f;
         if (growA) OA += f;
         else OB += f;
@@ -125,10 +127,11 @@ function axisFigures(c: FigureGrid, a: AxisIn) {
       const otherSide = shrinkA ? a.sideB : a.sideA;
       const other = shrinkA ? a.oB : a.oA;
       const nOther = shrinkA ? OB : OA;
-      if (want(c, otherSide, other, nOther + f) === 0) {
+      const sheetCanShrink = Math.abs(S - f - a.sheet) < f - 1e-9;
+      if (want(c, otherSide, other, nOther + f) === 0 && !(sheetCanShrink && Math.abs(nOther + f - other) > 1.5 * f)) {
         if (shrinkA) [OA, OB] = [OA - f, OB + f];
         else [OA, OB] = [OA + f, OB - f];
-      } else if (Math.abs(S - f - a.sheet) < f - 1e-9) {
+      } else if (sheetCanShrink) {
         S -= f;
         if (shrinkA) OA -= f;
         else OB -= f;

@@ -382,8 +382,18 @@ describe("mount plan properties", () => {
           expect(Math.abs(shown - truth)).toBeLessThanOrEqual(2 * (u === "in" ? MM_PER_INCH / 16 : 0.1) + 1e-6);
         }
       }),
-      { numRuns: 400 },
+      { numRuns: Number(process.env.PROPERTY_RUNS ?? 400) },
     );
+  });
+
+  it("an inch plan shown in mm whose window rounds down and whose failing side must show under the minimum spreads the rounding: each overlap within two grid steps of the truth (found by shown-overlap-honest)", () => {
+    const input = { unit: "in", precision: 8, sheet: { width: 45.171875, height: 52.33735449311726 }, window: { left: { mode: "hide-border", border: 0, into: 0 }, top: { mode: "overlap", overlap: 0 }, right: { mode: "float", reveal: 0.953125 }, bottom: { mode: "overlap", overlap: "0.15625" } }, borders: { all: "3 63/64" } };
+    const r = computePlan(MountPlanInputSchema.parse(input), { minOverlapMm: 5, rebateClearanceMm: 2, displayUnit: "mm" });
+    if (!r.ok) throw new Error("the plan should compute");
+    for (const s of SIDES) expect(Math.abs(read(r.plan.display[`overlap.${s}`], "mm") - r.geometry.overlap[s]), s).toBeLessThanOrEqual(0.2 + 1e-6);
+    // The bottom's true 4.997 mm fails the 5 mm minimum, so it shows under it; the parts still add up.
+    expect(read(r.plan.display["overlap.bottom"], "mm")).toBeLessThan(5);
+    expect(read(r.plan.display["overlap.top"], "mm") + read(r.plan.display["aperture.height"], "mm") + read(r.plan.display["overlap.bottom"], "mm")).toBeCloseTo(read(r.plan.display["sheet.height"], "mm"), 6);
   });
 
   it("property same-unit-exact: when a plan is shown in its own unit, then its window and outer size are shown exactly as computed", () => {
