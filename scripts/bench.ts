@@ -197,14 +197,23 @@ sqlite.transaction(() => {
 console.log(`Seeded ${emitted.toLocaleString("en-GB")} history events with chained hashes in ${((performance.now() - te) / 1000).toFixed(1)} s.`);
 sqlite.pragma("optimize");
 
-const config = { ...loadConfig({ LOG_LEVEL: "silent", LOGIN_RATE_LIMIT: "1000", DATABASE_URL: file, NODE_ENV: "test" }), authSecret: "bench-secret-bench-secret-bench-secret-0000" };
+const freePort = () =>
+  new Promise<number>((resolve) => {
+    const s = net.createServer().listen(0, "127.0.0.1", () => {
+      const p = (s.address() as AddressInfo).port;
+      s.close(() => resolve(p));
+    });
+  });
+// The port is known before the app is made, so its trusted origins (the CSRF guard's) include it.
+const inProcessPort = await freePort();
+const config = { ...loadConfig({ LOG_LEVEL: "silent", LOGIN_RATE_LIMIT: "1000", DATABASE_URL: file, NODE_ENV: "test", PORT: String(inProcessPort) }), authSecret: "bench-secret-bench-secret-bench-secret-0000" };
 const { app } = createApp({ config, database });
-const server = app.listen(0, "127.0.0.1");
+const server = app.listen(inProcessPort, "127.0.0.1");
 await new Promise((r) => server.once("listening", r));
 const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
 
 async function cookieFor(email: string) {
-  const r = await fetch(`${base}/api/session`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ email, password: "bench-password" }) });
+  const r = await fetch(`${base}/api/session`, { method: "POST", headers: { "content-type": "application/json", origin: base }, body: JSON.stringify({ email, password: "bench-password" }) });
   if (!r.ok) throw new Error(`sign-in failed: ${r.status}`);
   return r.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
 }
@@ -284,12 +293,7 @@ console.log(`\nMount plan computation (pure, 3 kinds of plan, one with board yie
 
 // ── Mount planner: the calculate route under 16 concurrent requests ────────
 // The server runs in its own process, so the load generator does not share its event loop.
-const port = await new Promise<number>((resolve) => {
-  const s = net.createServer().listen(0, "127.0.0.1", () => {
-    const p = (s.address() as AddressInfo).port;
-    s.close(() => resolve(p));
-  });
-});
+const port = await freePort();
 const child = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], {
   env: { ...process.env, NODE_ENV: "test", PORT: String(port), HOST: "127.0.0.1", DATABASE_URL: file, SEED_DEMO: "false", LOG_LEVEL: "silent", LOGIN_RATE_LIMIT: "1000", BETTER_AUTH_SECRET: config.authSecret },
   stdio: ["ignore", "ignore", "inherit"],
@@ -305,7 +309,7 @@ for (let i = 0; ; i++) {
   await new Promise((r) => setTimeout(r, 100));
 }
 const childCookie = await (async () => {
-  const r = await fetch(`${childBase}/api/session`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ email: "framer@bench.test", password: "bench-password" }) });
+  const r = await fetch(`${childBase}/api/session`, { method: "POST", headers: { "content-type": "application/json", origin: childBase }, body: JSON.stringify({ email: "framer@bench.test", password: "bench-password" }) });
   return r.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
 })();
 const agent = new http.Agent({ keepAlive: true, maxSockets: 16 });
@@ -317,7 +321,7 @@ const bodies = PLAN_INPUTS.map((_, i) => JSON.stringify([
 function post(body: string): Promise<number> {
   return new Promise((resolve, reject) => {
     const t = performance.now();
-    const req = http.request(`${childBase}/api/mount-plans/calculate`, { method: "POST", agent, headers: { "content-type": "application/json", cookie: childCookie, "content-length": Buffer.byteLength(body) } }, (res) => {
+    const req = http.request(`${childBase}/api/mount-plans/calculate`, { method: "POST", agent, headers: { "content-type": "application/json", origin: childBase, cookie: childCookie, "content-length": Buffer.byteLength(body) } }, (res) => {
       res.resume();
       res.on("end", () => (res.statusCode === 200 ? resolve(performance.now() - t) : reject(new Error(`calculate answered ${res.statusCode}`))));
     });

@@ -11,6 +11,7 @@ import type { DbHandle } from "./db/client.ts";
 import type { ErrorBody } from "../shared/schemas/errors.ts";
 import { createSessionResolver, requireAuth } from "./middleware/require-auth.ts";
 import { apiNotFound, errorHandler } from "./middleware/error-handler.ts";
+import { sameOriginWrites } from "./middleware/same-origin.ts";
 import { currentUser } from "./middleware/require-permission.ts";
 import { sessionRoutes } from "./features/session/session.routes.ts";
 import { settingsRoutes } from "./features/settings/settings.routes.ts";
@@ -85,6 +86,9 @@ export function createApp({ config, database, clock = () => new Date() }: AppDep
     database.sqlite.prepare("select 1").get();
     res.json({ status: "ok" });
   });
+
+  // Every write, sign-in included, must come from the studio's own pages (server/middleware/same-origin.ts).
+  app.use("/api", sameOriginWrites(config.trustedOrigins));
 
   const rateLimited: ErrorBody = {
     error: { code: "rate_limited", message: "Too many sign-in attempts from this address. Wait 15 minutes, then try again." },

@@ -166,7 +166,7 @@ describe("the object dossier", () => {
   });
 
   it("when signed out, then issuing answers 401", async () => {
-    expect((await request(t.app).post(`/api/objects/${objectId()}/documents/dossier`)).status).toBe(401);
+    expect((await request(t.app).post(`/api/objects/${objectId()}/documents/dossier`).set("Origin", t.config.publicUrl)).status).toBe(401);
   });
 });
 

@@ -17,7 +17,8 @@ export type TestApp = {
   app: ReturnType<typeof createApp>["app"];
   database: DbHandle;
   db: DbHandle["db"];
-  /** A supertest agent: keeps the cookies it is given, like a browser. */
+  config: ReturnType<typeof loadConfig>;
+  /** A supertest agent: keeps the cookies it is given and sends the studio's Origin, like a browser on its pages. */
   agent: () => Agent;
 };
 
@@ -45,7 +46,8 @@ export function createTestApp(opts: { env?: Record<string, string>; clock?: () =
     database.close();
     for (const suffix of ["", "-wal", "-shm"]) fs.rmSync(file + suffix, { force: true });
   });
-  return { app, database, db: database.db, agent: () => request.agent(app) };
+  // A browser sends its page's Origin with every write; the test agents do too, as the studio's own pages would.
+  return { app, database, db: database.db, config, agent: () => request.agent(app).set("Origin", config.publicUrl) };
 }
 
 /** Signs in through POST /api/session and fails loudly when that does not answer 200. */
