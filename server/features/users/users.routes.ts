@@ -3,9 +3,11 @@ import type { Db } from "../../db/client.ts";
 import { UserCreateSchema } from "../../../shared/schemas/users.ts";
 import { requirePermission } from "../../middleware/require-permission.ts";
 import { input, validate } from "../../middleware/validate.ts";
-import { AppError, conflict } from "../../lib/errors.ts";
+import { AppError } from "../../lib/errors.ts";
 import { findClient } from "../clients/clients.repo.ts";
-import { findUserByEmail, insertUser, listUsers } from "./users.repo.ts";
+import { emailTaken, findUserByEmail, insertUser, listUsers } from "./users.repo.ts";
+import { passwordProblem } from "../../lib/password-strength.ts";
+import { getSettings } from "../settings/settings.repo.ts";
 
 /** Mounted at /api: the studio admin's list of accounts. */
 export function userRoutes(db: Db) {
@@ -24,7 +26,9 @@ export function userRoutes(db: Db) {
         });
       }
     }
-    if (findUserByEmail(db, body.email)) throw conflict(`${body.email} already has an account.`, { email: "This e-mail address already has an account." });
+    if (findUserByEmail(db, body.email)) throw emailTaken(body.email);
+    const weak = await passwordProblem(body.password, [body.email, body.name, getSettings(db).studioName]);
+    if (weak) throw new AppError(422, "validation_failed", `Check password: ${weak}`, { password: weak });
     const id = await insertUser(db, body);
     res.status(201).json(listUsers(db).find((u) => u.id === id));
   });

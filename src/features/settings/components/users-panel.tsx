@@ -56,7 +56,7 @@ export function UsersPanel({ clients }: { clients: ClientRecord[] }) {
           <option value="">{role === "collector" || role === "registrar" ? "Choose…" : "— (studio staff)"}</option>
           {choices.map((c) => <option key={c.id} value={c.id}>{c.name}</option>)}
         </SelectField>
-        <TextField label="First password" type="password" autoComplete="new-password" error={e.password?.message} hint="At least 10 characters; tell the person privately." {...form.register("password")} />
+        <TextField label="First password" type="password" autoComplete="new-password" error={e.password?.message} hint="At least 12 characters: a phrase of unrelated words, not built from the name, the e-mail address or the studio's name. Tell the person privately." {...form.register("password")} />
         <div className="flex items-end"><Button type="submit" disabled={form.formState.isSubmitting}>Add the account</Button></div>
       </form>
     </section>
