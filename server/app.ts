@@ -1,6 +1,5 @@
 import express from "express";
 import helmet from "helmet";
-import { rateLimit } from "express-rate-limit";
 import { pinoHttp } from "pino-http";
 import fs from "node:fs";
 import path from "node:path";
@@ -8,10 +7,10 @@ import type { Config } from "./lib/config.ts";
 import { createAuth } from "./lib/auth.ts";
 import { createLogger } from "./lib/logger.ts";
 import type { DbHandle } from "./db/client.ts";
-import type { ErrorBody } from "../shared/schemas/errors.ts";
 import { createSessionResolver, requireAuth } from "./middleware/require-auth.ts";
 import { apiNotFound, errorHandler } from "./middleware/error-handler.ts";
 import { sameOriginWrites } from "./middleware/same-origin.ts";
+import { signInThrottle } from "./middleware/sign-in-throttle.ts";
 import { currentUser } from "./middleware/require-permission.ts";
 import { sessionRoutes } from "./features/session/session.routes.ts";
 import { settingsRoutes } from "./features/settings/settings.routes.ts";
@@ -90,24 +89,13 @@ export function createApp({ config, database, clock = () => new Date() }: AppDep
   // Every write, sign-in included, must come from the studio's own pages (server/middleware/same-origin.ts).
   app.use("/api", sameOriginWrites(config.trustedOrigins));
 
-  const rateLimited: ErrorBody = {
-    error: { code: "rate_limited", message: "Too many sign-in attempts from this address. Wait 15 minutes, then try again." },
-  };
-  const signInLimiter = rateLimit({
-    windowMs: 15 * 60 * 1000,
-    limit: config.loginRateLimit,
-    standardHeaders: "draft-8",
-    legacyHeaders: false,
-    // Count failed attempts only, so a studio behind one address is not locked out by normal use.
-    skipSuccessfulRequests: true,
-    handler: (_req, res) => void res.status(429).json(rateLimited),
-  });
-  app.post("/api/session", signInLimiter);
+  const json = express.json({ limit: "1mb" });
+  // Sign-in: by address, refused after too many failures; by account, growing delays (server/middleware/sign-in-throttle.ts).
+  const throttle = signInThrottle({ perAddress: config.loginRateLimit, accountDelayAfter: config.loginAccountDelayAfter, delayMs: config.loginDelayMs });
+  app.post("/api/session", json, ...throttle.middleware);
   // better-auth is called in-process (auth.api) by /api/session and requireAuth; its own HTTP
   // routes are not mounted, so sign-up and the rest of its surface are not reachable.
-
-  const json = express.json({ limit: "1mb" });
-  app.use("/api/session", json, sessionRoutes(auth, sessions));
+  app.use("/api/session", json, sessionRoutes(auth, sessions, throttle.signedIn));
 
   app.use("/api", verifyRoutes(db));
 

@@ -18,6 +18,8 @@ const EnvSchema = z.object({
   BETTER_AUTH_SECRET: z.string().min(32).optional(),
   LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
   LOGIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
+  LOGIN_ACCOUNT_DELAY_AFTER: z.coerce.number().int().min(1).default(5),
+  LOGIN_DELAY_MS: z.coerce.number().int().min(1).max(60_000).default(500),
   NODE_ENV: z.string().default("development"),
 });
 
@@ -37,8 +39,12 @@ export type Config = {
   trustedOrigins: string[];
   authSecret?: string;
   logLevel: string;
-  /** Failed and successful sign-in attempts allowed per IP address per 15 minutes. */
+  /** Failed sign-in attempts allowed per IP address per 15 minutes, on any accounts; then 429 until the window ends. */
   loginRateLimit: number;
+  /** Failed attempts on one account (from any address) before each further attempt on it is delayed. */
+  loginAccountDelayAfter: number;
+  /** The first delay; each further failure doubles it, up to 10 s (never a lock-out). */
+  loginDelayMs: number;
   /** Folder of the built client to serve, or null to serve the API only. */
   clientDir: string | null;
   secureCookies: boolean;
@@ -66,6 +72,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     authSecret: e.BETTER_AUTH_SECRET,
     logLevel: e.LOG_LEVEL,
     loginRateLimit: e.LOGIN_RATE_LIMIT,
+    loginAccountDelayAfter: e.LOGIN_ACCOUNT_DELAY_AFTER,
+    loginDelayMs: e.LOGIN_DELAY_MS,
     clientDir: e.NODE_ENV === "production" ? path.resolve("dist/client") : null,
     secureCookies: publicUrl.startsWith("https://"),
   };

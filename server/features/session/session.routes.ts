@@ -16,7 +16,7 @@ function forwardCookies(from: Response, to: ExpressResponse) {
  * Sign-in and sign-out in the API's own error shape, on top of better-auth.
  * GET /api/session → { user | null } · POST /api/session { email, password } · DELETE /api/session
  */
-export function sessionRoutes(auth: Auth, sessions: SessionResolver) {
+export function sessionRoutes(auth: Auth, sessions: SessionResolver, signedIn: (email: string) => void = () => {}) {
   const r = Router();
 
   // Public: tells the client whether it is signed in, without a 401 in the console.
@@ -41,6 +41,7 @@ export function sessionRoutes(auth: Auth, sessions: SessionResolver) {
       throw new AppError(response.status === 403 ? 403 : 500, response.status === 403 ? "forbidden" : "internal", "Sign-in failed; try again.");
     }
     forwardCookies(response, res);
+    signedIn(body.email);
     const data = (await response.json()) as { user: { id: string } };
     res.json({ ok: true, userId: data.user.id });
   });
