@@ -95,9 +95,20 @@ describe("POST /api/objects", () => {
 describe("PUT /api/objects/:id", () => {
   it("when the edit starts from the stored version, then it saves and the version moves on", async () => {
     const created = (await framer.post("/api/objects").send(body({ objectNumber: "W-1000" }))).body as ObjectRecord;
-    const res = await framer.put(`/api/objects/${created.id}`).send({ ...editable(created), status: "with-owner", location: "Owner's hall" });
+    const res = await framer.put(`/api/objects/${created.id}`).send({ ...editable(created), location: "Plan chest C" });
     expect(res.status).toBe(200);
-    expect(res.body).toMatchObject({ status: "with-owner", location: "Owner's hall", version: 2 });
+    expect(res.body).toMatchObject({ status: created.status, location: "Plan chest C", version: 2 });
+  });
+
+  it("when an edit would change the status, then it answers 422 naming status and the object stays where its custody record puts it", async () => {
+    const created = (await framer.post("/api/objects").send(body({ objectNumber: "W-1050" }))).body as ObjectRecord;
+    for (const status of ["with-owner", "on-loan", "with-conservator"] as const) {
+      const res = await framer.put(`/api/objects/${created.id}`).send({ ...editable(created), status });
+      expect(res.status).toBe(422);
+      expect(expectErrorShape(res.body, "validation_failed").fields?.status).toMatch(/Custody/);
+    }
+    const now = (await framer.get(`/api/objects/${created.id}`)).body as ObjectRecord;
+    expect(now).toMatchObject({ status: created.status, version: 1 });
   });
 
   it("when the edit starts from a stale version, then it answers 409 and keeps the other person's save", async () => {

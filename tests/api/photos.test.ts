@@ -309,7 +309,7 @@ describe("POST /api/objects/:id/photos — accepted", () => {
       const r = await binary(as.framer, p.urls[v]);
       expect(r.status).toBe(200);
       expect(r.headers["content-type"]).toBe("image/jpeg");
-      expect(r.headers["cache-control"]).toBe("private, max-age=86400");
+      expect(r.headers["cache-control"]).toBe("private, no-store");
       expect(r.headers["x-content-type-options"]).toBe("nosniff");
       const bytes = r.body as Buffer;
       expect(await exifr.gps(bytes)).toBeUndefined();
@@ -513,5 +513,24 @@ describe("who may upload, list, edit and fetch", () => {
     expect(list.body.items.map((p: Photo) => p.id)).toEqual([res.body.id]);
     const all = await as.framer.get(`/api/objects/${obj.other}/photos`);
     expect(all.body.items.length).toBeGreaterThan(1);
+  });
+});
+
+describe("photos of a draft condition report", () => {
+  it("when a photo is taken for a draft report, then those who cannot see drafts do not see it either, until the report is signed", async () => {
+    const reportId = randomUUID();
+    t.db.insert(conditionReports).values({ id: reportId, objectId: obj.collector, context: "arrival", reportDate: "2026-11-20", examinerName: "Test framer", rating: "good", status: "draft" }).run();
+    const up = await upload(as.framer, obj.collector, { buffer: await jpeg(66, 44), filename: "draft.jpg" }, { kind: "detail", reportId });
+    expect(up.status, JSON.stringify(up.body)).toBe(201);
+    const photo = up.body as Photo;
+    // The studio sees it; the collector (who cannot see drafts) gets nothing: not listed, 404 as for no photo.
+    expect((await as.framer.get(`/api/objects/${obj.collector}/photos`)).body.items.map((p: Photo) => p.id)).toContain(photo.id);
+    expect((await as.collector.get(`/api/objects/${obj.collector}/photos`)).body.items.map((p: Photo) => p.id)).not.toContain(photo.id);
+    expect((await as.collector.get(`/api/photos/${photo.id}`)).status).toBe(404);
+    for (const v of ["full", "web", "thumb"] as const) expect((await binary(as.collector, photo.urls[v])).status).toBe(404);
+    // Signed, the report and its photos are the owner's to see.
+    t.db.update(conditionReports).set({ status: "signed" }).where(eq(conditionReports.id, reportId)).run();
+    expect((await as.collector.get(`/api/objects/${obj.collector}/photos`)).body.items.map((p: Photo) => p.id)).toContain(photo.id);
+    expect((await binary(as.collector, photo.urls.thumb)).status).toBe(200);
   });
 });

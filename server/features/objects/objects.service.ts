@@ -113,6 +113,12 @@ export function createObjectsService(db: Db) {
       const current = load(user, id);
       assertCan(user, "object:update", { clientId: current.clientId }, { what: "That object" });
       const { version, ...changes } = data;
+      // Whereabouts change only through custody receipts, so every move is in the object's history with who and when.
+      if (changes.status !== undefined && changes.status !== current.status) {
+        throw new AppError(422, "validation_failed", "Check status: an object's whereabouts change only through a custody receipt.", {
+          status: "Record the hand-over in the object's Custody section; the status follows from it.",
+        });
+      }
       // Only studio staff move an object to another owner.
       // The user may edit this object, so a refusal here is 403 (assertCan would answer "That record was not found").
       if (changes.clientId !== current.clientId) {

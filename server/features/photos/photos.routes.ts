@@ -99,7 +99,8 @@ export function photoRoutes(db: Db, config: Pick<Config, "uploadsDir" | "maxUplo
     const f = service.file(currentUser(req), id, version);
     storage.path(f.key); // refuses anything but a well-formed key before a path is touched
     res.setHeader("Content-Type", f.mime);
-    res.setHeader("Cache-Control", "private, max-age=86400");
+    // Never stored by the browser: on a shared computer a signed-out person must not find the photos in its cache.
+    res.setHeader("Cache-Control", "private, no-store");
     res.setHeader("X-Content-Type-Options", "nosniff");
     res.setHeader("Content-Disposition", `inline; filename="${f.filename}"`);
     res.sendFile(f.key, { root: storage.root, cacheControl: false, dotfiles: "deny" }, (err) => {

@@ -1,3 +1,4 @@
+import { can } from "../../../shared/permissions.ts";
 import fsp from "node:fs/promises";
 import sharp, { type Metadata, type Sharp, type SharpOptions } from "sharp";
 import exifr from "exifr";
@@ -325,7 +326,17 @@ export function createPhotosService(db: Db, storage: Storage, limits: PhotoLimit
     const p = repo.findPhoto(db, id);
     if (!p) throw notFound("That photo");
     assertCan(user, action, { clientId: p.clientId }, { what: "That photo" });
+    if (!seesPhoto(user, p)) throw notFound("That photo");
     return p;
+  }
+
+  /**
+   * A photo taken for a draft condition report is part of that draft: hidden, like the draft itself, from
+   * anyone who may not write condition reports for the object (as in the condition service).
+   */
+  function seesPhoto(user: SessionUser, p: { reportId: string | null; clientId: string }): boolean {
+    if (!p.reportId || can(user, "condition:write", { clientId: p.clientId })) return true;
+    return repo.findReport(db, p.reportId)?.status !== "draft";
   }
 
   return {
@@ -398,8 +409,8 @@ export function createPhotosService(db: Db, storage: Storage, limits: PhotoLimit
     },
 
     listForObject(user: SessionUser, objectId: string, reportId?: string): { items: Photo[] } {
-      loadObject(user, objectId, "object:read");
-      return { items: repo.listForObject(db, objectId, reportId).map(toPhoto) };
+      const o = loadObject(user, objectId, "object:read");
+      return { items: repo.listForObject(db, objectId, reportId).filter((p) => seesPhoto(user, { reportId: p.reportId, clientId: o.clientId })).map(toPhoto) };
     },
 
     get(user: SessionUser, id: string): Photo {
