@@ -9,7 +9,7 @@ import sharp from "sharp";
 import { and, eq, inArray, sql } from "drizzle-orm";
 import { createTestApp, expectErrorShape, makeObject, signIn, type Agent } from "../setup/test-app.ts";
 import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from "../../server/db/seed.ts";
-import { clients, conditionReports, conditionRevisions, custodyReceipts, events, objects, user } from "../../server/db/schema.ts";
+import { clients, conditionReports, conditionRevisions, custodyReceipts, events, objects, photos, user } from "../../server/db/schema.ts";
 import { columnsFor, createExportsService, EXPORT_COLUMNS, JOB_TTL_MS, minorToDecimal } from "../../server/features/exports/exports.service.ts";
 import { findClient } from "../../server/features/clients/clients.repo.ts";
 import { OBJECT_STATUSES, OBJECT_STATUS_LABELS, OBJECT_TYPES, PHOTO_PROCESSES, SENSITIVITIES, VALUATION_BASES } from "../../shared/schemas/objects.ts";
@@ -335,7 +335,7 @@ describe("bulk ZIP of one client's records", () => {
   };
   const unzipFile = (file: string, name: string) => spawnSync("/usr/bin/unzip", ["-p", file, name], { maxBuffer: 1 << 28 }).stdout as Buffer;
 
-  it("when the collector asks for a ZIP, then the job runs to done with rising progress, and the ZIP holds every dataset, the photo originals and the PDFs, each listed in the manifest with a SHA-256 that matches", async () => {
+  it("when the collector asks for a ZIP, then the job runs to done with rising progress, and the ZIP holds every dataset, the photos (metadata removed) and the PDFs, each listed in the manifest with a SHA-256 that matches", async () => {
     const eventsBefore = t.db.select({ n: sql<number>`count(*)` }).from(events).where(eq(events.type, "document-issued")).get()!.n;
     const { jobId, seen } = await runToDone(as.collector, varga);
     for (let i = 1; i < seen.length; i++) expect(seen[i]).toBeGreaterThanOrEqual(seen[i - 1]);
@@ -360,7 +360,7 @@ describe("bulk ZIP of one client's records", () => {
       const numbers = t.db.select({ n: objects.objectNumber }).from(objects).where(eq(objects.clientId, varga)).all().map((o) => o.n);
       for (const n of [...datasets, "manifest.csv", "manifest.json", ...numbers.map((n) => `dossiers/${n}.pdf`)]) expect(names, n).toContain(n);
       // The photo is named so a person can tell it apart: object number, its order, its kind.
-      expect(names).toContain(`photos/${photoObjectNumber}/${photoObjectNumber}-01-recto-front.png`);
+      expect(names.filter((n) => new RegExp(`^photos/${photoObjectNumber}/${photoObjectNumber}-01-recto-front\\.(png|jpg)$`).test(n))).toHaveLength(1);
       // Every signed condition report and every custody receipt of the client's objects, as PDFs.
       const signed = t.db.select({ n: sql<number>`count(*)` }).from(conditionReports).where(and(inArray(conditionReports.objectId, ids), eq(conditionReports.status, "signed"))).get()!.n;
       const receipts = t.db.select({ n: sql<number>`count(*)` }).from(custodyReceipts).where(inArray(custodyReceipts.objectId, ids)).get()!.n;
@@ -381,7 +381,13 @@ describe("bulk ZIP of one client's records", () => {
       }
       const manifestCsv = parse(unzipFile(file, "manifest.csv").toString("utf8"), { columns: true, bom: true }) as Record<string, string>[];
       expect(manifestCsv.map((r) => [r.File, r["SHA-256"]])).toEqual(manifest.map((m) => [m.file, m.sha256]));
-      expect(manifest.find((m) => m.file.startsWith("photos/"))).toMatchObject({ kind: "photo (original file)", objectNumber: photoObjectNumber });
+      // A client user gets the full-size copy with its metadata removed, the same bytes the app serves, never the original.
+      const photoEntry = manifest.find((m) => m.file.startsWith("photos/"))!;
+      expect(photoEntry).toMatchObject({ kind: "photo (full size, metadata removed)", objectNumber: photoObjectNumber });
+      const served = await raw(as.collector, `/api/photos/${photoId}/full`);
+      expect(photoEntry.sha256).toBe(createHash("sha256").update(served.body as Buffer).digest("hex"));
+      const originalSha = t.db.select({ sha: photos.sha256 }).from(photos).where(eq(photos.id, photoId)).get()!.sha;
+      expect(photoEntry.sha256).not.toBe(originalSha);
 
       // The CSV inside the ZIP is the same file as the single export.
       const single = await csv(as.collector, `/api/clients/${varga}/exports/objects.csv`);
@@ -398,6 +404,30 @@ describe("bulk ZIP of one client's records", () => {
     expect(t.db.select({ n: sql<number>`count(*)` }).from(events).where(eq(events.type, "document-issued")).get()!.n).toBe(eventsBefore);
     const others = t.db.select({ n: sql<number>`count(*)` }).from(events).where(and(eq(events.type, "exported"), sql`${events.objectId} not in (${sql.join(ids.map((i) => sql`${i}`), sql`, `)})`)).get()!.n;
     expect(others).toBe(0);
+  });
+
+  it("when studio staff ask for the originals, then the ZIP holds the photos' original files; a client user asking for them is refused", async () => {
+    expect((await as.collector.post(`/api/clients/${varga}/exports/archive`).send({ originals: true })).status).toBe(403);
+    const start = await as.admin.post(`/api/clients/${varga}/exports/archive`).send({ originals: true });
+    expect(start.status).toBe(202);
+    for (;;) {
+      const s = await as.admin.get(`/api/exports/${start.body.jobId}`);
+      if (s.body.state !== "running") break;
+      await new Promise((r) => setTimeout(r, 25));
+    }
+    const res = await raw(as.admin, `/api/exports/${start.body.jobId}/download`);
+    const dir = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-export-test-"));
+    try {
+      const file = path.join(dir, "export.zip");
+      fs.writeFileSync(file, res.body as Buffer);
+      const manifest = JSON.parse(unzipFile(file, "manifest.json").toString("utf8")) as { file: string; kind: string; sha256: string }[];
+      const entry = manifest.find((m) => m.file.startsWith("photos/"))!;
+      expect(entry.kind).toBe("photo (original file, with its metadata)");
+      // The original's SHA-256 as recorded at upload (the file exactly as sent).
+      expect(entry.sha256).toBe(t.db.select({ sha: photos.sha256 }).from(photos).where(eq(photos.id, photoId)).get()!.sha);
+    } finally {
+      fs.rmSync(dir, { recursive: true, force: true });
+    }
   });
 
   it("when an unknown job is polled, then it answers 404", async () => {

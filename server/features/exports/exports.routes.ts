@@ -18,6 +18,8 @@ const DatasetParamsSchema = z.object({
 });
 const FilterQuerySchema = z.object({ status: z.enum(OBJECT_STATUSES).optional(), objectType: z.enum(OBJECT_TYPES).optional() });
 const ClientParamsSchema = z.object({ id: z.string().min(1).max(64) });
+/** `originals: true` (studio staff only) puts the photos' original files in, with their metadata. */
+const ArchiveBodySchema = z.object({ originals: z.boolean({ message: "originals is true or false." }).default(false) }).strict().default({ originals: false });
 const JobParamsSchema = z.object({ jobId: z.string().min(1).max(64) });
 
 /** Studio staff and the client's own users may export; anyone else is told the client does not exist. */
@@ -59,10 +61,10 @@ export function exportRoutes(db: Db, config: Config, clock: () => Date) {
     }
   });
 
-  r.post("/clients/:id/exports/archive", validate({ params: ClientParamsSchema }), (req, res) => {
+  r.post("/clients/:id/exports/archive", validate({ params: ClientParamsSchema, body: ArchiveBodySchema }), (req, res) => {
     const user = currentUser(req);
     const client = exportableClient(db, user, input(req, "params", ClientParamsSchema).id);
-    res.status(202).json({ jobId: service.startArchive(user, client) });
+    res.status(202).json({ jobId: service.startArchive(user, client, input(req, "body", ArchiveBodySchema)) });
   });
 
   r.get("/exports/:jobId", validate({ params: JobParamsSchema }), (req, res) => {

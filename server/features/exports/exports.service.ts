@@ -10,7 +10,7 @@ import { ZipArchive } from "archiver";
 import type { Db } from "../../db/client.ts";
 import type { Config } from "../../lib/config.ts";
 import { conditionReports, conditionRevisions, custodyReceipts, mountingRevisions, mountings, objects, photos } from "../../db/schema.ts";
-import { can } from "../../../shared/permissions.ts";
+import { can, isStudio } from "../../../shared/permissions.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
 import type { ClientRecord } from "../../../shared/schemas/clients.ts";
 import {
@@ -35,7 +35,7 @@ import { CONDITION_CONTEXT_LABELS, RATING_LABELS, SEVERITY_LABELS, type Conditio
 import { CUSTODY_KIND_LABELS } from "../../../shared/schemas/custody.ts";
 import { PHOTO_KIND_LABELS } from "../../../shared/schemas/photos.ts";
 import { minorDigits } from "../../../shared/domain/money.ts";
-import { AppError, conflict, notFound } from "../../lib/errors.ts";
+import { AppError, conflict, forbidden, notFound } from "../../lib/errors.ts";
 import { createStorage } from "../../lib/storage.ts";
 import { appendEvent } from "../history/history.chain.ts";
 import { issueDossier } from "../documents/dossier.tsx";
@@ -500,6 +500,8 @@ type Job = JobStatus & {
   file: string;
   filename: string;
   timer: NodeJS.Timeout;
+  /** Whether studio staff asked for the photos' original files (with their metadata) instead of the stripped copies. */
+  originals: boolean;
   /** Why a failed job failed, for the server's eyes only. */
   error?: unknown;
 };
@@ -566,9 +568,17 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
       for (let i = 0; i < ids.length; i += 500) out.push(...read(ids.slice(i, i + 500)));
       return out;
     };
-    const photoRows = inChunks((part) =>
-      db.select({ id: photos.id, objectId: photos.objectId, originalKey: photos.originalKey, kind: photos.kind, caption: photos.caption }).from(photos).where(inArray(photos.objectId, part)).orderBy(asc(photos.createdAt), asc(photos.id)).all(),
+    // Photos of draft reports only to those who may see drafts (as the photos service); originals, which may
+    // carry GPS, camera and owner metadata, only to studio staff who asked for them; everyone else gets the
+    // full-size copy with its metadata stripped.
+    const withDrafts = can(user, "condition:write", { clientId: client.id });
+    const draftReports = new Set(
+      inChunks((part) => db.select({ id: conditionReports.id }).from(conditionReports).where(and(inArray(conditionReports.objectId, part), eq(conditionReports.status, "draft"))).all()).map((r) => r.id),
     );
+    const originals = job.originals && isStudio(user);
+    const photoRows = inChunks((part) =>
+      db.select({ id: photos.id, objectId: photos.objectId, originalKey: photos.originalKey, fullKey: photos.fullKey, reportId: photos.reportId, kind: photos.kind, caption: photos.caption }).from(photos).where(inArray(photos.objectId, part)).orderBy(asc(photos.createdAt), asc(photos.id)).all(),
+    ).filter((p) => withDrafts || !p.reportId || !draftReports.has(p.reportId));
     // Signed reports only: a draft can still change, and a document is issued only for a signed report.
     const reportRows = inChunks((part) =>
       db.select({ id: conditionReports.id, objectId: conditionReports.objectId, date: conditionReports.reportDate }).from(conditionReports).where(and(inArray(conditionReports.objectId, part), eq(conditionReports.status, "signed"))).orderBy(asc(conditionReports.reportDate), asc(conditionReports.id)).all(),
@@ -584,9 +594,10 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
     for (const p of photoRows) {
       const n = (perObject.get(p.objectId) ?? 0) + 1;
       perObject.set(p.objectId, n);
+      const key = originals ? p.originalKey : p.fullKey;
       let file: string;
       try {
-        file = storage.path(p.originalKey);
+        file = storage.path(key);
       } catch {
         missing++;
         continue;
@@ -596,7 +607,7 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
         continue;
       }
       const number = safeSegment(byId.get(p.objectId)!.objectNumber);
-      const ext = path.extname(p.originalKey).slice(1) || "bin";
+      const ext = path.extname(key).slice(1) || "bin";
       const words = [label(PHOTO_KIND_LABELS, p.kind), p.caption].filter(Boolean).map((w) => slug(w!, "")).filter(Boolean).join("-").slice(0, 60);
       files.push({ file, name: `photos/${number}/${number}-${String(n).padStart(2, "0")}${words ? `-${words}` : ""}.${ext}`, objectId: p.objectId, caption: p.caption });
     }
@@ -638,7 +649,7 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
         bytes += (chunk as Buffer).length;
       }
       archive.file(f.file, { name: f.name });
-      manifest.push({ file: f.name, kind: "photo (original file)", objectNumber: byId.get(f.objectId)!.objectNumber, caption: f.caption, bytes, sha256: hash.digest("hex") });
+      manifest.push({ file: f.name, kind: originals ? "photo (original file, with its metadata)" : "photo (full size, metadata removed)", objectNumber: byId.get(f.objectId)!.objectNumber, caption: f.caption, bytes, sha256: hash.digest("hex") });
     }
 
     // Documents rendered by the documents feature, each an issued document with its own verification code.
@@ -722,7 +733,8 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
   }
 
   return {
-    startArchive(user: SessionUser, client: ClientRecord): string {
+    startArchive(user: SessionUser, client: ClientRecord, opts: { originals?: boolean } = {}): string {
+      if (opts.originals && !isStudio(user)) throw forbidden("Original photo files, with their camera and place metadata, go only to studio staff. Leave out originals to get the full-size copies.");
       const id = randomUUID();
       const dir = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-export-"));
       trackDir(dir);
@@ -730,6 +742,7 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
         id,
         ownerId: user.id,
         clientId: client.id,
+        originals: !!opts.originals,
         state: "running",
         progress: 0,
         message: "Starting.",

@@ -1,6 +1,6 @@
 import { Link, useParams } from "react-router";
 import { CLIENT_KIND_LABELS } from "@shared/schemas/clients.ts";
-import { can } from "@shared/permissions.ts";
+import { can, isStudio } from "@shared/permissions.ts";
 import { useMe } from "@/features/session/api/session.ts";
 import { useStudio } from "@/features/settings/api/settings.ts";
 import { useClient } from "@/features/clients/api/clients.ts";
@@ -49,7 +49,7 @@ export function Component() {
           {can(user, "valuation:read", { clientId: c.id }) && (
             <DocumentButton url={`/api/clients/${c.id}/documents/schedule`} label="Schedule of values (PDF)" fallbackName={`schedule-${c.name}.pdf`} variant="primary" />
           )}
-          <ExportsPanel clientId={c.id} showValuations={can(user, "valuation:read", { clientId: c.id })} />
+          <ExportsPanel clientId={c.id} showValuations={can(user, "valuation:read", { clientId: c.id })} mayTakeOriginals={!!user && isStudio(user)} />
         </div>
       </Card>
       <Card title={`Objects${objects.data ? ` · ${objects.data.total}` : ""}`}>

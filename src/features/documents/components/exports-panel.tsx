@@ -15,8 +15,9 @@ const DATASETS = [
 type Job = { state: "running" | "done" | "failed"; progress: number; message?: string };
 
 /** A client's records as CSV (opens in a spreadsheet) or JSON, and everything at once as a ZIP with photos. */
-export function ExportsPanel({ clientId, showValuations }: { clientId: string; showValuations: boolean }) {
+export function ExportsPanel({ clientId, showValuations, mayTakeOriginals = false }: { clientId: string; showValuations: boolean; mayTakeOriginals?: boolean }) {
   const [error, setError] = useState<string | null>(null);
+  const [originals, setOriginals] = useState(false);
   const [jobId, setJobId] = useState<string | null>(null);
   const [job, setJob] = useState<Job | null>(null);
 
@@ -71,7 +72,7 @@ export function ExportsPanel({ clientId, showValuations }: { clientId: string; s
             setError(null);
             setJob(null);
             try {
-              const r = await api.post<{ jobId: string }>(`/api/clients/${encodeURIComponent(clientId)}/exports/archive`);
+              const r = await api.post<{ jobId: string }>(`/api/clients/${encodeURIComponent(clientId)}/exports/archive`, { originals });
               setJobId(r.jobId);
             } catch (e) {
               setError(e instanceof Error ? e.message : String(e));
@@ -80,6 +81,12 @@ export function ExportsPanel({ clientId, showValuations }: { clientId: string; s
         >
           Everything as a ZIP (photos and PDFs)
         </Button>
+        {mayTakeOriginals && (
+          <label className="inline-flex items-center gap-2 text-ink-soft">
+            <input type="checkbox" className="h-4 w-4 accent-accent" checked={originals} onChange={(e) => setOriginals(e.target.checked)} />
+            Photo originals, with their camera and place metadata (studio only)
+          </label>
+        )}
         {job && (
           <span className="flex items-center gap-2" role="status">
             <progress max={1} value={job.progress} className="h-2 w-40" aria-label="Archive progress" />
@@ -87,7 +94,7 @@ export function ExportsPanel({ clientId, showValuations }: { clientId: string; s
           </span>
         )}
       </div>
-      <p className="text-xs text-graphite">CSV files are UTF-8 with a byte-order mark so spreadsheets open them; column names follow Spectrum 5.0 units of information where one fits, and every value is in words. The ZIP adds the photo originals, each object's dossier, its signed condition reports and custody receipts as PDFs, and a manifest giving each file's SHA-256.</p>
+      <p className="text-xs text-graphite">CSV files are UTF-8 with a byte-order mark so spreadsheets open them; column names follow Spectrum 5.0 units of information where one fits, and every value is in words. The ZIP adds the photos (full size, camera and place metadata removed), each object's dossier, its signed condition reports and custody receipts as PDFs, and a manifest giving each file's SHA-256.</p>
     </div>
   );
 }
