@@ -3,6 +3,7 @@ import { createApp } from "./app.ts";
 import { loadConfig } from "./lib/config.ts";
 import { resolveAuthSecret } from "./lib/secret.ts";
 import { openDatabase } from "./db/client.ts";
+import { sweepAfterCrash } from "./lib/sweep.ts";
 import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from "./db/seed.ts";
 
 const config = loadConfig();
@@ -12,6 +13,10 @@ fs.mkdirSync(config.uploadsDir, { recursive: true });
 const seeded = config.seedDemo ? await seedDemo(database.db) : false;
 
 const { app, logger } = createApp({ config: { ...config, authSecret }, database });
+// What a crash may have left: half-written files, dead processes' upload folders, files no row names.
+const swept = sweepAfterCrash(database.db, config.uploadsDir);
+if (swept.incomingRemoved || swept.uploadTempRemoved) logger.info({ incoming: swept.incomingRemoved, uploadFolders: swept.uploadTempRemoved }, "removed temporary files left by an earlier run");
+if (swept.quarantined.length) logger.warn({ files: swept.quarantined.length, folder: swept.quarantineDir }, "stored files that no record names were moved to quarantine; look at them, then delete the folder");
 const server = app.listen(config.port, config.host, () => {
   const address = server.address();
   const port = typeof address === "object" && address ? address.port : config.port;

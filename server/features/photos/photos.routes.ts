@@ -24,7 +24,8 @@ const FileParamsSchema = z.object({ id: z.string().min(1).max(64), version: z.st
 let tempDir: string | null = null;
 export function uploadTempDir(): string {
   if (!tempDir || !fs.existsSync(tempDir)) {
-    const dir = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-upload-"));
+    // The process id is in the name, so the start-up sweep (server/lib/sweep.ts) can tell a dead process's folder.
+    const dir = fs.mkdtempSync(path.join(os.tmpdir(), `reversa-upload-${process.pid}-`));
     tempDir = dir;
     process.once("exit", () => fs.rmSync(dir, { recursive: true, force: true }));
   }
