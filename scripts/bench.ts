@@ -25,6 +25,9 @@ const MOUNTED = Number(process.env.BENCH_MOUNTINGS ?? 20_000);
 
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-bench-"));
 const file = path.join(dir, "bench.db");
+// The history key the in-process app and the spawned server use (HISTORY_KEY), so the seeded chains verify.
+const BENCH_HISTORY_KEY_TEXT = "bench-history-key-bench-history-key-0000";
+const BENCH_HISTORY_KEY = Buffer.from(BENCH_HISTORY_KEY_TEXT, "utf8");
 const database = openDatabase(file);
 const { db, sqlite } = database;
 
@@ -184,7 +187,7 @@ sqlite.transaction(() => {
         data,
         prevHash: lastHash[i],
       };
-      const hash = eventHash(content);
+      const hash = eventHash(content, BENCH_HISTORY_KEY);
       insEvent.run(content.objectId, content.type, content.at, content.actorId, content.actorName, content.summary, JSON.stringify(data), content.prevHash, hash);
       lastHash[i] = hash;
       emitted++;
@@ -206,7 +209,7 @@ const freePort = () =>
   });
 // The port is known before the app is made, so its trusted origins (the CSRF guard's) include it.
 const inProcessPort = await freePort();
-const config = { ...loadConfig({ LOG_LEVEL: "silent", LOGIN_RATE_LIMIT: "1000", DATABASE_URL: file, NODE_ENV: "test", PORT: String(inProcessPort) }), authSecret: "bench-secret-bench-secret-bench-secret-0000" };
+const config = { ...loadConfig({ LOG_LEVEL: "silent", LOGIN_RATE_LIMIT: "1000", DATABASE_URL: file, NODE_ENV: "test", PORT: String(inProcessPort) }), authSecret: "bench-secret-bench-secret-bench-secret-0000", historyKey: BENCH_HISTORY_KEY, checkpointsFile: null };
 const { app } = createApp({ config, database });
 const server = app.listen(inProcessPort, "127.0.0.1");
 await new Promise((r) => server.once("listening", r));
@@ -295,7 +298,7 @@ console.log(`\nMount plan computation (pure, 3 kinds of plan, one with board yie
 // The server runs in its own process, so the load generator does not share its event loop.
 const port = await freePort();
 const child = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], {
-  env: { ...process.env, NODE_ENV: "test", PORT: String(port), HOST: "127.0.0.1", DATABASE_URL: file, SEED_DEMO: "false", LOG_LEVEL: "silent", LOGIN_RATE_LIMIT: "1000", BETTER_AUTH_SECRET: config.authSecret },
+  env: { ...process.env, NODE_ENV: "test", PORT: String(port), HOST: "127.0.0.1", DATABASE_URL: file, SEED_DEMO: "false", LOG_LEVEL: "silent", LOGIN_RATE_LIMIT: "1000", BETTER_AUTH_SECRET: config.authSecret, HISTORY_KEY: BENCH_HISTORY_KEY_TEXT },
   stdio: ["ignore", "ignore", "inherit"],
 });
 const childBase = `http://127.0.0.1:${port}`;

@@ -4,6 +4,8 @@ import { pinoHttp } from "pino-http";
 import fs from "node:fs";
 import path from "node:path";
 import type { Config } from "./lib/config.ts";
+import type { HistoryKeying } from "./lib/secret.ts";
+import { useHistoryKey } from "./features/history/history.chain.ts";
 import { createAuth } from "./lib/auth.ts";
 import { createLogger } from "./lib/logger.ts";
 import type { DbHandle } from "./db/client.ts";
@@ -31,7 +33,7 @@ import { documentsRoutes } from "./features/documents/documents.routes.ts";
 import { exportRoutes } from "./features/exports/exports.routes.ts";
 
 export type AppDeps = {
-  config: Config & { authSecret: string };
+  config: Config & { authSecret: string } & HistoryKeying;
   database: DbHandle;
   /** Injected so tests can fix "now". */
   clock?: () => Date;
@@ -39,6 +41,7 @@ export type AppDeps = {
 
 export function createApp({ config, database, clock = () => new Date() }: AppDeps) {
   const { db } = database;
+  useHistoryKey(db, config.historyKey, config.checkpointsFile);
   const logger = createLogger(config.logLevel);
   const auth = createAuth(db, config);
   const sessions = createSessionResolver(auth, db);

@@ -1,7 +1,8 @@
 import fs from "node:fs";
 import { createApp } from "./app.ts";
 import { loadConfig } from "./lib/config.ts";
-import { resolveAuthSecret } from "./lib/secret.ts";
+import { historyKeyingFor, resolveAuthSecret } from "./lib/secret.ts";
+import { checkpointAllHeads, keyPlainChains, useHistoryKey } from "./features/history/history.chain.ts";
 import { openDatabase } from "./db/client.ts";
 import { sweepAfterCrash } from "./lib/sweep.ts";
 import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from "./db/seed.ts";
@@ -10,9 +11,15 @@ const config = loadConfig();
 const authSecret = resolveAuthSecret(config.authSecret, config.databaseUrl);
 const database = openDatabase(config.databaseUrl);
 fs.mkdirSync(config.uploadsDir, { recursive: true });
+// The history's key, outside the database; an older database's plain chains are keyed once, then checkpointed.
+const keying = historyKeyingFor(config);
+useHistoryKey(database.db, keying.historyKey, keying.checkpointsFile);
+const keyed = keyPlainChains(database.db, keying.historyKey);
+if (keyed && keying.checkpointsFile) checkpointAllHeads(database.db, keying.checkpointsFile, keying.historyKey);
 const seeded = config.seedDemo ? await seedDemo(database.db) : false;
 
-const { app, logger } = createApp({ config: { ...config, authSecret }, database });
+const { app, logger } = createApp({ config: { ...config, authSecret, ...keying }, database });
+if (keyed) logger.info({ events: keyed }, "history chains keyed with the history key and checkpointed");
 // What a crash may have left: half-written files, dead processes' upload folders, files no row names.
 const swept = sweepAfterCrash(database.db, config.uploadsDir);
 if (swept.incomingRemoved || swept.uploadTempRemoved) logger.info({ incoming: swept.incomingRemoved, uploadFolders: swept.uploadTempRemoved }, "removed temporary files left by an earlier run");

@@ -16,6 +16,8 @@ const EnvSchema = z.object({
   PUBLIC_URL: z.string().url().optional(),
   TRUSTED_ORIGINS: z.string().default(""),
   BETTER_AUTH_SECRET: z.string().min(32).optional(),
+  HISTORY_KEY: z.string().min(32).optional(),
+  HISTORY_CHECKPOINTS: z.string().optional(),
   LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
   LOGIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
   LOGIN_ACCOUNT_DELAY_AFTER: z.coerce.number().int().min(1).default(5),
@@ -38,6 +40,10 @@ export type Config = {
   publicUrlGiven: boolean;
   trustedOrigins: string[];
   authSecret?: string;
+  /** HISTORY_KEY, when set; otherwise the key is kept in .history-key beside the database. */
+  historyKeyFromEnv?: string;
+  /** HISTORY_CHECKPOINTS, when set; otherwise history-checkpoints.log beside the database. */
+  historyCheckpoints?: string;
   logLevel: string;
   /** Failed sign-in attempts allowed per IP address per 15 minutes, on any accounts; then 429 until the window ends. */
   loginRateLimit: number;
@@ -70,6 +76,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     publicUrlGiven: e.PUBLIC_URL !== undefined,
     trustedOrigins: [publicUrl, `http://localhost:${e.PORT}`, `http://127.0.0.1:${e.PORT}`, ...e.TRUSTED_ORIGINS.split(",").map((s) => s.trim()).filter(Boolean)],
     authSecret: e.BETTER_AUTH_SECRET,
+    historyKeyFromEnv: e.HISTORY_KEY,
+    historyCheckpoints: e.HISTORY_CHECKPOINTS,
     logLevel: e.LOG_LEVEL,
     loginRateLimit: e.LOGIN_RATE_LIMIT,
     loginAccountDelayAfter: e.LOGIN_ACCOUNT_DELAY_AFTER,

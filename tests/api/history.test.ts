@@ -1,4 +1,4 @@
-import { createHash } from "node:crypto";
+import { createHmac } from "node:crypto";
 import { beforeAll, describe, expect, it } from "vitest";
 import { asc, eq } from "drizzle-orm";
 import { agentFor, createTestApp, expectErrorShape, makeClient, makePerson, makeStudio, type Agent, type TestApp } from "../setup/test-app.ts";
@@ -272,10 +272,10 @@ describe("the hash chain", () => {
     for (const r of rows) {
       expect(r.prevHash, `event ${r.seq}`).toBe(prev);
       const content = { objectId: r.objectId, type: r.type, at: r.at.getTime(), actorId: r.actorId, actorName: r.actorName, summary: r.summary, data: r.data, prevHash: r.prevHash, occurredOn: r.occurredOn ?? undefined };
-      // Recomputed by hand as well as through eventHash, so a change to eventHash cannot hide a break.
-      const byHand = createHash("sha256").update(canonicalJson(content)).digest("hex");
+      // Recomputed by hand (HMAC-SHA256, RFC 2104, keyed with the app's history key) as well as through eventHash.
+      const byHand = createHmac("sha256", t.historyKey).update(canonicalJson(content)).digest("hex");
       expect(r.hash, `event ${r.seq}`).toBe(byHand);
-      expect(eventHash(content)).toBe(byHand);
+      expect(eventHash(content, t.historyKey)).toBe(byHand);
       expect(api.get(r.seq)).toBe(r.hash);
       prev = r.hash;
     }
@@ -284,9 +284,9 @@ describe("the hash chain", () => {
   it("when any part of an event's content or its link changes, then its hash changes", () => {
     const r = rowsOf(t, obj.id)[1];
     const content = { objectId: r.objectId, type: r.type, at: r.at.getTime(), actorId: r.actorId, actorName: r.actorName, summary: r.summary, data: r.data, prevHash: r.prevHash, occurredOn: r.occurredOn ?? undefined };
-    const h = eventHash(content);
+    const h = eventHash(content, t.historyKey);
     for (const over of [{ summary: `${r.summary} ` }, { at: content.at + 1 }, { prevHash: "0".repeat(64) }, { actorName: "Someone else" }, { data: { ...(r.data as object), extra: 1 } }, { type: "created" }, { occurredOn: "1999-01-01" }]) {
-      expect(eventHash({ ...content, ...over }), JSON.stringify(over)).not.toBe(h);
+      expect(eventHash({ ...content, ...over }, t.historyKey), JSON.stringify(over)).not.toBe(h);
     }
   });
 

@@ -18,6 +18,11 @@ export type TestApp = {
   database: DbHandle;
   db: DbHandle["db"];
   config: ReturnType<typeof loadConfig>;
+  /** The history key and checkpoints file this app writes with (the test may tamper and verify). */
+  historyKey: Buffer;
+  checkpointsFile: string;
+  /** The key as HISTORY_KEY would give it, for a script run against this app's database. */
+  historyKeyText: string;
   /** A supertest agent: keeps the cookies it is given and sends the studio's Origin, like a browser on its pages. */
   agent: () => Agent;
 };
@@ -41,13 +46,15 @@ export function createTestApp(opts: { env?: Record<string, string>; clock?: () =
   fs.copyFileSync(inject("templateDb"), file);
   const database = openDatabase(file, { migrate: false });
   const config = loadConfig({ ...BASE_ENV, DATABASE_URL: file, UPLOADS_DIR: path.join(inject("testDbDir"), "uploads"), ...opts.env });
-  const { app } = createApp({ config: { ...config, authSecret: randomBytes(32).toString("hex") }, database, clock: opts.clock });
+  const historyKeyText = randomBytes(32).toString("hex");
+  const keying = { historyKey: Buffer.from(historyKeyText, "utf8"), checkpointsFile: `${file}.checkpoints.log` };
+  const { app } = createApp({ config: { ...config, authSecret: randomBytes(32).toString("hex"), ...keying }, database, clock: opts.clock });
   afterAll(() => {
     database.close();
-    for (const suffix of ["", "-wal", "-shm"]) fs.rmSync(file + suffix, { force: true });
+    for (const suffix of ["", "-wal", "-shm", ".checkpoints.log"]) fs.rmSync(file + suffix, { force: true });
   });
   // A browser sends its page's Origin with every write; the test agents do too, as the studio's own pages would.
-  return { app, database, db: database.db, config, agent: () => request.agent(app).set("Origin", config.publicUrl) };
+  return { app, database, db: database.db, config, ...keying, historyKeyText, agent: () => request.agent(app).set("Origin", config.publicUrl) };
 }
 
 /** Signs in through POST /api/session and fails loudly when that does not answer 200. */
