@@ -8,6 +8,7 @@ export const ERROR_CODES = [
   "conflict",
   "rate_limited",
   "payload_too_large",
+  "unavailable",
   "internal",
 ] as const;
 export type ErrorCode = (typeof ERROR_CODES)[number];

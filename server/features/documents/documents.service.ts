@@ -1,7 +1,7 @@
 import type { ReactElement } from "react";
 import { inTransaction } from "../../db/client.ts";
 import type { DocumentProps } from "@react-pdf/renderer";
-import { renderToBuffer } from "@react-pdf/renderer";
+import { renderPdf } from "../../lib/pdf/render-pool.ts";
 import { createHash, randomBytes, randomUUID } from "node:crypto";
 import { PDFDocument } from "pdf-lib";
 import { and, desc, eq } from "drizzle-orm";
@@ -9,7 +9,6 @@ import type { Db } from "../../db/client.ts";
 import { issuedDocuments, objects } from "../../db/schema.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
 import { DOCUMENT_KIND_LABELS, normaliseCode, type DocumentKind, type IssuedDocument, type Verification } from "../../../shared/schemas/documents.ts";
-import { registerFonts } from "../../lib/pdf/fonts.ts";
 import type { DocMeta } from "../../lib/pdf/layout.tsx";
 import { getLogo, getSettings } from "../settings/settings.repo.ts";
 import { appendEvent } from "../history/history.chain.ts";
@@ -56,8 +55,8 @@ export function createDocumentsService(db: Db, clock: () => Date = () => new Dat
         title: req.title,
         logo: await getLogo(db, uploadsDir),
       };
-      registerFonts();
-      const pdf = await renderToBuffer(req.render(meta));
+      // Laid out in a worker thread (server/lib/pdf/render-pool.ts), so the server keeps answering meanwhile.
+      const pdf = await renderPdf(req.render(meta));
       // The fingerprint the public check shows: the file's SHA-256 and its page count.
       const sha256 = createHash("sha256").update(pdf).digest("hex");
       const pages = (await PDFDocument.load(pdf, { updateMetadata: false })).getPageCount();

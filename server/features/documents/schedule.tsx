@@ -17,6 +17,7 @@ import { formatSize, type Unit } from "../../../shared/domain/units.ts";
 import { formatMoney } from "../../../shared/domain/money.ts";
 import { registerFonts } from "../../lib/pdf/fonts.ts";
 import { StudioBlock, type DocMeta } from "../../lib/pdf/layout.tsx";
+import { pageFooterText } from "../../lib/pdf/host-tree.ts";
 import { ACCENT, GRAPHITE, INK, STONE, s } from "../../lib/pdf/theme.ts";
 import { getSettings } from "../settings/settings.repo.ts";
 import { newVerificationCode } from "./documents.service.ts";
@@ -328,7 +329,7 @@ function Chrome({ meta }: { meta: DocMeta }) {
       <Text style={[s.footer, { left: 40 }]} fixed>
         Issued {format(meta.issuedAt, "d MMM yyyy, HH:mm")} · verify the code {meta.code} in Reversa (/verify)
       </Text>
-      <Text style={[s.footer, { left: 360, textAlign: "right", borderTopWidth: 0 }]} fixed render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages} · Produced by Reversa`} />
+      <Text style={[s.footer, { left: 360, textAlign: "right", borderTopWidth: 0 }]} fixed render={pageFooterText} />
     </>
   );
 }

@@ -3,6 +3,7 @@ import { Document, Image, Page, View } from "@react-pdf/renderer";
 import { Text } from "./text.tsx";
 import { format } from "date-fns";
 import { s } from "./theme.ts";
+import { pageFooterText } from "./host-tree.ts";
 
 export type DocMeta = {
   studioName: string;
@@ -53,7 +54,7 @@ export function DocShell({ meta, children, size }: { meta: DocMeta; children: Re
           Issued {format(meta.issuedAt, "d MMM yyyy, HH:mm")} · verify the code {meta.code} in Reversa (/verify)
         </Text>
         {/* lineHeight on the page would blank this dynamic text (react-pdf 4), so it is set on text blocks instead. */}
-        <Text style={[s.footer, { left: 360, textAlign: "right", borderTopWidth: 0 }]} fixed render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages} · Produced by Reversa`} />
+        <Text style={[s.footer, { left: 360, textAlign: "right", borderTopWidth: 0 }]} fixed render={pageFooterText} />
       </Page>
     </Document>
   );

@@ -1,0 +1,58 @@
+import { fileURLToPath } from "node:url";
+import type { DocumentProps } from "@react-pdf/renderer";
+import type { ReactElement } from "react";
+import { Piscina } from "piscina";
+import { AppError } from "../errors.ts";
+import { toHostTree } from "./host-tree.ts";
+
+/** Documents laid out at once, each in its own worker thread: the request thread only gathers the data. */
+export const RENDER_THREADS = 2;
+/** Documents waiting their turn beyond those being laid out; more are refused with "try again". */
+export const RENDER_QUEUE = 24;
+/** The longest one document may take to lay out before it is stopped and refused. */
+export const RENDER_TIMEOUT_MS = 120_000;
+
+let pool: Piscina | null = null;
+function renderPool(): Piscina {
+  pool ??= new Piscina({
+    filename: fileURLToPath(new URL("./render-boot.worker.mjs", import.meta.url)),
+    minThreads: 0,
+    maxThreads: RENDER_THREADS,
+    maxQueue: RENDER_QUEUE,
+    idleTimeout: 60_000,
+  });
+  return pool;
+}
+
+/**
+ * Lays out a document off the request thread: the tree of primitives goes to a worker, the PDF comes back.
+ * Too many waiting → 429; past the time limit → the worker is stopped and 503 says so, plainly.
+ */
+export async function renderPdf(element: ReactElement<DocumentProps>, opts: { timeoutMs?: number } = {}): Promise<Buffer> {
+  const tree = toHostTree(element);
+  const p = renderPool();
+  if (p.queueSize >= RENDER_QUEUE) throw new AppError(429, "rate_limited", "Too many documents are being prepared right now. Try again in a minute.");
+  try {
+    const bytes = (await p.run(tree, { signal: AbortSignal.timeout(opts.timeoutMs ?? RENDER_TIMEOUT_MS) })) as Uint8Array;
+    return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  } catch (e) {
+    const name = (e as Error)?.name;
+    if (name === "AbortError" || name === "TimeoutError") {
+      throw new AppError(503, "unavailable", "This document took too long to prepare and was stopped. Try a smaller selection (fewer objects or mountings), or try again later.");
+    }
+    if (/queue is at limit/i.test(String((e as Error)?.message))) throw new AppError(429, "rate_limited", "Too many documents are being prepared right now. Try again in a minute.");
+    throw e;
+  }
+}
+
+/** For shutdown and tests: stops the worker threads. */
+export async function closeRenderPool() {
+  const p = pool;
+  pool = null;
+  await p?.destroy();
+}
+
+/** How many worker threads the pool has now and how many documents wait (for tests and the bench). */
+export function renderPoolStats(): { threads: number; queued: number } {
+  return { threads: pool?.threads.length ?? 0, queued: pool?.queueSize ?? 0 };
+}
