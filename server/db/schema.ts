@@ -422,3 +422,22 @@ export const issuedDocuments = sqliteTable(
   },
   (t) => [index("issued_object_idx").on(t.objectId, t.issuedAt), index("issued_at_idx").on(t.issuedAt)],
 );
+
+// ── Archive jobs: kept in the database so a restart finds them (running ones are then marked failed) ──
+export const exportJobs = sqliteTable(
+  "export_jobs",
+  {
+    id: text("id").primaryKey(),
+    ownerId: text("owner_id").notNull(),
+    clientId: text("client_id").notNull(),
+    state: text("state", { enum: ["running", "done", "failed"] }).notNull(),
+    progress: real("progress").notNull().default(0),
+    message: text("message").notNull(),
+    originals: integer("originals", { mode: "boolean" }).notNull().default(false),
+    dir: text("dir").notNull(),
+    file: text("file").notNull(),
+    filename: text("filename").notNull(),
+    createdAtMs: integer("created_at_ms").notNull(),
+  },
+  (t) => [index("export_jobs_client_idx").on(t.clientId, t.state)],
+);

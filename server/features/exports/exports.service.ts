@@ -9,7 +9,7 @@ import { stringify } from "csv-stringify/sync";
 import { ZipArchive } from "archiver";
 import type { Db } from "../../db/client.ts";
 import type { Config } from "../../lib/config.ts";
-import { conditionReports, conditionRevisions, custodyReceipts, mountingRevisions, mountings, objects, photos } from "../../db/schema.ts";
+import { conditionReports, conditionRevisions, custodyReceipts, exportJobs, mountingRevisions, mountings, objects, photos } from "../../db/schema.ts";
 import { can, isStudio } from "../../../shared/permissions.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
 import type { ClientRecord } from "../../../shared/schemas/clients.ts";
@@ -508,18 +508,6 @@ type Job = JobStatus & {
 
 export const JOB_TTL_MS = 60 * 60 * 1000;
 
-// Every job's temporary folder, so that those still there when the process ends are removed with it.
-const liveDirs = new Set<string>();
-let exitHook = false;
-function trackDir(dir: string) {
-  liveDirs.add(dir);
-  if (exitHook) return;
-  exitHook = true;
-  process.once("exit", () => {
-    for (const d of liveDirs) fs.rmSync(d, { recursive: true, force: true });
-  });
-}
-
 const safeSegment = (s: string) => s.replace(/[\\/:*?"<>|\u0000-\u001f]/g, "_").replace(/^\.+/, "_") || "_";
 const slug = (s: string, fallback = "client") => s.normalize("NFKD").replace(/[^\w\s-]/g, "").trim().replace(/\s+/g, "-").toLowerCase().slice(0, 60) || fallback;
 
@@ -536,24 +524,40 @@ const DATASET_CAPTIONS: Record<Dataset, string> = {
 
 export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">, clock: () => Date) {
   const storage = createStorage(config.uploadsDir);
-  const jobs = new Map<string, Job>();
+  /** The jobs this process is building now; every job's state is also in export_jobs, so a restart finds it. */
+  const building = new Map<string, Job>();
 
-  async function expire(job: Job) {
-    clearTimeout(job.timer);
-    jobs.delete(job.id);
-    await fsp.rm(job.dir, { recursive: true, force: true });
-    liveDirs.delete(job.dir);
+  const save = (job: Pick<Job, "id" | "state" | "progress" | "message">) =>
+    db.update(exportJobs).set({ state: job.state, progress: job.progress, message: job.message }).where(eq(exportJobs.id, job.id)).run();
+
+  async function expire(row: { id: string; dir: string }) {
+    const timer = building.get(row.id)?.timer;
+    if (timer) clearTimeout(timer);
+    building.delete(row.id);
+    db.delete(exportJobs).where(eq(exportJobs.id, row.id)).run();
+    await fsp.rm(row.dir, { recursive: true, force: true });
+  }
+
+  // At start: a job that was running when the process stopped cannot be resumed from half a ZIP; it is
+  // marked failed (its owner sees why and starts again) and its partial file removed. Expired jobs go.
+  for (const row of db.select().from(exportJobs).all()) {
+    if (clock().getTime() - row.createdAtMs > JOB_TTL_MS) {
+      void expire(row);
+    } else if (row.state === "running") {
+      save({ id: row.id, state: "failed", progress: row.progress, message: "Reversa restarted while this archive was being built, so it was not finished. Start it again." });
+      fs.rmSync(row.dir, { recursive: true, force: true });
+    }
   }
 
   /** A job the user may see: only its owner, and only within the hour; anyone else gets 404 as for no job. */
-  function ownJob(user: SessionUser, jobId: string): Job {
-    const job = jobs.get(jobId);
-    if (!job || job.ownerId !== user.id) throw notFound("That export");
-    if (clock().getTime() - job.createdAt > JOB_TTL_MS) {
-      void expire(job);
+  function ownJob(user: SessionUser, jobId: string) {
+    const row = db.select().from(exportJobs).where(eq(exportJobs.id, jobId)).get();
+    if (!row || row.ownerId !== user.id) throw notFound("That export");
+    if (clock().getTime() - row.createdAtMs > JOB_TTL_MS) {
+      void expire(row);
       throw notFound("That export");
     }
-    return job;
+    return row;
   }
 
   async function run(job: Job, user: SessionUser, client: ClientRecord) {
@@ -627,6 +631,7 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
       // Held just under 1 until the file is closed, so "1" always means the ZIP can be downloaded.
       job.progress = Math.min(0.99, added / total);
       job.message = `Added ${added} of ${total} files.`;
+      save(job);
     });
     archive.pipe(out);
 
@@ -726,18 +731,22 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
     const count = (k: string) => [...issued.values()].flat().filter((d) => d.kind === k).length;
     job.state = "done";
     job.progress = 1;
+    building.delete(job.id);
     job.message =
       `Ready: ${objs.length} objects, ${files.length} photos, ${count("object dossier")} dossiers, ${count("condition report")} condition reports, ${count("custody receipt")} custody receipts, and a manifest with each file's SHA-256.` +
       (missing ? ` ${missing} photo file${missing === 1 ? " was" : "s were"} missing from storage and left out.` : "") +
       (failed.length ? ` Left out because it could not be made: ${failed.join("; ")}.` : "");
+    save(job);
   }
 
   return {
     startArchive(user: SessionUser, client: ClientRecord, opts: { originals?: boolean } = {}): string {
       if (opts.originals && !isStudio(user)) throw forbidden("Original photo files, with their camera and place metadata, go only to studio staff. Leave out originals to get the full-size copies.");
+      // One archive at a time per client: a second would only compete with the first for the same files.
+      const busy = db.select({ id: exportJobs.id }).from(exportJobs).where(and(eq(exportJobs.clientId, client.id), eq(exportJobs.state, "running"))).get();
+      if (busy) throw conflict(`An archive of ${client.name}'s records is being built already. Wait for it to finish (it is kept for an hour), then start another if you need one.`);
       const id = randomUUID();
       const dir = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-export-"));
-      trackDir(dir);
       const job: Job = {
         id,
         ownerId: user.id,
@@ -751,14 +760,17 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
         file: path.join(dir, "export.zip"),
         filename: `${slug(client.name)}-records-${clock().toISOString().slice(0, 10)}.zip`,
         // Removes the job and its file after an hour; unref'd so it never holds the process open.
-        timer: setTimeout(() => void expire(job), JOB_TTL_MS).unref(),
+        timer: setTimeout(() => void expire({ id, dir }), JOB_TTL_MS).unref(),
       };
-      jobs.set(id, job);
+      db.insert(exportJobs).values({ id, ownerId: user.id, clientId: client.id, state: "running", progress: 0, message: job.message, originals: job.originals, dir, file: job.file, filename: job.filename, createdAtMs: job.createdAt }).run();
+      building.set(id, job);
       setImmediate(() => {
         run(job, user, client).catch(async (err: unknown) => {
           job.state = "failed";
           job.message = "The export could not be built. Try again; if it fails again, tell the studio's administrator.";
           job.error = err;
+          building.delete(job.id);
+          save(job);
           await fsp.rm(job.file, { force: true }).catch(() => {});
         });
       });
@@ -778,7 +790,7 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
 
     /** For shutdown and tests: removes every job and its file. */
     async clear() {
-      await Promise.all([...jobs.values()].map(expire));
+      await Promise.all(db.select().from(exportJobs).all().map(expire));
     },
   };
 }
