@@ -223,6 +223,8 @@ export const ObjectListQuerySchema = z.object({
   pageSize: z.coerce.number().int().min(1).max(200).default(50),
 });
 export type ObjectListQuery = z.infer<typeof ObjectListQuerySchema>;
+/** The register's filter without its sort and page: what a schedule of values or a label sheet is made for. */
+export const RegisterFilterSchema = ObjectListQuerySchema.pick({ q: true, clientId: true, status: true, objectType: true, method: true, boardGrade: true, glazing: true, checkDueBy: true });
 
 /** An object as the API returns it. Valuation fields are null and `valuationVisible` false for those who may not see them. */
 export type ObjectRecord = Omit<ObjectCreate, never> & {

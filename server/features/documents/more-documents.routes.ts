@@ -7,7 +7,7 @@ import { objects } from "../../db/schema.ts";
 import { objectFilterWhere } from "../objects/objects.repo.ts";
 import type { Db } from "../../db/client.ts";
 import { IdParamSchema } from "../../../shared/schemas/common.ts";
-import { ObjectListQuerySchema } from "../../../shared/schemas/objects.ts";
+import { RegisterFilterSchema } from "../../../shared/schemas/objects.ts";
 import { LABEL_SHEET_MAX } from "../../../shared/schemas/documents.ts";
 import { STANDARD_BOARD_SHEETS } from "../../../shared/domain/mount-plan/index.ts";
 import { AppError, conflict, notFound } from "../../lib/errors.ts";
@@ -27,7 +27,7 @@ const Ids = (max: number, what: string) =>
   z.array(z.string().min(1).max(64), { message: `Give the ${what} as a list of ids.` }).min(1, { message: `Choose at least one ${what.replace(/s$/, "")}.` }).max(max, { message: `At most ${max} ${what} at once.` });
 
 /** Chosen objects, or the register's filter as the register screen holds it (the owner is the route's client). */
-export const ScheduleBodySchema = ObjectListQuerySchema.pick({ q: true, status: true, objectType: true, method: true, boardGrade: true, glazing: true, checkDueBy: true })
+export const ScheduleBodySchema = RegisterFilterSchema.omit({ clientId: true })
   .extend({ objectIds: Ids(5000, "objects").optional() })
   .strict()
   .default({});
@@ -36,7 +36,7 @@ export const WorkshopBodySchema = z.object({
   boardSheetId: z.enum(STANDARD_BOARD_SHEETS.map((b) => b.id) as [string, ...string[]], { message: `Choose a board sheet: ${STANDARD_BOARD_SHEETS.map((b) => b.label).join(", ")}.` }).optional(),
 });
 /** Chosen objects, or the register's filter as the register screen holds it (with its owner, if one is chosen). */
-export const LabelSheetBodySchema = ObjectListQuerySchema.pick({ q: true, clientId: true, status: true, objectType: true, method: true, boardGrade: true, glazing: true, checkDueBy: true })
+export const LabelSheetBodySchema = RegisterFilterSchema
   .extend({ objectIds: Ids(LABEL_SHEET_MAX, "objects").optional() })
   .strict();
 
