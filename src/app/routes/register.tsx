@@ -120,6 +120,7 @@ export function Component() {
               body={{ ...scheduleFilter, clientId }}
               label={`Back labels for these ${list.data.total} object${list.data.total === 1 ? "" : "s"} (PDF)`}
               fallbackName="back-labels.pdf"
+              compact
             />
           ) : null}
           {can(user, "object:create") && <ButtonLink to="/objects/new">New object</ButtonLink>}
