@@ -10,7 +10,7 @@ import { makeClient, makeObject } from "../../server/db/factories.ts";
 import { DEMO_PASSWORD, seedDemo } from "../../server/db/seed.ts";
 import { useHistoryKey } from "../../server/features/history/history.chain.ts";
 import { Text } from "../../server/lib/pdf/text.tsx";
-import { closeRenderPool, renderPdf, renderPoolStats, RENDER_THREADS } from "../../server/lib/pdf/render-pool.ts";
+import { closeRenderPool, renderPdf, renderPoolStats, RENDER_THREADS } from "../../server/features/documents/render-pool.ts";
 import { signInCookie, startServer, type RunningServer } from "../setup/spawn-server.ts";
 
 afterAll(closeRenderPool);

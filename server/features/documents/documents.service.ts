@@ -1,7 +1,8 @@
 import type { ReactElement } from "react";
 import { inTransaction } from "../../db/client.ts";
 import type { DocumentProps } from "@react-pdf/renderer";
-import { renderPdf } from "../../lib/pdf/render-pool.ts";
+import { renderPdf } from "./render-pool.ts";
+import type { DocumentJob } from "./registry.ts";
 import { createHash, randomBytes, randomUUID } from "node:crypto";
 import { PDFDocument } from "pdf-lib";
 import { and, desc, eq } from "drizzle-orm";
@@ -28,8 +29,8 @@ export type IssueRequest = {
   clientId?: string | null;
   /** False for documents issued into an archive: the archive writes one event per object naming them all. */
   inHistory?: boolean;
-  /** Builds the PDF for the document's header and footer data. */
-  render: (meta: DocMeta) => ReactElement<DocumentProps>;
+  /** Builds the PDF for the document's header and footer data: an element, or a named document with its data (registry.ts). */
+  render: (meta: DocMeta) => ReactElement<DocumentProps> | DocumentJob;
 };
 
 /** `uploadsDir` is where the studio's logo is read from; without it documents are issued without the logo. */
@@ -55,7 +56,7 @@ export function createDocumentsService(db: Db, clock: () => Date = () => new Dat
         title: req.title,
         logo: await getLogo(db, uploadsDir),
       };
-      // Laid out in a worker thread (server/lib/pdf/render-pool.ts), so the server keeps answering meanwhile.
+      // Laid out in a worker thread (render-pool.ts), so the server keeps answering meanwhile.
       const pdf = await renderPdf(req.render(meta));
       // The fingerprint the public check shows: the file's SHA-256 and its page count.
       const sha256 = createHash("sha256").update(pdf).digest("hex");

@@ -1,6 +1,4 @@
 import { Router, type Response } from "express";
-import { createElement, type FunctionComponent, type ReactElement } from "react";
-import type { DocumentProps } from "@react-pdf/renderer";
 import { z } from "zod";
 import { and } from "drizzle-orm";
 import { objects } from "../../db/schema.ts";
@@ -18,10 +16,11 @@ import { findMounting } from "../mountings/mountings.repo.ts";
 import { findObject } from "../objects/objects.repo.ts";
 import { getSettings } from "../settings/settings.repo.ts";
 import { createDocumentsService } from "./documents.service.ts";
-import { loadSchedule, ScheduleDocument } from "./schedule.tsx";
+import { documentJob } from "./registry.ts";
+import { loadSchedule } from "./schedule.tsx";
 import { issueCustodyReceipt } from "./custody-receipt.tsx";
-import { mountingDetail, summaryOf, workshopData, WorkshopSheetDocument, type WorkshopItem } from "./workshop-sheet.tsx";
-import { BackLabelDocument, LabelSheetDocument, objectUrl, qrFor, type LabelData } from "./labels.tsx";
+import { mountingDetail, summaryOf, workshopData, type WorkshopItem } from "./workshop-sheet.tsx";
+import { objectUrl, qrFor, type LabelData } from "./labels.tsx";
 
 const Ids = (max: number, what: string) =>
   z.array(z.string().min(1).max(64), { message: `Give the ${what} as a list of ids.` }).min(1, { message: `Choose at least one ${what.replace(/s$/, "")}.` }).max(max, { message: `At most ${max} ${what} at once.` });
@@ -59,9 +58,6 @@ export function labelAddressProblem(address: { publicUrl: string; publicUrlGiven
 }
 const ReceiptParam = z.object({ receiptId: z.string().min(1).max(64) });
 
-/** A document component as the service's render wants it: a react-pdf <Document> element. */
-const pdf = <P extends object>(c: FunctionComponent<P>, props: P) => createElement(c, props) as unknown as ReactElement<DocumentProps>;
-
 function sendPdf(res: Response, doc: { pdf: Buffer; code: string; filename: string }) {
   res.setHeader("Content-Type", "application/pdf");
   res.setHeader("Content-Disposition", `attachment; filename="${doc.filename}"`);
@@ -93,7 +89,7 @@ export function moreDocumentsRoutes(db: Db, clock: () => Date, address: { public
       user,
       clientId: id,
       objectNumber: null,
-      render: (meta) => pdf(ScheduleDocument, { meta, data }),
+      render: (meta) => documentJob("schedule", { meta, data }),
     });
     doc.filename = doc.filename.replace("schedule-of-values-schedule-of-values", "schedule-of-values");
     sendPdf(res, doc);
@@ -123,7 +119,7 @@ export function moreDocumentsRoutes(db: Db, clock: () => Date, address: { public
       user,
       objectId: one?.detail.row.objectId ?? null,
       objectNumber: one?.objectNumber ?? null,
-      render: (meta) => pdf(WorkshopSheetDocument, { meta, data }),
+      render: (meta) => documentJob("workshop-sheet", { meta, data }),
     });
     sendPdf(res, doc);
   });
@@ -167,7 +163,7 @@ export function moreDocumentsRoutes(db: Db, clock: () => Date, address: { public
       objectId: label.objectId,
       objectNumber: label.objectNumber,
       clientId: o.clientId,
-      render: (meta) => pdf(BackLabelDocument, { meta, label, address: { publicUrl } }),
+      render: (meta) => documentJob("back-label", { meta, label, address: { publicUrl } }),
     });
     sendPdf(res, doc);
   });
@@ -193,7 +189,7 @@ export function moreDocumentsRoutes(db: Db, clock: () => Date, address: { public
       kind: "label-sheet",
       title: `Sheet of back labels — ${labels.length} object${labels.length === 1 ? "" : "s"}`,
       user,
-      render: (meta) => pdf(LabelSheetDocument, { meta, labels, address: { publicUrl } }),
+      render: (meta) => documentJob("label-sheet", { meta, labels, address: { publicUrl } }),
     });
     sendPdf(res, doc);
   });

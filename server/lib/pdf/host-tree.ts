@@ -36,7 +36,7 @@ export function toHostTree(node: ReactNode): HostNode {
 }
 
 /** Structured clone turns Buffers into Uint8Arrays; react-pdf's images want Buffers back. */
-function revive(v: unknown): unknown {
+export function revive(v: unknown): unknown {
   if (v instanceof Uint8Array && !Buffer.isBuffer(v)) return Buffer.from(v.buffer, v.byteOffset, v.byteLength);
   if (Array.isArray(v)) return v.map(revive);
   if (v && typeof v === "object" && Object.getPrototypeOf(v) === Object.prototype) return Object.fromEntries(Object.entries(v).map(([k, x]) => [k, revive(x)]));

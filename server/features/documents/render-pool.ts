@@ -2,8 +2,10 @@ import { fileURLToPath } from "node:url";
 import type { DocumentProps } from "@react-pdf/renderer";
 import type { ReactElement } from "react";
 import { Piscina } from "piscina";
-import { AppError } from "../errors.ts";
-import { toHostTree } from "./host-tree.ts";
+import { AppError } from "../../lib/errors.ts";
+import { toHostTree } from "../../lib/pdf/host-tree.ts";
+import type { DocumentJob } from "./registry.ts";
+import type { RenderTask } from "./render.worker.ts";
 
 /** Documents laid out at once, each in its own worker thread: the request thread only gathers the data. */
 export const RENDER_THREADS = 2;
@@ -25,15 +27,17 @@ function renderPool(): Piscina {
 }
 
 /**
- * Lays out a document off the request thread: the tree of primitives goes to a worker, the PDF comes back.
- * Too many waiting → 429; past the time limit → the worker is stopped and 503 says so, plainly.
+ * Lays out a document off the request thread, and the PDF comes back. A named document (registry.ts) goes
+ * as its data and is built in the worker; any other element is expanded here to react-pdf's primitives
+ * first (host-tree.ts), which suits documents of one object. Too many waiting → 429; past the time limit →
+ * the worker is stopped and 503 says so, plainly.
  */
-export async function renderPdf(element: ReactElement<DocumentProps>, opts: { timeoutMs?: number } = {}): Promise<Buffer> {
-  const tree = toHostTree(element);
+export async function renderPdf(document: ReactElement<DocumentProps> | DocumentJob, opts: { timeoutMs?: number } = {}): Promise<Buffer> {
+  const task: RenderTask = "doc" in document ? { job: document } : { tree: toHostTree(document) };
   const p = renderPool();
   if (p.queueSize >= RENDER_QUEUE) throw new AppError(429, "rate_limited", "Too many documents are being prepared right now. Try again in a minute.");
   try {
-    const bytes = (await p.run(tree, { signal: AbortSignal.timeout(opts.timeoutMs ?? RENDER_TIMEOUT_MS) })) as Uint8Array;
+    const bytes = (await p.run(task, { signal: AbortSignal.timeout(opts.timeoutMs ?? RENDER_TIMEOUT_MS) })) as Uint8Array;
     return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   } catch (e) {
     const name = (e as Error)?.name;
