@@ -25,6 +25,17 @@ export function openDatabase(file: string, opts: { migrate?: boolean } = {}): Db
 }
 
 /**
+ * A read-only connection to a database another connection writes (WAL lets it read meanwhile): for work
+ * off the request thread, such as gathering a long document's rows in the render worker. No migrations.
+ */
+export function openReadOnly(file: string): DbHandle {
+  const sqlite = new Database(file, { readonly: true, fileMustExist: true });
+  sqlite.pragma("busy_timeout = 5000");
+  const db = drizzle(sqlite, { schema });
+  return { db, sqlite, close: () => sqlite.close() };
+}
+
+/**
  * Runs `fn` in one SQLite transaction. Drizzle types the transaction handle apart from the database,
  * but it offers the same queries, so repos and appendEvent take it as a Db; this is the one place that says so.
  */

@@ -23,8 +23,9 @@ describe("documents are laid out in worker threads", () => {
   it("when a document takes longer than its time limit, then the worker is stopped and it is refused with a clear 503", async () => {
     await expect(renderPdf(heavy(3000) as never, { timeoutMs: 1 })).rejects.toMatchObject({ status: 503, code: "unavailable", message: expect.stringMatching(/took too long/) });
     // The pool goes on: the next document renders.
-    const pdf = await renderPdf(heavy(3) as never);
+    const { pdf, pages } = await renderPdf(heavy(3) as never);
     expect(pdf.subarray(0, 5).toString("latin1")).toBe("%PDF-");
+    expect(pages).toBe(1);
   });
 
   it(`when many documents are asked for at once, then at most ${RENDER_THREADS} are laid out at a time and all arrive`, async () => {
@@ -33,7 +34,7 @@ describe("documents are laid out in worker threads", () => {
     const watch = setInterval(() => seen.push(renderPoolStats().threads), 5);
     const pdfs = await all;
     clearInterval(watch);
-    expect(pdfs.every((p) => p.subarray(0, 5).toString("latin1") === "%PDF-")).toBe(true);
+    expect(pdfs.every((p) => p.pdf.subarray(0, 5).toString("latin1") === "%PDF-")).toBe(true);
     expect(Math.max(...seen)).toBeLessThanOrEqual(RENDER_THREADS);
   });
 });

@@ -4,7 +4,6 @@ import type { DocumentProps } from "@react-pdf/renderer";
 import { renderPdf } from "./render-pool.ts";
 import type { DocumentJob } from "./registry.ts";
 import { createHash, randomBytes, randomUUID } from "node:crypto";
-import { PDFDocument } from "pdf-lib";
 import { and, desc, eq } from "drizzle-orm";
 import type { Db } from "../../db/client.ts";
 import { issuedDocuments, objects } from "../../db/schema.ts";
@@ -57,10 +56,9 @@ export function createDocumentsService(db: Db, clock: () => Date = () => new Dat
         logo: await getLogo(db, uploadsDir),
       };
       // Laid out in a worker thread (render-pool.ts), so the server keeps answering meanwhile.
-      const pdf = await renderPdf(req.render(meta));
-      // The fingerprint the public check shows: the file's SHA-256 and its page count.
+      const { pdf, pages } = await renderPdf(req.render(meta));
+      // The fingerprint the public check shows: the file's SHA-256 and its page count (counted in the worker).
       const sha256 = createHash("sha256").update(pdf).digest("hex");
-      const pages = (await PDFDocument.load(pdf, { updateMetadata: false })).getPageCount();
       inTransaction(db, (tx) => {
         tx.insert(issuedDocuments)
           .values({ id: randomUUID(), code, kind: req.kind, title: req.title, objectId: req.objectId ?? null, clientId: req.clientId ?? null, paperSize: settings.paperSize, issuedAt, issuedBy: req.user.id, issuedByName: req.user.name, sha256, pages })

@@ -2,10 +2,10 @@ import { fileURLToPath } from "node:url";
 import type { DocumentProps } from "@react-pdf/renderer";
 import type { ReactElement } from "react";
 import { Piscina } from "piscina";
-import { AppError } from "../../lib/errors.ts";
+import { AppError, notFound } from "../../lib/errors.ts";
 import { toHostTree } from "../../lib/pdf/host-tree.ts";
-import type { DocumentJob } from "./registry.ts";
-import type { RenderTask } from "./render.worker.ts";
+import { NOT_FOUND_IN_WORKER, type DocumentJob } from "./registry.ts";
+import type { RenderResult, RenderTask } from "./render.worker.ts";
 
 /** Documents laid out at once, each in its own worker thread: the request thread only gathers the data. */
 export const RENDER_THREADS = 2;
@@ -32,19 +32,21 @@ function renderPool(): Piscina {
  * first (host-tree.ts), which suits documents of one object. Too many waiting → 429; past the time limit →
  * the worker is stopped and 503 says so, plainly.
  */
-export async function renderPdf(document: ReactElement<DocumentProps> | DocumentJob, opts: { timeoutMs?: number } = {}): Promise<Buffer> {
+export async function renderPdf(document: ReactElement<DocumentProps> | DocumentJob, opts: { timeoutMs?: number } = {}): Promise<{ pdf: Buffer; pages: number }> {
   const task: RenderTask = "doc" in document ? { job: document } : { tree: toHostTree(document) };
   const p = renderPool();
   if (p.queueSize >= RENDER_QUEUE) throw new AppError(429, "rate_limited", "Too many documents are being prepared right now. Try again in a minute.");
   try {
-    const bytes = (await p.run(task, { signal: AbortSignal.timeout(opts.timeoutMs ?? RENDER_TIMEOUT_MS) })) as Uint8Array;
-    return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+    const { bytes, pages } = (await p.run(task, { signal: AbortSignal.timeout(opts.timeoutMs ?? RENDER_TIMEOUT_MS) })) as RenderResult;
+    return { pdf: Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength), pages };
   } catch (e) {
     const name = (e as Error)?.name;
     if (name === "AbortError" || name === "TimeoutError") {
       throw new AppError(503, "unavailable", "This document took too long to prepare and was stopped. Try a smaller selection (fewer objects or mountings), or try again later.");
     }
-    if (/queue is at limit/i.test(String((e as Error)?.message))) throw new AppError(429, "rate_limited", "Too many documents are being prepared right now. Try again in a minute.");
+    const message = String((e as Error)?.message);
+    if (message.startsWith(NOT_FOUND_IN_WORKER)) throw notFound(message.slice(NOT_FOUND_IN_WORKER.length));
+    if (/queue is at limit/i.test(message)) throw new AppError(429, "rate_limited", "Too many documents are being prepared right now. Try again in a minute.");
     throw e;
   }
 }
