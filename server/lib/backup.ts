@@ -35,16 +35,44 @@ function walk(dir: string, base = dir, out: string[] = []): string[] {
   return out;
 }
 
+/** A line being appended while the file was copied is cut off at the copy's last complete line. */
+async function dropPartialLine(file: string): Promise<void> {
+  const text = await fsp.readFile(file, "utf8");
+  const end = text.lastIndexOf("\n") + 1;
+  if (end < text.length) await fsp.truncate(file, Buffer.byteLength(text.slice(0, end), "utf8"));
+}
+
 /**
- * A consistent copy while the app runs: the database through SQLite's online backup API (a snapshot of
- * one moment, whatever is being written), then the uploads (written before their rows, so every file the
- * snapshot names is already there), then the secrets, and a manifest of every file's SHA-256.
+ * A consistent copy while the app runs: the secrets and history checkpoints, then the database through
+ * SQLite's online backup API (a snapshot of one moment, whatever is being written), then the uploads
+ * (written before their rows, so every file the snapshot names is already there), and a manifest of every
+ * file's SHA-256.
  * Copying the database file alone while the app runs can miss writes still in its WAL file.
  */
-export async function backup(opts: { databaseUrl: string; uploadsDir: string; to: string; now?: Date }): Promise<BackupManifest> {
+export async function backup(opts: {
+  databaseUrl: string;
+  uploadsDir: string;
+  to: string;
+  now?: Date;
+  /** The history checkpoints when HISTORY_CHECKPOINTS keeps them away from the database (checkpointsFileFor). */
+  checkpointsFile?: string | null;
+}): Promise<BackupManifest> {
   const to = path.resolve(opts.to);
   if (fs.existsSync(to) && fs.readdirSync(to).length) throw new Error(`The backup folder ${to} is not empty: choose a new one.`);
   fs.mkdirSync(to, { recursive: true, mode: 0o700 });
+  // The side files first: a checkpoint is appended after its write commits, so checkpoints copied before
+  // the snapshot only name events the snapshot holds (copied after, they could name events it lacks).
+  const dbDir = path.dirname(path.resolve(opts.databaseUrl));
+  for (const f of SIDE_FILES) {
+    // The checkpoints may live elsewhere (HISTORY_CHECKPOINTS); wherever they are, the backup carries them
+    // under their usual name, and a restore puts them beside the database, where Reversa looks by default.
+    const p = f === "history-checkpoints.log" && opts.checkpointsFile ? path.resolve(opts.checkpointsFile) : path.join(dbDir, f);
+    if (!fs.existsSync(p)) continue;
+    await fsp.mkdir(path.join(to, "side"), { recursive: true, mode: 0o700 });
+    const dest = path.join(to, "side", f);
+    await fsp.copyFile(p, dest);
+    if (f === "history-checkpoints.log") await dropPartialLine(dest);
+  }
   const source = new Database(opts.databaseUrl, { fileMustExist: true });
   try {
     source.pragma("busy_timeout = 5000");
@@ -57,13 +85,6 @@ export async function backup(opts: { databaseUrl: string; uploadsDir: string; to
     const dest = path.join(to, "uploads", rel);
     await fsp.mkdir(path.dirname(dest), { recursive: true });
     await fsp.copyFile(path.join(uploads, rel), dest);
-  }
-  const dbDir = path.dirname(path.resolve(opts.databaseUrl));
-  for (const f of SIDE_FILES) {
-    const p = path.join(dbDir, f);
-    if (!fs.existsSync(p)) continue;
-    await fsp.mkdir(path.join(to, "side"), { recursive: true, mode: 0o700 });
-    await fsp.copyFile(p, path.join(to, "side", f));
   }
   const files: BackupManifest["files"] = [];
   for (const rel of walk(to).sort()) files.push({ path: rel.split(path.sep).join("/"), ...(await sha256Of(path.join(to, rel))) });

@@ -98,4 +98,48 @@ describe("npm run backup and npm run restore", () => {
     expect(r.stderr).toContain(victim);
     expect(fs.existsSync(target)).toBe(false);
   }, 60_000);
+  it("when the checkpoints are kept elsewhere and the key comes from the environment, then the backup carries the checkpoints, says the key is the operator's to keep, and the restored history verifies", async () => {
+    const live = path.join(work, "live-elsewhere");
+    const checkpoints = path.join(work, "elsewhere", "checkpoints.log");
+    fs.mkdirSync(path.dirname(checkpoints), { recursive: true });
+    const env = { HISTORY_KEY: "k".repeat(40) + "-backup-test-history-key", HISTORY_CHECKPOINTS: checkpoints };
+    const server = await startServer({ SEED_DEMO: "true", ...env }, live);
+    servers.push(server);
+    const cookie = await signInCookie(server.baseUrl, "framer@reversa.test", DEMO_PASSWORD);
+    const headers = { "content-type": "application/json", cookie, origin: server.baseUrl };
+    const clientId = (await (await fetch(`${server.baseUrl}/api/clients`, { headers })).json()).items[0].id as string;
+    let n = 0;
+    let loading = true;
+    const failures: string[] = [];
+    // Objects keep being made (each one an event and a checkpoint) while the backup runs.
+    const load = (async () => {
+      while (loading) {
+        const r = await fetch(`${server.baseUrl}/api/objects`, { method: "POST", headers, body: JSON.stringify({ objectNumber: `CP-${String(++n).padStart(5, "0")}`, title: `Checkpoint study ${n}`, objectType: "print", sheetWidthMm: 210, sheetHeightMm: 297, clientId, status: "in-studio" }) });
+        if (r.status !== 201) failures.push(`${r.status} ${await r.text()}`);
+      }
+    })();
+    await new Promise((r) => setTimeout(r, 300));
+    expect(fs.statSync(checkpoints).size).toBeGreaterThan(0);
+    expect(fs.existsSync(path.join(live, "history-checkpoints.log"))).toBe(false);
+
+    const backupDir = path.join(work, "backup-elsewhere");
+    const b = await run("scripts/backup.ts", [backupDir], { DATABASE_URL: path.join(live, "reversa.db"), UPLOADS_DIR: path.join(live, "uploads"), LOG_LEVEL: "silent", ...env });
+    loading = false;
+    await load;
+    expect(b.code, b.out).toBe(0);
+    expect(failures).toEqual([]);
+    expect(b.out).toMatch(/HISTORY_KEY comes from the environment and is not in this backup/);
+    expect(fs.existsSync(path.join(backupDir, "side", "history-checkpoints.log"))).toBe(true);
+    expect(fs.existsSync(path.join(backupDir, "side", ".history-key"))).toBe(false);
+
+    const restored = path.join(work, "restored-elsewhere");
+    const r = await run("scripts/restore.ts", [backupDir, restored], {});
+    expect(r.code, r.out).toBe(0);
+    const withKey = await run("server/db/verify-history-cli.ts", [], { DATABASE_URL: path.join(restored, "reversa.db"), HISTORY_KEY: env.HISTORY_KEY, HISTORY_CHECKPOINTS: "" });
+    expect(withKey.code, withKey.out).toBe(0);
+    expect(Number(withKey.out.match(/and (\d+) objects' checkpointed heads agree/)?.[1] ?? 0), withKey.out).toBeGreaterThan(0);
+    // The key is not in the backup: with another one the restored history does not check out.
+    const wrongKey = await run("server/db/verify-history-cli.ts", [], { DATABASE_URL: path.join(restored, "reversa.db"), HISTORY_KEY: "w".repeat(40), HISTORY_CHECKPOINTS: "" });
+    expect(wrongKey.code).toBe(1);
+  }, 240_000);
 });
