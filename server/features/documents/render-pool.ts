@@ -1,9 +1,8 @@
-import { fileURLToPath } from "node:url";
 import type { DocumentProps } from "@react-pdf/renderer";
 import type { ReactElement } from "react";
-import { Piscina } from "piscina";
 import { AppError, notFound } from "../../lib/errors.ts";
 import { toHostTree } from "../../lib/pdf/host-tree.ts";
+import { workerPool } from "../../lib/workers/pool.ts";
 import { NOT_FOUND_IN_WORKER, type DocumentJob } from "./registry.ts";
 import type { RenderResult, RenderTask } from "./render.worker.ts";
 
@@ -14,27 +13,17 @@ export const RENDER_QUEUE = 24;
 /** The longest one document may take to lay out before it is stopped and refused. */
 export const RENDER_TIMEOUT_MS = 120_000;
 
-let pool: Piscina | null = null;
-function renderPool(): Piscina {
-  pool ??= new Piscina({
-    filename: fileURLToPath(new URL("./render-boot.worker.mjs", import.meta.url)),
-    minThreads: 0,
-    maxThreads: RENDER_THREADS,
-    maxQueue: RENDER_QUEUE,
-    idleTimeout: 60_000,
-  });
-  return pool;
-}
+const pool = workerPool(new URL("./render.worker.ts", import.meta.url), { threads: RENDER_THREADS, queue: RENDER_QUEUE });
 
 /**
  * Lays out a document off the request thread, and the PDF comes back. A named document (registry.ts) goes
- * as its data and is built in the worker; any other element is expanded here to react-pdf's primitives
+ * as its data, or as what to load, and is built in the worker; any other element is expanded here to react-pdf's primitives
  * first (host-tree.ts), which suits documents of one object. Too many waiting → 429; past the time limit →
  * the worker is stopped and 503 says so, plainly.
  */
 export async function renderPdf(document: ReactElement<DocumentProps> | DocumentJob, opts: { timeoutMs?: number } = {}): Promise<{ pdf: Buffer; pages: number }> {
   const task: RenderTask = "doc" in document ? { job: document } : { tree: toHostTree(document) };
-  const p = renderPool();
+  const p = pool.get();
   if (p.queueSize >= RENDER_QUEUE) throw new AppError(429, "rate_limited", "Too many documents are being prepared right now. Try again in a minute.");
   try {
     const { bytes, pages } = (await p.run(task, { signal: AbortSignal.timeout(opts.timeoutMs ?? RENDER_TIMEOUT_MS) })) as RenderResult;
@@ -52,13 +41,7 @@ export async function renderPdf(document: ReactElement<DocumentProps> | Document
 }
 
 /** For shutdown and tests: stops the worker threads. */
-export async function closeRenderPool() {
-  const p = pool;
-  pool = null;
-  await p?.destroy();
-}
+export const closeRenderPool = () => pool.close();
 
 /** How many worker threads the pool has now and how many documents wait (for tests and the bench). */
-export function renderPoolStats(): { threads: number; queued: number } {
-  return { threads: pool?.threads.length ?? 0, queued: pool?.queueSize ?? 0 };
-}
+export const renderPoolStats = () => pool.stats();

@@ -38,6 +38,7 @@ import { minorDigits } from "../../../shared/domain/money.ts";
 import { AppError, conflict, forbidden, notFound } from "../../lib/errors.ts";
 import { createStorage } from "../../lib/storage.ts";
 import { appendEvent } from "../history/history.chain.ts";
+import { gatherInWorker } from "./export-pool.ts";
 import { issueDossier } from "../documents/dossier.tsx";
 import { issueConditionReport, VERDICT_WORDS, whereWords } from "../documents/condition-pdf.tsx";
 import { issueCustodyReceipt } from "../documents/custody-receipt.tsx";
@@ -202,7 +203,7 @@ const text = (v: string | null | undefined): string | null => (v == null || v ==
 
 type ObjectRow = typeof objects.$inferSelect;
 
-function clientObjects(db: Db, clientId: string, f: ExportFilters): ObjectRow[] {
+export function clientObjects(db: Db, clientId: string, f: ExportFilters): ObjectRow[] {
   const where: SQL[] = [eq(objects.clientId, clientId)];
   if (f.status) where.push(eq(objects.status, f.status));
   if (f.objectType) where.push(eq(objects.objectType, f.objectType));
@@ -427,13 +428,18 @@ function project(rows: Row[], cols: string[]): Row[] {
 
 export type Table = { dataset: Dataset; columns: string[]; rows: Row[] };
 
+/** The valuations dataset needs "valuation:read" as well as the right to read the client. */
+export function assertMayExport(user: SessionUser, client: ClientRecord, dataset: Dataset): void {
+  if (dataset === "valuations" && !can(user, "valuation:read", { clientId: client.id })) throw new AppError(403, "forbidden", "Valuations are confidential; your role does not allow exporting them.");
+}
+
 /**
  * One dataset of one client's records, as the user may see it. The caller has already checked that
  * the user may read the client; the valuations dataset needs "valuation:read" too.
  */
 export function buildTable(db: Db, user: SessionUser, client: ClientRecord, dataset: Dataset, filters: ExportFilters = {}, objs?: ObjectRow[]): Table {
+  assertMayExport(user, client, dataset);
   const withValuation = can(user, "valuation:read", { clientId: client.id });
-  if (dataset === "valuations" && !withValuation) throw new AppError(403, "forbidden", "Valuations are confidential; your role does not allow exporting them.");
   const list = objs ?? clientObjects(db, client.id, filters);
   const columns = columnsFor(dataset, withValuation);
   let rows: Row[];
@@ -507,6 +513,7 @@ type Job = JobStatus & {
 };
 
 export const JOB_TTL_MS = 60 * 60 * 1000;
+const EVENTS_PER_TRANSACTION = 200;
 
 const safeSegment = (s: string) => s.replace(/[\\/:*?"<>|\u0000-\u001f]/g, "_").replace(/^\.+/, "_") || "_";
 const slug = (s: string, fallback = "client") => s.normalize("NFKD").replace(/[^\w\s-]/g, "").trim().replace(/\s+/g, "-").toLowerCase().slice(0, 60) || fallback;
@@ -561,10 +568,11 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
   }
 
   async function run(job: Job, user: SessionUser, client: ClientRecord) {
-    const objs = clientObjects(db, client.id, {});
     const withValuation = can(user, "valuation:read", { clientId: client.id });
     const datasets = DATASETS.filter((d) => d !== "valuations" || withValuation);
-    const tables = datasets.map((d) => buildTable(db, user, client, d, {}, objs));
+    // The datasets are gathered and written out in a worker thread (export.worker.ts), in one read transaction.
+    const gathered = await gatherInWorker(db, { user, clientId: client.id, datasets, formats: ["csv", "json"], filters: {} });
+    const objs = gathered.objects;
     const byId = new Map(objs.map((o) => [o.id, o]));
     const ids = [...byId.keys()];
     const inChunks = <T,>(read: (part: string[]) => T[]): T[] => {
@@ -616,7 +624,7 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
       files.push({ file, name: `photos/${number}/${number}-${String(n).padStart(2, "0")}${words ? `-${words}` : ""}.${ext}`, objectId: p.objectId, caption: p.caption });
     }
 
-    let total = tables.length * 2 + files.length + objs.length + reportRows.length + receiptRows.length + 2;
+    let total = gathered.files.length + files.length + objs.length + reportRows.length + receiptRows.length + 2;
     let added = 0;
     const out = fs.createWriteStream(job.file, { mode: 0o600 });
     const archive = new ZipArchive({ zlib: { level: 6 } });
@@ -642,9 +650,8 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
       archive.append(buf, { name: entry.file });
       manifest.push({ ...entry, bytes: buf.length, sha256: createHash("sha256").update(buf).digest("hex") });
     };
-    for (const t of tables) {
-      put(toCsv(t), { file: `${t.dataset}.csv`, kind: "dataset (CSV)", objectNumber: null, caption: DATASET_CAPTIONS[t.dataset] });
-      put(toJson(t), { file: `${t.dataset}.json`, kind: "dataset (JSON)", objectNumber: null, caption: DATASET_CAPTIONS[t.dataset] });
+    for (const f of gathered.files) {
+      put(f.text, { file: `${f.dataset}.${f.format}`, kind: f.format === "csv" ? "dataset (CSV)" : "dataset (JSON)", objectNumber: null, caption: DATASET_CAPTIONS[f.dataset] });
     }
     for (const f of files) {
       const hash = createHash("sha256");
@@ -706,28 +713,35 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
     // One "archive exported" event per object in the ZIP, written once the ZIP is whole, naming what of the
     // object went in. Single CSV/JSON downloads write none: one event per object for every spreadsheet
     // download would bury the history.
+    // Written 200 objects to a transaction, letting other requests in between: 5,000 events in one
+    // transaction hold the request thread for over half a second.
     const at = clock();
-    inTransaction(db, (tx) => {
-      for (const o of objs) {
-        const docs = issued.get(o.id) ?? [];
-        const photoCount = files.filter((f) => f.objectId === o.id).length;
-        const parts = [
-          ...(["object dossier", "condition report", "custody receipt"] as const).map((k) => {
-            const of = docs.filter((d) => d.kind === k);
-            return of.length === 0 ? null : of.length === 1 ? `${k} ${of[0].code}` : `${of.length} ${k}s (${of.map((d) => d.code).join(", ")})`;
-          }),
-          photoCount ? `${photoCount} photo${photoCount === 1 ? "" : "s"}` : null,
-        ].filter(Boolean);
-        appendEvent(tx, {
-          objectId: o.id,
-          type: "exported",
-          actor: { id: user.id, name: user.name },
-          at,
-          summary: `Included in an archive of ${client.name}'s records: ${parts.length ? parts.join(", ") : "its catalogue data"}.`,
-          data: { jobId: job.id, datasets: [...datasets], photos: photoCount, documents: docs },
-        });
-      }
-    });
+    const photosOf = new Map<string, number>();
+    for (const f of files) photosOf.set(f.objectId, (photosOf.get(f.objectId) ?? 0) + 1);
+    for (let i = 0; i < objs.length; i += EVENTS_PER_TRANSACTION) {
+      if (i > 0) await new Promise((resume) => setImmediate(resume));
+      inTransaction(db, (tx) => {
+        for (const o of objs.slice(i, i + EVENTS_PER_TRANSACTION)) {
+          const docs = issued.get(o.id) ?? [];
+          const photoCount = photosOf.get(o.id) ?? 0;
+          const parts = [
+            ...(["object dossier", "condition report", "custody receipt"] as const).map((k) => {
+              const of = docs.filter((d) => d.kind === k);
+              return of.length === 0 ? null : of.length === 1 ? `${k} ${of[0].code}` : `${of.length} ${k}s (${of.map((d) => d.code).join(", ")})`;
+            }),
+            photoCount ? `${photoCount} photo${photoCount === 1 ? "" : "s"}` : null,
+          ].filter(Boolean);
+          appendEvent(tx, {
+            objectId: o.id,
+            type: "exported",
+            actor: { id: user.id, name: user.name },
+            at,
+            summary: `Included in an archive of ${client.name}'s records: ${parts.length ? parts.join(", ") : "its catalogue data"}.`,
+            data: { jobId: job.id, datasets: [...datasets], photos: photoCount, documents: docs },
+          });
+        }
+      });
+    }
     const count = (k: string) => [...issued.values()].flat().filter((d) => d.kind === k).length;
     job.state = "done";
     job.progress = 1;
