@@ -28,7 +28,7 @@ import { conditionRoutes } from "./features/condition/condition.routes.ts";
 import { termRoutes } from "./features/condition/terms.routes.ts";
 import { verifyRoutes } from "./features/documents/verify.routes.ts";
 import { userRoutes } from "./features/users/users.routes.ts";
-import { moreDocumentsRoutes } from "./features/documents/more-documents.routes.ts";
+import { selectionDocumentsRoutes } from "./features/documents/selection-documents.routes.ts";
 import { documentsRoutes } from "./features/documents/documents.routes.ts";
 import { exportRoutes } from "./features/exports/exports.routes.ts";
 
@@ -119,7 +119,7 @@ export function createApp({ config, database, clock = () => new Date() }: AppDep
   app.use("/api", photoRoutes(db, config));
   app.use("/api", conditionRoutes(db, clock));
   app.use("/api", termRoutes(db));
-  app.use("/api", moreDocumentsRoutes(db, clock, { publicUrl: config.publicUrl, publicUrlGiven: config.publicUrlGiven }, config.uploadsDir));
+  app.use("/api", selectionDocumentsRoutes(db, clock, { publicUrl: config.publicUrl, publicUrlGiven: config.publicUrlGiven }, config.uploadsDir));
   app.use("/api", documentsRoutes(db, config, clock));
   app.use("/api", exportRoutes(db, config, clock));
   app.use("/api/objects", objectRoutes(db, clock));

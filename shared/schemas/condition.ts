@@ -157,3 +157,20 @@ export type ConditionReport = {
   /** Handling cautions of the findings' terms (mould, insects). */
   cautions: string[];
 };
+
+export const TermListQuerySchema = z.object({
+  list: z.enum(["paper", "photograph"], { message: "Choose paper or photograph." }).optional(),
+  /** Retired terms too: for the admin's vocabulary screen. */
+  all: z
+    .enum(["true", "false"], { message: "Use true or false." })
+    .optional()
+    .transform((v) => v === "true"),
+});
+/** An edit may also move a term within its list. */
+export const TermUpdateSchema = TermCreateSchema.extend({ sortOrder: z.number().int().min(0).max(100_000).optional() });
+
+/** Two report ids to compare; which is earlier is decided by their dates, not by the order asked. */
+export const ConditionCompareQuerySchema = z.object({
+  from: z.string({ message: "Choose the first report." }).min(1, { message: "Choose the first report." }).max(64),
+  to: z.string({ message: "Choose the second report." }).min(1, { message: "Choose the second report." }).max(64),
+});

@@ -1,3 +1,6 @@
+import { z } from "zod";
+import { STANDARD_BOARD_SHEETS } from "../domain/mount-plan/index.ts";
+import { RegisterFilterSchema } from "./objects.ts";
 export const DOCUMENT_KINDS = ["dossier", "condition-report", "schedule-of-values", "custody-receipt", "workshop-sheet", "back-label", "label-sheet"] as const;
 export type DocumentKind = (typeof DOCUMENT_KINDS)[number];
 export const DOCUMENT_KIND_LABELS: Record<DocumentKind, string> = {
@@ -28,3 +31,25 @@ export function normaliseCode(typed: string): string {
 
 /** The most back labels one sheet prints at once. */
 export const LABEL_SHEET_MAX = 400;
+
+const Ids = (max: number, what: string) =>
+  z.array(z.string().min(1).max(64), { message: `Give the ${what} as a list of ids.` }).min(1, { message: `Choose at least one ${what.replace(/s$/, "")}.` }).max(max, { message: `At most ${max} ${what} at once.` });
+
+/** Chosen objects, or the register's filter as the register screen holds it (the owner is the route's client). */
+export const ScheduleBodySchema = RegisterFilterSchema.omit({ clientId: true })
+  .extend({ objectIds: Ids(5000, "objects").optional() })
+  .strict()
+  .default({});
+export const WorkshopBodySchema = z.object({
+  mountingIds: Ids(200, "mountings"),
+  boardSheetId: z.enum(STANDARD_BOARD_SHEETS.map((b) => b.id) as [string, ...string[]], { message: `Choose a board sheet: ${STANDARD_BOARD_SHEETS.map((b) => b.label).join(", ")}.` }).optional(),
+});
+/** Chosen objects, or the register's filter as the register screen holds it (with its owner, if one is chosen). */
+export const LabelSheetBodySchema = RegisterFilterSchema
+  .extend({ objectIds: Ids(LABEL_SHEET_MAX, "objects").optional() })
+  .strict();
+
+export const ReceiptParamsSchema = z.object({ receiptId: z.string().min(1).max(64) });
+
+/** A verification code as typed: case, spaces and dashes do not matter (normaliseCode). */
+export const VerifyCodeParamsSchema = z.object({ code: z.string().trim().min(4, { message: "Enter the verification code printed on the document." }).max(40) });

@@ -40,3 +40,8 @@ export type Photo = {
   /** Served only to those who may read the object. */
   urls: Record<PhotoVersion, string>;
 };
+
+/** Photos of an object, or of one of its condition reports. */
+export const PhotoListQuerySchema = z.object({ reportId: z.string().min(1).max(64).optional() });
+/** One stored version of a photo (original, full, web, thumb). */
+export const PhotoFileParamsSchema = z.object({ id: z.string().min(1).max(64), version: z.string().min(1).max(16) });

@@ -1,17 +1,10 @@
 import { Router } from "express";
-import { z } from "zod";
 import type { Db } from "../../db/client.ts";
 import { IdParamSchema } from "../../../shared/schemas/common.ts";
-import { ConditionCorrectionSchema, ConditionCreateSchema, ConditionDraftUpdateSchema, ConditionListQuerySchema, ConditionSignSchema } from "../../../shared/schemas/condition.ts";
+import { ConditionCompareQuerySchema, ConditionCorrectionSchema, ConditionCreateSchema, ConditionDraftUpdateSchema, ConditionListQuerySchema, ConditionSignSchema } from "../../../shared/schemas/condition.ts";
 import { currentUser } from "../../middleware/require-permission.ts";
 import { input, validate } from "../../middleware/validate.ts";
 import { createConditionService } from "./condition.service.ts";
-
-/** Two report ids to compare; which is earlier is decided by their dates, not by the order asked. */
-export const ConditionCompareQuerySchema = z.object({
-  from: z.string({ message: "Choose the first report." }).min(1, { message: "Choose the first report." }).max(64),
-  to: z.string({ message: "Choose the second report." }).min(1, { message: "Choose the second report." }).max(64),
-});
 
 /** Mounted at /api. The register and the comparison come before /condition/:id, so their paths are not read as ids. */
 export function conditionRoutes(db: Db, clock: () => Date) {

@@ -1,22 +1,10 @@
 import { Router } from "express";
-import { z } from "zod";
 import type { Db } from "../../db/client.ts";
 import { IdParamSchema } from "../../../shared/schemas/common.ts";
-import { TermCreateSchema } from "../../../shared/schemas/condition.ts";
+import { TermCreateSchema, TermListQuerySchema, TermUpdateSchema } from "../../../shared/schemas/condition.ts";
 import { currentUser, requirePermission } from "../../middleware/require-permission.ts";
 import { input, validate } from "../../middleware/validate.ts";
 import { createTermsService } from "./condition.service.ts";
-
-export const TermListQuerySchema = z.object({
-  list: z.enum(["paper", "photograph"], { message: "Choose paper or photograph." }).optional(),
-  /** Retired terms too: for the admin's vocabulary screen. */
-  all: z
-    .enum(["true", "false"], { message: "Use true or false." })
-    .optional()
-    .transform((v) => v === "true"),
-});
-/** An edit may also move a term within its list. */
-export const TermUpdateSchema = TermCreateSchema.extend({ sortOrder: z.number().int().min(0).max(100_000).optional() });
 
 /** Mounted at /api. Everyone signed in reads the active vocabulary; the admin keeps it. There is no delete: terms are retired. */
 export function termRoutes(db: Db) {

@@ -1,27 +1,16 @@
 import { Router, type Response } from "express";
-import { z } from "zod";
 import type { Db } from "../../db/client.ts";
 import type { Config } from "../../lib/config.ts";
-import { OBJECT_STATUSES, OBJECT_TYPES } from "../../../shared/schemas/objects.ts";
+import { ArchiveBodySchema, DatasetParamsSchema, ExportFilterQuerySchema, ExportJobParamsSchema } from "../../../shared/schemas/exports.ts";
+import { IdParamSchema } from "../../../shared/schemas/common.ts";
 import type { ClientRecord } from "../../../shared/schemas/clients.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
 import { notFound } from "../../lib/errors.ts";
 import { assertCan, currentUser } from "../../middleware/require-permission.ts";
 import { input, validate } from "../../middleware/validate.ts";
 import { findClient } from "../clients/clients.repo.ts";
-import { DATASETS, FORMATS, assertMayExport, createExportsService } from "./exports.service.ts";
+import { assertMayExport, createExportsService } from "./exports.service.ts";
 import { gatherInWorker } from "./export-pool.ts";
-
-const DatasetParamsSchema = z.object({
-  id: z.string().min(1).max(64),
-  dataset: z.enum(DATASETS, { message: "Choose objects, mountings, condition, custody or valuations." }),
-  format: z.enum(FORMATS, { message: "Choose csv or json." }),
-});
-const FilterQuerySchema = z.object({ status: z.enum(OBJECT_STATUSES).optional(), objectType: z.enum(OBJECT_TYPES).optional() });
-const ClientParamsSchema = z.object({ id: z.string().min(1).max(64) });
-/** `originals: true` (studio staff only) puts the photos' original files in, with their metadata. */
-const ArchiveBodySchema = z.object({ originals: z.boolean({ message: "originals is true or false." }).default(false) }).strict().default({ originals: false });
-const JobParamsSchema = z.object({ jobId: z.string().min(1).max(64) });
 
 /** Studio staff and the client's own users may export; anyone else is told the client does not exist. */
 function exportableClient(db: Db, user: SessionUser, id: string): ClientRecord {
@@ -47,31 +36,31 @@ export function exportRoutes(db: Db, config: Config, clock: () => Date) {
   const service = createExportsService(db, config, clock);
   const r = Router();
 
-  r.get("/clients/:id/exports/:dataset.:format", validate({ params: DatasetParamsSchema, query: FilterQuerySchema }), async (req, res) => {
+  r.get("/clients/:id/exports/:dataset.:format", validate({ params: DatasetParamsSchema, query: ExportFilterQuerySchema }), async (req, res) => {
     const user = currentUser(req);
     const { id, dataset, format } = input(req, "params", DatasetParamsSchema);
     const client = exportableClient(db, user, id);
     assertMayExport(user, client, dataset);
     // Gathered and written out in a worker thread: a client of thousands of objects does not pause the server.
-    const { files } = await gatherInWorker(db, { user, clientId: client.id, datasets: [dataset], formats: [format], filters: input(req, "query", FilterQuerySchema) ?? {} });
+    const { files } = await gatherInWorker(db, { user, clientId: client.id, datasets: [dataset], formats: [format], filters: input(req, "query", ExportFilterQuerySchema) ?? {} });
     const filename = `${fileSlug(client.name)}-${dataset}-${day(clock())}.${format}`;
     attachment(res, format === "csv" ? "text/csv; charset=utf-8; header=present" : "application/json; charset=utf-8", filename);
     res.send(files[0]!.text);
   });
 
-  r.post("/clients/:id/exports/archive", validate({ params: ClientParamsSchema, body: ArchiveBodySchema }), (req, res) => {
+  r.post("/clients/:id/exports/archive", validate({ params: IdParamSchema, body: ArchiveBodySchema }), (req, res) => {
     const user = currentUser(req);
-    const client = exportableClient(db, user, input(req, "params", ClientParamsSchema).id);
+    const client = exportableClient(db, user, input(req, "params", IdParamSchema).id);
     res.status(202).json({ jobId: service.startArchive(user, client, input(req, "body", ArchiveBodySchema)) });
   });
 
-  r.get("/exports/:jobId", validate({ params: JobParamsSchema }), (req, res) => {
+  r.get("/exports/:jobId", validate({ params: ExportJobParamsSchema }), (req, res) => {
     res.setHeader("Cache-Control", "no-store");
-    res.json(service.status(currentUser(req), input(req, "params", JobParamsSchema).jobId));
+    res.json(service.status(currentUser(req), input(req, "params", ExportJobParamsSchema).jobId));
   });
 
-  r.get("/exports/:jobId/download", validate({ params: JobParamsSchema }), (req, res, next) => {
-    const { file, filename } = service.download(currentUser(req), input(req, "params", JobParamsSchema).jobId);
+  r.get("/exports/:jobId/download", validate({ params: ExportJobParamsSchema }), (req, res, next) => {
+    const { file, filename } = service.download(currentUser(req), input(req, "params", ExportJobParamsSchema).jobId);
     attachment(res, "application/zip", filename);
     res.sendFile(file, { cacheControl: false, dotfiles: "allow" }, (err) => {
       if (!err) return;

@@ -8,6 +8,7 @@ import { and, asc, eq, inArray, type SQL } from "drizzle-orm";
 import { stringify } from "csv-stringify/sync";
 import { ZipArchive } from "archiver";
 import type { Db } from "../../db/client.ts";
+import { DATASETS, type Dataset, type ExportFilters, type JobStatus } from "../../../shared/schemas/exports.ts";
 import type { Config } from "../../lib/config.ts";
 import { conditionReports, conditionRevisions, custodyReceipts, exportJobs, mountingRevisions, mountings, objects, photos } from "../../db/schema.ts";
 import { can, isStudio } from "../../../shared/permissions.ts";
@@ -46,11 +47,7 @@ import { getSettings } from "../settings/settings.repo.ts";
 import { recordPlan, type PlanSettings } from "../../../shared/domain/mounting.ts";
 import type { Verdict } from "../../../shared/schemas/mount-plan.ts";
 
-export const DATASETS = ["objects", "mountings", "condition", "custody", "valuations"] as const;
-export type Dataset = (typeof DATASETS)[number];
-export const FORMATS = ["csv", "json"] as const;
-export type Format = (typeof FORMATS)[number];
-export type ExportFilters = { status?: ObjectStatus; objectType?: ObjectType };
+export { DATASETS, FORMATS, type Dataset, type ExportFilters, type Format } from "../../../shared/schemas/exports.ts";
 
 /**
  * The columns of every export, in order: the CSV header and the JSON keys are these names.
@@ -494,8 +491,7 @@ export function toJson(t: Table): string {
 
 // ── Bulk ZIP of one client's records, as an in-memory background job ──────────
 
-export type JobState = "running" | "done" | "failed";
-export type JobStatus = { state: JobState; progress: number; message: string };
+export type { JobState, JobStatus } from "../../../shared/schemas/exports.ts";
 
 type Job = JobStatus & {
   id: string;

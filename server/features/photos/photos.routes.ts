@@ -5,19 +5,16 @@ import path from "node:path";
 import { randomUUID } from "node:crypto";
 import { Router, type RequestHandler } from "express";
 import multer from "multer";
-import { z } from "zod";
 import type { Db } from "../../db/client.ts";
 import type { Config } from "../../lib/config.ts";
 import { IdParamSchema } from "../../../shared/schemas/common.ts";
-import { PhotoUpdateSchema } from "../../../shared/schemas/photos.ts";
+import { PhotoFileParamsSchema, PhotoListQuerySchema, PhotoUpdateSchema } from "../../../shared/schemas/photos.ts";
 import { AppError, notFound } from "../../lib/errors.ts";
 import { createStorage } from "../../lib/storage.ts";
 import { currentUser } from "../../middleware/require-permission.ts";
 import { input, validate } from "../../middleware/validate.ts";
 import { createPhotosService, fileProblem, tooLarge } from "./photos.service.ts";
 
-const ListQuerySchema = z.object({ reportId: z.string().min(1).max(64).optional() });
-const FileParamsSchema = z.object({ id: z.string().min(1).max(64), version: z.string().min(1).max(16) });
 
 // Uploads arrive in a private folder of the system's temporary space (made once per process, mode 0700),
 // never under uploads/: only the storage module writes there, and only after a file has passed every check.
@@ -82,8 +79,8 @@ export function photoRoutes(db: Db, config: Pick<Config, "uploadsDir" | "maxUplo
     },
   );
 
-  r.get("/objects/:id/photos", validate({ params: IdParamSchema, query: ListQuerySchema }), (req, res) => {
-    res.json(service.listForObject(currentUser(req), input(req, "params", IdParamSchema).id, input(req, "query", ListQuerySchema).reportId));
+  r.get("/objects/:id/photos", validate({ params: IdParamSchema, query: PhotoListQuerySchema }), (req, res) => {
+    res.json(service.listForObject(currentUser(req), input(req, "params", IdParamSchema).id, input(req, "query", PhotoListQuerySchema).reportId));
   });
 
   r.get("/photos/:id", validate({ params: IdParamSchema }), (req, res) => {
@@ -95,8 +92,8 @@ export function photoRoutes(db: Db, config: Pick<Config, "uploadsDir" | "maxUplo
   });
 
   // Bytes only for those who may read the object; 404 for anyone else, as for a photo that does not exist.
-  r.get("/photos/:id/:version", validate({ params: FileParamsSchema }), (req, res, next) => {
-    const { id, version } = input(req, "params", FileParamsSchema);
+  r.get("/photos/:id/:version", validate({ params: PhotoFileParamsSchema }), (req, res, next) => {
+    const { id, version } = input(req, "params", PhotoFileParamsSchema);
     const f = service.file(currentUser(req), id, version);
     storage.path(f.key); // refuses anything but a well-formed key before a path is touched
     res.setHeader("Content-Type", f.mime);

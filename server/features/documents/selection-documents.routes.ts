@@ -1,13 +1,10 @@
 import { Router, type Response } from "express";
-import { z } from "zod";
 import { and } from "drizzle-orm";
 import { objects } from "../../db/schema.ts";
 import { objectFilterWhere } from "../objects/objects.repo.ts";
 import type { Db } from "../../db/client.ts";
 import { IdParamSchema } from "../../../shared/schemas/common.ts";
-import { RegisterFilterSchema } from "../../../shared/schemas/objects.ts";
-import { LABEL_SHEET_MAX } from "../../../shared/schemas/documents.ts";
-import { STANDARD_BOARD_SHEETS } from "../../../shared/domain/mount-plan/index.ts";
+import { LABEL_SHEET_MAX, LabelSheetBodySchema, ReceiptParamsSchema, ScheduleBodySchema, WorkshopBodySchema } from "../../../shared/schemas/documents.ts";
 import { AppError, conflict, notFound } from "../../lib/errors.ts";
 import { assertCan, currentUser, requirePermission } from "../../middleware/require-permission.ts";
 import { input, validate } from "../../middleware/validate.ts";
@@ -20,23 +17,6 @@ import { documentJob, loadedDocumentJob } from "./registry.ts";
 import { issueCustodyReceipt } from "./custody-receipt.tsx";
 import { mountingDetail, summaryOf, workshopData, type WorkshopItem } from "./workshop-sheet.tsx";
 import { objectUrl, qrFor, type LabelData } from "./labels.tsx";
-
-const Ids = (max: number, what: string) =>
-  z.array(z.string().min(1).max(64), { message: `Give the ${what} as a list of ids.` }).min(1, { message: `Choose at least one ${what.replace(/s$/, "")}.` }).max(max, { message: `At most ${max} ${what} at once.` });
-
-/** Chosen objects, or the register's filter as the register screen holds it (the owner is the route's client). */
-export const ScheduleBodySchema = RegisterFilterSchema.omit({ clientId: true })
-  .extend({ objectIds: Ids(5000, "objects").optional() })
-  .strict()
-  .default({});
-export const WorkshopBodySchema = z.object({
-  mountingIds: Ids(200, "mountings"),
-  boardSheetId: z.enum(STANDARD_BOARD_SHEETS.map((b) => b.id) as [string, ...string[]], { message: `Choose a board sheet: ${STANDARD_BOARD_SHEETS.map((b) => b.label).join(", ")}.` }).optional(),
-});
-/** Chosen objects, or the register's filter as the register screen holds it (with its owner, if one is chosen). */
-export const LabelSheetBodySchema = RegisterFilterSchema
-  .extend({ objectIds: Ids(LABEL_SHEET_MAX, "objects").optional() })
-  .strict();
 
 /**
  * Why labels cannot be printed now, or null when they can: a QR code must lead to the address people
@@ -55,7 +35,6 @@ export function labelAddressProblem(address: { publicUrl: string; publicUrlGiven
   if (loopback) return `PUBLIC_URL is ${address.publicUrl}, an address that opens only on this machine. Set it to the address people open Reversa at and restart.`;
   return null;
 }
-const ReceiptParam = z.object({ receiptId: z.string().min(1).max(64) });
 
 function sendPdf(res: Response, doc: { pdf: Buffer; code: string; filename: string }) {
   res.setHeader("Content-Type", "application/pdf");
@@ -66,7 +45,7 @@ function sendPdf(res: Response, doc: { pdf: Buffer; code: string; filename: stri
 }
 
 /** Schedule of values, custody receipt, workshop sheet, back labels. Mounted at /api, after the session check. */
-export function moreDocumentsRoutes(db: Db, clock: () => Date, address: { publicUrl: string; publicUrlGiven: boolean }, uploadsDir?: string) {
+export function selectionDocumentsRoutes(db: Db, clock: () => Date, address: { publicUrl: string; publicUrlGiven: boolean }, uploadsDir?: string) {
   const { publicUrl } = address;
   const docs = createDocumentsService(db, clock, uploadsDir);
   const r = Router();
@@ -93,8 +72,8 @@ export function moreDocumentsRoutes(db: Db, clock: () => Date, address: { public
     sendPdf(res, doc);
   });
 
-  r.post("/custody/:receiptId/document", validate({ params: ReceiptParam }), async (req, res) => {
-    sendPdf(res, await issueCustodyReceipt(db, clock, uploadsDir, currentUser(req), input(req, "params", ReceiptParam).receiptId));
+  r.post("/custody/:receiptId/document", validate({ params: ReceiptParamsSchema }), async (req, res) => {
+    sendPdf(res, await issueCustodyReceipt(db, clock, uploadsDir, currentUser(req), input(req, "params", ReceiptParamsSchema).receiptId));
   });
 
   r.post("/documents/workshop-sheet", requirePermission("mounting:write"), validate({ body: WorkshopBodySchema }), async (req, res) => {
