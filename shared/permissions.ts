@@ -10,8 +10,8 @@ export const ACTIONS = [
   "object:update",
   "valuation:read",
   "valuation:update",
+  "object:reassign",
   "client:read",
-  "client:list",
   "client:write",
   "settings:read",
   "settings:update",
@@ -20,19 +20,29 @@ export const ACTIONS = [
   "plan:write",
   "mounting:read",
   "mounting:write",
+  "mounting:list",
   "history:read",
   "history:verify",
   "custody:read",
   "custody:write",
+  "custody:list",
   "condition:read",
   "condition:write",
+  "photo:write",
   "terms:manage",
+  "document:list",
+  "label:print",
+  "workshop-sheet:print",
+  "export:run",
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 
 export type Actor = { id: string; role: Role; clientId: string | null };
-/** What an action is about: for object and client actions, the owning client. */
-export type Resource = { clientId: string | null };
+/**
+ * What an action is about: the owning client; and, for reading a mounting record or a condition report
+ * (or a photo of one), whether it is a draft — a draft is seen only by those who may write it.
+ */
+export type Resource = { clientId: string | null; draft?: boolean };
 
 const STUDIO: readonly Role[] = ["admin", "framer"];
 
@@ -57,16 +67,25 @@ export function can(actor: Actor | null | undefined, action: Action, resource?: 
     case "terms:manage":
       return actor.role === "admin";
     case "object:create":
+    case "object:reassign":
     case "plan:write":
     case "mounting:write":
+    case "mounting:list":
     case "custody:write":
+    case "custody:list":
     case "history:verify":
     case "client:write":
-    case "client:list":
+    case "document:list":
+    case "label:print":
+    case "workshop-sheet:print":
       return studio;
-    case "object:read":
-    case "condition:read":
+    // A draft can still change: it is read only by those who may write it (docs/trade-reference.md §13).
     case "mounting:read":
+      return resource?.draft ? can(actor, "mounting:write", resource) : studio || ownsResource(actor, resource);
+    case "condition:read":
+      return resource?.draft ? can(actor, "condition:write", resource) : studio || ownsResource(actor, resource);
+    case "object:read":
+    case "export:run":
     case "history:read":
     case "custody:read":
     case "client:read":
@@ -75,6 +94,7 @@ export function can(actor: Actor | null | undefined, action: Action, resource?: 
       return studio || ownsResource(actor, resource);
     case "object:update":
     case "condition:write":
+    case "photo:write":
     case "valuation:update":
       return studio || (actor.role === "registrar" && ownsResource(actor, resource));
     default: {

@@ -3,12 +3,13 @@ import { can, type Action, type Resource } from "../../shared/permissions.ts";
 import type { SessionUser } from "../../shared/schemas/auth.ts";
 import { AppError, forbidden, notFound } from "../lib/errors.ts";
 
-/** Route guard for actions that do not depend on a particular record. */
-export function requirePermission(action: Action): RequestHandler {
-  return (req, _res, next) => {
+/** Route guard for actions that do not depend on a particular record; it carries its action, for the route table test. */
+export function requirePermission(action: Action): RequestHandler & { permission: Action } {
+  const guard: RequestHandler = (req, _res, next) => {
     if (!can(req.user, action)) throw forbidden();
     next();
   };
+  return Object.assign(guard, { permission: action });
 }
 
 export function currentUser(req: Request): SessionUser {

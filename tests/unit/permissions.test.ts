@@ -51,13 +51,28 @@ const EXPECTED: Record<Action, Row> = {
   // docs/trade-reference.md §13: a registrar keeps catalogue data and valuations current.
   "valuation:update": STUDIO_AND_REGISTRAR,
   "client:read": STUDIO_AND_OWNER,
-  "client:list": STUDIO_ONLY,
   "client:write": STUDIO_ONLY,
   "settings:read": EVERYONE,
   // docs/trade-reference.md §13: studio details, users and roles are the studio admin's.
   "settings:update": ADMIN_ONLY,
   "user:manage": ADMIN_ONLY,
   "planner:use": EVERYONE,
+  "object:reassign": STUDIO_ONLY,
+  "mounting:list": STUDIO_ONLY,
+  "custody:list": STUDIO_ONLY,
+  "document:list": STUDIO_ONLY,
+  "label:print": STUDIO_ONLY,
+  "workshop-sheet:print": STUDIO_ONLY,
+  // Photos are condition evidence: written by those who write condition reports.
+  "photo:write": STUDIO_AND_REGISTRAR,
+  // docs/trade-reference.md §13: the owning client's people may take their own records away.
+  "export:run": STUDIO_AND_OWNER,
+};
+
+// docs/trade-reference.md §13: a draft mounting record or condition report is read only by those who may write it.
+const DRAFT_READ: Record<"mounting:read" | "condition:read", Row> = {
+  "mounting:read": STUDIO_ONLY,
+  "condition:read": STUDIO_AND_REGISTRAR,
 };
 
 describe("can", () => {
@@ -72,6 +87,18 @@ describe("can", () => {
         it(`when a ${role} asks for ${action} on ${c === "none" ? "no record" : `${c} client's record`}, then the answer is ${expected ? "yes" : "no"}`, () => {
           expect(can(ACTORS[role], action, RESOURCES[c])).toBe(expected);
         });
+      });
+    }
+  }
+
+  for (const action of ["mounting:read", "condition:read"] as const) {
+    for (const role of ROLES) {
+      it(`when a ${role} asks for ${action} on a draft, then the answer is that of the draft's writers`, () => {
+        const [own, other] = DRAFT_READ[action][role];
+        expect(can(ACTORS[role], action, { clientId: OWN, draft: true })).toBe(own);
+        expect(can(ACTORS[role], action, { clientId: OTHER, draft: true })).toBe(other);
+        // Not a draft: the ordinary read rule.
+        expect(can(ACTORS[role], action, { clientId: OWN, draft: false })).toBe(EXPECTED[action][role][0]);
       });
     }
   }

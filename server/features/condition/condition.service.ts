@@ -80,7 +80,8 @@ export function toTerm(r: repo.TermRow): Term {
 }
 
 export function createConditionService(db: Db, clock: () => Date = () => new Date()) {
-  const canWrite = (user: SessionUser, o: ObjectRow) => can(user, "condition:write", { clientId: o.clientId });
+  /** A draft is read only by those who may write it (shared/permissions.ts). */
+  const sees = (user: SessionUser, o: ObjectRow, r: { status: string }) => can(user, "condition:read", { clientId: o.clientId, draft: r.status === "draft" });
 
   /** Handling cautions of the findings' terms, each once, in the order the findings give them. Retired terms keep theirs. */
   function cautionsFor(data: ConditionData, o: ObjectRow): string[] {
@@ -128,7 +129,7 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
     if (!row) throw notFound("That condition report");
     const o = findObject(db, row.objectId)!;
     assertCan(user, "condition:read", { clientId: o.clientId }, { readAction: "condition:read", what: "That condition report" });
-    if (row.status === "draft" && !canWrite(user, o)) throw notFound("That condition report");
+    if (!sees(user, o, row)) throw notFound("That condition report");
     return { row, o };
   }
 
@@ -149,7 +150,7 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
     if (body.mountingId) {
       const m = repo.findMountingOf(db, body.mountingId);
       // A draft mounting is studio work; to anyone else it does not exist.
-      const visible = m && m.objectId === o.id && (m.status !== "draft" || can(user, "mounting:write", { clientId: o.clientId }));
+      const visible = m && m.objectId === o.id && can(user, "mounting:read", { clientId: o.clientId, draft: m.status === "draft" });
       if (!visible) fields.mountingId = "Choose a mounting record of this object.";
     }
     const found = repo.photoIdsOfObject(db, o.id, body.data.photoIds);
@@ -180,7 +181,7 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
     listForObject(user: SessionUser, objectId: string): ConditionReport[] {
       const o = loadObject(user, objectId);
       // Drafts are work in progress: those who may only read see reports once they are signed.
-      const rows = repo.reportsOfObject(db, objectId).filter((r) => r.status !== "draft" || canWrite(user, o));
+      const rows = repo.reportsOfObject(db, objectId).filter((r) => sees(user, o, r));
       const revs = repo.currentRevisions(db, rows);
       return rows.map((r) => toReport(r, o, revs.get(r.id)));
     },
@@ -299,7 +300,7 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
       const scope: repo.RegisterScope = isStudio(user)
         ? { clientId: null, signedOnly: false }
         : user.clientId
-          ? { clientId: user.clientId, signedOnly: !can(user, "condition:write", { clientId: user.clientId }) }
+          ? { clientId: user.clientId, signedOnly: !can(user, "condition:read", { clientId: user.clientId, draft: true }) }
           : "none";
       const { items, total } = repo.listReports(db, q, scope);
       return {

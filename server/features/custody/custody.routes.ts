@@ -22,11 +22,11 @@ export function custodyRoutes(db: Db, clock: () => Date = () => new Date()) {
   });
 
   // The studio-wide views are the studio's own: only those who may write receipts see them.
-  r.get("/custody/in-studio", requirePermission("custody:write"), validate({ query: InStudioQuerySchema }), (req, res) => {
+  r.get("/custody/in-studio", requirePermission("custody:list"), validate({ query: InStudioQuerySchema }), (req, res) => {
     res.json(service.inStudio(input(req, "query", InStudioQuerySchema)));
   });
 
-  r.get("/custody/receipts", requirePermission("custody:write"), validate({ query: ReceiptListQuerySchema }), (req, res) => {
+  r.get("/custody/receipts", requirePermission("custody:list"), validate({ query: ReceiptListQuerySchema }), (req, res) => {
     res.json(service.receipts(input(req, "query", ReceiptListQuerySchema)));
   });
 

@@ -39,7 +39,7 @@ export function documentsRoutes(db: Db, config: Pick<Config, "uploadsDir">, cloc
     res.json({ items: documents.list({ objectId: o.id }) });
   });
 
-  r.get("/documents", requirePermission("object:create"), (_req, res) => {
+  r.get("/documents", requirePermission("document:list"), (_req, res) => {
     res.json({ items: documents.list() });
   });
 

@@ -76,7 +76,7 @@ export function selectionDocumentsRoutes(db: Db, clock: () => Date, address: { p
     sendPdf(res, await issueCustodyReceipt(db, clock, uploadsDir, currentUser(req), input(req, "params", ReceiptParamsSchema).receiptId));
   });
 
-  r.post("/documents/workshop-sheet", requirePermission("mounting:write"), validate({ body: WorkshopBodySchema }), async (req, res) => {
+  r.post("/documents/workshop-sheet", requirePermission("workshop-sheet:print"), validate({ body: WorkshopBodySchema }), async (req, res) => {
     const user = currentUser(req);
     const body = input(req, "body", WorkshopBodySchema);
     const items: WorkshopItem[] = [];
@@ -102,7 +102,7 @@ export function selectionDocumentsRoutes(db: Db, clock: () => Date, address: { p
   });
 
   // Before a framer prints: whether the labels' QR codes would lead anywhere (the screen warns when not).
-  r.get("/documents/labels/readiness", requirePermission("mounting:write"), (_req, res) => {
+  r.get("/documents/labels/readiness", requirePermission("label:print"), (_req, res) => {
     const problem = labelAddressProblem(address);
     res.json({ ready: problem === null, publicUrl, problem });
   });
@@ -128,7 +128,7 @@ export function selectionDocumentsRoutes(db: Db, clock: () => Date, address: { p
     };
   }
 
-  r.post("/objects/:id/documents/back-label", requirePermission("mounting:write"), validate({ params: IdParamSchema }), async (req, res) => {
+  r.post("/objects/:id/documents/back-label", requirePermission("label:print"), validate({ params: IdParamSchema }), async (req, res) => {
     const user = currentUser(req);
     assertLabelsReady();
     const label = await labelFor(input(req, "params", IdParamSchema).id);
@@ -146,7 +146,7 @@ export function selectionDocumentsRoutes(db: Db, clock: () => Date, address: { p
   });
 
   // One verification code for the whole sheet, recorded without an object (no per-object history event).
-  r.post("/documents/label-sheet", requirePermission("mounting:write"), validate({ body: LabelSheetBodySchema }), async (req, res) => {
+  r.post("/documents/label-sheet", requirePermission("label:print"), validate({ body: LabelSheetBodySchema }), async (req, res) => {
     const user = currentUser(req);
     assertLabelsReady();
     const body = input(req, "body", LabelSheetBodySchema);

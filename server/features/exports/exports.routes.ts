@@ -16,7 +16,7 @@ import { gatherInWorker } from "./export-pool.ts";
 function exportableClient(db: Db, user: SessionUser, id: string): ClientRecord {
   const client = findClient(db, id);
   if (!client) throw notFound("That client");
-  assertCan(user, "object:read", { clientId: client.id }, { what: "That client" });
+  assertCan(user, "export:run", { clientId: client.id }, { readAction: "client:read", what: "That client" });
   return client;
 }
 

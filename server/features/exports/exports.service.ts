@@ -252,7 +252,7 @@ function mountingRows(db: Db, user: SessionUser, objs: ObjectRow[]): Row[] {
   if (!objs.length) return [];
   const byId = new Map(objs.map((o) => [o.id, o]));
   // Drafts are studio work: to anyone who may not write them they do not exist (as in the mountings service).
-  const withDrafts = can(user, "mounting:write", { clientId: objs[0].clientId });
+  const withDrafts = can(user, "mounting:read", { clientId: objs[0].clientId, draft: true });
   const rows = db
     .select({ m: mountings, data: mountingRevisions.data })
     .from(mountings)
@@ -338,7 +338,7 @@ function conditionRows(db: Db, user: SessionUser, objs: ObjectRow[]): Row[] {
   if (!objs.length) return [];
   const byId = new Map(objs.map((o) => [o.id, o]));
   // Drafts only to those who may write them, as in the condition service.
-  const withDrafts = can(user, "condition:write", { clientId: objs[0].clientId });
+  const withDrafts = can(user, "condition:read", { clientId: objs[0].clientId, draft: true });
   const rows = db
     .select({ r: conditionReports, data: conditionRevisions.data })
     .from(conditionReports)
@@ -579,7 +579,7 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
     // Photos of draft reports only to those who may see drafts (as the photos service); originals, which may
     // carry GPS, camera and owner metadata, only to studio staff who asked for them; everyone else gets the
     // full-size copy with its metadata stripped.
-    const withDrafts = can(user, "condition:write", { clientId: client.id });
+    const withDrafts = can(user, "condition:read", { clientId: client.id, draft: true });
     const draftReports = new Set(
       inChunks((part) => db.select({ id: conditionReports.id }).from(conditionReports).where(and(inArray(conditionReports.objectId, part), eq(conditionReports.status, "draft"))).all()).map((r) => r.id),
     );

@@ -12,7 +12,7 @@ import { listFramers, listMountings } from "./mountings-register.repo.ts";
 export function mountingsRegisterRoutes(db: Db) {
   const r = Router();
 
-  r.get("/mountings", requirePermission("mounting:write"), validate({ query: MountingListQuerySchema }), (req, res) => {
+  r.get("/mountings", requirePermission("mounting:list"), validate({ query: MountingListQuerySchema }), (req, res) => {
     const q = input(req, "query", MountingListQuerySchema);
     const { items, total } = listMountings(db, q);
     const body: MountingListPage = { items, total, page: q.page, pageSize: q.pageSize, framers: listFramers(db) };

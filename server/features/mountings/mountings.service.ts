@@ -108,7 +108,7 @@ export function createMountingsService(db: Db) {
   function write(user: SessionUser, id: string) {
     const l = load(user, id);
     // A draft is invisible to those who may not write it (GET answers 404), so a write must not reveal it either.
-    if (l.row.status === "draft" && !canWrite(user, l.o)) throw notFound("That mounting record");
+    if (!sees(user, l.o, l.row)) throw notFound("That mounting record");
     assertCan(user, "mounting:write", { clientId: l.o.clientId }, { readAction: "mounting:read", what: "That mounting record" });
     return l;
   }
@@ -119,19 +119,19 @@ export function createMountingsService(db: Db) {
       const rows = repo.mountingsOfObject(db, objectId);
       const revs = repo.currentRevisions(db, rows);
       // Drafts are studio work in progress: the owner sees records once they are completed.
-      const visible = rows.filter((r) => r.status !== "draft" || canWrite(user, o));
+      const visible = rows.filter((r) => sees(user, o, r));
       return visible.map((r) => toRecord(r, o, revs.get(r.id)));
     },
 
     get(user: SessionUser, id: string): MountingRecord {
       const { row, o } = load(user, id);
-      if (row.status === "draft" && !canWrite(user, o)) throw notFound("That mounting record");
+      if (!sees(user, o, row)) throw notFound("That mounting record");
       return toRecord(row, o);
     },
 
     revisions(user: SessionUser, id: string): (MountingRevision & { changes: Change[] })[] {
       const { row, o } = load(user, id);
-      if (row.status === "draft" && !canWrite(user, o)) throw notFound("That mounting record");
+      if (!sees(user, o, row)) throw notFound("That mounting record");
       const revs = repo.revisionsOf(db, id).map((r) => toRevision(r, o));
       return revs.map((r, i) => ({ ...r, changes: i === 0 ? [] : diffValues(revs[i - 1].data, r.data) }));
     },
@@ -235,6 +235,7 @@ export function createMountingsService(db: Db) {
   };
 }
 
-function canWrite(user: SessionUser, o: ObjectRow): boolean {
-  return can(user, "mounting:write", { clientId: o.clientId });
+/** A draft is read only by those who may write it (shared/permissions.ts). */
+function sees(user: SessionUser, o: ObjectRow, r: { status: string }): boolean {
+  return can(user, "mounting:read", { clientId: o.clientId, draft: r.status === "draft" });
 }

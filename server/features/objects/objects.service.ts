@@ -122,7 +122,7 @@ export function createObjectsService(db: Db) {
       // Only studio staff move an object to another owner.
       // The user may edit this object, so a refusal here is 403 (assertCan would answer "That record was not found").
       if (changes.clientId !== current.clientId) {
-        if (!can(user, "object:create", { clientId: changes.clientId })) throw forbidden("Only studio staff move an object to another owner.");
+        if (!can(user, "object:reassign", { clientId: changes.clientId })) throw forbidden("Only studio staff move an object to another owner.");
         requireClient(db, changes.clientId);
       }
       // Someone who may not see valuations cannot change them either: keep what is stored.

@@ -315,14 +315,14 @@ const VERSION_KEY = { full: "fullKey", web: "webKey", thumb: "thumbKey" } as con
 export function createPhotosService(db: Db, storage: Storage, limits: PhotoLimits) {
   const maxBytes = limits.maxUploadMb * MB;
 
-  function loadObject(user: SessionUser, objectId: string, action: "object:read" | "condition:write") {
+  function loadObject(user: SessionUser, objectId: string, action: "object:read" | "photo:write") {
     const o = findObject(db, objectId);
     if (!o) throw notFound("That object");
     assertCan(user, action, { clientId: o.clientId }, { what: "That object" });
     return o;
   }
 
-  function loadPhoto(user: SessionUser, id: string, action: "object:read" | "condition:write") {
+  function loadPhoto(user: SessionUser, id: string, action: "object:read" | "photo:write") {
     const p = repo.findPhoto(db, id);
     if (!p) throw notFound("That photo");
     assertCan(user, action, { clientId: p.clientId }, { what: "That photo" });
@@ -332,11 +332,11 @@ export function createPhotosService(db: Db, storage: Storage, limits: PhotoLimit
 
   /**
    * A photo taken for a draft condition report is part of that draft: hidden, like the draft itself, from
-   * anyone who may not write condition reports for the object (as in the condition service).
+   * anyone who may not read the draft (shared/permissions.ts: a draft is read by its writers).
    */
   function seesPhoto(user: SessionUser, p: { reportId: string | null; clientId: string }): boolean {
-    if (!p.reportId || can(user, "condition:write", { clientId: p.clientId })) return true;
-    return repo.findReport(db, p.reportId)?.status !== "draft";
+    if (!p.reportId) return true;
+    return can(user, "condition:read", { clientId: p.clientId, draft: repo.findReport(db, p.reportId)?.status === "draft" });
   }
 
   return {
@@ -344,11 +344,11 @@ export function createPhotosService(db: Db, storage: Storage, limits: PhotoLimit
 
     /** Before the body is read: only those who may add photos to this object send bytes to the disk. */
     assertCanUpload(user: SessionUser, objectId: string) {
-      loadObject(user, objectId, "condition:write");
+      loadObject(user, objectId, "photo:write");
     },
 
     async upload(user: SessionUser, objectId: string, file: ReceivedFile | undefined, fields: unknown): Promise<Photo> {
-      loadObject(user, objectId, "condition:write");
+      loadObject(user, objectId, "photo:write");
       const parsed = PhotoUploadSchema.safeParse(fields ?? {});
       if (!parsed.success) throw validationError(parsed.error);
       const body = parsed.data;
@@ -418,7 +418,7 @@ export function createPhotosService(db: Db, storage: Storage, limits: PhotoLimit
     },
 
     update(user: SessionUser, id: string, data: { kind: PhotoKind; caption: string | null }): Photo {
-      loadPhoto(user, id, "condition:write");
+      loadPhoto(user, id, "photo:write");
       repo.updatePhoto(db, id, data);
       return toPhoto(repo.findPhoto(db, id)!);
     },
