@@ -1,21 +1,22 @@
 import type { ZodError } from "zod";
-import { issuesToFields, type ErrorCode } from "../../shared/schemas/errors.ts";
+import { ERROR_STATUS, issuesToFields, type ErrorCode } from "../../shared/schemas/errors.ts";
 
-/** The one application error: a code, an HTTP status and a sentence for people. */
+/** The one application error: a code (which gives its HTTP status, ERROR_STATUS) and a sentence for people. */
 export class AppError extends Error {
+  readonly status: number;
   constructor(
-    readonly status: number,
     readonly code: ErrorCode,
     message: string,
     readonly fields?: Record<string, string>,
   ) {
     super(message);
+    this.status = ERROR_STATUS[code];
   }
 }
 
-export const notFound = (what = "That record") => new AppError(404, "not_found", `${what} was not found.`);
-export const forbidden = (message = "Your role does not allow this.") => new AppError(403, "forbidden", message);
-export const conflict = (message: string, fields?: Record<string, string>) => new AppError(409, "conflict", message, fields);
+export const notFound = (what = "That record") => new AppError("not_found", `${what} was not found.`);
+export const forbidden = (message = "Your role does not allow this.") => new AppError("forbidden", message);
+export const conflict = (message: string, fields?: Record<string, string>) => new AppError("conflict", message, fields);
 
 export function validationError(error: ZodError): AppError {
   const fields = issuesToFields(error.issues);
@@ -23,5 +24,5 @@ export function validationError(error: ZodError): AppError {
   const first = Object.entries(fields)[0];
   const message =
     n === 1 && first ? `Check ${first[0]}: ${first[1]}` : `Check the ${n} highlighted fields: ${Object.keys(fields).slice(0, 4).join(", ")}${n > 4 ? "…" : ""}.`;
-  return new AppError(422, "validation_failed", message, fields);
+  return new AppError("validation_failed", message, fields);
 }

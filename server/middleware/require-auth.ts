@@ -31,7 +31,7 @@ export function createSessionResolver(auth: Auth, db: Db, opts: { ttlMs?: number
 
   function toSessionUser(u: { id: string; name: string; email: string; role?: string | null; clientId?: string | null }): SessionUser {
     const role = RoleSchema.safeParse(u.role);
-    if (!role.success) throw new AppError(403, "forbidden", "Your account has no role in this studio; ask the studio admin.");
+    if (!role.success) throw new AppError("forbidden", "Your account has no role in this studio; ask the studio admin.");
     return { id: u.id, name: u.name, email: u.email, role: role.data, clientId: u.clientId ?? null };
   }
 
@@ -71,7 +71,7 @@ export type SessionResolver = ReturnType<typeof createSessionResolver>;
 export function requireAuth(sessions: SessionResolver): RequestHandler {
   return async (req, res, next) => {
     const user = await sessions.resolve(req, res);
-    if (!user) throw new AppError(401, "unauthenticated", "Sign in to continue.");
+    if (!user) throw new AppError("unauthenticated", "Sign in to continue.");
     req.user = user;
     next();
   };

@@ -13,7 +13,7 @@ export function requirePermission(action: Action): RequestHandler & { permission
 }
 
 export function currentUser(req: Request): SessionUser {
-  if (!req.user) throw new AppError(401, "unauthenticated", "Sign in to continue.");
+  if (!req.user) throw new AppError("unauthenticated", "Sign in to continue.");
   return req.user;
 }
 

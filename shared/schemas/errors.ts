@@ -13,6 +13,19 @@ export const ERROR_CODES = [
 ] as const;
 export type ErrorCode = (typeof ERROR_CODES)[number];
 
+/** The HTTP status of each code: an error is made from its code, so the two never disagree. */
+export const ERROR_STATUS: Record<ErrorCode, number> = {
+  validation_failed: 422,
+  unauthenticated: 401,
+  forbidden: 403,
+  not_found: 404,
+  conflict: 409,
+  rate_limited: 429,
+  payload_too_large: 413,
+  unavailable: 503,
+  internal: 500,
+};
+
 /** The one error shape every API error uses. `fields` maps a dotted field path to a message. */
 export const ErrorBodySchema = z.object({
   error: z.object({

@@ -201,7 +201,7 @@ describe("the sheet of labels", () => {
     const all = t.db.select().from(objects).all().map((o) => o.objectNumber);
     expect(all.filter((n) => new RegExp(`(^|\\s)${n}(\\s|$)`, "m").test(text)).sort()).toEqual(want.sort());
     const none = await post(framer, "/api/documents/label-sheet", { clientId: varga, q: "nothing-matches-this" });
-    expect(none.status).toBe(400);
+    expect(none.status).toBe(422);
     const unmounted = t.db.select().from(objects).where(isNull(objects.currentMountingId)).all().length;
     expect(unmounted).toBeGreaterThan(0);
   });

@@ -44,7 +44,7 @@ const NOT_A_DAY = "That day is not in the calendar; use a date such as 2026-11-3
 function invalid(fields: Record<string, string>): AppError {
   const keys = Object.keys(fields);
   const message = keys.length === 1 ? `Check ${keys[0]}: ${fields[keys[0]]}` : `Check the ${keys.length} highlighted fields: ${keys.slice(0, 4).join(", ")}${keys.length > 4 ? "…" : ""}.`;
-  return new AppError(422, "validation_failed", message, fields);
+  return new AppError("validation_failed", message, fields);
 }
 
 /** Photographs may use the paper terms as well as their own (docs/trade-reference.md §14); everything else uses the paper list. */
@@ -263,7 +263,7 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
       const missing = signatureFields(row.context, data);
       if (Object.keys(missing).length) throw invalid(missing);
       const changes = diffValues(before, data);
-      if (changes.length === 0) throw new AppError(422, "validation_failed", "Check data: the correction changes nothing.", { data: "Change at least one entry, or cancel." });
+      if (changes.length === 0) throw new AppError("validation_failed", "Check data: the correction changes nothing.", { data: "Change at least one entry, or cancel." });
       const now = clock();
       const ok = inTransaction(db, (d) => {
         const n = repo.addRevision(d, row, body.version, data, body.correctionReason, user);

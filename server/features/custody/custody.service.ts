@@ -25,7 +25,7 @@ export const dayOf = (d: Date) => format(d, "yyyy-MM-dd");
 const readable = (day: string) => format(parseISO(day), "d MMM yyyy");
 
 function invalid(field: string, message: string) {
-  return new AppError(422, "validation_failed", `Check ${field}: ${message}`, { [field]: message });
+  return new AppError("validation_failed", `Check ${field}: ${message}`, { [field]: message });
 }
 
 function eventType(kind: CustodyCreate["kind"]): EventType {

@@ -24,18 +24,18 @@ const pool = workerPool(new URL("./render.worker.ts", import.meta.url), { thread
 export async function renderPdf(document: ReactElement<DocumentProps> | DocumentJob, opts: { timeoutMs?: number } = {}): Promise<{ pdf: Buffer; pages: number }> {
   const task: RenderTask = "doc" in document ? { job: document } : { tree: toHostTree(document) };
   const p = pool.get();
-  if (p.queueSize >= RENDER_QUEUE) throw new AppError(429, "rate_limited", "Too many documents are being prepared right now. Try again in a minute.");
+  if (p.queueSize >= RENDER_QUEUE) throw new AppError("rate_limited", "Too many documents are being prepared right now. Try again in a minute.");
   try {
     const { bytes, pages } = (await p.run(task, { signal: AbortSignal.timeout(opts.timeoutMs ?? RENDER_TIMEOUT_MS) })) as RenderResult;
     return { pdf: Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength), pages };
   } catch (e) {
     const name = (e as Error)?.name;
     if (name === "AbortError" || name === "TimeoutError") {
-      throw new AppError(503, "unavailable", "This document took too long to prepare and was stopped. Try a smaller selection (fewer objects or mountings), or try again later.");
+      throw new AppError("unavailable", "This document took too long to prepare and was stopped. Try a smaller selection (fewer objects or mountings), or try again later.");
     }
     const message = String((e as Error)?.message);
     if (message.startsWith(NOT_FOUND_IN_WORKER)) throw notFound(message.slice(NOT_FOUND_IN_WORKER.length));
-    if (/queue is at limit/i.test(message)) throw new AppError(429, "rate_limited", "Too many documents are being prepared right now. Try again in a minute.");
+    if (/queue is at limit/i.test(message)) throw new AppError("rate_limited", "Too many documents are being prepared right now. Try again in a minute.");
     throw e;
   }
 }

@@ -156,12 +156,12 @@ export function selectionDocumentsRoutes(db: Db, clock: () => Date, address: { p
     else {
       const where = objectFilterWhere(filter, null);
       ids = db.select({ id: objects.id }).from(objects).where(where.length ? and(...where) : undefined).limit(LABEL_SHEET_MAX + 1).all().map((o) => o.id);
-      if (ids.length > LABEL_SHEET_MAX) throw new AppError(400, "validation_failed", `At most ${LABEL_SHEET_MAX} labels at once: these filters match more. Narrow them (an owner, a status) and print in parts.`);
+      if (ids.length > LABEL_SHEET_MAX) throw new AppError("validation_failed", `At most ${LABEL_SHEET_MAX} labels at once: these filters match more. Narrow them (an owner, a status) and print in parts.`);
     }
     const labels: LabelData[] = [];
     for (const id of ids) labels.push(await labelFor(id).catch(() => Promise.reject(notFound("One of those objects"))));
     labels.sort((a, b) => a.objectNumber.localeCompare(b.objectNumber));
-    if (labels.length === 0) throw new AppError(400, "validation_failed", objectIds ? "Choose at least one object." : "No object matches these filters: there is nothing to label.");
+    if (labels.length === 0) throw new AppError("validation_failed", objectIds ? "Choose at least one object." : "No object matches these filters: there is nothing to label.");
     const doc = await docs.issue({
       kind: "label-sheet",
       title: `Sheet of back labels — ${labels.length} object${labels.length === 1 ? "" : "s"}`,

@@ -11,12 +11,12 @@ const pool = workerPool(new URL("./export.worker.ts", import.meta.url), { thread
 /** Gathers datasets off the request thread (export.worker.ts). Too many waiting → 429; too slow → 503. */
 export async function gatherInWorker(db: Db, task: Omit<GatherTask, "databaseFile">): Promise<Gathered> {
   const p = pool.get();
-  if (p.queueSize >= EXPORT_QUEUE) throw new AppError(429, "rate_limited", "Too many exports are being prepared right now. Try again in a minute.");
+  if (p.queueSize >= EXPORT_QUEUE) throw new AppError("rate_limited", "Too many exports are being prepared right now. Try again in a minute.");
   try {
     return (await p.run({ ...task, databaseFile: db.$client.name } satisfies GatherTask, { signal: AbortSignal.timeout(EXPORT_TIMEOUT_MS) })) as Gathered;
   } catch (e) {
     const name = (e as Error)?.name;
-    if (name === "AbortError" || name === "TimeoutError") throw new AppError(503, "unavailable", "This export took too long to prepare and was stopped. Try again later, or export one dataset at a time.");
+    if (name === "AbortError" || name === "TimeoutError") throw new AppError("unavailable", "This export took too long to prepare and was stopped. Try again later, or export one dataset at a time.");
     throw e;
   }
 }

@@ -427,7 +427,7 @@ export type Table = { dataset: Dataset; columns: string[]; rows: Row[] };
 
 /** The valuations dataset needs "valuation:read" as well as the right to read the client. */
 export function assertMayExport(user: SessionUser, client: ClientRecord, dataset: Dataset): void {
-  if (dataset === "valuations" && !can(user, "valuation:read", { clientId: client.id })) throw new AppError(403, "forbidden", "Valuations are confidential; your role does not allow exporting them.");
+  if (dataset === "valuations" && !can(user, "valuation:read", { clientId: client.id })) throw new AppError("forbidden", "Valuations are confidential; your role does not allow exporting them.");
 }
 
 /**

@@ -16,7 +16,7 @@ import type { Db as DbT } from "../../db/client.ts";
 
 function impossible(fields: Record<string, string>) {
   const first = Object.entries(fields)[0];
-  return new AppError(422, "validation_failed", first ? `Check ${first[0]}: ${first[1]}` : "The plan cannot be computed.", fields);
+  return new AppError("validation_failed", first ? `Check ${first[0]}: ${first[1]}` : "The plan cannot be computed.", fields);
 }
 
 /** The plan, or a 422 whose field paths name the request body's own fields (`at` is where the plan input sits). */

@@ -51,13 +51,13 @@ export function createMountingsService(db: Db) {
     if (!r.ok) {
       const fields = Object.fromEntries(Object.entries(r.fields).map(([k, v]) => [`${prefix}${k}`, v]));
       const first = Object.entries(fields)[0];
-      throw new AppError(422, "validation_failed", `Check ${first[0]}: ${first[1]}`, fields);
+      throw new AppError("validation_failed", `Check ${first[0]}: ${first[1]}`, fields);
     }
     if (opts.built) {
       const bad = r.plan.findings.filter((f) => f.severity === "error" && UNBUILDABLE.has(f.code));
       if (bad.length) {
         const fields = Object.fromEntries(bad.map((f) => [`${prefix}${f.field ?? "window"}`, f.message]));
-        throw new AppError(422, "validation_failed", `This mount cannot be built as planned: ${bad[0].message}`, fields);
+        throw new AppError("validation_failed", `This mount cannot be built as planned: ${bad[0].message}`, fields);
       }
     }
     return r.plan;
@@ -202,7 +202,7 @@ export function createMountingsService(db: Db) {
       const before = MountingDataSchema.parse(repo.revision(db, id, row.currentRevision)!.data);
       planFor(body.data, o, { built: true });
       const changes = diffValues(before, body.data);
-      if (changes.length === 0) throw new AppError(422, "validation_failed", "Check data: the correction changes nothing.", { data: "Change at least one entry, or cancel." });
+      if (changes.length === 0) throw new AppError("validation_failed", "Check data: the correction changes nothing.", { data: "Change at least one entry, or cancel." });
       const ok = inTransaction(db, (d) => {
         const n = repo.addRevision(d, row, body.version, body.data, body.correctionReason, user);
         if (n === null) return false;

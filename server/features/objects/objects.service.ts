@@ -60,7 +60,7 @@ function duplicateNumber(objectNumber: string) {
 
 function requireClient(db: Db, clientId: string) {
   if (!findClient(db, clientId)) {
-    throw new AppError(422, "validation_failed", "Check clientId: that owner does not exist.", { clientId: "Choose an owner from the list." });
+    throw new AppError("validation_failed", "Check clientId: that owner does not exist.", { clientId: "Choose an owner from the list." });
   }
 }
 
@@ -115,7 +115,7 @@ export function createObjectsService(db: Db) {
       const { version, ...changes } = data;
       // Whereabouts change only through custody receipts, so every move is in the object's history with who and when.
       if (changes.status !== undefined && changes.status !== current.status) {
-        throw new AppError(422, "validation_failed", "Check status: an object's whereabouts change only through a custody receipt.", {
+        throw new AppError("validation_failed", "Check status: an object's whereabouts change only through a custody receipt.", {
           status: "Record the hand-over in the object's Custody section; the status follows from it.",
         });
       }

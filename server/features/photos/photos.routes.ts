@@ -51,7 +51,7 @@ export function photoRoutes(db: Db, config: Pick<Config, "uploadsDir" | "maxUplo
         if (err.code === "LIMIT_FILE_SIZE") return next(tooLarge(config.maxUploadMb));
         if (err.code === "LIMIT_FILE_COUNT" || err.code === "LIMIT_UNEXPECTED_FILE")
           return next(fileProblem("Send one photo per request, in the form field “file”."));
-        return next(new AppError(422, "validation_failed", "The upload form has too many or too long fields. Send the photo with its kind, caption and report only."));
+        return next(new AppError("validation_failed", "The upload form has too many or too long fields. Send the photo with its kind, caption and report only."));
       }
       // busboy: a body cut off or not multipart as it claims.
       next(fileProblem("The upload did not arrive whole; the connection may have dropped. Try again."));

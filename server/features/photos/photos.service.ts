@@ -110,12 +110,12 @@ const typeName = (mime: string) => TYPE_NAMES[mime] ?? `a file of type ${mime}`;
 const isAccepted = (mime: string): mime is AcceptedMime => Object.hasOwn(PHOTO_TYPES, mime);
 
 export function fileProblem(message: string): AppError {
-  return new AppError(422, "validation_failed", message, { file: message });
+  return new AppError("validation_failed", message, { file: message });
 }
 
 export function tooLarge(maxUploadMb: number): AppError {
   const message = `This file is larger than ${maxUploadMb.toLocaleString("en-GB")} MB, the most Reversa accepts for one photo. Export it at a smaller size or as a JPEG, then upload it again.`;
-  return new AppError(413, "payload_too_large", message, { file: message });
+  return new AppError("payload_too_large", message, { file: message });
 }
 
 /** What the client said the file is: by its name's ending and by the type its browser sent. */
@@ -356,7 +356,7 @@ export function createPhotosService(db: Db, storage: Storage, limits: PhotoLimit
         const report = repo.findReport(db, body.reportId);
         if (!report || report.objectId !== objectId) {
           const message = "That condition report is not one of this object's reports.";
-          throw new AppError(422, "validation_failed", `Check reportId: ${message}`, { reportId: message });
+          throw new AppError("validation_failed", `Check reportId: ${message}`, { reportId: message });
         }
       }
       if (!file) throw fileProblem("Choose a photo to upload: no file came with the request.");

@@ -34,11 +34,11 @@ export function sessionRoutes(auth: Auth, sessions: SessionResolver, signedIn: (
     });
     if (!response.ok) {
       if (response.status === 401 || response.status === 400) {
-        throw new AppError(401, "unauthenticated", "That e-mail address and password do not match an account. Check both and try again.", {
+        throw new AppError("unauthenticated", "That e-mail address and password do not match an account. Check both and try again.", {
           password: "E-mail address or password is wrong.",
         });
       }
-      throw new AppError(response.status === 403 ? 403 : 500, response.status === 403 ? "forbidden" : "internal", "Sign-in failed; try again.");
+      throw new AppError(response.status === 403 ? "forbidden" : "internal", "Sign-in failed; try again.");
     }
     forwardCookies(response, res);
     signedIn(body.email);

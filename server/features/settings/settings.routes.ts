@@ -18,7 +18,7 @@ export const LOGO_MAX_PX = 4000;
 /** Logos are stored as PNGs at most this wide: plenty for ~28 pt in a PDF header. */
 export const LOGO_STORED_WIDTH = 600;
 
-const logoProblem = (message: string) => new AppError(422, "validation_failed", message, { file: message });
+const logoProblem = (message: string) => new AppError("validation_failed", message, { file: message });
 
 /** Checks an uploaded logo from its bytes and re-encodes it as a small PNG without metadata. */
 export async function prepareLogo(bytes: Buffer): Promise<Buffer> {

@@ -21,14 +21,14 @@ export function userRoutes(db: Db) {
       const c = findClient(db, body.clientId);
       const kind = body.role === "collector" ? "private" : "institution";
       if (!c || c.kind !== kind) {
-        throw new AppError(422, "validation_failed", "Check clientId: choose a client of the right kind.", {
+        throw new AppError("validation_failed", "Check clientId: choose a client of the right kind.", {
           clientId: body.role === "collector" ? "Choose a private owner." : "Choose an institution.",
         });
       }
     }
     if (findUserByEmail(db, body.email)) throw emailTaken(body.email);
     const weak = await passwordProblem(body.password, [body.email, body.name, getSettings(db).studioName]);
-    if (weak) throw new AppError(422, "validation_failed", `Check password: ${weak}`, { password: weak });
+    if (weak) throw new AppError("validation_failed", `Check password: ${weak}`, { password: weak });
     const id = await insertUser(db, body);
     res.status(201).json(listUsers(db).find((u) => u.id === id));
   });
