@@ -92,7 +92,7 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
   }
 
   function toRevision(r: repo.RevisionRow): ConditionRevision {
-    return { revision: r.revision, data: r.data as ConditionData, correctionReason: r.correctionReason, createdAt: r.createdAt.toISOString(), createdByName: r.createdByName };
+    return { revision: r.revision, data: r.data, correctionReason: r.correctionReason, createdAt: r.createdAt.toISOString(), createdByName: r.createdByName };
   }
 
   function toReport(row: repo.ReportRow, o: ObjectRow, rev?: repo.RevisionRow): ConditionReport {
@@ -208,7 +208,7 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
     updateDraft(user: SessionUser, id: string, body: ConditionCreate & { version: number }): ConditionReport {
       const { row, o } = write(user, id);
       if (row.status !== "draft") throw conflict("This condition report is signed and locked; make a correction instead, with a reason.");
-      const data = checkContent(user, o, body, repo.revision(db, id, 1)!.data as ConditionData);
+      const data = checkContent(user, o, body, repo.revision(db, id, 1)!.data);
       const ok = inTransaction(db, (t) => repo.updateDraft(t, row, body.version, { ...body, data }));
       if (!ok) throw conflict(STALE);
       return toReport(repo.findReport(db, id)!, o);
@@ -218,7 +218,7 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
       const { row, o } = write(user, id);
       if (row.status !== "draft") throw conflict("This condition report is already signed.");
       if (row.version !== version) throw conflict(STALE);
-      const data = repo.revision(db, id, row.currentRevision)!.data as ConditionData;
+      const data = repo.revision(db, id, row.currentRevision)!.data;
       const missing = signatureFields(row.context, data);
       if (Object.keys(missing).length) throw invalid(missing);
       const now = clock();
@@ -258,7 +258,7 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
       const { row, o } = write(user, id);
       if (row.status === "draft") throw conflict("A draft is edited directly; corrections are for signed reports.");
       if (row.version !== body.version) throw conflict(STALE);
-      const before = repo.revision(db, id, row.currentRevision)!.data as ConditionData;
+      const before = repo.revision(db, id, row.currentRevision)!.data;
       const data = checkContent(user, o, { data: body.data }, before);
       const missing = signatureFields(row.context, data);
       if (Object.keys(missing).length) throw invalid(missing);

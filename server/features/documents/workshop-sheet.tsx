@@ -26,7 +26,7 @@ export type MountingDetail = {
 export function mountingDetail(db: Db, row: MountingRow): MountingDetail | null {
   const rev = revision(db, row.id, row.currentRevision);
   if (!rev) return null;
-  const data = rev.data as MountingData;
+  const data = rev.data;
   const o = findObject(db, row.objectId);
   if (!o) return null;
   return { row, data, result: recordPlan(data, o, getSettings(db)) };

@@ -266,7 +266,7 @@ function mountingRows(db: Db, user: SessionUser, objs: ObjectRow[]): Row[] {
   const settings = { ...getSettings(db), unit: "mm" as const };
   return rows.map(({ m, data }) => {
     const o = byId.get(m.objectId)!;
-    const d = data as MountingData;
+    const d = data;
     const board = (b: MountingData["boards"]["window"] | undefined) =>
       b ? `${label(BOARD_GRADE_LABELS, b.grade)}, ${b.ply} ply${b.buffered ? ", buffered" : ", unbuffered"}${b.colour ? `, ${b.colour}` : ""}` : null;
     return {
@@ -350,7 +350,7 @@ function conditionRows(db: Db, user: SessionUser, objs: ObjectRow[]): Row[] {
   rows.sort((a, b) => cmp(byId.get(a.r.objectId)!.objectNumber, byId.get(b.r.objectId)!.objectNumber));
   return rows.map(({ r, data }) => {
     const o = byId.get(r.objectId)!;
-    const d = data as ConditionData;
+    const d = data;
     return {
       "Object number": o.objectNumber,
       Title: o.title,

@@ -18,7 +18,7 @@ export function canonicalJson(value: unknown): string {
 }
 
 /** `occurredOn` joins the hash only when present, so events written before it existed still verify. */
-type HashedContent = { objectId: string; type: string; at: number; actorId: string | null; actorName: string; summary: string; data: unknown; prevHash: string | null; occurredOn?: string };
+type HashedContent = { objectId: string; type: string; at: number; actorId: string | null; actorName: string; summary: string; data: Record<string, unknown>; prevHash: string | null; occurredOn?: string };
 
 /**
  * The event's hash: HMAC-SHA256, keyed with the history key, over its content and the previous event's
@@ -104,7 +104,7 @@ export function appendEvent(db: Db, e: { objectId: string; type: EventType; acto
   const hash = eventHash(content, ring.key);
   const row = db
     .insert(events)
-    .values({ ...content, at: new Date(content.at), data: content.data as Record<string, unknown>, hash })
+    .values({ ...content, at: new Date(content.at), data: content.data, hash })
     .returning({ seq: events.seq })
     .get();
   db.update(objects).set({ historyHead: hash }).where(eq(objects.id, e.objectId)).run();
@@ -113,7 +113,7 @@ export function appendEvent(db: Db, e: { objectId: string; type: EventType; acto
     ring.scheduled = true;
     queueMicrotask(() => flushCheckpoints(db, ring));
   }
-  return { seq: row.seq, objectId: e.objectId, type: e.type, at: new Date(content.at).toISOString(), occurredOn: content.occurredOn!, actorName: e.actor.name, summary: e.summary, data: content.data as Record<string, unknown>, hash };
+  return { seq: row.seq, objectId: e.objectId, type: e.type, at: new Date(content.at).toISOString(), occurredOn: content.occurredOn!, actorName: e.actor.name, summary: e.summary, data: content.data, hash };
 }
 
 type EventRow = typeof events.$inferSelect;
@@ -126,7 +126,7 @@ const toEvent = (r: EventRow): HistoryEvent => ({
   occurredOn: r.occurredOn ?? r.at.toISOString().slice(0, 10),
   actorName: r.actorName,
   summary: r.summary,
-  data: r.data as Record<string, unknown>,
+  data: r.data,
   hash: r.hash,
 });
 

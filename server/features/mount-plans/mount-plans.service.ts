@@ -46,7 +46,7 @@ export function createMountPlansService(db: Db) {
       objectId: row.objectId,
       status: "draft",
       version: row.version,
-      input: row.input as SavedPlan["input"],
+      input: row.input,
       plan: draftOf(input, o),
       updatedAt: row.updatedAt.toISOString(),
       updatedBy: row.updatedBy,
