@@ -1,7 +1,8 @@
 import { openReadOnly, type DbHandle } from "../../db/client.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
 import { findClient } from "../clients/clients.repo.ts";
-import { buildTable, clientObjects, toCsv, toJson, type Dataset, type ExportFilters, type Format } from "./exports.service.ts";
+import { buildTable, clientObjects, toCsv, toJson } from "./exports.datasets.ts";
+import type { Dataset, ExportFilters, Format } from "../../../shared/schemas/exports.ts";
 
 /** What to gather: datasets of one client's records as `user` may see them, in the given formats. */
 export type GatherTask = { databaseFile: string; user: SessionUser; clientId: string; datasets: Dataset[]; formats: Format[]; filters: ExportFilters };

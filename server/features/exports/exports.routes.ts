@@ -9,7 +9,8 @@ import { notFound } from "../../lib/errors.ts";
 import { assertCan, currentUser } from "../../middleware/require-permission.ts";
 import { input, validate } from "../../middleware/validate.ts";
 import { findClient } from "../clients/clients.repo.ts";
-import { assertMayExport, createExportsService } from "./exports.service.ts";
+import { createExportsService } from "./exports.service.ts";
+import { assertMayExport } from "./exports.datasets.ts";
 import { gatherInWorker } from "./export-pool.ts";
 
 /** Studio staff and the client's own users may export; anyone else is told the client does not exist. */

@@ -1,6 +1,7 @@
 import fs from "node:fs";
 import { describe, expect, it } from "vitest";
-import { DATASETS, EXPORT_COLUMNS, MANIFEST_COLUMNS } from "../../../server/features/exports/exports.service.ts";
+import { DATASETS, MANIFEST_COLUMNS } from "../../../server/features/exports/exports.service.ts";
+import { EXPORT_COLUMNS } from "../../../server/features/exports/exports.columns.ts";
 
 // The contributor rule: every export column is described for the people who receive it (docs/exports.md).
 describe("docs/exports.md", () => {
