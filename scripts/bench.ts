@@ -389,7 +389,9 @@ await calcServer.stop();
   const objectId = objectIds[0];
   const childCode = `
     import fs from "node:fs";
-    import { inspectUpload, renderVersions, createPhotosService } from "./server/features/photos/photos.service.ts";
+    import { inspectUpload } from "./server/features/photos/photos.inspect.ts";
+    import { renderVersions } from "./server/features/photos/photos.versions.ts";
+    import { createPhotosService } from "./server/features/photos/photos.service.ts";
     import { createStorage } from "./server/lib/storage.ts";
     import { openDatabase } from "./server/db/client.ts";
     const { BENCH_PHOTO: file, BENCH_DB: dbFile, BENCH_UPLOADS: uploads, BENCH_OBJECT: objectId, BENCH_USER: userId } = process.env;

@@ -13,7 +13,8 @@ import { AppError, notFound } from "../../lib/errors.ts";
 import { createStorage } from "../../lib/storage.ts";
 import { currentUser } from "../../middleware/require-permission.ts";
 import { input, validate } from "../../middleware/validate.ts";
-import { createPhotosService, fileProblem, tooLarge } from "./photos.service.ts";
+import { createPhotosService } from "./photos.service.ts";
+import { fileProblem, tooLarge } from "./photos.inspect.ts";
 
 
 // Uploads arrive in a private folder of the system's temporary space (made once per process, mode 0700),
