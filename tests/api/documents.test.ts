@@ -11,7 +11,7 @@ import { DEMO_PASSWORD, seedDemo } from "../../server/db/seed.ts";
 import { findObjectIdByNumber } from "../../server/features/objects/objects.repo.ts";
 import { formatMoney } from "../../shared/domain/money.ts";
 import { can } from "../../shared/permissions.ts";
-import { valuationLine } from "../../server/features/documents/condition-pdf.tsx";
+import { valuationLine } from "../../server/features/documents/record-blocks.tsx";
 import type { ObjectRecord } from "../../shared/schemas/objects.ts";
 
 const t = createTestApp();

@@ -18,7 +18,7 @@ import { findReceipt } from "../custody/custody.repo.ts";
 import { findObject } from "../objects/objects.repo.ts";
 import { mountingInPlaceOn } from "../mountings/mountings.repo.ts";
 import { getSettings } from "../settings/settings.repo.ts";
-import { valuationText } from "./condition-pdf.tsx";
+import { valuationText } from "./record-blocks.tsx";
 import { createDocumentsService } from "./documents.service.ts";
 import { mountingDetail } from "./workshop-sheet.tsx";
 

@@ -34,7 +34,9 @@ import { createMountPlansService } from "../mount-plans/mount-plans.service.ts";
 import { createConditionService } from "../condition/condition.service.ts";
 import { findPhoto, listForObject as photosOfObject } from "../photos/photos.repo.ts";
 import { createDocumentsService } from "./documents.service.ts";
-import { Caution, FindingsTable, KV, Lines, para, loadPhoto, NOT_TREATMENT, PhotoGrid, RatingTag, Table, valuationLine, VerdictTag, type LoadedPhoto } from "./condition-pdf.tsx";
+import { Caution, KV, Lines, para, RatingTag, Table, VerdictTag } from "../../lib/pdf/blocks.tsx";
+import { FindingsTable, loadPhoto, PhotoGrid, valuationLine, type LoadedPhoto } from "./record-blocks.tsx";
+import { NOT_TREATMENT } from "./condition-pdf.tsx";
 
 /** Said before the framer's undo notes: the owner keeps the record, the bench does the work. */
 export const UNDO_IS_BENCH_WORK = "For the framer or conservator who will take this mount apart: undoing it is bench work, not something for the owner to try at home. Ask the studio, or a qualified conservator, to do it.";

@@ -1,6 +1,6 @@
 import { Rect, Svg, Text as SvgText, View } from "@react-pdf/renderer";
 import { Text } from "../../lib/pdf/text.tsx";
-import { Mark } from "./condition-pdf.tsx";
+import { Mark } from "../../lib/pdf/blocks.tsx";
 import type { Db } from "../../db/client.ts";
 import type { MountingData, Board } from "../../../shared/schemas/mountings.ts";
 import { ADHESIVE_LABELS, ATTACHMENT_METHOD_LABELS, GLAZING_TYPE_LABELS, MOUNTING_STATUS_LABELS } from "../../../shared/schemas/mountings.ts";

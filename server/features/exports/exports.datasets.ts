@@ -12,7 +12,8 @@ import { ADHESIVE_LABELS, ATTACHMENT_METHOD_LABELS, BOARD_GRADE_LABELS, GLAZING_
 import { CONDITION_CONTEXT_LABELS, RATING_LABELS, SEVERITY_LABELS, type ConditionData } from "../../../shared/schemas/condition.ts";
 import { CUSTODY_KIND_LABELS } from "../../../shared/schemas/custody.ts";
 import { AppError } from "../../lib/errors.ts";
-import { VERDICT_WORDS, whereWords } from "../documents/condition-pdf.tsx";
+import { VERDICT_WORDS } from "../../lib/pdf/blocks.tsx";
+import { whereWords } from "../documents/record-blocks.tsx";
 import { recordPlan, type PlanSettings } from "../../../shared/domain/mounting.ts";
 import type { Verdict } from "../../../shared/schemas/mount-plan.ts";
 import { Row, columnsFor, label, minorToDecimal, text } from "./exports.columns.ts";
