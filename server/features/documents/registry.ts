@@ -2,7 +2,8 @@ import type { ComponentProps } from "react";
 import type { Db } from "../../db/client.ts";
 import type { DocMeta } from "../../lib/pdf/layout.tsx";
 import { BackLabelDocument, LabelSheetDocument } from "./labels.tsx";
-import { loadSchedule, ScheduleDocument, type ScheduleFilter } from "./schedule.tsx";
+import { ScheduleDocument } from "./schedule.tsx";
+import { loadSchedule, type ScheduleFilter } from "./schedule-data.ts";
 import { WorkshopSheetDocument } from "./workshop-sheet.tsx";
 
 /**
