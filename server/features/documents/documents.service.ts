@@ -3,10 +3,9 @@ import { inTransaction } from "../../db/client.ts";
 import type { DocumentProps } from "@react-pdf/renderer";
 import { renderPdf } from "./render-pool.ts";
 import type { DocumentJob } from "./registry.ts";
-import { createHash, randomBytes, randomUUID } from "node:crypto";
-import { and, desc, eq } from "drizzle-orm";
+import { createHash, randomBytes } from "node:crypto";
 import type { Db } from "../../db/client.ts";
-import { issuedDocuments, objects } from "../../db/schema.ts";
+import { findIssuedByCode, insertIssuedDocument, listIssued } from "./documents.repo.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
 import { DOCUMENT_KIND_LABELS, normaliseCode, type DocumentKind, type IssuedDocument, type Verification } from "../../../shared/schemas/documents.ts";
 import type { DocMeta } from "../../lib/pdf/layout.tsx";
@@ -60,9 +59,7 @@ export function createDocumentsService(db: Db, clock: () => Date = () => new Dat
       // The fingerprint the public check shows: the file's SHA-256 and its page count (counted in the worker).
       const sha256 = createHash("sha256").update(pdf).digest("hex");
       inTransaction(db, (tx) => {
-        tx.insert(issuedDocuments)
-          .values({ id: randomUUID(), code, kind: req.kind, title: req.title, objectId: req.objectId ?? null, clientId: req.clientId ?? null, paperSize: settings.paperSize, issuedAt, issuedBy: req.user.id, issuedByName: req.user.name, sha256, pages })
-          .run();
+        insertIssuedDocument(tx, { code, kind: req.kind, title: req.title, objectId: req.objectId ?? null, clientId: req.clientId ?? null, paperSize: settings.paperSize, issuedAt, issuedBy: req.user.id, issuedByName: req.user.name, sha256, pages });
         if (req.objectId && req.inHistory !== false) {
           appendEvent(tx, { objectId: req.objectId, type: "document-issued", actor: req.user, summary: `${DOCUMENT_KIND_LABELS[req.kind]} issued, verification code ${code}.`, data: { code, kind: req.kind }, at: issuedAt });
         }
@@ -74,29 +71,14 @@ export function createDocumentsService(db: Db, clock: () => Date = () => new Dat
     /** Public: whether a code was issued, of what kind, for which object and when — nothing more. */
     verify(code: string): Verification {
       const norm = normaliseCode(code);
-      const row = db
-        .select({ code: issuedDocuments.code, kind: issuedDocuments.kind, issuedAt: issuedDocuments.issuedAt, objectNumber: objects.objectNumber, sha256: issuedDocuments.sha256, pages: issuedDocuments.pages })
-        .from(issuedDocuments)
-        .leftJoin(objects, eq(objects.id, issuedDocuments.objectId))
-        .where(eq(issuedDocuments.code, norm))
-        .get();
+      const row = findIssuedByCode(db, norm);
       if (!row) return { valid: false, code: norm };
       const kind = row.kind as DocumentKind;
       return { valid: true, code: row.code, kind, kindLabel: DOCUMENT_KIND_LABELS[kind], objectNumber: row.objectNumber ?? null, issuedAt: row.issuedAt.toISOString(), sha256: row.sha256, pages: row.pages };
     },
 
     list(filter: { objectId?: string; clientId?: string } = {}): IssuedDocument[] {
-      const where = [];
-      if (filter.objectId) where.push(eq(issuedDocuments.objectId, filter.objectId));
-      if (filter.clientId) where.push(eq(issuedDocuments.clientId, filter.clientId));
-      return db
-        .select()
-        .from(issuedDocuments)
-        .where(where.length ? and(...where) : undefined)
-        .orderBy(desc(issuedDocuments.issuedAt))
-        .limit(500)
-        .all()
-        .map((r) => ({ id: r.id, code: r.code, kind: r.kind as DocumentKind, title: r.title, objectId: r.objectId, clientId: r.clientId, paperSize: r.paperSize, issuedAt: r.issuedAt.toISOString(), issuedByName: r.issuedByName }));
+      return listIssued(db, filter);
     },
   };
 }

@@ -1,7 +1,4 @@
 import { Router, type Response } from "express";
-import { and } from "drizzle-orm";
-import { objects } from "../../db/schema.ts";
-import { objectFilterWhere } from "../objects/objects.repo.ts";
 import type { Db } from "../../db/client.ts";
 import { IdParamSchema } from "../../../shared/schemas/common.ts";
 import { LABEL_SHEET_MAX, LabelSheetBodySchema, ReceiptParamsSchema, ScheduleBodySchema, WorkshopBodySchema } from "../../../shared/schemas/documents.ts";
@@ -10,7 +7,7 @@ import { assertCan, currentUser, requirePermission } from "../../middleware/requ
 import { input, validate } from "../../middleware/validate.ts";
 import { findClient } from "../clients/clients.repo.ts";
 import { findMounting } from "../mountings/mountings.repo.ts";
-import { findObject } from "../objects/objects.repo.ts";
+import { findObject, objectIdsMatching } from "../objects/objects.repo.ts";
 import { getSettings } from "../settings/settings.repo.ts";
 import { createDocumentsService } from "./documents.service.ts";
 import { documentJob, loadedDocumentJob } from "./registry.ts";
@@ -154,8 +151,7 @@ export function selectionDocumentsRoutes(db: Db, clock: () => Date, address: { p
     let ids: string[];
     if (objectIds) ids = [...new Set(objectIds)];
     else {
-      const where = objectFilterWhere(filter, null);
-      ids = db.select({ id: objects.id }).from(objects).where(where.length ? and(...where) : undefined).limit(LABEL_SHEET_MAX + 1).all().map((o) => o.id);
+      ids = objectIdsMatching(db, filter, LABEL_SHEET_MAX + 1);
       if (ids.length > LABEL_SHEET_MAX) throw new AppError("validation_failed", `At most ${LABEL_SHEET_MAX} labels at once: these filters match more. Narrow them (an owner, a status) and print in parts.`);
     }
     const labels: LabelData[] = [];

@@ -106,6 +106,12 @@ export function listObjects(db: Db, query: ObjectListQuery, scopeClientId: strin
   return { items, total: count() };
 }
 
+/** The ids of the objects a register filter matches, at most `limit` of them. */
+export function objectIdsMatching(db: Db, filter: ObjectFilter, limit: number): string[] {
+  const where = objectFilterWhere(filter, null);
+  return db.select({ id: objects.id }).from(objects).where(where.length ? and(...where) : undefined).limit(limit).all().map((o) => o.id);
+}
+
 export function findObject(db: Db, id: string): ObjectRow | null {
   const row = db
     .select({ o: objects, clientName: clients.name })
