@@ -2,7 +2,7 @@ import { useEffect, useState } from "react";
 import { Button } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
 import { api } from "@/lib/api-client.ts";
-import { downloadFile } from "@/lib/download.ts";
+import { download } from "@/lib/api-client.ts";
 
 const DATASETS = [
   { id: "objects", label: "Objects" },
@@ -30,7 +30,7 @@ export function ExportsPanel({ clientId, showValuations, mayTakeOriginals = fals
         if (stop) return;
         setJob(j);
         if (j.state === "running") setTimeout(tick, 500);
-        else if (j.state === "done") await downloadFile(`/api/exports/${encodeURIComponent(jobId)}/download`, { method: "GET", fallbackName: "reversa-archive.zip" });
+        else if (j.state === "done") await download(`/api/exports/${encodeURIComponent(jobId)}/download`, { method: "GET", fallbackName: "reversa-archive.zip" });
       } catch (e) {
         if (!stop) setError(e instanceof Error ? e.message : String(e));
       }
@@ -44,7 +44,7 @@ export function ExportsPanel({ clientId, showValuations, mayTakeOriginals = fals
   const get = async (dataset: string, format: "csv" | "json") => {
     setError(null);
     try {
-      await downloadFile(`/api/clients/${encodeURIComponent(clientId)}/exports/${dataset}.${format}`, { method: "GET", fallbackName: `${dataset}.${format}` });
+      await download(`/api/clients/${encodeURIComponent(clientId)}/exports/${dataset}.${format}`, { method: "GET", fallbackName: `${dataset}.${format}` });
     } catch (e) {
       setError(e instanceof Error ? e.message : String(e));
     }
