@@ -12,7 +12,7 @@ import { useRemoveLogo, useSaveSettings, useSettings, useUploadLogo } from "@/fe
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
 import { Button } from "@/components/ui/button.tsx";
 import { Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
-import { ApiError } from "@/lib/api-client.ts";
+import { useServerErrors } from "@/lib/form-errors.ts";
 import { useSaveTerm, useTerms } from "@/features/condition/api/condition.ts";
 import { UsersPanel } from "@/features/settings/components/users-panel.tsx";
 import { useClients } from "@/features/clients/api/clients.ts";
@@ -21,13 +21,9 @@ function SettingsForm({ initial, readOnly }: { initial: StudioSettings; readOnly
   const save = useSaveSettings();
   const form = useForm<SettingsInput, unknown, StudioSettings>({ resolver: zodResolver(StudioSettingsSchema), defaultValues: initial });
   const e = form.formState.errors;
+  const server = useServerErrors(form);
   const submit = form.handleSubmit(async ({ framePresets: _kept, ...values }) => {
-    try {
-      await save.mutateAsync(values);
-      form.reset(values as SettingsInput);
-    } catch (err) {
-      if (err instanceof ApiError) for (const [k, m] of Object.entries(err.fields)) form.setError(k as keyof SettingsInput, { message: m });
-    }
+    if (await server.run(() => save.mutateAsync(values))) form.reset(values as SettingsInput);
   });
   return (
     <form onSubmit={submit} noValidate className="max-w-3xl space-y-4">

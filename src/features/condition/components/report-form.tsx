@@ -24,8 +24,7 @@ import { issuesToFields } from "@shared/schemas/errors.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
 import { Button } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
-import { ApiError } from "@/lib/api-client.ts";
-import { errorAt, nestedErrors } from "@/lib/form-errors.ts";
+import { errorAt, nestedErrors, useServerErrors } from "@/lib/form-errors.ts";
 import { PhotoMarkers } from "./photo-markers.tsx";
 
 export type ReportFormValues = {
@@ -97,10 +96,10 @@ export function ReportForm({ mode, objectType, photos, terms, mountings, examine
         },
   };
   const form = useForm<ReportFormValues, unknown, Submit>({ defaultValues: defaults, resolver: resolver(mode) });
-  const { register, control, setValue, getValues, formState, setError } = form;
+  const { register, control, setValue, getValues, formState } = form;
+  const server = useServerErrors(form);
   const findings = useFieldArray({ control, name: "data.findings", keyName: "_key" });
   const v = useWatch({ control }) as ReportFormValues;
-  const [serverError, setServerError] = useState<string | null>(null);
   const [selected, setSelected] = useState<string | null>(null);
   const reportPhotos = photos.filter((p) => (v.data.photoIds ?? []).includes(p.id));
   const [shownPhoto, setShownPhoto] = useState<string | null>(null);
@@ -126,21 +125,12 @@ export function ReportForm({ mode, objectType, photos, terms, mountings, examine
   }
   const indexOf = (id: string) => (getValues("data.findings") ?? []).findIndex((f) => f.id === id);
 
-  const submit = form.handleSubmit(async (values) => {
-    setServerError(null);
-    try {
-      await onSubmit(values);
-    } catch (x) {
-      const e = x instanceof ApiError ? x : new ApiError(0, "internal", String(x));
-      setServerError(e.message);
-      for (const [k, m] of Object.entries(e.fields)) setError(k as Path<ReportFormValues>, { type: "server", message: m });
-    }
-  });
+  const submit = form.handleSubmit((values) => server.run(() => onSubmit(values)));
 
   return (
     <form onSubmit={submit} noValidate className="grid gap-6 xl:grid-cols-[minmax(26rem,34rem)_1fr]" aria-label="Condition report">
       <div className="space-y-4">
-        {serverError && <Notice tone="fail" title="Not saved">{serverError}</Notice>}
+        {server.error && <Notice tone="fail" title="Not saved">{server.error.message}</Notice>}
         {mode === "correct" && (
           <div className="rounded-card bg-paper-sheet p-4 shadow-card">
             <Notice tone="info" title="A correction">The signed report stays as it was; this saves a new revision with your reason.</Notice>

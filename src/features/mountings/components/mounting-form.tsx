@@ -1,5 +1,5 @@
-import { useMemo, useState } from "react";
-import { useFieldArray, useForm, useWatch, type Path, type Resolver } from "react-hook-form";
+import { useMemo } from "react";
+import { useFieldArray, useForm, useWatch, type Resolver } from "react-hook-form";
 import { format } from "date-fns";
 import {
   BACKING_TYPES,
@@ -26,8 +26,7 @@ import { Button } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
 import { PlanDrawing } from "@/components/plan-drawing.tsx";
 import { ChecksList, LevelBadge } from "@/components/checks-list.tsx";
-import { ApiError } from "@/lib/api-client.ts";
-import { errorAt, nestedErrors } from "@/lib/form-errors.ts";
+import { errorAt, nestedErrors, useServerErrors } from "@/lib/form-errors.ts";
 import { ADHESIVE_LABELS, ATTACHMENT_METHOD_LABELS as ATTACHMENT_LABELS } from "@shared/schemas/mountings.ts";
 
 type FormData = Omit<MountingDataInput, "plan">;
@@ -86,10 +85,10 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
     data: initial ? stripPlan(initial.data) : emptyMountingData(planInput, hasTop),
   };
   const form = useForm<MountingFormValues, unknown, MountingCreate & { correctionReason: string }>({ defaultValues: defaults, resolver: resolverFor(planInput, mode) });
-  const { register, control, setValue, getValues, formState, setError } = form;
+  const { register, control, setValue, getValues, formState } = form;
+  const server = useServerErrors(form);
   const hinges = useFieldArray({ control, name: "data.attachment.hinges" });
   const watched = useWatch({ control }) as MountingFormValues;
-  const [serverError, setServerError] = useState<string | null>(null);
   const e = formState.errors;
   const err = (p: string) => errorAt(e, p);
 
@@ -123,16 +122,7 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
     hinges.replace(Array.from({ length: n }, (_, i) => ({ edge: "top" as const, offsetMm: Math.round(((i + 0.5) * w) / n - width / 2), widthMm: width })));
   }
 
-  const submit = form.handleSubmit(async (values) => {
-    setServerError(null);
-    try {
-      await onSubmit(values);
-    } catch (x) {
-      const apiError = x instanceof ApiError ? x : new ApiError(0, "internal", String(x));
-      setServerError(apiError.message);
-      for (const [k, message] of Object.entries(apiError.fields)) setError(k as Path<MountingFormValues>, { type: "server", message });
-    }
-  });
+  const submit = form.handleSubmit((values) => server.run(() => onSubmit(values)));
 
   const Board = ({ role, label }: { role: "window" | "backing" | "top"; label: string }) => (
     <fieldset className="rounded-card border border-stone-light p-3">
@@ -161,7 +151,7 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
   return (
     <div className="grid gap-6 xl:grid-cols-[minmax(24rem,30rem)_1fr]">
       <form onSubmit={submit} noValidate className="space-y-4" aria-label="Mounting record">
-        {serverError && <Notice tone="fail" title="Not saved">{serverError}</Notice>}
+        {server.error && <Notice tone="fail" title="Not saved">{server.error.message}</Notice>}
         {mode === "correct" && (
           <div className="rounded-card bg-paper-sheet p-4 shadow-card">
             <Notice tone="info" title="A correction">The completed record stays as it was; this saves a new revision with your reason, and both stay readable.</Notice>

@@ -22,7 +22,7 @@ import { issuesToFields } from "@shared/schemas/errors.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
 import { Button } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
-import { ApiError } from "@/lib/api-client.ts";
+import { useServerErrors } from "@/lib/form-errors.ts";
 
 const LENGTHS = ["sheetWidthMm", "sheetHeightMm", "borderLeftMm", "borderTopMm", "borderRightMm", "borderBottomMm"] as const;
 type LengthKey = (typeof LENGTHS)[number];
@@ -120,9 +120,11 @@ type Props = {
 
 export function ObjectForm({ defaultValues, studioUnit, clients, canEditOwner, showValuation, statusLocked = false, submitLabel, onSubmit, onCancel }: Props) {
   const [unit, setUnit] = useState<Unit>(studioUnit);
-  const [serverError, setServerError] = useState<ApiError | null>(null);
   const form = useForm<ObjectFormValues, unknown, ObjectCreate>({ defaultValues, resolver: objectResolver(() => unit), mode: "onTouched" });
-  const { register, formState, setError, getValues, setValue, watch } = form;
+  // Field messages from the server go beside their fields; everything typed stays in the form.
+  const server = useServerErrors(form, { accept: (k) => k in defaultValues, focus: true });
+  const serverError = server.error;
+  const { register, formState, getValues, setValue, watch } = form;
   const e = formState.errors;
   const isPhoto = watch("objectType") === "photograph";
 
@@ -136,19 +138,7 @@ export function ObjectForm({ defaultValues, studioUnit, clients, canEditOwner, s
     setUnit(next);
   }
 
-  const submit = form.handleSubmit(async (values) => {
-    setServerError(null);
-    try {
-      await onSubmit(values);
-    } catch (err) {
-      const apiError = err instanceof ApiError ? err : new ApiError(0, "internal", String(err));
-      setServerError(apiError);
-      // Field messages from the server go beside their fields; everything typed stays in the form.
-      for (const [k, message] of Object.entries(apiError.fields)) {
-        if (k in defaultValues) setError(k as keyof ObjectFormValues, { type: "server", message }, { shouldFocus: true });
-      }
-    }
-  });
+  const submit = form.handleSubmit((values) => server.run(() => onSubmit(values)));
 
   const lengthHint = unit === "in" ? "Inches: 7 5/8, 7-5/8 or 7.625" : "Millimetres";
 

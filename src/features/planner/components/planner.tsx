@@ -13,6 +13,7 @@ import { convertLength, defaultValues, fieldForPath, LENGTH_FIELDS, ROUND_UP_FIE
 import { PlanDrawing } from "@/components/plan-drawing.tsx";
 import { ADHESIVE_LABELS, ATTACHMENT_METHOD_LABELS } from "@shared/schemas/mountings.ts";
 import { ChecksList, FindingsList, LevelBadge } from "@/components/checks-list.tsx";
+import { useServerErrors } from "@/lib/form-errors.ts";
 
 export type PlannerSettings = {
   unit: Unit;
@@ -59,7 +60,7 @@ export function Planner({ settings, initial, context, onSave, saveState }: Props
   const unit = values.unit;
   const canonical = useRef<Record<string, { text: string; mm: number }>>({});
   const [saving, setSaving] = useState(false);
-  const [saveError, setSaveError] = useState<string | null>(null);
+  const server = useServerErrors(form);
 
   const { input, result } = useMemo(() => compute(values, settings), [values, settings]);
   const errors = useMemo(() => {
@@ -107,14 +108,8 @@ export function Planner({ settings, initial, context, onSave, saveState }: Props
   async function save() {
     if (!onSave) return;
     setSaving(true);
-    setSaveError(null);
-    try {
-      await onSave(input);
-    } catch (e) {
-      setSaveError(e instanceof Error ? e.message : String(e));
-    } finally {
-      setSaving(false);
-    }
+    await server.run(() => onSave(input));
+    setSaving(false);
   }
 
   return (
@@ -301,7 +296,7 @@ export function Planner({ settings, initial, context, onSave, saveState }: Props
                 <Button variant="secondary" onClick={() => window.print()}>Print</Button>
               </div>
             </div>
-            {saveError && <Notice tone="fail" title="Not saved">{saveError}</Notice>}
+            {server.error && <Notice tone="fail" title="Not saved">{server.error.message}</Notice>}
             {saveState}
             <div className="rounded-card bg-paper-sheet p-4 shadow-card print:p-0 print:shadow-none">
               {model && <PlanDrawing model={model} title={`${settings.words.Mount} drawn to scale: window ${plan.display.aperture}, outer ${plan.display.outer}`} />}

@@ -10,6 +10,7 @@ import { SelectField, TextField } from "@/components/ui/field.tsx";
 import { Button } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
 import { api, ApiError } from "@/lib/api-client.ts";
+import { useServerErrors } from "@/lib/form-errors.ts";
 
 type Input = z.input<typeof UserCreateSchema>;
 
@@ -22,15 +23,13 @@ export function UsersPanel({ clients }: { clients: ClientRecord[] }) {
   const form = useForm<Input, unknown, UserCreate>({ resolver: zodResolver(UserCreateSchema), defaultValues: { name: "", email: "", role: "framer", clientId: null, password: "" } });
   const role = form.watch("role");
   const e = form.formState.errors;
+  const server = useServerErrors(form);
   const submit = form.handleSubmit(async (v) => {
     setDone(null);
-    try {
-      const u = await create.mutateAsync(v);
-      setDone(`${u.name} can now sign in as ${u.email}.`);
-      form.reset({ name: "", email: "", role: v.role, clientId: null, password: "" });
-    } catch (x) {
-      if (x instanceof ApiError) for (const [k, m] of Object.entries(x.fields)) form.setError(k as keyof Input, { message: m });
-    }
+    const u = await server.run(() => create.mutateAsync(v));
+    if (!u) return;
+    setDone(`${u.name} can now sign in as ${u.email}.`);
+    form.reset({ name: "", email: "", role: v.role, clientId: null, password: "" });
   });
   const choices = clients.filter((c) => (role === "collector" ? c.kind === "private" : c.kind === "institution"));
   return (
