@@ -1,12 +1,13 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import type { Photo, PhotoKind } from "@shared/schemas/photos.ts";
 import { api, ApiError, qs, upload, type UploadProgress } from "@/lib/api-client.ts";
+import { rootKeys } from "@/lib/query-keys.ts";
 
 const objectPath = (objectId: string) => `/api/objects/${encodeURIComponent(objectId)}/photos`;
 
 export const photoKeys = {
-  all: ["photos"] as const,
-  object: (objectId: string, reportId?: string) => ["photos", "object", objectId, reportId ?? "all"] as const,
+  all: rootKeys.photos,
+  object: (objectId: string, reportId?: string) => [...rootKeys.photos, "object", objectId, reportId ?? "all"] as const,
 };
 
 /** One object's photos (or only one condition report's), oldest first. */

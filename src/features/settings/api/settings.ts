@@ -2,9 +2,12 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/r
 import type { StudioSettings, StudioSettingsRecord } from "@shared/schemas/settings.ts";
 import { vocab } from "@shared/schemas/settings.ts";
 import { api, ApiError, upload } from "@/lib/api-client.ts";
+import { rootKeys } from "@/lib/query-keys.ts";
+
+export const settingsKeys = { all: rootKeys.settings };
 
 export const settingsQuery = queryOptions({
-  queryKey: ["settings"],
+  queryKey: settingsKeys.all,
   queryFn: () => api.get<StudioSettingsRecord>("/api/settings"),
   staleTime: 5 * 60_000,
 });
