@@ -1,5 +1,5 @@
 import { Link, useSearchParams } from "react-router";
-import { format } from "date-fns";
+import { studioToday } from "@/lib/today.ts";
 import { CONDITION_CONTEXTS, CONDITION_CONTEXT_LABELS, RATINGS, RATING_LABELS } from "@shared/schemas/condition.ts";
 import { useConditionRegister } from "@/features/condition/api/condition.ts";
 import { RatingBadge } from "@/features/condition/components/report-view.tsx";
@@ -13,7 +13,7 @@ export function Component() {
   const [params, setParams] = useSearchParams();
   const get = (k: string) => params.get(k) ?? undefined;
   const page = Number(params.get("page") ?? 1) || 1;
-  const q = useConditionRegister({ rating: get("rating"), context: get("context"), from: get("from"), to: get("to"), examinerId: get("examiner"), unresolved: get("unresolved"), dueBy: get("due") ? format(new Date(), "yyyy-MM-dd") : undefined, page, pageSize: 50 });
+  const q = useConditionRegister({ rating: get("rating"), context: get("context"), from: get("from"), to: get("to"), examinerId: get("examiner"), unresolved: get("unresolved"), dueBy: get("due") ? studioToday() : undefined, page, pageSize: 50 });
   const set = (k: string, v: string | undefined) => setParams((p) => { const n = new URLSearchParams(p); v ? n.set(k, v) : n.delete(k); if (k !== "page") n.delete("page"); return n; }, { replace: true });
 
   return (

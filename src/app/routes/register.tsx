@@ -18,7 +18,8 @@ import { ATTACHMENT_METHOD_LABELS, BOARD_GRADE_LABELS, GLAZING_TYPE_LABELS } fro
 import { can, isStudio } from "@shared/permissions.ts";
 import { useMe } from "@/features/session/api/session.ts";
 import { useStudio } from "@/features/settings/api/settings.ts";
-import { localToday, useObjects } from "@/features/objects/api/objects.ts";
+import { useObjects } from "@/features/objects/api/objects.ts";
+import { studioToday } from "@/lib/today.ts";
 import { useClients } from "@/features/clients/api/clients.ts";
 import { ObjectsTable, type SortKey } from "@/features/objects/components/objects-table.tsx";
 import { FilterSelect, SearchInput } from "@/components/ui/field.tsx";
@@ -53,7 +54,8 @@ export function Component() {
   const boardGrade = oneOf<RegisterBoardGrade>(REGISTER_BOARD_GRADES, params.get("board"));
   const glazing = oneOf<RegisterGlazing>(REGISTER_GLAZINGS, params.get("glazing"));
   const due = params.get("due") === "1";
-  const today = localToday();
+  // The server has no clock for "due": a check due today is due wherever the framer is.
+  const today = studioToday();
 
   const update = (changes: Record<string, string | undefined>, resetPage = true) => {
     setParams(

@@ -1,6 +1,6 @@
 import { useMemo, useState } from "react";
 import { useFieldArray, useForm, useWatch, type Path, type Resolver } from "react-hook-form";
-import { format } from "date-fns";
+import { studioToday } from "@/lib/today.ts";
 import {
   CONDITION_CONTEXTS,
   CONDITION_CONTEXT_LABELS,
@@ -77,7 +77,7 @@ type Props = {
 };
 
 export function ReportForm({ mode, objectType, photos, terms, mountings, examinerName, lightNotes, previous, initial, onSubmit, onCancel }: Props) {
-  const today = format(new Date(), "yyyy-MM-dd");
+  const today = studioToday();
   const defaults: ReportFormValues = {
     context: initial?.context ?? "periodic-check",
     reportDate: initial?.reportDate ?? today,

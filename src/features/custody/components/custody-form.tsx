@@ -1,7 +1,7 @@
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
-import { format } from "date-fns";
+import { studioToday } from "@/lib/today.ts";
 import type { z } from "zod";
 import {
   CUSTODY_KINDS,
@@ -106,7 +106,7 @@ function ReceiptForm({ objectId, status, ownerName, studioName, onDone, onCancel
     mode: "onTouched",
     defaultValues: {
       kind: first,
-      date: format(new Date(), "yyyy-MM-dd"),
+      date: studioToday(),
       ...suggestedParties(first, parties),
       condition: "",
       signedBy: "",

@@ -1,6 +1,6 @@
 import { useMemo } from "react";
 import { useFieldArray, useForm, useWatch, type Resolver } from "react-hook-form";
-import { format } from "date-fns";
+import { studioToday } from "@/lib/today.ts";
 import {
   BACKING_TYPES,
   BACKING_TYPE_LABELS,
@@ -80,7 +80,7 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
   const hasTop = !!planInput.doubleMount;
   const defaults: MountingFormValues = {
     reason: initial?.reason ?? "first-mounting",
-    mountedOn: initial?.mountedOn ?? format(new Date(), "yyyy-MM-dd"),
+    mountedOn: initial?.mountedOn ?? studioToday(),
     correctionReason: "",
     data: initial ? stripPlan(initial.data) : emptyMountingData(planInput, hasTop),
   };

@@ -1,7 +1,6 @@
 import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import type { ObjectCreate, ObjectListItem, ObjectListQuery, ObjectRecord, ObjectUpdate } from "@shared/schemas/objects.ts";
 import type { Page } from "@shared/schemas/common.ts";
-import { format } from "date-fns";
 import { api, qs } from "@/lib/api-client.ts";
 import { objectHistoryKey, rootKeys } from "@/lib/query-keys.ts";
 
@@ -14,12 +13,6 @@ export const objectKeys = {
 };
 
 export type ObjectListParams = Partial<ObjectListQuery>;
-
-/**
- * Today in the studio's own time zone, as the register's "due for a check" filter sends it
- * (the server has no clock of its own for it: a check due today is due wherever the framer is).
- */
-export const localToday = (now: Date = new Date()) => format(now, "yyyy-MM-dd");
 
 export const objectListQuery = (params: ObjectListParams) =>
   queryOptions({

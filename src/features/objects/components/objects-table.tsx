@@ -4,7 +4,7 @@ import { OBJECT_TYPE_LABELS } from "@shared/schemas/objects.ts";
 import { ATTACHMENT_METHOD_LABELS, BOARD_GRADE_LABELS, GLAZING_TYPE_LABELS } from "@shared/schemas/mountings.ts";
 import type { Unit } from "@shared/domain/units.ts";
 import { formatDate, sheetSize } from "@/lib/format.ts";
-import { localToday } from "../api/objects.ts";
+import { studioToday } from "@/lib/today.ts";
 import { StatusBadge } from "./status-badge.tsx";
 
 export type SortKey = "objectNumber" | "title" | "maker" | "status" | "updatedAt" | "lastMountedOn" | "checkDueOn";
@@ -75,7 +75,7 @@ function CheckDue({ on, today }: { on: string | null; today?: string }) {
 }
 
 /** The register table: object number first and linked, numbers and dates right-aligned, quiet rules. */
-export function ObjectsTable({ items, unit, sort, dir, onSort, showOwner = true, today = localToday() }: Props) {
+export function ObjectsTable({ items, unit, sort, dir, onSort, showOwner = true, today = studioToday() }: Props) {
   return (
     <div className="overflow-x-auto">
       <table className="w-full border-collapse text-sm">
