@@ -21,6 +21,7 @@ import { minorDigits, parseMoney } from "@shared/domain/money.ts";
 import { issuesToFields } from "@shared/schemas/errors.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
 import { Button } from "@/components/ui/button.tsx";
+import { Segmented } from "@/components/ui/segmented.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
 import { useServerErrors } from "@/lib/form-errors.ts";
 
@@ -182,20 +183,7 @@ export function ObjectForm({ defaultValues, studioUnit, clients, canEditOwner, s
         <legend className="sr-only">Measurements</legend>
         <div className="mb-4 flex flex-wrap items-center justify-between gap-3">
           <h2 className="text-base font-semibold">Measurements</h2>
-          <div role="radiogroup" aria-label="Unit for this form" className="inline-flex rounded-card border border-stone text-sm">
-            {(["mm", "in"] as const).map((u) => (
-              <button
-                key={u}
-                type="button"
-                role="radio"
-                aria-checked={unit === u}
-                onClick={() => switchUnit(u)}
-                className={`px-3 py-1 ${unit === u ? "bg-accent text-paper-sheet" : "text-ink-soft hover:bg-paper-deep"}`}
-              >
-                {u === "mm" ? "mm" : "inches"}
-              </button>
-            ))}
-          </div>
+          <Segmented label="Unit for this form" options={["mm", "in"] as const} value={unit} onChange={switchUnit} optionLabel={(u) => (u === "mm" ? "mm" : "inches")} />
         </div>
         <div className="grid gap-4 md:grid-cols-2">
           <TextField label={`Sheet width (${unit})`} inputMode="decimal" className="num" error={e.sheetWidthMm?.message} hint={lengthHint} {...register("sheetWidthMm")} />
