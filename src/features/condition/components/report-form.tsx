@@ -20,11 +20,10 @@ import {
 import type { Photo } from "@shared/schemas/photos.ts";
 import { PHOTO_KIND_LABELS } from "@shared/schemas/photos.ts";
 import { ratingFloor } from "@shared/domain/condition.ts";
-import { issuesToFields } from "@shared/schemas/errors.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
-import { Button } from "@/components/ui/button.tsx";
+import { Button, FormActions } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
-import { errorAt, nestedErrors, useServerErrors } from "@/lib/form-errors.ts";
+import { errorAt, useServerErrors, withCorrectionReason } from "@/lib/form-errors.ts";
 import { PhotoMarkers } from "./photo-markers.tsx";
 
 export type ReportFormValues = {
@@ -54,10 +53,7 @@ function toBody(v: ReportFormValues) {
 function resolver(mode: ReportFormMode): Resolver<ReportFormValues, unknown, Submit> {
   return async (values) => {
     const parsed = ConditionCreateSchema.safeParse(toBody(values));
-    const fields = parsed.success ? {} : issuesToFields(parsed.error.issues);
-    if (mode === "correct" && !values.correctionReason.trim()) fields.correctionReason = "Say why the report is corrected.";
-    if (parsed.success && Object.keys(fields).length === 0) return { values: { ...parsed.data, correctionReason: values.correctionReason.trim() }, errors: {} };
-    return { values: {}, errors: nestedErrors<ReportFormValues>(fields) };
+    return withCorrectionReason<ReportFormValues, typeof parsed>(parsed, mode === "correct", values.correctionReason, "Say why the report is corrected.");
   };
 }
 
@@ -221,10 +217,7 @@ export function ReportForm({ mode, objectType, photos, terms, mountings, examine
           <p className="col-span-2 text-xs text-graphite">Signing locks the report; corrections are saved as new revisions.</p>
         </section>
 
-        <div className="flex gap-3">
-          <Button type="submit" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : mode === "correct" ? "Save the correction" : "Save draft"}</Button>
-          <Button variant="secondary" onClick={onCancel}>Cancel</Button>
-        </div>
+        <FormActions submitting={formState.isSubmitting} label={mode === "correct" ? "Save the correction" : "Save draft"} onCancel={onCancel} />
       </div>
 
       <section aria-label="Photos of this report" className="space-y-3 xl:sticky xl:top-6 xl:self-start">

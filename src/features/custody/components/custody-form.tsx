@@ -15,7 +15,7 @@ import {
 } from "@shared/schemas/custody.ts";
 import type { ObjectStatus } from "@shared/schemas/objects.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
-import { Button } from "@/components/ui/button.tsx";
+import { Button, FormActions } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
 import { useServerErrors } from "@/lib/form-errors.ts";
 import { formatDate } from "@/lib/format.ts";
@@ -181,14 +181,7 @@ function ReceiptForm({ objectId, status, ownerName, studioName, onDone, onCancel
         ) : null}
         <TextAreaField label="Notes" wrapClassName="md:col-span-2" error={e.notes?.message} hint="Packing, transport, anything agreed at the hand-over" {...register("notes")} />
       </div>
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" disabled={formState.isSubmitting}>
-          {formState.isSubmitting ? "Recording…" : "Record the receipt"}
-        </Button>
-        <Button variant="secondary" onClick={onCancel}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions className="flex flex-wrap gap-3" submitting={formState.isSubmitting} label="Record the receipt" busyLabel="Recording…" onCancel={onCancel} />
     </form>
   );
 }

@@ -18,15 +18,14 @@ import {
   type MountingDataInput,
 } from "@shared/schemas/mountings.ts";
 import { ADHESIVES, ATTACHMENT_METHODS, MountPlanInputSchema, SIDES, type MountPlanInput } from "@shared/schemas/mount-plan.ts";
-import { issuesToFields } from "@shared/schemas/errors.ts";
 import { draftPlan, planObjectOf, recordPlan, type CatalogueFacts, type PlanSettings } from "@shared/domain/mounting.ts";
 import { hingesWanted, planDrawing } from "@shared/domain/mount-plan/index.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
-import { Button } from "@/components/ui/button.tsx";
+import { Button, FormActions } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
 import { PlanDrawing } from "@/components/plan-drawing.tsx";
 import { ChecksList, LevelBadge } from "@/components/checks-list.tsx";
-import { errorAt, nestedErrors, useServerErrors } from "@/lib/form-errors.ts";
+import { errorAt, useServerErrors, withCorrectionReason } from "@/lib/form-errors.ts";
 import { ADHESIVE_LABELS, ATTACHMENT_METHOD_LABELS as ATTACHMENT_LABELS } from "@shared/schemas/mountings.ts";
 
 type FormData = Omit<MountingDataInput, "plan">;
@@ -58,10 +57,7 @@ function resolverFor(planInput: MountPlanInput, mode: MountingFormMode): Resolve
   return async (values) => {
     const body = { reason: values.reason, mountedOn: values.mountedOn, data: { ...values.data, plan: planInput } };
     const parsed = MountingCreateSchema.safeParse(body);
-    const fields = parsed.success ? {} : issuesToFields(parsed.error.issues);
-    if (mode === "correct" && !values.correctionReason.trim()) fields.correctionReason = "Say why the record is corrected.";
-    if (parsed.success && Object.keys(fields).length === 0) return { values: { ...parsed.data, correctionReason: values.correctionReason.trim() }, errors: {} };
-    return { values: {}, errors: nestedErrors<MountingFormValues>(fields) };
+    return withCorrectionReason<MountingFormValues, typeof parsed>(parsed, mode === "correct", values.correctionReason, "Say why the record is corrected.");
   };
 }
 
@@ -238,10 +234,7 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
           <TextAreaField label="Other notes" error={err("data.notes")} {...register("data.notes")} />
         </section>
 
-        <div className="flex gap-3">
-          <Button type="submit" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : mode === "correct" ? "Save the correction" : "Save draft"}</Button>
-          <Button variant="secondary" onClick={onCancel}>Cancel</Button>
-        </div>
+        <FormActions submitting={formState.isSubmitting} label={mode === "correct" ? "Save the correction" : "Save draft"} onCancel={onCancel} />
       </form>
 
       <section aria-label="The plan with these materials" className="space-y-4 xl:sticky xl:top-6 xl:self-start">

@@ -20,7 +20,8 @@ import { lengthInputValue, parseLength, type Unit } from "@shared/domain/units.t
 import { minorDigits, parseMoney } from "@shared/domain/money.ts";
 import { issuesToFields } from "@shared/schemas/errors.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
-import { Button } from "@/components/ui/button.tsx";
+import { FormActions } from "@/components/ui/button.tsx";
+import { EnumOptions } from "@/components/ui/options.tsx";
 import { Segmented } from "@/components/ui/segmented.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
 import { useServerErrors } from "@/lib/form-errors.ts";
@@ -159,19 +160,10 @@ export function ObjectForm({ defaultValues, studioUnit, clients, canEditOwner, s
         <TextField label="Maker" error={e.maker?.message} {...register("maker")} />
         <TextField label="Date made" error={e.dateMade?.message} hint="As written, e.g. c. 1890 or 1962" {...register("dateMade")} />
         <SelectField label="Object type" error={e.objectType?.message} {...register("objectType")}>
-          {OBJECT_TYPES.map((t) => (
-            <option key={t} value={t}>
-              {OBJECT_TYPE_LABELS[t]}
-            </option>
-          ))}
+          <EnumOptions values={OBJECT_TYPES} labels={OBJECT_TYPE_LABELS} />
         </SelectField>
         <SelectField label="Photographic process" disabled={!isPhoto} error={e.photoProcess?.message} hint={isPhoto ? undefined : "For photographs only"} {...register("photoProcess")}>
-          <option value="">—</option>
-          {PHOTO_PROCESSES.map((p) => (
-            <option key={p} value={p}>
-              {PHOTO_PROCESS_LABELS[p]}
-            </option>
-          ))}
+          <EnumOptions values={PHOTO_PROCESSES} labels={PHOTO_PROCESS_LABELS} blank="—" />
         </SelectField>
         <TextField label="Medium and technique" error={e.medium?.message} {...register("medium")} />
         <TextField label="Support" error={e.support?.message} hint="Paper type, weight if known" {...register("support")} />
@@ -228,11 +220,7 @@ export function ObjectForm({ defaultValues, studioUnit, clients, canEditOwner, s
           error={e.status?.message}
           {...register("status")}
         >
-          {OBJECT_STATUSES.map((s) => (
-            <option key={s} value={s}>
-              {OBJECT_STATUS_LABELS[s]}
-            </option>
-          ))}
+          <EnumOptions values={OBJECT_STATUSES} labels={OBJECT_STATUS_LABELS} />
         </SelectField>
         <TextField label="Current location" error={e.location?.message} {...register("location")} />
       </fieldset>
@@ -248,25 +236,13 @@ export function ObjectForm({ defaultValues, studioUnit, clients, canEditOwner, s
           <TextField label="Currency" maxLength={3} className="uppercase" error={e.valuationCurrency?.message} hint="ISO 4217, e.g. GBP" {...register("valuationCurrency")} />
           <TextField label="Valuation date" type="date" error={e.valuationDate?.message} {...register("valuationDate")} />
           <SelectField label="Basis" error={e.valuationBasis?.message} {...register("valuationBasis")}>
-            <option value="">—</option>
-            {VALUATION_BASES.map((b) => (
-              <option key={b} value={b}>
-                {VALUATION_BASIS_LABELS[b]}
-              </option>
-            ))}
+            <EnumOptions values={VALUATION_BASES} labels={VALUATION_BASIS_LABELS} blank="—" />
           </SelectField>
           <TextField label="Valuer" wrapClassName="md:col-span-2" error={e.valuer?.message} {...register("valuer")} />
         </fieldset>
       )}
 
-      <div className="flex gap-3">
-        <Button type="submit" disabled={formState.isSubmitting}>
-          {formState.isSubmitting ? "Saving…" : submitLabel}
-        </Button>
-        <Button variant="secondary" onClick={onCancel}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitting={formState.isSubmitting} label={submitLabel} onCancel={onCancel} />
     </form>
   );
 }
