@@ -1,4 +1,7 @@
-import type { FieldErrors, FieldValues } from "react-hook-form";
+import { useState } from "react";
+import type { FieldErrors, FieldValues, Path, UseFormSetError } from "react-hook-form";
+import { issuesToFields } from "@shared/schemas/errors.ts";
+import { ApiError, toApiError } from "./api-client.ts";
 
 /** Turns `{ "data.boards.window.grade": "…" }` into the nested errors react-hook-form expects. */
 export function nestedErrors<T extends FieldValues>(flat: Record<string, string>): FieldErrors<T> {
@@ -19,4 +22,47 @@ export function errorAt(errors: unknown, path: string): string | undefined {
   let cur: unknown = errors;
   for (const p of path.split(".")) cur = (cur as Record<string, unknown> | undefined)?.[p];
   return (cur as { message?: string } | undefined)?.message;
+}
+
+/**
+ * Saving a react-hook-form form: `run` clears the last error, awaits the save and, when it fails, keeps
+ * the error (for the notice above the form) and puts the server's field messages beside their fields.
+ * The values stay exactly as typed. `accept` limits the messages to paths the form has a field for;
+ * `focus` moves to the first one.
+ */
+export function useServerErrors<T extends FieldValues>(
+  form: { setError: UseFormSetError<T> },
+  opts: { accept?: (path: string) => boolean; focus?: boolean } = {},
+) {
+  const [error, setError] = useState<ApiError | null>(null);
+  async function run<R>(save: () => Promise<R>): Promise<R | undefined> {
+    setError(null);
+    try {
+      return await save();
+    } catch (err) {
+      const apiError = toApiError(err);
+      setError(apiError);
+      for (const [path, message] of Object.entries(apiError.fields)) {
+        if (!opts.accept || opts.accept(path)) form.setError(path as Path<T>, { type: "server", message }, { shouldFocus: opts.focus ?? false });
+      }
+      return undefined;
+    }
+  }
+  return { error, run, clear: () => setError(null) };
+}
+
+/**
+ * A resolver's answer for a record that can be corrected: the shared schema's result, plus the reason
+ * a correction must give. Either the parsed body with the trimmed reason, or every message at its field.
+ */
+export function withCorrectionReason<V extends FieldValues, P extends { success: true; data: object } | { success: false; error: { issues: readonly { path: PropertyKey[]; message: string }[] } }>(
+  parsed: P,
+  correcting: boolean,
+  reason: string,
+  missingReason: string,
+) {
+  const fields = parsed.success ? {} : issuesToFields(parsed.error.issues);
+  if (correcting && !reason.trim()) fields.correctionReason = missingReason;
+  if (parsed.success && Object.keys(fields).length === 0) return { values: { ...(parsed.data as Extract<P, { success: true }>["data"]), correctionReason: reason.trim() }, errors: {} };
+  return { values: {}, errors: nestedErrors<V>(fields) };
 }

@@ -1,4 +1,3 @@
-import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useNavigate, useParams } from "react-router";
@@ -9,12 +8,11 @@ import { useClient, useSaveClient } from "@/features/clients/api/clients.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
 import { Button } from "@/components/ui/button.tsx";
 import { Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
-import { ApiError } from "@/lib/api-client.ts";
+import { useServerErrors } from "@/lib/form-errors.ts";
 
 function ClientForm({ initial }: { initial?: ClientRecord }) {
   const navigate = useNavigate();
   const save = useSaveClient(initial?.id);
-  const [serverError, setServerError] = useState<string | null>(null);
   const form = useForm<ClientCreateInput, unknown, ClientCreate>({
     resolver: zodResolver(ClientCreateSchema),
     defaultValues: {
@@ -28,20 +26,14 @@ function ClientForm({ initial }: { initial?: ClientRecord }) {
     },
   });
   const e = form.formState.errors;
+  const server = useServerErrors(form);
   const submit = form.handleSubmit(async (values) => {
-    setServerError(null);
-    try {
-      const c = await save.mutateAsync(values);
-      navigate(`/clients/${c.id}`);
-    } catch (err) {
-      const apiError = err instanceof ApiError ? err : null;
-      setServerError(apiError?.message ?? String(err));
-      for (const [k, m] of Object.entries(apiError?.fields ?? {})) form.setError(k as keyof ClientCreateInput, { message: m });
-    }
+    const c = await server.run(() => save.mutateAsync(values));
+    if (c) navigate(`/clients/${c.id}`);
   });
   return (
     <form onSubmit={submit} noValidate className="grid max-w-3xl gap-4 rounded-card bg-paper-sheet p-5 shadow-card md:grid-cols-2">
-      {serverError && <div className="col-span-full"><Notice tone="fail" title="Not saved">{serverError}</Notice></div>}
+      {server.error && <div className="col-span-full"><Notice tone="fail" title="Not saved">{server.error.message}</Notice></div>}
       <SelectField label="Kind" error={e.kind?.message} {...form.register("kind")}>
         {CLIENT_KINDS.map((k) => <option key={k} value={k}>{CLIENT_KIND_LABELS[k]}</option>)}
       </SelectField>

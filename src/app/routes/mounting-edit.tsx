@@ -9,6 +9,7 @@ import { useCorrectMounting, useCreateMounting, useMounting, useObjectMountings,
 import { MountingForm, type MountingFormMode } from "@/features/mountings/components/mounting-form.tsx";
 import { ButtonLink } from "@/components/ui/button.tsx";
 import { Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { studioToday } from "@/lib/today.ts";
 
 /** New mounting (/objects/:id/mountings/new), a draft (/mountings/:id/edit) or a correction (/mountings/:id/correct). */
 export function Component() {
@@ -48,7 +49,7 @@ export function Component() {
   const initial =
     mode === "new"
       ? current
-        ? { reason: "reframing", mountedOn: new Date().toISOString().slice(0, 10), data: current.current.data }
+        ? { reason: "reframing", mountedOn: studioToday(), data: current.current.data }
         : undefined
       : { reason: existing.data!.reason, mountedOn: existing.data!.mountedOn, data: existing.data!.current.data };
 

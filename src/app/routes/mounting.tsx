@@ -1,6 +1,6 @@
 import { useState } from "react";
 import { Link, useParams } from "react-router";
-import { format } from "date-fns";
+import { studioToday } from "@/lib/today.ts";
 import { can } from "@shared/permissions.ts";
 import { MOUNTING_REASON_LABELS, MOUNTING_STATUS_LABELS } from "@shared/schemas/mountings.ts";
 import { useMe } from "@/features/session/api/session.ts";
@@ -27,7 +27,7 @@ export function Component() {
   const [shown, setShown] = useState<number | null>(null);
   const [removing, setRemoving] = useState(false);
   const [endReason, setEndReason] = useState("");
-  const [endedOn, setEndedOn] = useState(format(new Date(), "yyyy-MM-dd"));
+  const [endedOn, setEndedOn] = useState(studioToday);
 
   if (m.isPending || !settings) return <SkeletonRows />;
   if (m.isError) return <Notice tone="fail" title="Mounting record not found">{m.error.message}</Notice>;

@@ -1,5 +1,4 @@
-import { useEffect, useState } from "react";
-import { Link, useSearchParams } from "react-router";
+import { Link } from "react-router";
 import { ATTACHMENT_METHODS } from "@shared/schemas/mount-plan.ts";
 import {
   ATTACHMENT_METHOD_LABELS,
@@ -8,6 +7,7 @@ import {
   MOUNTING_REASON_LABELS,
   MOUNTING_STATUSES,
   MOUNTING_STATUS_LABELS,
+  MountingListQuerySchema,
   type MountingListItem,
   type MountingStatus,
 } from "@shared/schemas/mountings.ts";
@@ -16,17 +16,18 @@ import { useMe } from "@/features/session/api/session.ts";
 import { useMountingsRegister } from "@/features/mountings-register/api/mountings-register.ts";
 import { DocumentButton } from "@/features/documents/components/document-button.tsx";
 import { FilterSelect, SearchInput } from "@/components/ui/field.tsx";
+import { ClearFilters, DateFilter, EnumFilter } from "@/components/ui/filters.tsx";
+import { DataTable, type Column } from "@/components/ui/data-table.tsx";
+import { ListSection, PageHeader } from "@/components/ui/list-page.tsx";
 import { ButtonLink } from "@/components/ui/button.tsx";
-import { Badge, EmptyState, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { Badge, EmptyState, Notice } from "@/components/ui/feedback.tsx";
 import { Pagination } from "@/components/ui/pagination.tsx";
 import { formatDate } from "@/lib/format.ts";
-import { useDebounced } from "@/lib/use-debounced.ts";
+import { useSearchState, useSearchText } from "@/lib/use-search-state.ts";
 
 const PAGE_SIZE = 50;
-const ISO_DATE = /^\d{4}-\d{2}-\d{2}$/;
-type Method = (typeof ATTACHMENT_METHODS)[number];
-const oneOf = <T extends string>(list: readonly T[], v: string | null): T | undefined => (v && (list as readonly string[]).includes(v) ? (v as T) : undefined);
 const label = (labels: Record<string, string>, v: string | null) => (v ? (labels[v] ?? v) : "—");
+const SearchSchema = MountingListQuerySchema.omit({ pageSize: true });
 
 function MountingStatusBadge({ status }: { status: MountingStatus }) {
   return <Badge tone={status === "completed" ? "accent" : status === "draft" ? "warn" : "neutral"}>{MOUNTING_STATUS_LABELS[status]}</Badge>;
@@ -43,37 +44,37 @@ function Batches({ m, searched }: { m: MountingListItem; searched?: string }) {
   );
 }
 
+const columns = (batch: string | undefined): Column<MountingListItem>[] => [
+  { key: "mounted", header: "Mounted", align: "right", th: "whitespace-nowrap", td: "whitespace-nowrap num", cell: (m) => formatDate(m.mountedOn) },
+  {
+    key: "number",
+    header: "Object number",
+    th: "whitespace-nowrap",
+    td: "whitespace-nowrap font-semibold num",
+    cell: (m) => (
+      <Link to={`/objects/${m.objectId}`} className="text-accent hover:underline">
+        {m.objectNumber}
+      </Link>
+    ),
+  },
+  { key: "title", header: "Title", cell: (m) => m.objectTitle },
+  { key: "framer", header: "Framer", td: "text-ink-soft", cell: (m) => m.framerName },
+  { key: "reason", header: "Reason", td: "text-ink-soft", cell: (m) => label(MOUNTING_REASON_LABELS, m.reason) },
+  { key: "method", header: "Method", cell: (m) => label(ATTACHMENT_METHOD_LABELS, m.method) },
+  { key: "boards", header: "Boards", td: "text-ink-soft", cell: (m) => label(BOARD_GRADE_LABELS, m.boardGrade) },
+  { key: "glazing", header: "Glazing", td: "text-ink-soft", cell: (m) => label(GLAZING_TYPE_LABELS, m.glazing) },
+  { key: "batches", header: "Batches", td: "whitespace-nowrap", cell: (m) => <Batches m={m} searched={batch} /> },
+  { key: "status", header: "Status", cell: (m) => <MountingStatusBadge status={m.status} /> },
+];
+
 /** The mountings register: every mounting record across objects, to answer "which objects used board from batch X?". */
 export function Component() {
   const { data: user } = useMe();
   const allowed = can(user, "mounting:write");
-  const [params, setParams] = useSearchParams();
-  const [batchText, setBatchText] = useState(params.get("batch") ?? "");
-  const batch = useDebounced(batchText.trim());
-
-  const framerId = params.get("framer") || undefined;
-  const from = ISO_DATE.test(params.get("from") ?? "") ? params.get("from")! : undefined;
-  const to = ISO_DATE.test(params.get("to") ?? "") ? params.get("to")! : undefined;
-  const method = oneOf<Method>(ATTACHMENT_METHODS, params.get("method"));
-  const status = oneOf<MountingStatus>(MOUNTING_STATUSES, params.get("status"));
-  const page = Math.max(1, Number(params.get("page") ?? 1) || 1);
-
-  const update = (changes: Record<string, string | undefined>, resetPage = true) => {
-    setParams(
-      (prev) => {
-        const n = new URLSearchParams(prev);
-        for (const [k, v] of Object.entries(changes)) v ? n.set(k, v) : n.delete(k);
-        if (resetPage) n.delete("page");
-        return n;
-      },
-      { replace: true },
-    );
-  };
-
-  useEffect(() => {
-    if ((params.get("batch") ?? "") !== batch) update({ batch: batch || undefined });
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [batch]);
+  const { state, set: update } = useSearchState(SearchSchema, { names: { framerId: "framer" } });
+  const { framerId, from, to, method, status, page } = state;
+  const search = useSearchText(state.batch, (batch) => update({ batch }));
+  const batch = search.debounced;
 
   const list = useMountingsRegister({ framerId, from, to, method, status, batch: batch || undefined, page, pageSize: PAGE_SIZE }, allowed);
   const otherFilters = !!(framerId || from || to || method || status);
@@ -91,29 +92,29 @@ export function Component() {
 
   return (
     <div className="space-y-5">
-      <header className="flex flex-wrap items-end justify-between gap-3">
-        <div>
-          <h1 className="text-2xl font-bold tracking-tight">Mountings</h1>
-          <p className="text-sm text-graphite">
-            Every mounting record across objects, newest first. Type a board's batch number to find every object mounted with board from that batch.
-          </p>
-        </div>
-        {list.data && list.data.items.length > 0 && (
-          <DocumentButton
-            url="/api/documents/workshop-sheet"
-            label={`Workshop sheet for these ${list.data.items.length}`}
-            body={{ mountingIds: list.data.items.map((m) => m.id) }}
-            fallbackName="workshop-sheet.pdf"
-          />
-        )}
-      </header>
+      <PageHeader
+        gap="gap-3"
+        title="Mountings"
+        intro="Every mounting record across objects, newest first. Type a board's batch number to find every object mounted with board from that batch."
+        actions={
+          list.data &&
+          list.data.items.length > 0 && (
+            <DocumentButton
+              url="/api/documents/workshop-sheet"
+              label={`Workshop sheet for these ${list.data.items.length}`}
+              body={{ mountingIds: list.data.items.map((m) => m.id) }}
+              fallbackName="workshop-sheet.pdf"
+            />
+          )
+        }
+      />
 
       <div role="search" aria-label="Filter mountings" className="flex flex-wrap items-center gap-3">
         <label className="sr-only" htmlFor="mountings-batch">
           Board batch
         </label>
-        <SearchInput id="mountings-batch" placeholder="Board batch, e.g. MB-2291" value={batchText} onChange={(e) => setBatchText(e.target.value)} className="max-w-56" />
-        <FilterSelect aria-label="Framer" value={framerId ?? ""} onChange={(e) => update({ framer: e.target.value || undefined })}>
+        <SearchInput id="mountings-batch" placeholder="Board batch, e.g. MB-2291" value={search.text} onChange={(e) => search.setText(e.target.value)} className="max-w-56" />
+        <FilterSelect aria-label="Framer" value={framerId ?? ""} onChange={(e) => update({ framerId: e.target.value || undefined })}>
           <option value="">Any framer</option>
           {list.data?.framers.map((f) => (
             <option key={f.id} value={f.id}>
@@ -121,52 +122,17 @@ export function Component() {
             </option>
           ))}
         </FilterSelect>
-        <label className="inline-flex items-center gap-2 text-sm text-ink-soft">
-          Mounted from
-          <input
-            type="date"
-            value={from ?? ""}
-            onChange={(e) => update({ from: e.target.value || undefined })}
-            className="rounded-card border border-stone bg-paper-sheet px-2 py-1.5 text-sm text-ink num focus:border-accent focus:outline-none focus:ring-2 focus:ring-accent/30"
-          />
-        </label>
-        <label className="inline-flex items-center gap-2 text-sm text-ink-soft">
-          to
-          <input
-            type="date"
-            value={to ?? ""}
-            onChange={(e) => update({ to: e.target.value || undefined })}
-            className="rounded-card border border-stone bg-paper-sheet px-2 py-1.5 text-sm text-ink num focus:border-accent focus:outline-none focus:ring-2 focus:ring-accent/30"
-          />
-        </label>
-        <FilterSelect aria-label="Method" value={method ?? ""} onChange={(e) => update({ method: e.target.value || undefined })}>
-          <option value="">Any method</option>
-          {ATTACHMENT_METHODS.map((m) => (
-            <option key={m} value={m}>
-              {ATTACHMENT_METHOD_LABELS[m]}
-            </option>
-          ))}
-        </FilterSelect>
-        <FilterSelect aria-label="Status" value={status ?? ""} onChange={(e) => update({ status: e.target.value || undefined })}>
-          <option value="">Any status</option>
-          {MOUNTING_STATUSES.map((s) => (
-            <option key={s} value={s}>
-              {MOUNTING_STATUS_LABELS[s]}
-            </option>
-          ))}
-        </FilterSelect>
-        {filtered && (
-          <button
-            type="button"
-            className="text-sm font-medium text-accent hover:underline"
-            onClick={() => {
-              setBatchText("");
-              update({ batch: undefined, framer: undefined, from: undefined, to: undefined, method: undefined, status: undefined });
-            }}
-          >
-            Clear filters
-          </button>
-        )}
+        <DateFilter label="Mounted from" value={from} onChange={(v) => update({ from: v })} />
+        <DateFilter label="to" value={to} onChange={(v) => update({ to: v })} />
+        <EnumFilter label="Method" any="Any method" values={ATTACHMENT_METHODS} labels={ATTACHMENT_METHOD_LABELS} value={method} onChange={(v) => update({ method: v })} />
+        <EnumFilter label="Status" any="Any status" values={MOUNTING_STATUSES} labels={MOUNTING_STATUS_LABELS} value={status} onChange={(v) => update({ status: v })} />
+        <ClearFilters
+          shown={filtered}
+          onClear={() => {
+            search.setText("");
+            update({ batch: undefined, framerId: undefined, from: undefined, to: undefined, method: undefined, status: undefined });
+          }}
+        />
       </div>
 
       {backwards && (
@@ -180,78 +146,34 @@ export function Component() {
         </p>
       )}
 
-      <section aria-label="Mountings" className="rounded-card bg-paper-sheet shadow-card" aria-busy={list.isFetching}>
-        {list.isPending ? (
-          <SkeletonRows />
-        ) : list.isError ? (
-          <div className="p-4">
-            <Notice tone="fail" title="The mountings register could not be loaded">
-              {list.error.message}
-            </Notice>
-          </div>
-        ) : list.data.items.length === 0 ? (
-          <div className="p-4">
-            {batch ? (
-              <EmptyState title={`No mounting used board from batch ${batch}`}>
-                The batch is matched whole, in capitals or not; check the number on the board's label{otherFilters ? ", or clear the other filters" : ""}.
-              </EmptyState>
-            ) : filtered ? (
-              <EmptyState title="No mounting matches">Widen the dates, or clear the filters.</EmptyState>
-            ) : (
-              <EmptyState title="No mountings yet" action={<ButtonLink to="/objects">Open the register</ButtonLink>}>
-                Every mounting, reframing and correction recorded on an object's page is listed here, with its materials and their batch numbers. Start from
-                an object.
-              </EmptyState>
-            )}
-          </div>
-        ) : (
+      <ListSection
+        label="Mountings"
+        busy={list.isFetching}
+        query={list}
+        errorTitle="The mountings register could not be loaded"
+        isEmpty={(d) => d.items.length === 0}
+        empty={
+          batch ? (
+            <EmptyState title={`No mounting used board from batch ${batch}`}>
+              The batch is matched whole, in capitals or not; check the number on the board's label{otherFilters ? ", or clear the other filters" : ""}.
+            </EmptyState>
+          ) : filtered ? (
+            <EmptyState title="No mounting matches">Widen the dates, or clear the filters.</EmptyState>
+          ) : (
+            <EmptyState title="No mountings yet" action={<ButtonLink to="/objects">Open the register</ButtonLink>}>
+              Every mounting, reframing and correction recorded on an object's page is listed here, with its materials and their batch numbers. Start from
+              an object.
+            </EmptyState>
+          )
+        }
+      >
+        {(data) => (
           <>
-            <div className="overflow-x-auto">
-              <table className="w-full border-collapse text-sm">
-                <thead className="sticky top-0 z-10 bg-paper-sheet text-left text-ink-soft shadow-[0_1px_0_var(--color-stone)]">
-                  <tr>
-                    <th scope="col" className="whitespace-nowrap px-3 py-2.5 text-right font-semibold">Mounted</th>
-                    <th scope="col" className="whitespace-nowrap px-3 py-2.5 font-semibold">Object number</th>
-                    <th scope="col" className="px-3 py-2.5 font-semibold">Title</th>
-                    <th scope="col" className="px-3 py-2.5 font-semibold">Framer</th>
-                    <th scope="col" className="px-3 py-2.5 font-semibold">Reason</th>
-                    <th scope="col" className="px-3 py-2.5 font-semibold">Method</th>
-                    <th scope="col" className="px-3 py-2.5 font-semibold">Boards</th>
-                    <th scope="col" className="px-3 py-2.5 font-semibold">Glazing</th>
-                    <th scope="col" className="px-3 py-2.5 font-semibold">Batches</th>
-                    <th scope="col" className="px-3 py-2.5 font-semibold">Status</th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {list.data.items.map((m) => (
-                    <tr key={m.id} className="border-b border-stone-light align-top hover:bg-paper-deep/60">
-                      <td className="whitespace-nowrap px-3 py-3 text-right num">{formatDate(m.mountedOn)}</td>
-                      <td className="whitespace-nowrap px-3 py-3 font-semibold num">
-                        <Link to={`/objects/${m.objectId}`} className="text-accent hover:underline">
-                          {m.objectNumber}
-                        </Link>
-                      </td>
-                      <td className="px-3 py-3">{m.objectTitle}</td>
-                      <td className="px-3 py-3 text-ink-soft">{m.framerName}</td>
-                      <td className="px-3 py-3 text-ink-soft">{label(MOUNTING_REASON_LABELS, m.reason)}</td>
-                      <td className="px-3 py-3">{label(ATTACHMENT_METHOD_LABELS, m.method)}</td>
-                      <td className="px-3 py-3 text-ink-soft">{label(BOARD_GRADE_LABELS, m.boardGrade)}</td>
-                      <td className="px-3 py-3 text-ink-soft">{label(GLAZING_TYPE_LABELS, m.glazing)}</td>
-                      <td className="whitespace-nowrap px-3 py-3">
-                        <Batches m={m} searched={batch || undefined} />
-                      </td>
-                      <td className="px-3 py-3">
-                        <MountingStatusBadge status={m.status} />
-                      </td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
-            </div>
-            <Pagination page={page} pageSize={PAGE_SIZE} total={list.data.total} onPage={(p) => update({ page: String(p) }, false)} />
+            <DataTable columns={columns(batch || undefined)} rows={data.items} rowKey={(m) => m.id} rowClassName="border-b border-stone-light align-top hover:bg-paper-deep/60" />
+            <Pagination page={page} pageSize={PAGE_SIZE} total={data.total} onPage={(p) => update({ page: p }, null)} />
           </>
         )}
-      </section>
+      </ListSection>
     </div>
   );
 }

@@ -1,31 +1,29 @@
-import { useEffect, useState } from "react";
-import { useSearchParams } from "react-router";
+import { z } from "zod";
 import {
   OBJECT_STATUSES,
   OBJECT_STATUS_LABELS,
   OBJECT_TYPES,
   OBJECT_TYPE_LABELS,
+  ObjectListQuerySchema,
   REGISTER_BOARD_GRADES,
   REGISTER_GLAZINGS,
   REGISTER_METHODS,
-  type ObjectStatus,
-  type ObjectType,
-  type RegisterBoardGrade,
-  type RegisterGlazing,
-  type RegisterMethod,
 } from "@shared/schemas/objects.ts";
 import { ATTACHMENT_METHOD_LABELS, BOARD_GRADE_LABELS, GLAZING_TYPE_LABELS } from "@shared/schemas/mountings.ts";
 import { can, isStudio } from "@shared/permissions.ts";
 import { useMe } from "@/features/session/api/session.ts";
 import { useStudio } from "@/features/settings/api/settings.ts";
-import { localToday, useObjects } from "@/features/objects/api/objects.ts";
+import { useObjects } from "@/features/objects/api/objects.ts";
+import { studioToday } from "@/lib/today.ts";
 import { useClients } from "@/features/clients/api/clients.ts";
 import { ObjectsTable, type SortKey } from "@/features/objects/components/objects-table.tsx";
 import { FilterSelect, SearchInput } from "@/components/ui/field.tsx";
+import { ClearFilters, EnumFilter } from "@/components/ui/filters.tsx";
+import { ListSection, PageHeader } from "@/components/ui/list-page.tsx";
 import { ButtonLink } from "@/components/ui/button.tsx";
-import { EmptyState, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { EmptyState } from "@/components/ui/feedback.tsx";
 import { Pagination } from "@/components/ui/pagination.tsx";
-import { useDebounced } from "@/lib/use-debounced.ts";
+import { useSearchState, useSearchText } from "@/lib/use-search-state.ts";
 import { DocumentButton } from "@/features/documents/components/document-button.tsx";
 import { LabelButton } from "@/features/documents/components/label-button.tsx";
 import { LABEL_SHEET_MAX } from "@shared/schemas/documents.ts";
@@ -33,44 +31,24 @@ import { LABEL_SHEET_MAX } from "@shared/schemas/documents.ts";
 const PAGE_SIZE = 50;
 /** "Last mounted" opens newest first: recent mountings are the ones usually asked about. */
 const FIRST_DIR: Partial<Record<SortKey, "asc" | "desc">> = { lastMountedOn: "desc" };
-const oneOf = <T extends string>(list: readonly T[], v: string | null): T | undefined => (v && (list as readonly string[]).includes(v) ? (v as T) : undefined);
+
+/** The register's address: the shared list query, with "due for a check" as a switch (the day is the studio's today). */
+const RegisterSearchSchema = ObjectListQuerySchema.pick({ q: true, clientId: true, status: true, objectType: true, method: true, boardGrade: true, glazing: true, sort: true, dir: true, page: true }).extend({
+  due: z.literal("1").optional(),
+});
+const NAMES = { objectType: "type", clientId: "client", boardGrade: "board" } as const;
 
 export function Component() {
   const { data: user } = useMe();
   const studio = !!user && isStudio(user);
   const { unit } = useStudio();
-  const [params, setParams] = useSearchParams();
-  const [q, setQ] = useState(params.get("q") ?? "");
-  const debouncedQ = useDebounced(q.trim());
-
-  const sort = (params.get("sort") as SortKey) ?? "objectNumber";
-  const dir = (params.get("dir") as "asc" | "desc") ?? "asc";
-  const page = Math.max(1, Number(params.get("page") ?? 1) || 1);
-  const status = (params.get("status") as ObjectStatus) || undefined;
-  const objectType = (params.get("type") as ObjectType) || undefined;
-  const clientId = params.get("client") || undefined;
-  const method = oneOf<RegisterMethod>(REGISTER_METHODS, params.get("method"));
-  const boardGrade = oneOf<RegisterBoardGrade>(REGISTER_BOARD_GRADES, params.get("board"));
-  const glazing = oneOf<RegisterGlazing>(REGISTER_GLAZINGS, params.get("glazing"));
-  const due = params.get("due") === "1";
-  const today = localToday();
-
-  const update = (changes: Record<string, string | undefined>, resetPage = true) => {
-    setParams(
-      (prev) => {
-        const n = new URLSearchParams(prev);
-        for (const [k, v] of Object.entries(changes)) v ? n.set(k, v) : n.delete(k);
-        if (resetPage) n.delete("page");
-        return n;
-      },
-      { replace: true },
-    );
-  };
-
-  useEffect(() => {
-    if ((params.get("q") ?? "") !== debouncedQ) update({ q: debouncedQ || undefined });
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [debouncedQ]);
+  const { state, set: update } = useSearchState(RegisterSearchSchema, { names: NAMES });
+  const { sort, dir, page, status, objectType, clientId, method, boardGrade, glazing } = state;
+  const search = useSearchText(state.q, (q) => update({ q }));
+  const debouncedQ = search.debounced;
+  const due = state.due === "1";
+  // The server has no clock for "due": a check due today is due wherever the framer is.
+  const today = studioToday();
 
   const list = useObjects({
     q: debouncedQ || undefined,
@@ -96,44 +74,42 @@ export function Component() {
 
   return (
     <div className="space-y-5">
-      <header className="flex flex-wrap items-end justify-between gap-4">
-        <div>
-          <h1 className="text-2xl font-bold tracking-tight">{title}</h1>
-          <p className="text-sm text-graphite">
-            {studio ? "Every object the studio has recorded. Search by object number, title or maker." : "The objects recorded for you by the studio."}
-          </p>
-        </div>
-        <div className="flex flex-wrap items-start gap-3">
-          {mayValue && scheduleOwner ? (
-            <DocumentButton
-              url={`/api/clients/${scheduleOwner}/documents/schedule`}
-              body={scheduleFilter}
-              label={Object.values(scheduleFilter).some(Boolean) ? "Schedule of values for these objects (PDF)" : "Schedule of values (PDF)"}
-              fallbackName="schedule-of-values.pdf"
-            />
-          ) : studio ? (
-            <span className="max-w-56 text-xs text-graphite">Choose an owner to produce a schedule of values for the objects shown.</span>
-          ) : null}
-          {can(user, "mounting:write") && filtered && list.data && list.data.total > 0 && list.data.total <= LABEL_SHEET_MAX ? (
-            <LabelButton
-              url="/api/documents/label-sheet"
-              body={{ ...scheduleFilter, clientId }}
-              label={`Back labels for these ${list.data.total} object${list.data.total === 1 ? "" : "s"} (PDF)`}
-              fallbackName="back-labels.pdf"
-              compact
-            />
-          ) : null}
-          {can(user, "object:create") && <ButtonLink to="/objects/new">New object</ButtonLink>}
-        </div>
-      </header>
+      <PageHeader
+        title={title}
+        intro={studio ? "Every object the studio has recorded. Search by object number, title or maker." : "The objects recorded for you by the studio."}
+        actions={
+          <div className="flex flex-wrap items-start gap-3">
+            {mayValue && scheduleOwner ? (
+              <DocumentButton
+                url={`/api/clients/${scheduleOwner}/documents/schedule`}
+                body={scheduleFilter}
+                label={Object.values(scheduleFilter).some(Boolean) ? "Schedule of values for these objects (PDF)" : "Schedule of values (PDF)"}
+                fallbackName="schedule-of-values.pdf"
+              />
+            ) : studio ? (
+              <span className="max-w-56 text-xs text-graphite">Choose an owner to produce a schedule of values for the objects shown.</span>
+            ) : null}
+            {can(user, "mounting:write") && filtered && list.data && list.data.total > 0 && list.data.total <= LABEL_SHEET_MAX ? (
+              <LabelButton
+                url="/api/documents/label-sheet"
+                body={{ ...scheduleFilter, clientId }}
+                label={`Back labels for these ${list.data.total} object${list.data.total === 1 ? "" : "s"} (PDF)`}
+                fallbackName="back-labels.pdf"
+                compact
+              />
+            ) : null}
+            {can(user, "object:create") && <ButtonLink to="/objects/new">New object</ButtonLink>}
+          </div>
+        }
+      />
 
       <div role="search" className="flex flex-wrap items-center gap-3">
         <label className="sr-only" htmlFor="register-search">
           Search objects
         </label>
-        <SearchInput id="register-search" placeholder="Object number, title or maker" value={q} onChange={(e) => setQ(e.target.value)} className="max-w-sm" />
+        <SearchInput id="register-search" placeholder="Object number, title or maker" value={search.text} onChange={(e) => search.setText(e.target.value)} className="max-w-sm" />
         {studio && (
-          <FilterSelect aria-label="Owner" value={clientId ?? ""} onChange={(e) => update({ client: e.target.value || undefined })}>
+          <FilterSelect aria-label="Owner" value={clientId ?? ""} onChange={(e) => update({ clientId: e.target.value || undefined })}>
             <option value="">All owners</option>
             {clients.data?.map((c) => (
               <option key={c.id} value={c.id}>
@@ -142,92 +118,46 @@ export function Component() {
             ))}
           </FilterSelect>
         )}
-        <FilterSelect aria-label="Status" value={status ?? ""} onChange={(e) => update({ status: e.target.value || undefined })}>
-          <option value="">Any status</option>
-          {OBJECT_STATUSES.map((s) => (
-            <option key={s} value={s}>
-              {OBJECT_STATUS_LABELS[s]}
-            </option>
-          ))}
-        </FilterSelect>
-        <FilterSelect aria-label="Object type" value={objectType ?? ""} onChange={(e) => update({ type: e.target.value || undefined })}>
-          <option value="">Any type</option>
-          {OBJECT_TYPES.map((t) => (
-            <option key={t} value={t}>
-              {OBJECT_TYPE_LABELS[t]}
-            </option>
-          ))}
-        </FilterSelect>
-        <FilterSelect aria-label="Method" value={method ?? ""} onChange={(e) => update({ method: e.target.value || undefined })}>
-          <option value="">Any method</option>
-          {REGISTER_METHODS.map((m) => (
-            <option key={m} value={m}>
-              {ATTACHMENT_METHOD_LABELS[m]}
-            </option>
-          ))}
-        </FilterSelect>
-        <FilterSelect aria-label="Board grade" value={boardGrade ?? ""} onChange={(e) => update({ board: e.target.value || undefined })}>
-          <option value="">Any board</option>
-          {REGISTER_BOARD_GRADES.map((g) => (
-            <option key={g} value={g}>
-              {BOARD_GRADE_LABELS[g]}
-            </option>
-          ))}
-        </FilterSelect>
-        <FilterSelect aria-label="Glazing" value={glazing ?? ""} onChange={(e) => update({ glazing: e.target.value || undefined })}>
-          <option value="">Any glazing</option>
-          {REGISTER_GLAZINGS.map((g) => (
-            <option key={g} value={g}>
-              {GLAZING_TYPE_LABELS[g]}
-            </option>
-          ))}
-        </FilterSelect>
+        <EnumFilter label="Status" any="Any status" values={OBJECT_STATUSES} labels={OBJECT_STATUS_LABELS} value={status} onChange={(v) => update({ status: v })} />
+        <EnumFilter label="Object type" any="Any type" values={OBJECT_TYPES} labels={OBJECT_TYPE_LABELS} value={objectType} onChange={(v) => update({ objectType: v })} />
+        <EnumFilter label="Method" any="Any method" values={REGISTER_METHODS} labels={ATTACHMENT_METHOD_LABELS} value={method} onChange={(v) => update({ method: v })} />
+        <EnumFilter label="Board grade" any="Any board" values={REGISTER_BOARD_GRADES} labels={BOARD_GRADE_LABELS} value={boardGrade} onChange={(v) => update({ boardGrade: v })} />
+        <EnumFilter label="Glazing" any="Any glazing" values={REGISTER_GLAZINGS} labels={GLAZING_TYPE_LABELS} value={glazing} onChange={(v) => update({ glazing: v })} />
         <label className="inline-flex items-center gap-2 text-sm text-ink-soft">
           <input type="checkbox" className="h-4 w-4 accent-accent" checked={due} onChange={(e) => update({ due: e.target.checked ? "1" : undefined })} />
           Due for a check
         </label>
-        {filtered && (
-          <button
-            type="button"
-            className="text-sm font-medium text-accent hover:underline"
-            onClick={() => {
-              setQ("");
-              update({ q: undefined, status: undefined, type: undefined, client: undefined, method: undefined, board: undefined, glazing: undefined, due: undefined });
-            }}
-          >
-            Clear filters
-          </button>
-        )}
+        <ClearFilters
+          shown={filtered}
+          onClear={() => {
+            search.setText("");
+            update({ q: undefined, status: undefined, objectType: undefined, clientId: undefined, method: undefined, boardGrade: undefined, glazing: undefined, due: undefined });
+          }}
+        />
       </div>
 
-      <section aria-label="Objects" className="rounded-card bg-paper-sheet shadow-card" aria-busy={list.isFetching}>
-        {list.isPending ? (
-          <SkeletonRows />
-        ) : list.isError ? (
-          <div className="p-4">
-            <Notice tone="fail" title="The register could not be loaded">
-              {list.error.message}
-            </Notice>
-          </div>
-        ) : list.data.items.length === 0 ? (
-          <div className="p-4">
-            {due && !(debouncedQ || status || objectType || clientId || method || boardGrade || glazing) ? (
-              <EmptyState title="No object is due for a check">Every object with a planned check has it after today.</EmptyState>
-            ) : filtered ? (
-              <EmptyState title="No object matches">Try fewer words, or clear the filters.</EmptyState>
-            ) : (
-              <EmptyState
-                title="No objects yet"
-                action={can(user, "object:create") ? <ButtonLink to="/objects/new">Record the first object</ButtonLink> : undefined}
-              >
-                The register lists every work the studio receives, with its catalogue, mount and condition history.
-              </EmptyState>
-            )}
-          </div>
-        ) : (
+      <ListSection
+        label="Objects"
+        busy={list.isFetching}
+        query={list}
+        errorTitle="The register could not be loaded"
+        isEmpty={(d) => d.items.length === 0}
+        empty={
+          due && !(debouncedQ || status || objectType || clientId || method || boardGrade || glazing) ? (
+            <EmptyState title="No object is due for a check">Every object with a planned check has it after today.</EmptyState>
+          ) : filtered ? (
+            <EmptyState title="No object matches">Try fewer words, or clear the filters.</EmptyState>
+          ) : (
+            <EmptyState title="No objects yet" action={can(user, "object:create") ? <ButtonLink to="/objects/new">Record the first object</ButtonLink> : undefined}>
+              The register lists every work the studio receives, with its catalogue, mount and condition history.
+            </EmptyState>
+          )
+        }
+      >
+        {(data) => (
           <>
             <ObjectsTable
-              items={list.data.items}
+              items={data.items}
               unit={unit}
               sort={sort}
               dir={dir}
@@ -235,10 +165,10 @@ export function Component() {
               today={today}
               onSort={(k) => update({ sort: k, dir: sort === k ? (dir === "asc" ? "desc" : "asc") : (FIRST_DIR[k] ?? "asc") })}
             />
-            <Pagination page={page} pageSize={PAGE_SIZE} total={list.data.total} onPage={(p) => update({ page: String(p) }, false)} />
+            <Pagination page={page} pageSize={PAGE_SIZE} total={data.total} onPage={(p) => update({ page: p }, null)} />
           </>
         )}
-      </section>
+      </ListSection>
     </div>
   );
 }

@@ -11,8 +11,9 @@ import { useMe } from "@/features/session/api/session.ts";
 import { useRemoveLogo, useSaveSettings, useSettings, useUploadLogo } from "@/features/settings/api/settings.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
 import { Button } from "@/components/ui/button.tsx";
+import { Segmented } from "@/components/ui/segmented.tsx";
 import { Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
-import { ApiError } from "@/lib/api-client.ts";
+import { useServerErrors } from "@/lib/form-errors.ts";
 import { useSaveTerm, useTerms } from "@/features/condition/api/condition.ts";
 import { UsersPanel } from "@/features/settings/components/users-panel.tsx";
 import { useClients } from "@/features/clients/api/clients.ts";
@@ -21,13 +22,9 @@ function SettingsForm({ initial, readOnly }: { initial: StudioSettings; readOnly
   const save = useSaveSettings();
   const form = useForm<SettingsInput, unknown, StudioSettings>({ resolver: zodResolver(StudioSettingsSchema), defaultValues: initial });
   const e = form.formState.errors;
+  const server = useServerErrors(form);
   const submit = form.handleSubmit(async ({ framePresets: _kept, ...values }) => {
-    try {
-      await save.mutateAsync(values);
-      form.reset(values as SettingsInput);
-    } catch (err) {
-      if (err instanceof ApiError) for (const [k, m] of Object.entries(err.fields)) form.setError(k as keyof SettingsInput, { message: m });
-    }
+    if (await server.run(() => save.mutateAsync(values))) form.reset(values as SettingsInput);
   });
   return (
     <form onSubmit={submit} noValidate className="max-w-3xl space-y-4">
@@ -78,13 +75,7 @@ function Vocabulary({ readOnly }: { readOnly: boolean }) {
     <section className="max-w-3xl space-y-3 rounded-card bg-paper-sheet p-5 shadow-card" aria-label="Condition vocabulary">
       <h2 className="text-base font-semibold">Condition vocabulary</h2>
       <p className="text-sm text-graphite">The words findings are recorded in. Photographs use both lists. A retired term stays on old reports but is no longer offered.</p>
-      <div role="tablist" aria-label="List" className="inline-flex rounded-card border border-stone text-sm">
-        {(["paper", "photograph"] as const).map((l) => (
-          <button key={l} type="button" role="tab" aria-selected={list === l} onClick={() => setList(l)} className={`px-3 py-1 ${list === l ? "bg-accent text-paper-sheet" : "text-ink-soft"}`}>
-            {l === "paper" ? "Paper" : "Photographs"}
-          </button>
-        ))}
-      </div>
+      <Segmented kind="tab" label="List" options={["paper", "photograph"] as const} value={list} onChange={setList} optionLabel={(l) => (l === "paper" ? "Paper" : "Photographs")} hover={false} />
       <ul className="grid gap-1 sm:grid-cols-2">
         {shown.map((t) => (
           <li key={t.id} className="flex items-center justify-between gap-2 border-b border-stone-light py-1 text-sm">

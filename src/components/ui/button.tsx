@@ -22,3 +22,17 @@ export function Button({ variant = "primary", className = "", ...props }: Button
 export function ButtonLink({ variant = "primary", className = "", ...props }: LinkProps & { variant?: Variant }) {
   return <Link className={buttonClass(variant, className)} {...props} />;
 }
+
+/** A form's last row: save (saying so while it saves) and cancel. */
+export function FormActions({ submitting, label, busyLabel = "Saving…", onCancel, className = "flex gap-3" }: { submitting: boolean; label: string; busyLabel?: string; onCancel: () => void; className?: string }) {
+  return (
+    <div className={className}>
+      <Button type="submit" disabled={submitting}>
+        {submitting ? busyLabel : label}
+      </Button>
+      <Button variant="secondary" onClick={onCancel}>
+        Cancel
+      </Button>
+    </div>
+  );
+}

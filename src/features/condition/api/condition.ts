@@ -3,6 +3,18 @@ import type { ConditionCreate, ConditionData, ConditionListQuery, ConditionRepor
 import type { ComparedFinding } from "@shared/domain/condition.ts";
 import type { Change } from "@shared/domain/diff.ts";
 import { api, qs } from "@/lib/api-client.ts";
+import { objectHistoryKey, rootKeys } from "@/lib/query-keys.ts";
+
+type RegisterParams = Partial<Record<keyof ConditionListQuery, string | number | undefined>>;
+export const conditionKeys = {
+  all: rootKeys.condition,
+  object: (objectId: string) => [...rootKeys.condition, "object", objectId] as const,
+  one: (id: string) => [...rootKeys.condition, "one", id] as const,
+  revisions: (id: string) => [...rootKeys.condition, "revisions", id] as const,
+  compare: (from: string, to: string) => [...rootKeys.condition, "compare", from, to] as const,
+  register: (params: RegisterParams) => [...rootKeys.condition, "register", params] as const,
+  terms: (all?: boolean) => (all === undefined ? rootKeys.conditionTerms : ([...rootKeys.conditionTerms, all] as const)),
+};
 
 export type ConditionRegisterItem = {
   id: string;
@@ -20,28 +32,28 @@ export type ConditionRegisterItem = {
 
 export const objectConditionQuery = (objectId: string) =>
   queryOptions({
-    queryKey: ["condition", "object", objectId],
+    queryKey: conditionKeys.object(objectId),
     queryFn: () => api.get<{ items: ConditionReport[] }>(`/api/objects/${encodeURIComponent(objectId)}/condition`).then((r) => r.items),
   });
-export const reportQuery = (id: string) => queryOptions({ queryKey: ["condition", "one", id], queryFn: () => api.get<ConditionReport>(`/api/condition/${encodeURIComponent(id)}`) });
+export const reportQuery = (id: string) => queryOptions({ queryKey: conditionKeys.one(id), queryFn: () => api.get<ConditionReport>(`/api/condition/${encodeURIComponent(id)}`) });
 
 export const useObjectCondition = (objectId: string) => useQuery({ ...objectConditionQuery(objectId), enabled: !!objectId });
 export const useReport = (id: string) => useQuery({ ...reportQuery(id), enabled: !!id });
 export const useReportRevisions = (id: string, enabled: boolean) =>
   useQuery({
-    queryKey: ["condition", "revisions", id],
+    queryKey: conditionKeys.revisions(id),
     queryFn: () => api.get<{ items: (ConditionRevision & { changes: Change[] })[] }>(`/api/condition/${encodeURIComponent(id)}/revisions`).then((r) => r.items),
     enabled,
   });
 export const useComparison = (from: string, to: string) =>
   useQuery({
-    queryKey: ["condition", "compare", from, to],
+    queryKey: conditionKeys.compare(from, to),
     queryFn: () => api.get<{ earlier: ConditionReport; later: ConditionReport; findings: ComparedFinding[] }>(`/api/condition/compare${qs({ from, to })}`),
     enabled: !!from && !!to && from !== to,
   });
-export const useConditionRegister = (params: Partial<Record<keyof ConditionListQuery, string | number | undefined>>) =>
+export const useConditionRegister = (params: RegisterParams) =>
   useQuery({
-    queryKey: ["condition", "register", params],
+    queryKey: conditionKeys.register(params),
     queryFn: () =>
       api.get<{ items: ConditionRegisterItem[]; total: number; page: number; pageSize: number; examiners: { id: string; name: string }[] }>(
         `/api/condition${qs(params as Record<string, string | number | undefined>)}`,
@@ -49,15 +61,15 @@ export const useConditionRegister = (params: Partial<Record<keyof ConditionListQ
     placeholderData: keepPreviousData,
   });
 export const useTerms = (all = false) =>
-  useQuery({ queryKey: ["condition-terms", all], queryFn: () => api.get<{ items: Term[] }>(`/api/condition-terms${qs({ all: all ? "true" : undefined })}`).then((r) => r.items), staleTime: 5 * 60_000 });
+  useQuery({ queryKey: conditionKeys.terms(all), queryFn: () => api.get<{ items: Term[] }>(`/api/condition-terms${qs({ all: all ? "true" : undefined })}`).then((r) => r.items), staleTime: 5 * 60_000 });
 
 function useDone() {
   const qc = useQueryClient();
   return (r: ConditionReport) => {
     qc.setQueryData(reportQuery(r.id).queryKey, r);
-    qc.invalidateQueries({ queryKey: ["condition"] });
-    qc.invalidateQueries({ queryKey: ["history", r.objectId] });
-    qc.invalidateQueries({ queryKey: ["objects"] });
+    qc.invalidateQueries({ queryKey: conditionKeys.all });
+    qc.invalidateQueries({ queryKey: objectHistoryKey(r.objectId) });
+    qc.invalidateQueries({ queryKey: rootKeys.objects });
   };
 }
 export function useCreateReport(objectId: string) {
@@ -84,6 +96,6 @@ export function useSaveTerm() {
   return useMutation({
     mutationFn: (t: { id?: string; list: "paper" | "photograph"; term: string; caution: string | null; active: boolean }) =>
       t.id ? api.put<Term>(`/api/condition-terms/${encodeURIComponent(t.id)}`, t) : api.post<Term>("/api/condition-terms", t),
-    onSuccess: () => qc.invalidateQueries({ queryKey: ["condition-terms"] }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: conditionKeys.terms() }),
   });
 }

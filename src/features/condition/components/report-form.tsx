@@ -1,6 +1,6 @@
 import { useMemo, useState } from "react";
 import { useFieldArray, useForm, useWatch, type Path, type Resolver } from "react-hook-form";
-import { format } from "date-fns";
+import { studioToday } from "@/lib/today.ts";
 import {
   CONDITION_CONTEXTS,
   CONDITION_CONTEXT_LABELS,
@@ -20,12 +20,10 @@ import {
 import type { Photo } from "@shared/schemas/photos.ts";
 import { PHOTO_KIND_LABELS } from "@shared/schemas/photos.ts";
 import { ratingFloor } from "@shared/domain/condition.ts";
-import { issuesToFields } from "@shared/schemas/errors.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
-import { Button } from "@/components/ui/button.tsx";
+import { Button, FormActions } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
-import { ApiError } from "@/lib/api-client.ts";
-import { errorAt, nestedErrors } from "@/lib/form-errors.ts";
+import { errorAt, useServerErrors, withCorrectionReason } from "@/lib/form-errors.ts";
 import { PhotoMarkers } from "./photo-markers.tsx";
 
 export type ReportFormValues = {
@@ -55,10 +53,7 @@ function toBody(v: ReportFormValues) {
 function resolver(mode: ReportFormMode): Resolver<ReportFormValues, unknown, Submit> {
   return async (values) => {
     const parsed = ConditionCreateSchema.safeParse(toBody(values));
-    const fields = parsed.success ? {} : issuesToFields(parsed.error.issues);
-    if (mode === "correct" && !values.correctionReason.trim()) fields.correctionReason = "Say why the report is corrected.";
-    if (parsed.success && Object.keys(fields).length === 0) return { values: { ...parsed.data, correctionReason: values.correctionReason.trim() }, errors: {} };
-    return { values: {}, errors: nestedErrors<ReportFormValues>(fields) };
+    return withCorrectionReason<ReportFormValues, typeof parsed>(parsed, mode === "correct", values.correctionReason, "Say why the report is corrected.");
   };
 }
 
@@ -78,7 +73,7 @@ type Props = {
 };
 
 export function ReportForm({ mode, objectType, photos, terms, mountings, examinerName, lightNotes, previous, initial, onSubmit, onCancel }: Props) {
-  const today = format(new Date(), "yyyy-MM-dd");
+  const today = studioToday();
   const defaults: ReportFormValues = {
     context: initial?.context ?? "periodic-check",
     reportDate: initial?.reportDate ?? today,
@@ -97,10 +92,10 @@ export function ReportForm({ mode, objectType, photos, terms, mountings, examine
         },
   };
   const form = useForm<ReportFormValues, unknown, Submit>({ defaultValues: defaults, resolver: resolver(mode) });
-  const { register, control, setValue, getValues, formState, setError } = form;
+  const { register, control, setValue, getValues, formState } = form;
+  const server = useServerErrors(form);
   const findings = useFieldArray({ control, name: "data.findings", keyName: "_key" });
   const v = useWatch({ control }) as ReportFormValues;
-  const [serverError, setServerError] = useState<string | null>(null);
   const [selected, setSelected] = useState<string | null>(null);
   const reportPhotos = photos.filter((p) => (v.data.photoIds ?? []).includes(p.id));
   const [shownPhoto, setShownPhoto] = useState<string | null>(null);
@@ -126,21 +121,12 @@ export function ReportForm({ mode, objectType, photos, terms, mountings, examine
   }
   const indexOf = (id: string) => (getValues("data.findings") ?? []).findIndex((f) => f.id === id);
 
-  const submit = form.handleSubmit(async (values) => {
-    setServerError(null);
-    try {
-      await onSubmit(values);
-    } catch (x) {
-      const e = x instanceof ApiError ? x : new ApiError(0, "internal", String(x));
-      setServerError(e.message);
-      for (const [k, m] of Object.entries(e.fields)) setError(k as Path<ReportFormValues>, { type: "server", message: m });
-    }
-  });
+  const submit = form.handleSubmit((values) => server.run(() => onSubmit(values)));
 
   return (
     <form onSubmit={submit} noValidate className="grid gap-6 xl:grid-cols-[minmax(26rem,34rem)_1fr]" aria-label="Condition report">
       <div className="space-y-4">
-        {serverError && <Notice tone="fail" title="Not saved">{serverError}</Notice>}
+        {server.error && <Notice tone="fail" title="Not saved">{server.error.message}</Notice>}
         {mode === "correct" && (
           <div className="rounded-card bg-paper-sheet p-4 shadow-card">
             <Notice tone="info" title="A correction">The signed report stays as it was; this saves a new revision with your reason.</Notice>
@@ -231,10 +217,7 @@ export function ReportForm({ mode, objectType, photos, terms, mountings, examine
           <p className="col-span-2 text-xs text-graphite">Signing locks the report; corrections are saved as new revisions.</p>
         </section>
 
-        <div className="flex gap-3">
-          <Button type="submit" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : mode === "correct" ? "Save the correction" : "Save draft"}</Button>
-          <Button variant="secondary" onClick={onCancel}>Cancel</Button>
-        </div>
+        <FormActions submitting={formState.isSubmitting} label={mode === "correct" ? "Save the correction" : "Save draft"} onCancel={onCancel} />
       </div>
 
       <section aria-label="Photos of this report" className="space-y-3 xl:sticky xl:top-6 xl:self-start">

@@ -4,28 +4,36 @@ import type { CustodyCreate, CustodyKind, CustodyReceipt, InStudioItem } from "@
 export type { InStudioItem };
 import type { Page } from "@shared/schemas/common.ts";
 import { api, qs } from "@/lib/api-client.ts";
+import { rootKeys } from "@/lib/query-keys.ts";
 
 export type InStudioParams = { page?: number; pageSize?: number };
 export type ReceiptListParams = { direction?: "in" | "out"; kind?: CustodyKind; from?: string; to?: string; page?: number; pageSize?: number };
+
+export const custodyKeys = {
+  all: rootKeys.custody,
+  object: (objectId: string) => [...rootKeys.custody, "object", objectId] as const,
+  inStudio: (params: InStudioParams) => [...rootKeys.custody, "in-studio", params] as const,
+  receipts: (params: ReceiptListParams) => [...rootKeys.custody, "receipts", params] as const,
+};
 
 const objectPath = (objectId: string) => `/api/objects/${encodeURIComponent(objectId)}/custody`;
 
 export const objectCustodyQuery = (objectId: string) =>
   queryOptions({
-    queryKey: ["custody", "object", objectId],
+    queryKey: custodyKeys.object(objectId),
     queryFn: () => api.get<{ items: CustodyReceipt[] }>(objectPath(objectId)).then((r) => r.items),
   });
 
 export const inStudioQuery = (params: InStudioParams) =>
   queryOptions({
-    queryKey: ["custody", "in-studio", params],
+    queryKey: custodyKeys.inStudio(params),
     queryFn: () => api.get<Page<InStudioItem>>(`/api/custody/in-studio${qs(params)}`),
     placeholderData: keepPreviousData,
   });
 
 export const custodyReceiptsQuery = (params: ReceiptListParams) =>
   queryOptions({
-    queryKey: ["custody", "receipts", params],
+    queryKey: custodyKeys.receipts(params),
     queryFn: () => api.get<Page<CustodyReceipt>>(`/api/custody/receipts${qs(params)}`),
     placeholderData: keepPreviousData,
   });
@@ -40,9 +48,9 @@ export function useRecordCustody(objectId: string) {
   return useMutation({
     mutationFn: (body: CustodyCreate) => api.post<CustodyReceipt>(objectPath(objectId), body),
     onSuccess: () => {
-      qc.invalidateQueries({ queryKey: ["custody"] });
-      qc.invalidateQueries({ queryKey: ["objects"] });
-      qc.invalidateQueries({ queryKey: ["history"] });
+      qc.invalidateQueries({ queryKey: custodyKeys.all });
+      qc.invalidateQueries({ queryKey: rootKeys.objects });
+      qc.invalidateQueries({ queryKey: rootKeys.history });
     },
   });
 }

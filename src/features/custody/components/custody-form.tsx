@@ -1,7 +1,7 @@
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
-import { format } from "date-fns";
+import { studioToday } from "@/lib/today.ts";
 import type { z } from "zod";
 import {
   CUSTODY_KINDS,
@@ -15,9 +15,9 @@ import {
 } from "@shared/schemas/custody.ts";
 import type { ObjectStatus } from "@shared/schemas/objects.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
-import { Button } from "@/components/ui/button.tsx";
+import { Button, FormActions } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
-import { ApiError } from "@/lib/api-client.ts";
+import { useServerErrors } from "@/lib/form-errors.ts";
 import { formatDate } from "@/lib/format.ts";
 import { useRecordCustody } from "../api/custody.ts";
 
@@ -98,7 +98,6 @@ export function CustodyForm(props: Props) {
 
 function ReceiptForm({ objectId, status, ownerName, studioName, onDone, onCancel }: Props & { onDone: (r: CustodyReceipt) => void; onCancel: () => void }) {
   const record = useRecordCustody(objectId);
-  const [serverError, setServerError] = useState<ApiError | null>(null);
   const kinds = kindsFor(status);
   const parties: Parties = { owner: ownerName, studio: studioName };
   const first = kinds[0];
@@ -107,7 +106,7 @@ function ReceiptForm({ objectId, status, ownerName, studioName, onDone, onCancel
     mode: "onTouched",
     defaultValues: {
       kind: first,
-      date: format(new Date(), "yyyy-MM-dd"),
+      date: studioToday(),
       ...suggestedParties(first, parties),
       condition: "",
       signedBy: "",
@@ -116,7 +115,10 @@ function ReceiptForm({ objectId, status, ownerName, studioName, onDone, onCancel
       notes: "",
     },
   });
-  const { register, formState, setError, setValue, getFieldState, watch } = form;
+  // The server's field messages go beside their fields; the values stay as typed.
+  const server = useServerErrors(form, { accept: (k) => (FIELDS as readonly string[]).includes(k), focus: true });
+  const serverError = server.error;
+  const { register, formState, setValue, getFieldState, watch } = form;
   const e = formState.errors;
   const kind = watch("kind") as CustodyKind;
   const inward = CUSTODY_KIND_EFFECT[kind]?.direction === "in";
@@ -132,17 +134,8 @@ function ReceiptForm({ objectId, status, ownerName, studioName, onDone, onCancel
   });
 
   const submit = form.handleSubmit(async (values) => {
-    setServerError(null);
-    try {
-      onDone(await record.mutateAsync(values));
-    } catch (err) {
-      const apiError = err instanceof ApiError ? err : new ApiError(0, "internal", String(err));
-      setServerError(apiError);
-      // The server's field messages go beside their fields; the values stay as typed.
-      for (const [k, message] of Object.entries(apiError.fields)) {
-        if ((FIELDS as readonly string[]).includes(k)) setError(k as keyof Values, { type: "server", message }, { shouldFocus: true });
-      }
-    }
+    const receipt = await server.run(() => record.mutateAsync(values));
+    if (receipt) onDone(receipt);
   });
 
   return (
@@ -188,14 +181,7 @@ function ReceiptForm({ objectId, status, ownerName, studioName, onDone, onCancel
         ) : null}
         <TextAreaField label="Notes" wrapClassName="md:col-span-2" error={e.notes?.message} hint="Packing, transport, anything agreed at the hand-over" {...register("notes")} />
       </div>
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" disabled={formState.isSubmitting}>
-          {formState.isSubmitting ? "Recording…" : "Record the receipt"}
-        </Button>
-        <Button variant="secondary" onClick={onCancel}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions className="flex flex-wrap gap-3" submitting={formState.isSubmitting} label="Record the receipt" busyLabel="Recording…" onCancel={onCancel} />
     </form>
   );
 }

@@ -2,6 +2,7 @@ import type { ReactNode } from "react";
 import { Link } from "react-router";
 import { CUSTODY_KIND_LABELS, type CustodyKind, type CustodyReceipt } from "@shared/schemas/custody.ts";
 import { Badge, EmptyState, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { DataTable, type Column } from "@/components/ui/data-table.tsx";
 import { formatDate } from "@/lib/format.ts";
 import { useObjectCustody } from "../api/custody.ts";
 
@@ -71,47 +72,47 @@ function ReceiptLine({ r, actions }: { r: CustodyReceipt; actions?: ReactNode })
   );
 }
 
+const RECEIPT_COLUMNS: Column<CustodyReceipt>[] = [
+  {
+    key: "number",
+    header: "Object number",
+    th: "whitespace-nowrap",
+    cell: (r) => (
+      <>
+        <Link to={`/objects/${r.objectId}`} className="whitespace-nowrap font-semibold text-accent num hover:underline">
+          {r.objectNumber}
+        </Link>
+        <span className="mt-0.5 block text-xs text-graphite">{r.objectTitle}</span>
+      </>
+    ),
+  },
+  { key: "date", header: "Date", th: "whitespace-nowrap", td: "whitespace-nowrap num", cell: (r) => formatDate(r.date) },
+  {
+    key: "kind",
+    header: "Hand-over",
+    cell: (r) => (
+      <span className="flex items-center gap-2 whitespace-nowrap">
+        <DirectionBadge direction={r.direction} />
+        <span className="text-ink-soft">{kindLabel(r.kind)}</span>
+      </span>
+    ),
+  },
+  {
+    key: "parties",
+    header: "From → to",
+    td: "min-w-48 text-ink-soft",
+    cell: (r) => (
+      <>
+        {r.fromParty} <span aria-hidden="true">→</span>
+        <span className="sr-only">to</span> {r.toParty}
+      </>
+    ),
+  },
+  { key: "condition", header: "Condition", td: "min-w-56", cell: (r) => r.condition },
+  { key: "signed", header: "Signed by", th: "whitespace-nowrap", td: "text-ink-soft", cell: (r) => r.signedBy },
+];
+
 /** Receipts across objects (the studio-wide register of hand-overs), object number first and linked. */
 export function ReceiptsTable({ items }: { items: CustodyReceipt[] }) {
-  return (
-    <div className="overflow-x-auto">
-      <table className="w-full border-collapse text-sm">
-        <thead className="sticky top-0 z-10 bg-paper-sheet text-ink-soft shadow-[0_1px_0_var(--color-stone)]">
-          <tr>
-            <th scope="col" className="whitespace-nowrap px-3 py-2.5 text-left font-semibold">Object number</th>
-            <th scope="col" className="whitespace-nowrap px-3 py-2.5 text-left font-semibold">Date</th>
-            <th scope="col" className="px-3 py-2.5 text-left font-semibold">Hand-over</th>
-            <th scope="col" className="px-3 py-2.5 text-left font-semibold">From → to</th>
-            <th scope="col" className="px-3 py-2.5 text-left font-semibold">Condition</th>
-            <th scope="col" className="whitespace-nowrap px-3 py-2.5 text-left font-semibold">Signed by</th>
-          </tr>
-        </thead>
-        <tbody>
-          {items.map((r) => (
-            <tr key={r.id} className="border-b border-stone-light align-top hover:bg-paper-deep/60">
-              <td className="px-3 py-3">
-                <Link to={`/objects/${r.objectId}`} className="whitespace-nowrap font-semibold text-accent num hover:underline">
-                  {r.objectNumber}
-                </Link>
-                <span className="mt-0.5 block text-xs text-graphite">{r.objectTitle}</span>
-              </td>
-              <td className="whitespace-nowrap px-3 py-3 num">{formatDate(r.date)}</td>
-              <td className="px-3 py-3">
-                <span className="flex items-center gap-2 whitespace-nowrap">
-                  <DirectionBadge direction={r.direction} />
-                  <span className="text-ink-soft">{kindLabel(r.kind)}</span>
-                </span>
-              </td>
-              <td className="min-w-48 px-3 py-3 text-ink-soft">
-                {r.fromParty} <span aria-hidden="true">→</span>
-                <span className="sr-only">to</span> {r.toParty}
-              </td>
-              <td className="min-w-56 px-3 py-3">{r.condition}</td>
-              <td className="px-3 py-3 text-ink-soft">{r.signedBy}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
-  );
+  return <DataTable columns={RECEIPT_COLUMNS} rows={items} rowKey={(r) => r.id} rowClassName="border-b border-stone-light align-top hover:bg-paper-deep/60" />;
 }

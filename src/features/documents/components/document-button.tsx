@@ -1,6 +1,6 @@
 import { useState } from "react";
 import { Button } from "@/components/ui/button.tsx";
-import { downloadFile } from "@/lib/download.ts";
+import { download } from "@/lib/api-client.ts";
 
 /** Issues a document and saves the PDF; says so, with its verification code, or says what went wrong. */
 export function DocumentButton({ url, label, body, fallbackName, onIssued, variant = "secondary" }: { url: string; label: string; body?: unknown; fallbackName: string; onIssued?: () => void; variant?: "primary" | "secondary" }) {
@@ -13,7 +13,7 @@ export function DocumentButton({ url, label, body, fallbackName, onIssued, varia
         onClick={async () => {
           setState({ busy: true, message: null, error: false });
           try {
-            const r = await downloadFile(url, { method: "POST", body, fallbackName });
+            const r = await download(url, { method: "POST", body, fallbackName });
             setState({ busy: false, message: r.code ? `Issued with verification code ${r.code}.` : "Saved.", error: false });
             onIssued?.();
           } catch (e) {

@@ -1,52 +1,46 @@
-import { useEffect, useState } from "react";
+import { useEffect, useRef, useState } from "react";
+import { DATASETS, type Dataset, type Format } from "@shared/schemas/exports.ts";
 import { Button } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
-import { api } from "@/lib/api-client.ts";
-import { downloadFile } from "@/lib/download.ts";
+import { downloadArchive, downloadDataset, startArchive, useExportJob } from "../api/exports.ts";
 
-const DATASETS = [
-  { id: "objects", label: "Objects" },
-  { id: "mountings", label: "Mountings" },
-  { id: "condition", label: "Condition reports, with findings and recommendations" },
-  { id: "custody", label: "Custody (every hand-over in and out)" },
-  { id: "valuations", label: "Valuations" },
-] as const;
+/** The datasets as the panel names them; the ids are the shared contract's. */
+const DATASET_LABELS: Record<Dataset, string> = {
+  objects: "Objects",
+  mountings: "Mountings",
+  condition: "Condition reports, with findings and recommendations",
+  custody: "Custody (every hand-over in and out)",
+  valuations: "Valuations",
+};
 
-type Job = { state: "running" | "done" | "failed"; progress: number; message?: string };
+const message = (e: unknown) => (e instanceof Error ? e.message : String(e));
 
 /** A client's records as CSV (opens in a spreadsheet) or JSON, and everything at once as a ZIP with photos. */
 export function ExportsPanel({ clientId, showValuations, mayTakeOriginals = false }: { clientId: string; showValuations: boolean; mayTakeOriginals?: boolean }) {
   const [error, setError] = useState<string | null>(null);
   const [originals, setOriginals] = useState(false);
   const [jobId, setJobId] = useState<string | null>(null);
-  const [job, setJob] = useState<Job | null>(null);
+  const poll = useExportJob(jobId);
+  const job = jobId ? poll.data : undefined;
+  const downloaded = useRef<string | null>(null);
+
+  // Once the archive is built, save it, once per job.
+  useEffect(() => {
+    if (!jobId || job?.state !== "done" || downloaded.current === jobId) return;
+    downloaded.current = jobId;
+    downloadArchive(jobId).catch((e) => setError(message(e)));
+  }, [jobId, job?.state]);
 
   useEffect(() => {
-    if (!jobId) return;
-    let stop = false;
-    const tick = async () => {
-      try {
-        const j = await api.get<Job>(`/api/exports/${encodeURIComponent(jobId)}`);
-        if (stop) return;
-        setJob(j);
-        if (j.state === "running") setTimeout(tick, 500);
-        else if (j.state === "done") await downloadFile(`/api/exports/${encodeURIComponent(jobId)}/download`, { method: "GET", fallbackName: "reversa-archive.zip" });
-      } catch (e) {
-        if (!stop) setError(e instanceof Error ? e.message : String(e));
-      }
-    };
-    void tick();
-    return () => {
-      stop = true;
-    };
-  }, [jobId]);
+    if (poll.error) setError(message(poll.error));
+  }, [poll.error]);
 
-  const get = async (dataset: string, format: "csv" | "json") => {
+  const get = async (dataset: Dataset, format: Format) => {
     setError(null);
     try {
-      await downloadFile(`/api/clients/${encodeURIComponent(clientId)}/exports/${dataset}.${format}`, { method: "GET", fallbackName: `${dataset}.${format}` });
+      await downloadDataset(clientId, dataset, format);
     } catch (e) {
-      setError(e instanceof Error ? e.message : String(e));
+      setError(message(e));
     }
   };
 
@@ -54,12 +48,12 @@ export function ExportsPanel({ clientId, showValuations, mayTakeOriginals = fals
     <div className="space-y-3 text-sm">
       {error && <Notice tone="fail" title="Not exported">{error}</Notice>}
       <ul className="divide-y divide-stone-light">
-        {DATASETS.filter((d) => d.id !== "valuations" || showValuations).map((d) => (
-          <li key={d.id} className="flex items-center justify-between gap-3 py-2">
-            <span>{d.label}</span>
+        {DATASETS.filter((d) => d !== "valuations" || showValuations).map((d) => (
+          <li key={d} className="flex items-center justify-between gap-3 py-2">
+            <span>{DATASET_LABELS[d]}</span>
             <span className="flex gap-2">
-              <Button variant="quiet" className="px-2 py-1" onClick={() => get(d.id, "csv")}>CSV</Button>
-              <Button variant="quiet" className="px-2 py-1" onClick={() => get(d.id, "json")}>JSON</Button>
+              <Button variant="quiet" className="px-2 py-1" onClick={() => get(d, "csv")}>CSV</Button>
+              <Button variant="quiet" className="px-2 py-1" onClick={() => get(d, "json")}>JSON</Button>
             </span>
           </li>
         ))}
@@ -70,12 +64,11 @@ export function ExportsPanel({ clientId, showValuations, mayTakeOriginals = fals
           disabled={job?.state === "running"}
           onClick={async () => {
             setError(null);
-            setJob(null);
+            setJobId(null);
             try {
-              const r = await api.post<{ jobId: string }>(`/api/clients/${encodeURIComponent(clientId)}/exports/archive`, { originals });
-              setJobId(r.jobId);
+              setJobId((await startArchive(clientId, originals)).jobId);
             } catch (e) {
-              setError(e instanceof Error ? e.message : String(e));
+              setError(message(e));
             }
           }}
         >

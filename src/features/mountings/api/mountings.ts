@@ -2,17 +2,25 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/r
 import type { MountingCorrection, MountingCreate, MountingRecord, MountingRevision } from "@shared/schemas/mountings.ts";
 import type { Change } from "@shared/domain/diff.ts";
 import { api } from "@/lib/api-client.ts";
+import { objectHistoryKey, rootKeys } from "@/lib/query-keys.ts";
+
+export const mountingKeys = {
+  all: rootKeys.mountings,
+  object: (objectId: string) => [...rootKeys.mountings, "object", objectId] as const,
+  one: (id: string) => [...rootKeys.mountings, "one", id] as const,
+  revisions: (id: string) => [...rootKeys.mountings, "revisions", id] as const,
+};
 
 export const objectMountingsQuery = (objectId: string) =>
   queryOptions({
-    queryKey: ["mountings", "object", objectId],
+    queryKey: mountingKeys.object(objectId),
     queryFn: () => api.get<{ items: MountingRecord[] }>(`/api/objects/${encodeURIComponent(objectId)}/mountings`).then((r) => r.items),
   });
 export const mountingQuery = (id: string) =>
-  queryOptions({ queryKey: ["mountings", "one", id], queryFn: () => api.get<MountingRecord>(`/api/mountings/${encodeURIComponent(id)}`) });
+  queryOptions({ queryKey: mountingKeys.one(id), queryFn: () => api.get<MountingRecord>(`/api/mountings/${encodeURIComponent(id)}`) });
 export const revisionsQuery = (id: string) =>
   queryOptions({
-    queryKey: ["mountings", "revisions", id],
+    queryKey: mountingKeys.revisions(id),
     queryFn: () => api.get<{ items: (MountingRevision & { changes: Change[] })[] }>(`/api/mountings/${encodeURIComponent(id)}/revisions`).then((r) => r.items),
   });
 
@@ -24,9 +32,9 @@ function useInvalidate() {
   const qc = useQueryClient();
   return (m: MountingRecord) => {
     qc.setQueryData(mountingQuery(m.id).queryKey, m);
-    qc.invalidateQueries({ queryKey: ["mountings"] });
-    qc.invalidateQueries({ queryKey: ["history", m.objectId] });
-    qc.invalidateQueries({ queryKey: ["objects"] });
+    qc.invalidateQueries({ queryKey: mountingKeys.all });
+    qc.invalidateQueries({ queryKey: objectHistoryKey(m.objectId) });
+    qc.invalidateQueries({ queryKey: rootKeys.objects });
   };
 }
 

@@ -1,6 +1,6 @@
-import { useMemo, useState } from "react";
-import { useFieldArray, useForm, useWatch, type Path, type Resolver } from "react-hook-form";
-import { format } from "date-fns";
+import { useMemo } from "react";
+import { useFieldArray, useForm, useWatch, type Resolver } from "react-hook-form";
+import { studioToday } from "@/lib/today.ts";
 import {
   BACKING_TYPES,
   BACKING_TYPE_LABELS,
@@ -18,16 +18,14 @@ import {
   type MountingDataInput,
 } from "@shared/schemas/mountings.ts";
 import { ADHESIVES, ATTACHMENT_METHODS, MountPlanInputSchema, SIDES, type MountPlanInput } from "@shared/schemas/mount-plan.ts";
-import { issuesToFields } from "@shared/schemas/errors.ts";
 import { draftPlan, planObjectOf, recordPlan, type CatalogueFacts, type PlanSettings } from "@shared/domain/mounting.ts";
 import { hingesWanted, planDrawing } from "@shared/domain/mount-plan/index.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
-import { Button } from "@/components/ui/button.tsx";
+import { Button, FormActions } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
 import { PlanDrawing } from "@/components/plan-drawing.tsx";
 import { ChecksList, LevelBadge } from "@/components/checks-list.tsx";
-import { ApiError } from "@/lib/api-client.ts";
-import { errorAt, nestedErrors } from "@/lib/form-errors.ts";
+import { errorAt, useServerErrors, withCorrectionReason } from "@/lib/form-errors.ts";
 import { ADHESIVE_LABELS, ATTACHMENT_METHOD_LABELS as ATTACHMENT_LABELS } from "@shared/schemas/mountings.ts";
 
 type FormData = Omit<MountingDataInput, "plan">;
@@ -59,10 +57,7 @@ function resolverFor(planInput: MountPlanInput, mode: MountingFormMode): Resolve
   return async (values) => {
     const body = { reason: values.reason, mountedOn: values.mountedOn, data: { ...values.data, plan: planInput } };
     const parsed = MountingCreateSchema.safeParse(body);
-    const fields = parsed.success ? {} : issuesToFields(parsed.error.issues);
-    if (mode === "correct" && !values.correctionReason.trim()) fields.correctionReason = "Say why the record is corrected.";
-    if (parsed.success && Object.keys(fields).length === 0) return { values: { ...parsed.data, correctionReason: values.correctionReason.trim() }, errors: {} };
-    return { values: {}, errors: nestedErrors<MountingFormValues>(fields) };
+    return withCorrectionReason<MountingFormValues, typeof parsed>(parsed, mode === "correct", values.correctionReason, "Say why the record is corrected.");
   };
 }
 
@@ -81,15 +76,15 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
   const hasTop = !!planInput.doubleMount;
   const defaults: MountingFormValues = {
     reason: initial?.reason ?? "first-mounting",
-    mountedOn: initial?.mountedOn ?? format(new Date(), "yyyy-MM-dd"),
+    mountedOn: initial?.mountedOn ?? studioToday(),
     correctionReason: "",
     data: initial ? stripPlan(initial.data) : emptyMountingData(planInput, hasTop),
   };
   const form = useForm<MountingFormValues, unknown, MountingCreate & { correctionReason: string }>({ defaultValues: defaults, resolver: resolverFor(planInput, mode) });
-  const { register, control, setValue, getValues, formState, setError } = form;
+  const { register, control, setValue, getValues, formState } = form;
+  const server = useServerErrors(form);
   const hinges = useFieldArray({ control, name: "data.attachment.hinges" });
   const watched = useWatch({ control }) as MountingFormValues;
-  const [serverError, setServerError] = useState<string | null>(null);
   const e = formState.errors;
   const err = (p: string) => errorAt(e, p);
 
@@ -123,16 +118,7 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
     hinges.replace(Array.from({ length: n }, (_, i) => ({ edge: "top" as const, offsetMm: Math.round(((i + 0.5) * w) / n - width / 2), widthMm: width })));
   }
 
-  const submit = form.handleSubmit(async (values) => {
-    setServerError(null);
-    try {
-      await onSubmit(values);
-    } catch (x) {
-      const apiError = x instanceof ApiError ? x : new ApiError(0, "internal", String(x));
-      setServerError(apiError.message);
-      for (const [k, message] of Object.entries(apiError.fields)) setError(k as Path<MountingFormValues>, { type: "server", message });
-    }
-  });
+  const submit = form.handleSubmit((values) => server.run(() => onSubmit(values)));
 
   const Board = ({ role, label }: { role: "window" | "backing" | "top"; label: string }) => (
     <fieldset className="rounded-card border border-stone-light p-3">
@@ -161,7 +147,7 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
   return (
     <div className="grid gap-6 xl:grid-cols-[minmax(24rem,30rem)_1fr]">
       <form onSubmit={submit} noValidate className="space-y-4" aria-label="Mounting record">
-        {serverError && <Notice tone="fail" title="Not saved">{serverError}</Notice>}
+        {server.error && <Notice tone="fail" title="Not saved">{server.error.message}</Notice>}
         {mode === "correct" && (
           <div className="rounded-card bg-paper-sheet p-4 shadow-card">
             <Notice tone="info" title="A correction">The completed record stays as it was; this saves a new revision with your reason, and both stay readable.</Notice>
@@ -248,10 +234,7 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
           <TextAreaField label="Other notes" error={err("data.notes")} {...register("data.notes")} />
         </section>
 
-        <div className="flex gap-3">
-          <Button type="submit" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : mode === "correct" ? "Save the correction" : "Save draft"}</Button>
-          <Button variant="secondary" onClick={onCancel}>Cancel</Button>
-        </div>
+        <FormActions submitting={formState.isSubmitting} label={mode === "correct" ? "Save the correction" : "Save draft"} onCancel={onCancel} />
       </form>
 
       <section aria-label="The plan with these materials" className="space-y-4 xl:sticky xl:top-6 xl:self-start">

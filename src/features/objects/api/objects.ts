@@ -1,39 +1,42 @@
 import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import type { ObjectCreate, ObjectListItem, ObjectListQuery, ObjectRecord, ObjectUpdate } from "@shared/schemas/objects.ts";
 import type { Page } from "@shared/schemas/common.ts";
-import { format } from "date-fns";
 import { api, qs } from "@/lib/api-client.ts";
+import { objectHistoryKey, rootKeys } from "@/lib/query-keys.ts";
+
+export const objectKeys = {
+  all: rootKeys.objects,
+  lists: () => [...rootKeys.objects, "list"] as const,
+  list: (params: ObjectListParams) => [...rootKeys.objects, "list", params] as const,
+  one: (id: string) => [...rootKeys.objects, "one", id] as const,
+  nextNumber: () => [...rootKeys.objects, "next-number"] as const,
+};
 
 export type ObjectListParams = Partial<ObjectListQuery>;
 
-/**
- * Today in the studio's own time zone, as the register's "due for a check" filter sends it
- * (the server has no clock of its own for it: a check due today is due wherever the framer is).
- */
-export const localToday = (now: Date = new Date()) => format(now, "yyyy-MM-dd");
-
 export const objectListQuery = (params: ObjectListParams) =>
   queryOptions({
-    queryKey: ["objects", "list", params],
+    queryKey: objectKeys.list(params),
     queryFn: () => api.get<Page<ObjectListItem>>(`/api/objects${qs(params)}`),
     placeholderData: keepPreviousData,
   });
 
 export const objectQuery = (id: string) =>
-  queryOptions({ queryKey: ["objects", "one", id], queryFn: () => api.get<ObjectRecord>(`/api/objects/${encodeURIComponent(id)}`) });
+  queryOptions({ queryKey: objectKeys.one(id), queryFn: () => api.get<ObjectRecord>(`/api/objects/${encodeURIComponent(id)}`) });
 
 export const useObjects = (params: ObjectListParams) => useQuery(objectListQuery(params));
 export const useObject = (id: string) => useQuery(objectQuery(id));
 export const useNextObjectNumber = (enabled: boolean) =>
-  useQuery({ queryKey: ["objects", "next-number"], queryFn: () => api.get<{ objectNumber: string }>("/api/objects/next-number"), enabled, staleTime: 0 });
+  useQuery({ queryKey: objectKeys.nextNumber(), queryFn: () => api.get<{ objectNumber: string }>("/api/objects/next-number"), enabled, staleTime: 0 });
 
 export function useCreateObject() {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (body: ObjectCreate) => api.post<ObjectRecord>("/api/objects", body),
     onSuccess: (obj) => {
-      qc.invalidateQueries({ queryKey: ["objects"] });
-      qc.invalidateQueries({ queryKey: ["clients"] });
+      qc.invalidateQueries({ queryKey: objectKeys.all });
+      // Clients show how many objects they have.
+      qc.invalidateQueries({ queryKey: rootKeys.clients });
       qc.setQueryData(objectQuery(obj.id).queryKey, obj);
     },
   });
@@ -44,7 +47,9 @@ export function useUpdateObject(id: string) {
   return useMutation({
     mutationFn: (body: ObjectUpdate) => api.put<ObjectRecord>(`/api/objects/${encodeURIComponent(id)}`, body),
     onSuccess: (obj) => {
-      qc.invalidateQueries({ queryKey: ["objects", "list"] });
+      qc.invalidateQueries({ queryKey: objectKeys.lists() });
+      // The edit is an event in the object's history.
+      qc.invalidateQueries({ queryKey: objectHistoryKey(obj.id) });
       qc.setQueryData(objectQuery(obj.id).queryKey, obj);
     },
   });

@@ -20,9 +20,11 @@ import { lengthInputValue, parseLength, type Unit } from "@shared/domain/units.t
 import { minorDigits, parseMoney } from "@shared/domain/money.ts";
 import { issuesToFields } from "@shared/schemas/errors.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
-import { Button } from "@/components/ui/button.tsx";
+import { FormActions } from "@/components/ui/button.tsx";
+import { EnumOptions } from "@/components/ui/options.tsx";
+import { Segmented } from "@/components/ui/segmented.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
-import { ApiError } from "@/lib/api-client.ts";
+import { useServerErrors } from "@/lib/form-errors.ts";
 
 const LENGTHS = ["sheetWidthMm", "sheetHeightMm", "borderLeftMm", "borderTopMm", "borderRightMm", "borderBottomMm"] as const;
 type LengthKey = (typeof LENGTHS)[number];
@@ -120,9 +122,11 @@ type Props = {
 
 export function ObjectForm({ defaultValues, studioUnit, clients, canEditOwner, showValuation, statusLocked = false, submitLabel, onSubmit, onCancel }: Props) {
   const [unit, setUnit] = useState<Unit>(studioUnit);
-  const [serverError, setServerError] = useState<ApiError | null>(null);
   const form = useForm<ObjectFormValues, unknown, ObjectCreate>({ defaultValues, resolver: objectResolver(() => unit), mode: "onTouched" });
-  const { register, formState, setError, getValues, setValue, watch } = form;
+  // Field messages from the server go beside their fields; everything typed stays in the form.
+  const server = useServerErrors(form, { accept: (k) => k in defaultValues, focus: true });
+  const serverError = server.error;
+  const { register, formState, getValues, setValue, watch } = form;
   const e = formState.errors;
   const isPhoto = watch("objectType") === "photograph";
 
@@ -136,19 +140,7 @@ export function ObjectForm({ defaultValues, studioUnit, clients, canEditOwner, s
     setUnit(next);
   }
 
-  const submit = form.handleSubmit(async (values) => {
-    setServerError(null);
-    try {
-      await onSubmit(values);
-    } catch (err) {
-      const apiError = err instanceof ApiError ? err : new ApiError(0, "internal", String(err));
-      setServerError(apiError);
-      // Field messages from the server go beside their fields; everything typed stays in the form.
-      for (const [k, message] of Object.entries(apiError.fields)) {
-        if (k in defaultValues) setError(k as keyof ObjectFormValues, { type: "server", message }, { shouldFocus: true });
-      }
-    }
-  });
+  const submit = form.handleSubmit((values) => server.run(() => onSubmit(values)));
 
   const lengthHint = unit === "in" ? "Inches: 7 5/8, 7-5/8 or 7.625" : "Millimetres";
 
@@ -168,19 +160,10 @@ export function ObjectForm({ defaultValues, studioUnit, clients, canEditOwner, s
         <TextField label="Maker" error={e.maker?.message} {...register("maker")} />
         <TextField label="Date made" error={e.dateMade?.message} hint="As written, e.g. c. 1890 or 1962" {...register("dateMade")} />
         <SelectField label="Object type" error={e.objectType?.message} {...register("objectType")}>
-          {OBJECT_TYPES.map((t) => (
-            <option key={t} value={t}>
-              {OBJECT_TYPE_LABELS[t]}
-            </option>
-          ))}
+          <EnumOptions values={OBJECT_TYPES} labels={OBJECT_TYPE_LABELS} />
         </SelectField>
         <SelectField label="Photographic process" disabled={!isPhoto} error={e.photoProcess?.message} hint={isPhoto ? undefined : "For photographs only"} {...register("photoProcess")}>
-          <option value="">—</option>
-          {PHOTO_PROCESSES.map((p) => (
-            <option key={p} value={p}>
-              {PHOTO_PROCESS_LABELS[p]}
-            </option>
-          ))}
+          <EnumOptions values={PHOTO_PROCESSES} labels={PHOTO_PROCESS_LABELS} blank="—" />
         </SelectField>
         <TextField label="Medium and technique" error={e.medium?.message} {...register("medium")} />
         <TextField label="Support" error={e.support?.message} hint="Paper type, weight if known" {...register("support")} />
@@ -192,20 +175,7 @@ export function ObjectForm({ defaultValues, studioUnit, clients, canEditOwner, s
         <legend className="sr-only">Measurements</legend>
         <div className="mb-4 flex flex-wrap items-center justify-between gap-3">
           <h2 className="text-base font-semibold">Measurements</h2>
-          <div role="radiogroup" aria-label="Unit for this form" className="inline-flex rounded-card border border-stone text-sm">
-            {(["mm", "in"] as const).map((u) => (
-              <button
-                key={u}
-                type="button"
-                role="radio"
-                aria-checked={unit === u}
-                onClick={() => switchUnit(u)}
-                className={`px-3 py-1 ${unit === u ? "bg-accent text-paper-sheet" : "text-ink-soft hover:bg-paper-deep"}`}
-              >
-                {u === "mm" ? "mm" : "inches"}
-              </button>
-            ))}
-          </div>
+          <Segmented label="Unit for this form" options={["mm", "in"] as const} value={unit} onChange={switchUnit} optionLabel={(u) => (u === "mm" ? "mm" : "inches")} />
         </div>
         <div className="grid gap-4 md:grid-cols-2">
           <TextField label={`Sheet width (${unit})`} inputMode="decimal" className="num" error={e.sheetWidthMm?.message} hint={lengthHint} {...register("sheetWidthMm")} />
@@ -250,11 +220,7 @@ export function ObjectForm({ defaultValues, studioUnit, clients, canEditOwner, s
           error={e.status?.message}
           {...register("status")}
         >
-          {OBJECT_STATUSES.map((s) => (
-            <option key={s} value={s}>
-              {OBJECT_STATUS_LABELS[s]}
-            </option>
-          ))}
+          <EnumOptions values={OBJECT_STATUSES} labels={OBJECT_STATUS_LABELS} />
         </SelectField>
         <TextField label="Current location" error={e.location?.message} {...register("location")} />
       </fieldset>
@@ -270,25 +236,13 @@ export function ObjectForm({ defaultValues, studioUnit, clients, canEditOwner, s
           <TextField label="Currency" maxLength={3} className="uppercase" error={e.valuationCurrency?.message} hint="ISO 4217, e.g. GBP" {...register("valuationCurrency")} />
           <TextField label="Valuation date" type="date" error={e.valuationDate?.message} {...register("valuationDate")} />
           <SelectField label="Basis" error={e.valuationBasis?.message} {...register("valuationBasis")}>
-            <option value="">—</option>
-            {VALUATION_BASES.map((b) => (
-              <option key={b} value={b}>
-                {VALUATION_BASIS_LABELS[b]}
-              </option>
-            ))}
+            <EnumOptions values={VALUATION_BASES} labels={VALUATION_BASIS_LABELS} blank="—" />
           </SelectField>
           <TextField label="Valuer" wrapClassName="md:col-span-2" error={e.valuer?.message} {...register("valuer")} />
         </fieldset>
       )}
 
-      <div className="flex gap-3">
-        <Button type="submit" disabled={formState.isSubmitting}>
-          {formState.isSubmitting ? "Saving…" : submitLabel}
-        </Button>
-        <Button variant="secondary" onClick={onCancel}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitting={formState.isSubmitting} label={submitLabel} onCancel={onCancel} />
     </form>
   );
 }

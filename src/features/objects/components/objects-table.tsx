@@ -4,8 +4,9 @@ import { OBJECT_TYPE_LABELS } from "@shared/schemas/objects.ts";
 import { ATTACHMENT_METHOD_LABELS, BOARD_GRADE_LABELS, GLAZING_TYPE_LABELS } from "@shared/schemas/mountings.ts";
 import type { Unit } from "@shared/domain/units.ts";
 import { formatDate, sheetSize } from "@/lib/format.ts";
-import { localToday } from "../api/objects.ts";
+import { studioToday } from "@/lib/today.ts";
 import { StatusBadge } from "./status-badge.tsx";
+import { DataTable, type Column } from "@/components/ui/data-table.tsx";
 
 export type SortKey = "objectNumber" | "title" | "maker" | "status" | "updatedAt" | "lastMountedOn" | "checkDueOn";
 type Props = {
@@ -74,54 +75,39 @@ function CheckDue({ on, today }: { on: string | null; today?: string }) {
   );
 }
 
+type Cell = Column<ObjectListItem>;
+const sortable = (key: SortKey, label: string, p: Pick<Props, "sort" | "dir" | "onSort">, cell: Cell["cell"], more: Partial<Cell> = {}): Cell => ({
+  key,
+  header: label,
+  head: <SortHeader key={key} label={label} k={key} sort={p.sort} dir={p.dir} onSort={p.onSort} align={more.align === "right" ? "right" : "left"} />,
+  cell,
+  ...more,
+});
+
 /** The register table: object number first and linked, numbers and dates right-aligned, quiet rules. */
-export function ObjectsTable({ items, unit, sort, dir, onSort, showOwner = true, today = localToday() }: Props) {
-  return (
-    <div className="overflow-x-auto">
-      <table className="w-full border-collapse text-sm">
-        <thead className="sticky top-0 z-10 bg-paper-sheet text-ink-soft shadow-[0_1px_0_var(--color-stone)]">
-          <tr>
-            <SortHeader label="Object number" k="objectNumber" sort={sort} dir={dir} onSort={onSort} />
-            <SortHeader label="Title" k="title" sort={sort} dir={dir} onSort={onSort} />
-            <SortHeader label="Maker" k="maker" sort={sort} dir={dir} onSort={onSort} />
-            {/* The type gives way first on narrower screens: the mount columns say more about the work in hand. */}
-            <th scope="col" className="hidden px-3 py-2.5 text-left font-semibold 2xl:table-cell">Type</th>
-            <th scope="col" className="px-3 py-2.5 text-right font-semibold">Sheet</th>
-            {showOwner && <th scope="col" className="px-3 py-2.5 text-left font-semibold">Owner</th>}
-            <SortHeader label="Status" k="status" sort={sort} dir={dir} onSort={onSort} />
-            <th scope="col" className="whitespace-nowrap px-3 py-2.5 text-left font-semibold">Current mount</th>
-            <SortHeader label="Last mounted" k="lastMountedOn" sort={sort} dir={dir} onSort={onSort} align="right" />
-            <SortHeader label="Check due" k="checkDueOn" sort={sort} dir={dir} onSort={onSort} align="right" />
-          </tr>
-        </thead>
-        <tbody>
-          {items.map((o) => (
-            <tr key={o.id} className="border-b border-stone-light hover:bg-paper-deep/60">
-              <td className="whitespace-nowrap px-3 py-3 font-semibold num">
-                <Link to={`/objects/${o.id}`} className="text-accent hover:underline">
-                  {o.objectNumber}
-                </Link>
-              </td>
-              <td className="min-w-48 px-3 py-3">{o.title}</td>
-              <td className="px-3 py-3 text-ink-soft">{o.maker ?? "—"}</td>
-              <td className="hidden px-3 py-3 text-ink-soft 2xl:table-cell">{OBJECT_TYPE_LABELS[o.objectType as ObjectType] ?? o.objectType}</td>
-              <td className="whitespace-nowrap px-3 py-3 text-right num">{sheetSize(o.sheetWidthMm, o.sheetHeightMm, unit)}</td>
-              {showOwner && <td className="px-3 py-3 text-ink-soft">{o.clientName}</td>}
-              <td className="px-3 py-3">
-                <StatusBadge status={o.status as ObjectStatus} />
-                {o.location && <span className="mt-0.5 block text-xs text-graphite">{o.location}</span>}
-              </td>
-              <td className="min-w-44 px-3 py-3">
-                <CurrentMount o={o} />
-              </td>
-              <td className="whitespace-nowrap px-3 py-3 text-right num">{o.lastMountedOn ? formatDate(o.lastMountedOn) : <span className="text-graphite">—</span>}</td>
-              <td className="whitespace-nowrap px-3 py-3 text-right num">
-                <CheckDue on={o.checkDueOn} today={today} />
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
-  );
+export function ObjectsTable({ items, unit, sort, dir, onSort, showOwner = true, today = studioToday() }: Props) {
+  const p = { sort, dir, onSort };
+  const columns: Cell[] = [
+    sortable("objectNumber", "Object number", p, (o) => (
+      <Link to={`/objects/${o.id}`} className="text-accent hover:underline">
+        {o.objectNumber}
+      </Link>
+    ), { td: "whitespace-nowrap font-semibold num" }),
+    sortable("title", "Title", p, (o) => o.title, { td: "min-w-48" }),
+    sortable("maker", "Maker", p, (o) => o.maker ?? "—", { td: "text-ink-soft" }),
+    // The type gives way first on narrower screens: the mount columns say more about the work in hand.
+    { key: "type", header: "Type", th: "hidden 2xl:table-cell", td: "hidden text-ink-soft 2xl:table-cell", cell: (o) => OBJECT_TYPE_LABELS[o.objectType as ObjectType] ?? o.objectType },
+    { key: "sheet", header: "Sheet", align: "right", td: "whitespace-nowrap num", cell: (o) => sheetSize(o.sheetWidthMm, o.sheetHeightMm, unit) },
+    ...(showOwner ? [{ key: "owner", header: "Owner", td: "text-ink-soft", cell: (o: ObjectListItem) => o.clientName }] : []),
+    sortable("status", "Status", p, (o) => (
+      <>
+        <StatusBadge status={o.status as ObjectStatus} />
+        {o.location && <span className="mt-0.5 block text-xs text-graphite">{o.location}</span>}
+      </>
+    )),
+    { key: "mount", header: "Current mount", th: "whitespace-nowrap", td: "min-w-44", cell: (o) => <CurrentMount o={o} /> },
+    sortable("lastMountedOn", "Last mounted", p, (o) => (o.lastMountedOn ? formatDate(o.lastMountedOn) : <span className="text-graphite">—</span>), { align: "right", td: "whitespace-nowrap num" }),
+    sortable("checkDueOn", "Check due", p, (o) => <CheckDue on={o.checkDueOn} today={today} />, { align: "right", td: "whitespace-nowrap num" }),
+  ];
+  return <DataTable columns={columns} rows={items} rowKey={(o) => o.id} />;
 }

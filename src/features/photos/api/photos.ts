@@ -1,13 +1,13 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { ErrorBodySchema } from "@shared/schemas/errors.ts";
 import type { Photo, PhotoKind } from "@shared/schemas/photos.ts";
-import { api, ApiError, qs } from "@/lib/api-client.ts";
+import { api, ApiError, qs, upload, type UploadProgress } from "@/lib/api-client.ts";
+import { rootKeys } from "@/lib/query-keys.ts";
 
 const objectPath = (objectId: string) => `/api/objects/${encodeURIComponent(objectId)}/photos`;
 
 export const photoKeys = {
-  all: ["photos"] as const,
-  object: (objectId: string, reportId?: string) => ["photos", "object", objectId, reportId ?? "all"] as const,
+  all: rootKeys.photos,
+  object: (objectId: string, reportId?: string) => [...rootKeys.photos, "object", objectId, reportId ?? "all"] as const,
 };
 
 /** One object's photos (or only one condition report's), oldest first. */
@@ -30,14 +30,15 @@ export function useUpdatePhoto() {
 }
 
 export type PhotoUploadFields = { kind: PhotoKind; caption?: string; reportId?: string };
-/** `sent` goes from 0 to 1 while the bytes go out; then the server makes the versions (`processing`). */
-export type UploadProgress = { sent: number; processing: boolean };
+export type { UploadProgress };
 
-/**
- * Sends one photo (one request per file, so each has its own progress). XMLHttpRequest rather than
- * fetch, because only it reports upload progress. Errors come back as ApiError with the server's
- * sentence, as from the api client.
- */
+const UPLOAD_MESSAGES = {
+  network: "Reversa's server cannot be reached, so the photo was not sent. Check the connection, then try again.",
+  failed: (status: number) => (status === 413 ? "This file is too large for the server to accept." : `The server answered ${status}. The photo was not saved; try again.`),
+  aborted: "The upload was stopped before it finished; the photo was not saved.",
+};
+
+/** Sends one photo (one request per file, so each has its own progress) through the client's upload. */
 export function uploadPhoto(
   objectId: string,
   file: File,
@@ -45,48 +46,13 @@ export function uploadPhoto(
   onProgress?: (p: UploadProgress) => void,
   signal?: AbortSignal,
 ): Promise<Photo> {
-  return new Promise((resolve, reject) => {
-    const form = new FormData();
-    // Fields before the file, so the server has them when the file arrives.
-    form.append("kind", fields.kind);
-    if (fields.caption) form.append("caption", fields.caption);
-    if (fields.reportId) form.append("reportId", fields.reportId);
-    form.append("file", file, file.name);
-
-    const xhr = new XMLHttpRequest();
-    xhr.open("POST", objectPath(objectId));
-    xhr.setRequestHeader("accept", "application/json");
-    xhr.responseType = "text";
-    xhr.upload.onprogress = (e) => {
-      if (!e.lengthComputable) return;
-      const sent = e.total ? e.loaded / e.total : 0;
-      onProgress?.({ sent, processing: sent >= 1 });
-    };
-    xhr.upload.onload = () => onProgress?.({ sent: 1, processing: true });
-    xhr.onload = () => {
-      let data: unknown = null;
-      try {
-        data = JSON.parse(xhr.responseText);
-      } catch {
-        /* not JSON: handled below */
-      }
-      if (xhr.status === 201 || xhr.status === 200) return resolve(data as Photo);
-      const parsed = ErrorBodySchema.safeParse(data);
-      if (parsed.success) {
-        const { code, message, fields: f } = parsed.data.error;
-        return reject(new ApiError(xhr.status, code, message, f));
-      }
-      if (xhr.status === 413) return reject(new ApiError(413, "payload_too_large", "This file is too large for the server to accept.", {}));
-      reject(new ApiError(xhr.status, "internal", `The server answered ${xhr.status}. The photo was not saved; try again.`));
-    };
-    xhr.onerror = () => reject(new ApiError(0, "network", "Reversa's server cannot be reached, so the photo was not sent. Check the connection, then try again."));
-    xhr.onabort = () => reject(new ApiError(0, "aborted", "The upload was stopped before it finished; the photo was not saved."));
-    if (signal) {
-      if (signal.aborted) return reject(new ApiError(0, "aborted", "The upload was stopped before it finished; the photo was not saved."));
-      signal.addEventListener("abort", () => xhr.abort(), { once: true });
-    }
-    xhr.send(form);
-  });
+  const form = new FormData();
+  // Fields before the file, so the server has them when the file arrives.
+  form.append("kind", fields.kind);
+  if (fields.caption) form.append("caption", fields.caption);
+  if (fields.reportId) form.append("reportId", fields.reportId);
+  form.append("file", file, file.name);
+  return upload<Photo>(objectPath(objectId), form, { onProgress, signal, messages: UPLOAD_MESSAGES });
 }
 
 /** The sentence to show beside a file that was refused: the file's own problem first. */

@@ -1,10 +1,16 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import type { MountPlanInput, SavedPlan } from "@shared/schemas/mount-plan.ts";
 import { api } from "@/lib/api-client.ts";
+import { rootKeys } from "@/lib/query-keys.ts";
+
+export const planKeys = {
+  all: rootKeys.plans,
+  object: (objectId: string) => [...rootKeys.plans, "object", objectId] as const,
+};
 
 export const objectPlanQuery = (objectId: string) =>
   queryOptions({
-    queryKey: ["plans", "object", objectId],
+    queryKey: planKeys.object(objectId),
     queryFn: () => api.get<{ draft: SavedPlan | null }>(`/api/objects/${encodeURIComponent(objectId)}/plan`).then((r) => r.draft),
   });
 

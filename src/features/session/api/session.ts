@@ -1,10 +1,13 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import type { SessionUser, SignIn } from "@shared/schemas/auth.ts";
 import { api } from "@/lib/api-client.ts";
+import { rootKeys } from "@/lib/query-keys.ts";
+
+export const sessionKeys = { me: rootKeys.me };
 
 /** The signed-in user, or null when signed out. */
 export const meQuery = queryOptions({
-  queryKey: ["me"],
+  queryKey: sessionKeys.me,
   queryFn: async (): Promise<SessionUser | null> => (await api.get<{ user: SessionUser | null }>("/api/session")).user,
   staleTime: 5 * 60_000,
 });

@@ -1,11 +1,13 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import type { StudioSettings, StudioSettingsRecord } from "@shared/schemas/settings.ts";
 import { vocab } from "@shared/schemas/settings.ts";
-import { ErrorBodySchema } from "@shared/schemas/errors.ts";
-import { api, ApiError } from "@/lib/api-client.ts";
+import { api, ApiError, upload } from "@/lib/api-client.ts";
+import { rootKeys } from "@/lib/query-keys.ts";
+
+export const settingsKeys = { all: rootKeys.settings };
 
 export const settingsQuery = queryOptions({
-  queryKey: ["settings"],
+  queryKey: settingsKeys.all,
   queryFn: () => api.get<StudioSettingsRecord>("/api/settings"),
   staleTime: 5 * 60_000,
 });
@@ -27,23 +29,21 @@ export function useSaveSettings() {
   });
 }
 
-/** Sends the studio's logo (PNG or JPEG) as multipart; errors come back as ApiError with the server's sentence. */
+const LOGO_MESSAGES = {
+  network: "Reversa's server cannot be reached. Check the connection and try again.",
+  failed: (status: number) => `The server answered ${status}. The logo was not changed; try again.`,
+};
+
+/** Sends the studio's logo (PNG or JPEG) as multipart; the file's own problem is the sentence shown. */
 async function putLogo(file: File): Promise<StudioSettingsRecord> {
   const form = new FormData();
   form.append("file", file, file.name);
-  let res: Response;
   try {
-    res = await fetch("/api/settings/logo", { method: "PUT", credentials: "same-origin", headers: { accept: "application/json" }, body: form });
-  } catch {
-    throw new ApiError(0, "network", "Reversa's server cannot be reached. Check the connection and try again.");
+    return await upload<StudioSettingsRecord>("/api/settings/logo", form, { method: "PUT", messages: LOGO_MESSAGES });
+  } catch (e) {
+    if (e instanceof ApiError && e.fields.file) throw new ApiError(e.status, e.code, e.fields.file, e.fields);
+    throw e;
   }
-  const data: unknown = await res.json().catch(() => null);
-  if (!res.ok) {
-    const parsed = ErrorBodySchema.safeParse(data);
-    if (parsed.success) throw new ApiError(res.status, parsed.data.error.code, parsed.data.error.fields?.file ?? parsed.data.error.message, parsed.data.error.fields);
-    throw new ApiError(res.status, "internal", `The server answered ${res.status}. The logo was not changed; try again.`);
-  }
-  return data as StudioSettingsRecord;
 }
 
 export function useUploadLogo() {

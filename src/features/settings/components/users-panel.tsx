@@ -1,36 +1,34 @@
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { ROLES, ROLE_LABELS } from "@shared/schemas/auth.ts";
-import { UserCreateSchema, type UserCreate, type UserRecord } from "@shared/schemas/users.ts";
+import { UserCreateSchema, type UserCreate } from "@shared/schemas/users.ts";
 import type { ClientRecord } from "@shared/schemas/clients.ts";
 import type { z } from "zod";
 import { SelectField, TextField } from "@/components/ui/field.tsx";
 import { Button } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
-import { api, ApiError } from "@/lib/api-client.ts";
+import { ApiError } from "@/lib/api-client.ts";
+import { useServerErrors } from "@/lib/form-errors.ts";
+import { useCreateUser, useUsers } from "../api/users.ts";
 
 type Input = z.input<typeof UserCreateSchema>;
 
 /** The studio's accounts; the admin adds people here (there is no self sign-up). */
 export function UsersPanel({ clients }: { clients: ClientRecord[] }) {
-  const qc = useQueryClient();
-  const users = useQuery({ queryKey: ["users"], queryFn: () => api.get<{ items: UserRecord[] }>("/api/users").then((r) => r.items) });
-  const create = useMutation({ mutationFn: (b: UserCreate) => api.post<UserRecord>("/api/users", b), onSuccess: () => qc.invalidateQueries({ queryKey: ["users"] }) });
+  const users = useUsers();
+  const create = useCreateUser();
   const [done, setDone] = useState<string | null>(null);
   const form = useForm<Input, unknown, UserCreate>({ resolver: zodResolver(UserCreateSchema), defaultValues: { name: "", email: "", role: "framer", clientId: null, password: "" } });
   const role = form.watch("role");
   const e = form.formState.errors;
+  const server = useServerErrors(form);
   const submit = form.handleSubmit(async (v) => {
     setDone(null);
-    try {
-      const u = await create.mutateAsync(v);
-      setDone(`${u.name} can now sign in as ${u.email}.`);
-      form.reset({ name: "", email: "", role: v.role, clientId: null, password: "" });
-    } catch (x) {
-      if (x instanceof ApiError) for (const [k, m] of Object.entries(x.fields)) form.setError(k as keyof Input, { message: m });
-    }
+    const u = await server.run(() => create.mutateAsync(v));
+    if (!u) return;
+    setDone(`${u.name} can now sign in as ${u.email}.`);
+    form.reset({ name: "", email: "", role: v.role, clientId: null, password: "" });
   });
   const choices = clients.filter((c) => (role === "collector" ? c.kind === "private" : c.kind === "institution"));
   return (
