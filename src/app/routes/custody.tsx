@@ -2,7 +2,7 @@ import { Link, Navigate } from "react-router";
 import { z } from "zod";
 import { CUSTODY_KINDS, CUSTODY_KIND_LABELS, ReceiptListQuerySchema } from "@shared/schemas/custody.ts";
 import { PageQuerySchema } from "@shared/schemas/common.ts";
-import { isStudio } from "@shared/permissions.ts";
+import { can } from "@shared/permissions.ts";
 import { useMe } from "@/features/session/api/session.ts";
 import { useCustodyReceipts, useInStudio, type InStudioItem } from "@/features/custody/api/custody.ts";
 import { ReceiptsTable } from "@/features/custody/components/custody-list.tsx";
@@ -66,7 +66,7 @@ const IN_STUDIO_COLUMNS: Column<InStudioItem>[] = [
 /** Custody: what is in the studio now, and every receipt in and out. Studio staff only. */
 export function Component() {
   const { data: user } = useMe();
-  const studio = !!user && isStudio(user);
+  const studio = can(user, "custody:list");
   const { state, set: update } = useSearchState(SearchSchema, { resetPage: "rpage" });
   const { page, rpage, direction, kind, from, to } = state;
   const filtered = !!(direction || kind || from || to);

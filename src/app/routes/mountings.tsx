@@ -70,7 +70,7 @@ const columns = (batch: string | undefined): Column<MountingListItem>[] => [
 /** The mountings register: every mounting record across objects, to answer "which objects used board from batch X?". */
 export function Component() {
   const { data: user } = useMe();
-  const allowed = can(user, "mounting:write");
+  const allowed = can(user, "mounting:list");
   const { state, set: update } = useSearchState(SearchSchema, { names: { framerId: "framer" } });
   const { framerId, from, to, method, status, page } = state;
   const search = useSearchText(state.batch, (batch) => update({ batch }));

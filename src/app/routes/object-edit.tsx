@@ -33,7 +33,7 @@ export function Component() {
         defaultValues={toFormValues(o, unit, { currency: settings.currency })}
         studioUnit={unit}
         clients={clients.data ?? []}
-        canEditOwner={can(user, "object:create")}
+        canEditOwner={can(user, "object:reassign")}
         statusLocked
         showValuation={o.valuationVisible && can(user, "valuation:update", { clientId: o.clientId })}
         submitLabel="Save changes"

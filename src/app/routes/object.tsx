@@ -255,15 +255,15 @@ export function Component() {
         </Card>
         <Card title="Photos">
           <div id="photos" className="space-y-4">
-            <PhotoUploader objectId={o.id} canUpload={can(user, "condition:write", { clientId: o.clientId })} />
-            <PhotoGrid objectId={o.id} canUpload={can(user, "condition:write", { clientId: o.clientId })} />
+            <PhotoUploader objectId={o.id} canUpload={can(user, "photo:write", { clientId: o.clientId })} />
+            <PhotoGrid objectId={o.id} canUpload={can(user, "photo:write", { clientId: o.clientId })} />
           </div>
         </Card>
         <Card title="Documents" className="lg:col-span-2">
           <div id="documents" className="space-y-4">
             <div className="flex flex-wrap gap-3">
               <DocumentButton url={`/api/objects/${o.id}/documents/dossier`} label="Object dossier (PDF)" fallbackName={`dossier-${o.objectNumber}.pdf`} onIssued={() => refreshDocuments(o.id)} />
-              {can(user, "object:create") && (
+              {can(user, "label:print") && (
                 <LabelButton url={`/api/objects/${o.id}/documents/back-label`} label="Back label (PDF)" fallbackName={`back-label-${o.objectNumber}.pdf`} onIssued={() => refreshDocuments(o.id)} />
               )}
             </div>

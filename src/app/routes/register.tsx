@@ -89,7 +89,7 @@ export function Component() {
             ) : studio ? (
               <span className="max-w-56 text-xs text-graphite">Choose an owner to produce a schedule of values for the objects shown.</span>
             ) : null}
-            {can(user, "mounting:write") && filtered && list.data && list.data.total > 0 && list.data.total <= LABEL_SHEET_MAX ? (
+            {can(user, "label:print") && filtered && list.data && list.data.total > 0 && list.data.total <= LABEL_SHEET_MAX ? (
               <LabelButton
                 url="/api/documents/label-sheet"
                 body={{ ...scheduleFilter, clientId }}

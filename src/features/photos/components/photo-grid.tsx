@@ -8,7 +8,7 @@ type Props = {
   objectId: string;
   /** Only this condition report's photos. */
   reportId?: string;
-  /** From can(user, "condition:write", { clientId }): the viewer then offers to change kind and caption. */
+  /** From can(user, "photo:write", { clientId }): the viewer then offers to change kind and caption. */
   canUpload?: boolean;
 };
 

@@ -40,7 +40,7 @@ type Props = {
   objectId: string;
   /** Photos added here belong to this condition report. */
   reportId?: string;
-  /** From can(user, "condition:write", { clientId }); nothing is shown without it. */
+  /** From can(user, "photo:write", { clientId }); nothing is shown without it. */
   canUpload: boolean;
   /** Called with each photo once it is saved. */
   onUploaded?: (photo: Photo) => void;
