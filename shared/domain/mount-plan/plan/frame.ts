@@ -1,7 +1,7 @@
 import type { MountPlanParsed } from "../../../schemas/mount-plan.ts";
 import { roundTo } from "../../units.ts";
 import * as K from "../constants.ts";
-import { blanksPerSheet } from "../yield.ts";
+import { blanksPerSheet } from "../yield/blanks-per-sheet.ts";
 import type { PlanText } from "./text.ts";
 import type { Box, PlanContext, PlanGeometry } from "./types.ts";
 
