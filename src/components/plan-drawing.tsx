@@ -1,25 +1,9 @@
 import { useRef, type KeyboardEvent, type PointerEvent } from "react";
-import type { DrawingModel, Role } from "@shared/domain/mount-plan/drawing.ts";
+import type { DrawingModel } from "@shared/domain/mount-plan/drawing.ts";
+import { ARROW_FILL, arrowMarkerScale, drawnRect, hatchSize, PLAN_STYLE, textRotation } from "@shared/drawing/plan-style.ts";
 
-/** Screen styles for the shared drawing model's roles (the PDF renderer maps the same roles). */
-const STYLE: Record<Role, { fill?: string; stroke?: string; width?: number; dash?: string; opacity?: number; text?: string; weight?: number }> = {
-  backing: { fill: "#e4ddd0", stroke: "#8a877f", width: 0.75 },
-  sheet: { fill: "#fffdf8", stroke: "#5c5a56", width: 0.75 },
-  image: { fill: "url(#rv-hatch)", stroke: "#a9a397", width: 0.5, dash: "3 2" },
-  board: { fill: "#f1ece2", stroke: "#1d1c1a", width: 1 },
-  "top-board": { fill: "#e9e2d4", stroke: "#1d1c1a", width: 1 },
-  "sheet-hidden": { fill: "none", stroke: "#5c5a56", width: 0.75, dash: "5 3" },
-  window: { fill: "none", stroke: "#1d1c1a", width: 1.25 },
-  bevel: { fill: "none", stroke: "#bdb4a3", width: 0.75 },
-  "band-pass": { fill: "#2e6a3c", opacity: 0.28 },
-  "band-fail": { fill: "#9a2b2b", opacity: 0.4 },
-  "band-float": { fill: "#8a877f", opacity: 0.28 },
-  "band-label": { text: "#1d1c1a", weight: 600 },
-  "border-label": { text: "#5c5a56", weight: 500 },
-  "dim-line": { stroke: "#5c5a56", width: 0.75 },
-  "dim-label": { text: "#3a3835", weight: 500 },
-  hinge: { fill: "#e8d9a8", stroke: "#7f5300", width: 0.75, opacity: 0.95 },
-};
+/** The image's hatch, from its style: the one role drawn with a pattern on screen. */
+const HATCH = PLAN_STYLE.image.hatch!;
 
 type Props = {
   model: DrawingModel;
@@ -32,6 +16,7 @@ type Props = {
 
 export function PlanDrawing({ model, title, onHingeMove, hingeEdges = [] }: Props) {
   const [x, y, w, h] = model.viewBox;
+  const hatch = hatchSize(model.fontSize);
   const svgRef = useRef<SVGSVGElement>(null);
   const drag = useRef<{ index: number; last: number } | null>(null);
 
@@ -77,18 +62,18 @@ export function PlanDrawing({ model, title, onHingeMove, hingeEdges = [] }: Prop
     <svg ref={svgRef} viewBox={`${x} ${y} ${w} ${h}`} role="img" aria-label={title} className="h-auto max-h-[70vh] w-full print:max-h-[76mm]" data-testid="plan-drawing">
       <title>{title}</title>
       <defs>
-        <pattern id="rv-hatch" width={model.fontSize * 0.6} height={model.fontSize * 0.6} patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
-          <rect width="100%" height="100%" fill="#fbf8f2" />
-          <line x1="0" y1="0" x2="0" y2={model.fontSize * 0.6} stroke="#d8d0c1" strokeWidth={model.fontSize * 0.08} />
+        <pattern id="rv-hatch" width={hatch.cell} height={hatch.cell} patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
+          <rect width="100%" height="100%" fill={HATCH.ground} />
+          <line x1="0" y1="0" x2="0" y2={hatch.cell} stroke={HATCH.line} strokeWidth={hatch.line} />
         </pattern>
         <marker id="rv-arrow" viewBox="0 0 10 10" refX="9" refY="5" markerWidth="7" markerHeight="7" orient="auto-start-reverse" markerUnits="userSpaceOnUse">
-          <path d="M0 1 L10 5 L0 9 z" fill="#5c5a56" transform={`scale(${model.fontSize / 12})`} />
+          <path d="M0 1 L10 5 L0 9 z" fill={ARROW_FILL} transform={`scale(${arrowMarkerScale(model.fontSize)})`} />
         </marker>
       </defs>
       {model.shapes.map((s, i) => {
-        const st = STYLE[s.role];
+        const st = PLAN_STYLE[s.role];
         const common = {
-          fill: st.fill ?? "none",
+          fill: st.hatch ? "url(#rv-hatch)" : (st.fill ?? "none"),
           stroke: st.stroke,
           strokeWidth: st.width,
           strokeDasharray: st.dash,
@@ -100,10 +85,7 @@ export function PlanDrawing({ model, title, onHingeMove, hingeEdges = [] }: Prop
           return (
             <rect
               key={i}
-              x={s.x}
-              y={s.y}
-              width={Math.max(0, s.width)}
-              height={Math.max(0, s.height)}
+              {...drawnRect(s)}
               {...common}
               data-role="hinge"
               data-hinge={n}
@@ -121,7 +103,7 @@ export function PlanDrawing({ model, title, onHingeMove, hingeEdges = [] }: Prop
             />
           );
         }
-        if (s.kind === "rect") return <rect key={i} x={s.x} y={s.y} width={Math.max(0, s.width)} height={Math.max(0, s.height)} {...common} data-role={s.role} data-side={s.side} data-hinge={s.hinge} />;
+        if (s.kind === "rect") return <rect key={i} {...drawnRect(s)} {...common} data-role={s.role} data-side={s.side} data-hinge={s.hinge} />;
         if (s.kind === "path") return <path key={i} d={s.d} fillRule="evenodd" {...common} />;
         if (s.kind === "line")
           return <line key={i} x1={s.x1} y1={s.y1} x2={s.x2} y2={s.y2} {...common} markerStart={s.arrows ? "url(#rv-arrow)" : undefined} markerEnd={s.arrows ? "url(#rv-arrow)" : undefined} />;
@@ -135,7 +117,7 @@ export function PlanDrawing({ model, title, onHingeMove, hingeEdges = [] }: Prop
             fill={st.text}
             fontWeight={st.weight}
             dominantBaseline={s.rotate ? "middle" : undefined}
-            transform={s.rotate ? `rotate(${s.rotate} ${s.x} ${s.y})` : undefined}
+            transform={textRotation(s, " ")}
             style={{ fontVariantNumeric: "tabular-nums" }}
           >
             {s.text}

@@ -1,6 +1,6 @@
 import type { Check, MountPlanParsed, SideName, Verdict } from "../../schemas/mount-plan.ts";
 import { SIDES } from "../../schemas/mount-plan.ts";
-import type { PlanGeometry } from "./compute.ts";
+import type { PlanGeometry } from "./plan/types.ts";
 import { lightClass } from "../light.ts";
 
 /** The edges the hinges sit on: the top only unless the materials say otherwise. */

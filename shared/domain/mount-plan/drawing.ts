@@ -1,6 +1,6 @@
 import type { SideName } from "../../schemas/mount-plan.ts";
 import { SIDES } from "../../schemas/mount-plan.ts";
-import type { PlanGeometry } from "./compute.ts";
+import type { PlanGeometry } from "./plan/types.ts";
 import { figureLength } from "./figures.ts";
 
 /**

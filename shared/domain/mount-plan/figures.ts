@@ -14,7 +14,7 @@
  */
 import type { SideName } from "../../schemas/mount-plan.ts";
 import { formatInches, formatMm, MM_PER_INCH, roundTo, type Unit } from "../units.ts";
-import type { PlanGeometry } from "./compute.ts";
+import type { PlanGeometry } from "./plan/types.ts";
 
 type Box = { width: number; height: number };
 type Sides = Record<SideName, number>;

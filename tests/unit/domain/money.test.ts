@@ -57,32 +57,22 @@ describe("formatMoney", () => {
 });
 
 describe("parseMoney", () => {
-  it("when an amount has thousands separators, then they are ignored", () => {
-    expect(parseMoney("12,500.00", "GBP")).toBe(1250000);
-    expect(parseMoney("12 500", "GBP")).toBe(1250000);
-    expect(parseMoney("12500", "GBP")).toBe(1250000);
-  });
-
-  it("when fewer decimals than the currency's are given, then they are padded", () => {
-    expect(parseMoney("0.1", "GBP")).toBe(10);
-    expect(parseMoney("12500.5", "GBP")).toBe(1250050);
-  });
-
-  it("when more decimals than the currency has are given, then it is not an amount", () => {
-    expect(parseMoney("1.005", "GBP")).toBeNull();
-    expect(parseMoney("1.5", "JPY")).toBeNull();
-  });
-
-  it("when the currency has no or three minor digits, then the integer follows it", () => {
-    expect(parseMoney("1500", "JPY")).toBe(1500);
-    expect(parseMoney("1.234", "BHD")).toBe(1234);
-  });
-
-  it("when the text is empty, negative or not a number, then it is not an amount", () => {
-    expect(parseMoney("", "GBP")).toBeNull();
-    expect(parseMoney("-5", "GBP")).toBeNull();
-    expect(parseMoney("£5", "GBP")).toBeNull();
-    expect(parseMoney("five", "GBP")).toBeNull();
+  it.each([
+    ["thousands separators are ignored", "12,500.00", "GBP", 1250000],
+    ["thousands separators are ignored", "12 500", "GBP", 1250000],
+    ["thousands separators are ignored", "12500", "GBP", 1250000],
+    ["fewer decimals than the currency's are padded", "0.1", "GBP", 10],
+    ["fewer decimals than the currency's are padded", "12500.5", "GBP", 1250050],
+    ["more decimals than the currency has is not an amount", "1.005", "GBP", null],
+    ["more decimals than the currency has is not an amount", "1.5", "JPY", null],
+    ["with no or three minor digits the integer follows the currency", "1500", "JPY", 1500],
+    ["with no or three minor digits the integer follows the currency", "1.234", "BHD", 1234],
+    ["empty text is not an amount", "", "GBP", null],
+    ["a negative is not an amount", "-5", "GBP", null],
+    ["text that is not a number is not an amount", "£5", "GBP", null],
+    ["text that is not a number is not an amount", "five", "GBP", null],
+  ] as const)("when %s (%j in %s), then it reads as %s", (_case, text, currency, minor) => {
+    expect(parseMoney(text, currency)).toBe(minor);
   });
 
   it("when an amount is parsed and formatted, then it comes back the same", () => {

@@ -96,33 +96,20 @@ describe("parseLength", () => {
     expect(mmOf("-1/8", "in")).toBeCloseTo(-3.175, 9);
   });
 
-  it("when the box is empty, then it asks for a length", () => {
-    expect(messageOf("", "mm")).toBe("Enter a length.");
-    expect(messageOf("   ", "in")).toBe("Enter a length.");
-  });
-
-  it("when the text is not a length in an inch studio, then the message shows how to write one", () => {
-    expect(messageOf("seven", "in")).toBe('"seven" is not a length; write e.g. 7 5/8 or 7.625.');
-  });
-
-  it("when the text is not a length in a mm studio, then the message says mm", () => {
-    expect(messageOf("abc", "mm")).toBe('"abc" is not a length in mm.');
-    expect(messageOf("12 cm", "mm")).toBe('"12 cm" is not a length in mm.');
-    expect(messageOf("1.2.3", "mm")).toBe('"1.2.3" is not a length in mm.');
-  });
-
-  it("when a fraction has 0 below the line, then it is refused with that reason", () => {
-    expect(messageOf("5/0", "in")).toBe("A fraction cannot have 0 below the line.");
-    expect(messageOf("7 5/0", "in")).toBe("A fraction cannot have 0 below the line.");
-  });
-
-  it("when a decimal is mixed with a fraction, then it asks for a whole number and a fraction", () => {
-    expect(messageOf("7.5 1/2", "in")).toBe('Write "7.5 1/2" as a whole number and a fraction, e.g. 7 5/8.');
-  });
-
-  it("when a number is not finite, then it asks for a number", () => {
-    expect(messageOf(Number.NaN, "mm")).toBe("Enter a number.");
-    expect(messageOf(Number.POSITIVE_INFINITY, "in")).toBe("Enter a number.");
+  it.each([
+    ["the box is empty, it asks for a length", "", "mm", "Enter a length."],
+    ["the box is empty, it asks for a length", "   ", "in", "Enter a length."],
+    ["the text is not a length in an inch studio, the message shows how to write one", "seven", "in", '"seven" is not a length; write e.g. 7 5/8 or 7.625.'],
+    ["the text is not a length in a mm studio, the message says mm", "abc", "mm", '"abc" is not a length in mm.'],
+    ["the text is not a length in a mm studio, the message says mm", "12 cm", "mm", '"12 cm" is not a length in mm.'],
+    ["the text is not a length in a mm studio, the message says mm", "1.2.3", "mm", '"1.2.3" is not a length in mm.'],
+    ["a fraction has 0 below the line, it is refused with that reason", "5/0", "in", "A fraction cannot have 0 below the line."],
+    ["a fraction has 0 below the line, it is refused with that reason", "7 5/0", "in", "A fraction cannot have 0 below the line."],
+    ["a decimal is mixed with a fraction, it asks for a whole number and a fraction", "7.5 1/2", "in", 'Write "7.5 1/2" as a whole number and a fraction, e.g. 7 5/8.'],
+    ["a number is not finite, it asks for a number", Number.NaN, "mm", "Enter a number."],
+    ["a number is not finite, it asks for a number", Number.POSITIVE_INFINITY, "in", "Enter a number."],
+  ] as const)("when %s (%j in %s)", (_case, text, unit, message) => {
+    expect(messageOf(text, unit)).toBe(message);
   });
 });
 
