@@ -1,4 +1,5 @@
 import type { Config } from "tailwindcss";
+import { PALETTE } from "./shared/drawing/palette.ts";
 
 // Reversa's paper-and-ink palette. Every colour used by the app is a token here;
 // contrast pairs are checked against WCAG 2.2 AA (see DEVELOPERS.md, "The look").
@@ -6,16 +7,8 @@ export default {
   content: ["./index.html", "./src/**/*.{ts,tsx}"],
   theme: {
     extend: {
-      colors: {
-        paper: { DEFAULT: "#f7f4ee", deep: "#efe9df", sheet: "#fbf8f2" },
-        ink: { DEFAULT: "#1d1c1a", soft: "#3a3835" },
-        graphite: { DEFAULT: "#5c5a56", light: "#8a877f" },
-        stone: { DEFAULT: "#dcd5c8", light: "#e9e3d8" },
-        accent: { DEFAULT: "#1f5c57", hover: "#174844", soft: "#e3efed" },
-        pass: { DEFAULT: "#2e6a3c", soft: "#e4f0e4" },
-        warn: { DEFAULT: "#7f5300", soft: "#f7ecd6" },
-        fail: { DEFAULT: "#9a2b2b", soft: "#f6e1df" },
-      },
+      // One palette for screen and PDF (shared/drawing/palette.ts).
+      colors: PALETTE,
       fontFamily: {
         sans: ['"Libre Franklin"', "system-ui", "sans-serif"],
       },

@@ -1,7 +1,7 @@
 /**
  * Reversa's paper-and-ink palette, for code that draws without Tailwind (the PDF documents) and for
- * drawings both the screen and the PDF make. The same tokens as tailwind.config.ts, which stays the
- * screen's source; tests/unit/drawing/palette.test.ts keeps the two equal.
+ * drawings both the screen and the PDF make. tailwind.config.ts takes its colours from here, so the
+ * screen's classes (bg-paper, text-ink…) and the documents use the same tokens.
  */
 export const PALETTE = {
   paper: { DEFAULT: "#f7f4ee", deep: "#efe9df", sheet: "#fbf8f2" },
