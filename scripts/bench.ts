@@ -161,8 +161,18 @@ const LATER_TYPES = ["catalogue-changed", "valued", "plan-saved", "mounted", "co
 // event at a time so the total is exactly EVENTS.
 const counts = objectIds.map((_, i) => (i % 1000 === 0 ? 200 : 1 + ((i * 7) % 8)));
 let planned = counts.reduce((a, b) => a + b, 0);
-for (let i = 1; planned < EVENTS; i = (i + 1) % counts.length) if (i % 1000 !== 0) (counts[i]++, planned++);
-for (let i = counts.length - 1; planned > EVENTS && i >= 0; i--) while (planned > EVENTS && counts[i] > 1) (counts[i]--, planned--);
+for (let i = 1; planned < EVENTS; i = (i + 1) % counts.length) {
+  if (i % 1000 !== 0) {
+    counts[i]++;
+    planned++;
+  }
+}
+for (let i = counts.length - 1; planned > EVENTS && i >= 0; i--) {
+  while (planned > EVENTS && counts[i] > 1) {
+    counts[i]--;
+    planned--;
+  }
+}
 const rounds = Math.max(...counts);
 const lastHash: (string | null)[] = new Array(objectIds.length).fill(null);
 let emitted = 0;
@@ -259,7 +269,7 @@ await measure("object page: …/history?limit=50", `/api/objects/${mountedId}/hi
 await measure("object page: …/plan", `/api/objects/${mountedId}/plan`, framer);
 const custody = await fetch(`${base}/api/objects/${mountedId}/custody`, { headers: { cookie: framer } });
 const custodyBody = (await custody.json()) as { error?: { message?: string } };
-if (custody.status === 404 && custodyBody.error?.message?.startsWith("There is no API route")) console.log("object page: …/custody".padEnd(44) + "(no such route yet: skipped)");
+if (custody.status === 404 && custodyBody.error?.message?.startsWith("There is no API route")) console.log(`${"object page: …/custody".padEnd(44)}(no such route yet: skipped)`);
 else await measure("object page: …/custody", `/api/objects/${mountedId}/custody`, framer);
 await measure("register, filter method", "/api/objects?method=t-hinge", framer);
 await measure("register, filter board + glazing", "/api/objects?boardGrade=conservation&glazing=ar-uv-glass", framer);

@@ -7,7 +7,9 @@ const children = [
   spawn("npx", ["tsx", "watch", "server/index.ts"], { stdio: "inherit", env: { ...env, PORT: apiPort, TRUSTED_ORIGINS: "http://localhost:5173,http://127.0.0.1:5173" } }),
   spawn("npx", ["vite"], { stdio: "inherit", env }),
 ];
-const stop = () => children.forEach((c) => c.kill("SIGTERM"));
+const stop = () => {
+  for (const c of children) c.kill("SIGTERM");
+};
 process.on("SIGINT", stop);
 process.on("SIGTERM", stop);
 for (const c of children) c.on("exit", (code) => { if (code) { stop(); process.exit(code); } });

@@ -37,7 +37,7 @@ const server = app.listen(config.port, config.host, () => {
     lines.push(`  Demo sign-ins (password "${DEMO_PASSWORD}"):`);
     for (const u of DEMO_USERS) lines.push(`    ${u.role.padEnd(10)} ${u.email}`);
   }
-  console.log(lines.join("\n") + "\n");
+  console.log(`${lines.join("\n")}\n`);
 });
 
 function shutdown(signal: string) {

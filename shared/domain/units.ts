@@ -36,16 +36,19 @@ export function parseLength(input: number | string, unit: Unit): ParseResult {
   const negative = text.startsWith("-") || text.startsWith("\u2212");
   if (negative) text = text.slice(1).trim();
   let value: number | null = null;
-  let m: RegExpMatchArray | null;
+  const mixed = DECIMAL.test(text) ? null : text.match(MIXED);
+  const fraction = DECIMAL.test(text) || mixed ? null : text.match(FRACTION);
   if (DECIMAL.test(text)) value = Number(text);
-  else if ((m = text.match(MIXED))) {
+  else if (mixed) {
+    const m = mixed;
     const whole = Number(m[1]);
     const num = Number(m[2]);
     const den = Number(m[3]);
     if (den === 0) return { ok: false, message: "A fraction cannot have 0 below the line." };
     if (!Number.isInteger(whole)) return { ok: false, message: `Write "${input}" as a whole number and a fraction, e.g. 7 5/8.` };
     value = whole + num / den;
-  } else if ((m = text.match(FRACTION))) {
+  } else if (fraction) {
+    const m = fraction;
     const den = Number(m[2]);
     if (den === 0) return { ok: false, message: "A fraction cannot have 0 below the line." };
     value = Number(m[1]) / den;

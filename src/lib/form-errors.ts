@@ -1,7 +1,7 @@
 import { useState } from "react";
 import type { FieldErrors, FieldValues, Path, UseFormSetError } from "react-hook-form";
 import { issuesToFields } from "@shared/schemas/errors.ts";
-import { ApiError, toApiError } from "./api-client.ts";
+import { type ApiError, toApiError } from "./api-client.ts";
 
 /** Turns `{ "data.boards.window.grade": "…" }` into the nested errors react-hook-form expects. */
 export function nestedErrors<T extends FieldValues>(flat: Record<string, string>): FieldErrors<T> {

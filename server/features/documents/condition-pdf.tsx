@@ -135,7 +135,7 @@ export async function issueConditionReport(db: Db, config: Pick<Config, "uploads
                 cols={[{ label: "Finding", flex: 1.3 }, { label: "Status", width: 80 }, { label: "Before", flex: 1 }, { label: "Now", flex: 1 }]}
                 rows={compared.map((c) => [
                   (c.after ?? c.before)!.term,
-                  <ComparisonTag status={c.status} />,
+                  <ComparisonTag key="status" status={c.status} />,
                   c.before ? `${SEVERITY_LABELS[c.before.severity]}${c.before.extent ? `, ${c.before.extent}` : ""}` : "—",
                   c.after ? `${SEVERITY_LABELS[c.after.severity]}${c.after.extent ? `, ${c.after.extent}` : ""}${c.after.resolved ? ", resolved" : ""}` : "—",
                 ])}

@@ -3,7 +3,8 @@ import { inTransaction } from "../../db/client.ts";
 import type { DocumentProps } from "@react-pdf/renderer";
 import { renderPdf } from "./render-pool.ts";
 import type { DocumentJob } from "./registry.ts";
-import { createHash, randomBytes } from "node:crypto";
+import { createHash } from "node:crypto";
+import { newVerificationCode } from "./verification-code.ts";
 import type { Db } from "../../db/client.ts";
 import { findIssuedByCode, insertIssuedDocument, listIssued } from "./documents.repo.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
@@ -12,11 +13,6 @@ import type { DocMeta } from "../../lib/pdf/layout.tsx";
 import { getLogo, getSettings } from "../settings/settings.repo.ts";
 import { appendEvent } from "../history/history.chain.ts";
 
-/** A verification code people can read out: 12 hex digits in three groups, from a CSPRNG. */
-export function newVerificationCode(): string {
-  const hex = randomBytes(6).toString("hex").toUpperCase();
-  return `${hex.slice(0, 4)}-${hex.slice(4, 8)}-${hex.slice(8, 12)}`;
-}
 
 export type IssueRequest = {
   kind: DocumentKind;

@@ -134,7 +134,7 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
           <View style={{ flexDirection: "row", gap: 14 }}>
             <View style={{ width: drawingWidth }}>
               <PdfPlanDrawing model={view.model} width={drawingWidth} />
-              <Text style={[s.small, { marginTop: 3 }]}>{`Front view; dimensions in ${unit === "in" ? "inches" : "mm"}${d && d.attachment.hinges.length ? "; hinges drawn in yellow, positions as listed" : ""}.`}</Text>
+              <Text style={[s.small, { marginTop: 3 }]}>{`Front view; dimensions in ${unit === "in" ? "inches" : "mm"}${d?.attachment.hinges.length ? "; hinges drawn in yellow, positions as listed" : ""}.`}</Text>
             </View>
             <View style={{ flex: 1 }}>
               <KV labelWidth={84} label="Sheet">{view.plan.display.sheet}</KV>
@@ -224,7 +224,7 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
             </View>
             <Table
               cols={[{ label: "Check", flex: 1.4 }, { label: "Verdict", width: 62 }, { label: "Reason", flex: 3 }]}
-              rows={view.plan.checks.map((c) => [c.rule, <VerdictTag verdict={c.verdict} />, c.reason])}
+              rows={view.plan.checks.map((c) => [c.rule, <VerdictTag key="verdict" verdict={c.verdict} />, c.reason])}
             />
           </>
         ) : null}

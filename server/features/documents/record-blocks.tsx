@@ -8,7 +8,7 @@ import { formatMoney } from "../../../shared/domain/money.ts";
 import { VALUATION_BASIS_LABELS } from "../../../shared/schemas/objects.ts";
 import { createStorage } from "../../lib/storage.ts";
 import { ACCENT, STONE, s } from "../../lib/pdf/theme.ts";
-import { type PhotoRow } from "../photos/photos.repo.ts";
+import type { PhotoRow } from "../photos/photos.repo.ts";
 import { Table, para } from "../../lib/pdf/blocks.tsx";
 
 export type LoadedPhoto = { row: PhotoRow; data: Buffer; format: "jpg" | "png" };

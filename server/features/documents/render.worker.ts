@@ -17,7 +17,10 @@ export type RenderResult = { bytes: Uint8Array; pages: number };
 const connections = new Map<string, DbHandle>();
 function readOnly(file: string): DbHandle {
   let h = connections.get(file);
-  if (!h) connections.set(file, (h = openReadOnly(file)));
+  if (!h) {
+    h = openReadOnly(file);
+    connections.set(file, h);
+  }
   return h;
 }
 

@@ -1,3 +1,4 @@
+import { format, parseISO } from "date-fns";
 import { and, desc, eq, inArray, type SQL } from "drizzle-orm";
 import type { Db } from "../../db/client.ts";
 import { clients, conditionReports, objects } from "../../db/schema.ts";
@@ -11,7 +12,12 @@ import { mountingDetail } from "./workshop-sheet.tsx";
 import { RATING_LABELS, type Rating } from "../../../shared/schemas/condition.ts";
 import { formatSize, type Unit } from "../../../shared/domain/units.ts";
 import { getSettings } from "../settings/settings.repo.ts";
-import { day, t } from "./schedule.tsx";
+
+/** A day as the schedule prints it: 4 Dec 2026. */
+export const day = (iso: string) => {
+  const d = parseISO(iso);
+  return Number.isNaN(d.getTime()) ? iso : format(d, "d MMM yyyy");
+};
 
 export type ScheduleRow = {
   id: string;

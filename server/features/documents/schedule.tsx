@@ -1,6 +1,6 @@
+import { format } from "date-fns";
 import { Document, Page, renderToBuffer, StyleSheet, View } from "@react-pdf/renderer";
 import { Text } from "../../lib/pdf/text.tsx";
-import { format, parseISO } from "date-fns";
 import type { Db } from "../../db/client.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
 import { VALUATION_REVIEW_YEARS } from "../../../shared/domain/valuation.ts";
@@ -10,8 +10,8 @@ import { StudioBlock, type DocMeta } from "../../lib/pdf/layout.tsx";
 import { pageFooterText } from "../../lib/pdf/host-tree.ts";
 import { ACCENT, GRAPHITE, INK, STONE, s } from "../../lib/pdf/theme.ts";
 import { getSettings } from "../settings/settings.repo.ts";
-import { newVerificationCode } from "./documents.service.ts";
-import { type ScheduleData, type ScheduleRow, type ScheduleTotal, loadSchedule } from "./schedule-data.ts";
+import { newVerificationCode } from "./verification-code.ts";
+import { day, type ScheduleData, type ScheduleRow, type ScheduleTotal, loadSchedule } from "./schedule-data.ts";
 
 export const t = StyleSheet.create({
   head: { flexDirection: "row", borderBottomWidth: 0.75, borderBottomColor: INK, paddingBottom: 3, marginTop: 8, backgroundColor: "#fbf8f2" },
@@ -33,10 +33,6 @@ export const t = StyleSheet.create({
   totalBlock: { borderBottomWidth: 0.4, borderBottomColor: STONE, paddingBottom: 3 },
   totalStrong: { fontSize: 9, fontWeight: 700, textAlign: "right" },
 });
-export const day = (iso: string) => {
-  const d = parseISO(iso);
-  return Number.isNaN(d.getTime()) ? iso : format(d, "d MMM yyyy");
-};
 const tabular = { fontFeatureSettings: ["tnum" as const] };
 const OLD = `Over ${VALUATION_REVIEW_YEARS} years old`;
 

@@ -19,7 +19,10 @@ const connections = new Map<string, DbHandle>();
  */
 export default function gather(task: GatherTask): Gathered {
   let h = connections.get(task.databaseFile);
-  if (!h) connections.set(task.databaseFile, (h = openReadOnly(task.databaseFile)));
+  if (!h) {
+    h = openReadOnly(task.databaseFile);
+    connections.set(task.databaseFile, h);
+  }
   const { db, sqlite } = h;
   return sqlite.transaction(() => {
     const client = findClient(db, task.clientId);

@@ -1,4 +1,4 @@
-import { type Dataset } from "../../../shared/schemas/exports.ts";
+import type { Dataset } from "../../../shared/schemas/exports.ts";
 import { minorDigits } from "../../../shared/domain/money.ts";
 
 /**

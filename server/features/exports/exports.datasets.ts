@@ -2,7 +2,7 @@ import { and, asc, eq, inArray, type SQL } from "drizzle-orm";
 import { getSettings } from "../settings/settings.repo.ts";
 import { stringify } from "csv-stringify/sync";
 import type { Db } from "../../db/client.ts";
-import { type Dataset, type ExportFilters } from "../../../shared/schemas/exports.ts";
+import type { Dataset, ExportFilters } from "../../../shared/schemas/exports.ts";
 import { conditionReports, conditionRevisions, custodyReceipts, mountingRevisions, mountings, objects } from "../../db/schema.ts";
 import { can } from "../../../shared/permissions.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
@@ -16,7 +16,7 @@ import { VERDICT_WORDS } from "../../lib/pdf/blocks.tsx";
 import { whereWords } from "../documents/record-blocks.tsx";
 import { recordPlan, type PlanSettings } from "../../../shared/domain/mounting.ts";
 import type { Verdict } from "../../../shared/schemas/mount-plan.ts";
-import { Row, columnsFor, label, minorToDecimal, text } from "./exports.columns.ts";
+import { type Row, columnsFor, label, minorToDecimal, text } from "./exports.columns.ts";
 
 type ObjectRow = typeof objects.$inferSelect;
 

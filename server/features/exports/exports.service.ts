@@ -50,6 +50,8 @@ type Job = JobStatus & {
 export const JOB_TTL_MS = 60 * 60 * 1000;
 const EVENTS_PER_TRANSACTION = 200;
 
+// Control characters (U+0000–U+001F) are not allowed in ZIP entry names on most systems.
+// biome-ignore lint/suspicious/noControlCharactersInRegex: matching control characters is the point
 const safeSegment = (s: string) => s.replace(/[\\/:*?"<>|\u0000-\u001f]/g, "_").replace(/^\.+/, "_") || "_";
 const slug = (s: string, fallback = "client") => s.normalize("NFKD").replace(/[^\w\s-]/g, "").trim().replace(/\s+/g, "-").toLowerCase().slice(0, 60) || fallback;
 

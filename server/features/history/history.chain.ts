@@ -77,7 +77,7 @@ function flushCheckpoints(db: Db, ring: Keyring) {
     lines.push(JSON.stringify({ ...c, at, mac: checkpointMac({ ...c, at }, ring.key) }));
   }
   ring.pending.clear();
-  if (lines.length) fs.appendFileSync(ring.checkpointsFile, lines.join("\n") + "\n", { mode: 0o600 });
+  if (lines.length) fs.appendFileSync(ring.checkpointsFile, `${lines.join("\n")}\n`, { mode: 0o600 });
 }
 
 export type Actor = { id: string | null; name: string };
@@ -280,6 +280,6 @@ export function checkpointAllHeads(db: Db, file: string, key: Buffer): number {
     const c = { objectId: h.objectId, seq: h.seq, head: row.hash, at };
     lines.push(JSON.stringify({ ...c, mac: checkpointMac(c, key) }));
   }
-  if (lines.length) fs.appendFileSync(file, lines.join("\n") + "\n", { mode: 0o600 });
+  if (lines.length) fs.appendFileSync(file, `${lines.join("\n")}\n`, { mode: 0o600 });
   return lines.length;
 }

@@ -1,5 +1,5 @@
 import { Router } from "express";
-import { z } from "zod";
+import type { z } from "zod";
 import type { Db } from "../../db/client.ts";
 import { IdParamSchema } from "../../../shared/schemas/common.ts";
 import { MountingCompleteSchema, MountingCorrectionSchema, MountingCreateSchema, MountingDraftUpdateSchema, MountingRemoveSchema } from "../../../shared/schemas/mountings.ts";

@@ -87,7 +87,7 @@ export function listObjects(db: Db, query: ObjectListQuery, scopeClientId: strin
       .all();
   const count = (extra?: SQL) => db.select({ n: sql<number>`count(*)` }).from(objects).where(extra ? and(cond, extra) : cond).get()?.n ?? 0;
   const offset = (query.page - 1) * query.pageSize;
-  let items;
+  let items: ReturnType<typeof page>;
   if (NULLS_LAST_SORTS.has(query.sort)) {
     // Two index ranges read one after the other (the dated rows in order, then the undated ones by id),
     // because "nulls last" in the ORDER BY is something no index can serve. Past the first page the dated

@@ -69,7 +69,7 @@ export function photoRoutes(db: Db, config: Pick<Config, "uploadsDir" | "maxUplo
     },
     receiveFile,
     async (req, res) => {
-      let photo;
+      let photo: Awaited<ReturnType<typeof service.upload>>;
       try {
         photo = await service.upload(currentUser(req), input(req, "params", IdParamSchema).id, req.file, req.body);
       } finally {

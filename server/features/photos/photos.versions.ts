@@ -1,6 +1,6 @@
 import fsp from "node:fs/promises";
 import sharp, { type Sharp, type SharpOptions } from "sharp";
-import { type PhotoVersion } from "../../../shared/schemas/photos.ts";
+import type { PhotoVersion } from "../../../shared/schemas/photos.ts";
 import { AppError } from "../../lib/errors.ts";
 import { type PhotoLimits, type UploadInfo, VERSION_MAX_SIDE, fileProblem } from "./photos.inspect.ts";
 

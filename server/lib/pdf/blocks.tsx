@@ -3,7 +3,7 @@ import { Path, Polygon, Svg, View } from "@react-pdf/renderer";
 import { Text } from "./text.tsx";
 import { RATING_LABELS, type Rating } from "../../../shared/schemas/condition.ts";
 import type { Verdict } from "../../../shared/schemas/mount-plan.ts";
-import { type ComparisonStatus } from "../../../shared/domain/condition.ts";
+import type { ComparisonStatus } from "../../../shared/domain/condition.ts";
 import { FAIL, GRAPHITE, INK, PASS, STONE, WARN, s } from "./theme.ts";
 import type { Styles } from "@react-pdf/renderer";
 

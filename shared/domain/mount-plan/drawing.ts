@@ -39,7 +39,7 @@ const rectPath = (x: number, y: number, w: number, h: number) => `M${x} ${y}h${w
 export function planDrawing(g: PlanGeometry, hinges: HingeMark[] = []): DrawingModel {
   const { outer, aperture, borders, overlap, sheet } = g;
   const fig = g.figures;
-  const L = (mm: number) => figureLength(mm, fig.unit);
+  const shown = (mm: number) => figureLength(mm, fig.unit);
   const size = Math.max(outer.width, outer.height);
   const font = size * 0.028;
   const gap = font * 1.4;
@@ -81,7 +81,7 @@ export function planDrawing(g: PlanGeometry, hinges: HingeMark[] = []): DrawingM
     else if (s === "top") r = o > 0 ? { x: wx, y: wy - t, width: aperture.width, height: t } : { x: wx, y: wy, width: aperture.width, height: t };
     else r = o > 0 ? { x: wx, y: wy + aperture.height, width: aperture.width, height: t } : { x: wx, y: wy + aperture.height - t, width: aperture.width, height: t };
     shapes.push({ kind: "rect", role, side: s, ...r });
-    const text = o < 0 ? `reveal ${L(-fig.overlap[s])}` : `overlap ${L(fig.overlap[s])}`;
+    const text = o < 0 ? `reveal ${shown(-fig.overlap[s])}` : `overlap ${shown(fig.overlap[s])}`;
     const inset = font * 0.9;
     if (s === "left") shapes.push({ kind: "text", role: "band-label", x: wx + inset, y: wy + aperture.height / 2, text, anchor: "middle", rotate: -90, size: font * 0.8 });
     else if (s === "right") shapes.push({ kind: "text", role: "band-label", x: wx + aperture.width - inset, y: wy + aperture.height / 2, text, anchor: "middle", rotate: 90, size: font * 0.8 });
@@ -99,28 +99,28 @@ export function planDrawing(g: PlanGeometry, hinges: HingeMark[] = []): DrawingM
   });
 
   // Border widths, written in each border.
-  shapes.push({ kind: "text", role: "border-label", x: outer.width / 2, y: borders.top / 2 + font * 0.35, text: L(fig.borders.top), anchor: "middle", size: font });
-  shapes.push({ kind: "text", role: "border-label", x: outer.width / 2, y: outer.height - borders.bottom / 2 + font * 0.35, text: L(fig.borders.bottom), anchor: "middle", size: font });
-  shapes.push({ kind: "text", role: "border-label", x: borders.left / 2, y: outer.height / 2, text: L(fig.borders.left), anchor: "middle", rotate: -90, size: font });
-  shapes.push({ kind: "text", role: "border-label", x: outer.width - borders.right / 2, y: outer.height / 2, text: L(fig.borders.right), anchor: "middle", rotate: 90, size: font });
+  shapes.push({ kind: "text", role: "border-label", x: outer.width / 2, y: borders.top / 2 + font * 0.35, text: shown(fig.borders.top), anchor: "middle", size: font });
+  shapes.push({ kind: "text", role: "border-label", x: outer.width / 2, y: outer.height - borders.bottom / 2 + font * 0.35, text: shown(fig.borders.bottom), anchor: "middle", size: font });
+  shapes.push({ kind: "text", role: "border-label", x: borders.left / 2, y: outer.height / 2, text: shown(fig.borders.left), anchor: "middle", rotate: -90, size: font });
+  shapes.push({ kind: "text", role: "border-label", x: outer.width - borders.right / 2, y: outer.height / 2, text: shown(fig.borders.right), anchor: "middle", rotate: 90, size: font });
 
   // Dimension lines outside the drawing: outer size above and left, window below and right.
   const top = -gap;
   shapes.push({ kind: "line", role: "dim-line", x1: 0, y1: top, x2: outer.width, y2: top, arrows: true });
-  shapes.push({ kind: "text", role: "dim-label", x: outer.width / 2, y: top - font * 0.45, text: `outer ${L(fig.outer.width)}`, anchor: "middle", size: font });
+  shapes.push({ kind: "text", role: "dim-label", x: outer.width / 2, y: top - font * 0.45, text: `outer ${shown(fig.outer.width)}`, anchor: "middle", size: font });
   const left = -gap;
   shapes.push({ kind: "line", role: "dim-line", x1: left, y1: 0, x2: left, y2: outer.height, arrows: true });
-  shapes.push({ kind: "text", role: "dim-label", x: left - font * 0.45, y: outer.height / 2, text: `outer ${L(fig.outer.height)}`, anchor: "middle", rotate: -90, size: font });
+  shapes.push({ kind: "text", role: "dim-label", x: left - font * 0.45, y: outer.height / 2, text: `outer ${shown(fig.outer.height)}`, anchor: "middle", rotate: -90, size: font });
   const bottom = outer.height + gap;
   shapes.push({ kind: "line", role: "dim-line", x1: wx, y1: bottom, x2: wx + aperture.width, y2: bottom, arrows: true });
   shapes.push({ kind: "line", role: "dim-line", x1: wx, y1: outer.height + font * 0.3, x2: wx, y2: bottom + font * 0.3 });
   shapes.push({ kind: "line", role: "dim-line", x1: wx + aperture.width, y1: outer.height + font * 0.3, x2: wx + aperture.width, y2: bottom + font * 0.3 });
-  shapes.push({ kind: "text", role: "dim-label", x: wx + aperture.width / 2, y: bottom + font * 1.25, text: `window ${L(fig.aperture.width)}`, anchor: "middle", size: font });
+  shapes.push({ kind: "text", role: "dim-label", x: wx + aperture.width / 2, y: bottom + font * 1.25, text: `window ${shown(fig.aperture.width)}`, anchor: "middle", size: font });
   const right = outer.width + gap;
   shapes.push({ kind: "line", role: "dim-line", x1: right, y1: wy, x2: right, y2: wy + aperture.height, arrows: true });
   shapes.push({ kind: "line", role: "dim-line", x1: outer.width + font * 0.3, y1: wy, x2: right + font * 0.3, y2: wy });
   shapes.push({ kind: "line", role: "dim-line", x1: outer.width + font * 0.3, y1: wy + aperture.height, x2: right + font * 0.3, y2: wy + aperture.height });
-  shapes.push({ kind: "text", role: "dim-label", x: right + font * 1.15, y: wy + aperture.height / 2, text: `window ${L(fig.aperture.height)}`, anchor: "middle", rotate: 90, size: font });
+  shapes.push({ kind: "text", role: "dim-label", x: right + font * 1.15, y: wy + aperture.height / 2, text: `window ${shown(fig.aperture.height)}`, anchor: "middle", rotate: 90, size: font });
 
   // Everything drawn, including a sheet that floats past the board, fits in the view box.
   const minX = Math.min(0, sx) - gap - font * 2;
