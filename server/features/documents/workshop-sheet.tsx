@@ -1,3 +1,4 @@
+// biome-ignore lint/style/noRestrictedImports: SVG text inside the drawing, which react-pdf sets with the document font
 import { Rect, Svg, Text as SvgText, View } from "@react-pdf/renderer";
 import { Text } from "../../lib/pdf/text.tsx";
 import { Mark } from "../../lib/pdf/blocks.tsx";

@@ -1,3 +1,4 @@
+// biome-ignore lint/style/noRestrictedImports: SVG text inside the drawing, which react-pdf sets with the document font
 import { G, Line, Path, Polygon, Rect, Svg, Text as SvgText } from "@react-pdf/renderer";
 import type { DrawingModel } from "../../../shared/domain/mount-plan/drawing.ts";
 import { ARROW_FILL, arrowHeadPoints, drawnRect, LINE, PRINT_LINE_SCALE, PRINT_STYLE, scaledDash, textRotation } from "../../../shared/drawing/plan-style.ts";

@@ -1,4 +1,5 @@
 import { Children, type ReactNode } from "react";
+// biome-ignore lint/style/noRestrictedImports: this module is the wrapper every other document uses
 import { Text as PdfText, View, type TextProps as PdfTextProps } from "@react-pdf/renderer";
 import type { Style } from "@react-pdf/types";
 import { createRequire } from "node:module";
