@@ -45,6 +45,7 @@ export function FindingsList({ findings }: { findings: Finding[] }) {
   return (
     <ul className="space-y-1.5" data-testid="plan-findings">
       {findings.map((f, i) => (
+        // biome-ignore lint/suspicious/noArrayIndexKey: the findings are recomputed as a whole on each change; position is their identity
         <li key={i} className="flex gap-2">
           <span aria-hidden="true" className={SEVERITY[f.severity].cls}>
             {SEVERITY[f.severity].mark}

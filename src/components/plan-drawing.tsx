@@ -1,4 +1,4 @@
-import { useRef, type KeyboardEvent, type PointerEvent } from "react";
+import { Fragment, useRef, type KeyboardEvent, type PointerEvent } from "react";
 import type { DrawingModel } from "@shared/domain/mount-plan/drawing.ts";
 import { ARROW_FILL, arrowMarkerScale, drawnRect, hatchSize, PLAN_STYLE, textRotation } from "@shared/drawing/plan-style.ts";
 
@@ -58,6 +58,59 @@ export function PlanDrawing({ model, title, onHingeMove, hingeEdges = [] }: Prop
     }
   };
 
+  const drawShape = (s: DrawingModel["shapes"][number]) => {
+    const st = PLAN_STYLE[s.role];
+    const common = {
+      fill: st.hatch ? "url(#rv-hatch)" : (st.fill ?? "none"),
+      stroke: st.stroke,
+      strokeWidth: st.width,
+      strokeDasharray: st.dash,
+      fillOpacity: st.opacity,
+      vectorEffect: "non-scaling-stroke" as const,
+    };
+    if (s.kind === "rect" && s.role === "hinge" && s.hinge !== undefined && onHingeMove) {
+      const n = s.hinge;
+      return (
+        <rect
+          {...drawnRect(s)}
+          {...common}
+          data-role="hinge"
+          data-hinge={n}
+          tabIndex={0}
+          role="slider"
+          aria-label={`Hinge ${n + 1}: drag along the edge, or use the arrow keys (Shift for 10 mm)`}
+          aria-valuenow={Math.round(hingeEdges[n] === "left" || hingeEdges[n] === "right" ? s.y : s.x)}
+          className="cursor-grab focus:outline-none focus-visible:stroke-accent"
+          style={{ touchAction: "none" }}
+          onPointerDown={onDown(n)}
+          onPointerMove={onMove}
+          onPointerUp={onUp}
+          onPointerCancel={onUp}
+          onKeyDown={onKey(n)}
+        />
+      );
+    }
+    if (s.kind === "rect") return <rect {...drawnRect(s)} {...common} data-role={s.role} data-side={s.side} data-hinge={s.hinge} />;
+    if (s.kind === "path") return <path d={s.d} fillRule="evenodd" {...common} />;
+    if (s.kind === "line")
+      return <line x1={s.x1} y1={s.y1} x2={s.x2} y2={s.y2} {...common} markerStart={s.arrows ? "url(#rv-arrow)" : undefined} markerEnd={s.arrows ? "url(#rv-arrow)" : undefined} />;
+    return (
+      <text
+        x={s.x}
+        y={s.y}
+        fontSize={s.size}
+        textAnchor={s.anchor}
+        fill={st.text}
+        fontWeight={st.weight}
+        dominantBaseline={s.rotate ? "middle" : undefined}
+        transform={textRotation(s, " ")}
+        style={{ fontVariantNumeric: "tabular-nums" }}
+      >
+        {s.text}
+      </text>
+    );
+  };
+
   return (
     <svg ref={svgRef} viewBox={`${x} ${y} ${w} ${h}`} role="img" aria-label={title} className="h-auto max-h-[70vh] w-full print:max-h-[76mm]" data-testid="plan-drawing">
       <title>{title}</title>
@@ -70,60 +123,10 @@ export function PlanDrawing({ model, title, onHingeMove, hingeEdges = [] }: Prop
           <path d="M0 1 L10 5 L0 9 z" fill={ARROW_FILL} transform={`scale(${arrowMarkerScale(model.fontSize)})`} />
         </marker>
       </defs>
-      {model.shapes.map((s, i) => {
-        const st = PLAN_STYLE[s.role];
-        const common = {
-          fill: st.hatch ? "url(#rv-hatch)" : (st.fill ?? "none"),
-          stroke: st.stroke,
-          strokeWidth: st.width,
-          strokeDasharray: st.dash,
-          fillOpacity: st.opacity,
-          vectorEffect: "non-scaling-stroke" as const,
-        };
-        if (s.kind === "rect" && s.role === "hinge" && s.hinge !== undefined && onHingeMove) {
-          const n = s.hinge;
-          return (
-            <rect
-              key={i}
-              {...drawnRect(s)}
-              {...common}
-              data-role="hinge"
-              data-hinge={n}
-              tabIndex={0}
-              role="slider"
-              aria-label={`Hinge ${n + 1}: drag along the edge, or use the arrow keys (Shift for 10 mm)`}
-              aria-valuenow={Math.round(hingeEdges[n] === "left" || hingeEdges[n] === "right" ? s.y : s.x)}
-              className="cursor-grab focus:outline-none focus-visible:stroke-accent"
-              style={{ touchAction: "none" }}
-              onPointerDown={onDown(n)}
-              onPointerMove={onMove}
-              onPointerUp={onUp}
-              onPointerCancel={onUp}
-              onKeyDown={onKey(n)}
-            />
-          );
-        }
-        if (s.kind === "rect") return <rect key={i} {...drawnRect(s)} {...common} data-role={s.role} data-side={s.side} data-hinge={s.hinge} />;
-        if (s.kind === "path") return <path key={i} d={s.d} fillRule="evenodd" {...common} />;
-        if (s.kind === "line")
-          return <line key={i} x1={s.x1} y1={s.y1} x2={s.x2} y2={s.y2} {...common} markerStart={s.arrows ? "url(#rv-arrow)" : undefined} markerEnd={s.arrows ? "url(#rv-arrow)" : undefined} />;
-        return (
-          <text
-            key={i}
-            x={s.x}
-            y={s.y}
-            fontSize={s.size}
-            textAnchor={s.anchor}
-            fill={st.text}
-            fontWeight={st.weight}
-            dominantBaseline={s.rotate ? "middle" : undefined}
-            transform={textRotation(s, " ")}
-            style={{ fontVariantNumeric: "tabular-nums" }}
-          >
-            {s.text}
-          </text>
-        );
-      })}
+      {model.shapes.map((s, i) => (
+        // biome-ignore lint/suspicious/noArrayIndexKey: the scene is derived afresh from the plan on every render; a shape's place in it is its identity
+        <Fragment key={i}>{drawShape(s)}</Fragment>
+      ))}
     </svg>
   );
 }

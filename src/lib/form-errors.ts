@@ -11,7 +11,10 @@ export function nestedErrors<T extends FieldValues>(flat: Record<string, string>
     let cur = out;
     parts.forEach((p, i) => {
       if (i === parts.length - 1) cur[p] = { type: "validate", message };
-      else cur = (cur[p] ??= {}) as Record<string, unknown>;
+      else {
+        cur[p] ??= {};
+        cur = cur[p] as Record<string, unknown>;
+      }
     });
   }
   return out as FieldErrors<T>;

@@ -19,16 +19,18 @@ export type SearchChanges<S extends AnyObject> = Partial<Record<Key<S>, string |
 export function useSearchState<S extends AnyObject>(schema: S, opts: { names?: Partial<Record<Key<S>, string>>; resetPage?: Key<S> | null } = {}) {
   const [params, setParams] = useSearchParams();
   const urlName = (key: string) => opts.names?.[key as Key<S>] ?? key;
+  // The names arrive as a fresh object on each render; their content is what the state depends on.
+  const namesKey = JSON.stringify(opts.names ?? {});
 
   const state = useMemo(() => {
+    const names = JSON.parse(namesKey) as Record<string, string>;
     const out: Record<string, unknown> = {};
     for (const [key, field] of Object.entries(schema.shape) as [string, z.ZodType][]) {
-      const parsed = field.safeParse(params.get(urlName(key)) ?? undefined);
+      const parsed = field.safeParse(params.get(names[key] ?? key) ?? undefined);
       out[key] = parsed.success ? parsed.data : field.safeParse(undefined).data;
     }
     return out as z.output<S>;
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [params, schema]);
+  }, [params, schema, namesKey]);
 
   const defaultReset = opts.resetPage === undefined ? ("page" in schema.shape ? "page" : null) : opts.resetPage;
   const set = (changes: SearchChanges<S>, resetPage: Key<S> | null = defaultReset as Key<S> | null) => {
@@ -50,9 +52,9 @@ export function useSearchState<S extends AnyObject>(schema: S, opts: { names?: P
 export function useSearchText(inUrl: string | undefined, write: (text: string | undefined) => void) {
   const [text, setText] = useState(inUrl ?? "");
   const debounced = useDebounced(text.trim());
+  // biome-ignore lint/correctness/useExhaustiveDependencies: runs when the typed text settles, reading the address as it is then; a change of address alone (going back) must not write the old text over it
   useEffect(() => {
     if ((inUrl ?? "") !== debounced) write(debounced || undefined);
-    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [debounced]);
   return { text, setText, debounced };
 }

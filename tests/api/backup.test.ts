@@ -102,7 +102,7 @@ describe("npm run backup and npm run restore", () => {
     const live = path.join(work, "live-elsewhere");
     const checkpoints = path.join(work, "elsewhere", "checkpoints.log");
     fs.mkdirSync(path.dirname(checkpoints), { recursive: true });
-    const env = { HISTORY_KEY: "k".repeat(40) + "-backup-test-history-key", HISTORY_CHECKPOINTS: checkpoints };
+    const env = { HISTORY_KEY: `${"k".repeat(40)}-backup-test-history-key`, HISTORY_CHECKPOINTS: checkpoints };
     const server = await startServer({ SEED_DEMO: "true", ...env }, live);
     servers.push(server);
     const cookie = await signInCookie(server.baseUrl, "framer@reversa.test", DEMO_PASSWORD);

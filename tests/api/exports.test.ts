@@ -25,7 +25,6 @@ const t = createTestApp();
 const as = {} as Record<"admin" | "framer" | "registrar" | "collector", Agent>;
 let varga: string; // the demo collector's client
 let wrenfold: string; // the demo registrar's client
-let trickyId: string;
 let photoId: string;
 let photoObjectNumber: string;
 
@@ -89,7 +88,7 @@ beforeAll(async () => {
   const byName = (name: string) => t.db.select({ id: clients.id }).from(clients).where(eq(clients.name, name)).get()!.id;
   varga = byName("Odile Varga-Pennick");
   wrenfold = byName("Wrenfold Hall Collection Trust");
-  trickyId = makeObject(t.db, varga, { objectNumber: "2026-0900", title: TRICKY, objectType: "document", status: "in-studio", valuationMinor: 12345, valuationCurrency: "GBP", valuationDate: "2026-05-01", valuationBasis: "agreed" });
+  makeObject(t.db, varga, { objectNumber: "2026-0900", title: TRICKY, objectType: "document", status: "in-studio", valuationMinor: 12345, valuationCurrency: "GBP", valuationDate: "2026-05-01", valuationBasis: "agreed" });
 
   // One photo on one of the collector's objects, through the real upload route.
   const target = t.db.select().from(objects).where(and(eq(objects.clientId, varga), eq(objects.objectNumber, "2026-0001"))).get()!;
@@ -157,10 +156,10 @@ describe("single-dataset exports", () => {
     for (const c of withFindings) {
       const lines = String(c.Findings).split("\n");
       expect(lines).toHaveLength(c["Number of findings"] as number);
-      lines.forEach((l, i) => expect(l.startsWith(`${i + 1}. `)).toBe(true));
+      for (const [i, l] of lines.entries()) expect(l.startsWith(`${i + 1}. `)).toBe(true);
       const report = t.db.select().from(conditionRevisions).where(eq(conditionRevisions.reportId, String(c["Condition check/assessment reference number"]))).all().at(-1)!;
       const data = report.data as { findings: { term: string; severity: string }[]; recommendations: Record<string, string | null> };
-      data.findings.forEach((f, i) => expect(lines[i]).toContain(f.term));
+      for (const [i, f] of data.findings.entries()) expect(lines[i]).toContain(f.term);
       expect(c["Recommendation: handling"]).toBe(data.recommendations.handling ?? null);
       expect(c["Referral to a conservator"]).toBe(data.recommendations.referral ?? null);
     }

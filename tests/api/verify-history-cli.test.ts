@@ -134,7 +134,7 @@ describe("npm run verify-history catches a database writer without the key", () 
   it("when a checkpoint line is forged, then its signature gives it away", () => {
     const before = fs.readFileSync(t.checkpointsFile, "utf8");
     const forged = JSON.stringify({ objectId: objectIds[0], seq: 1, head: "0".repeat(64), at: new Date().toISOString(), mac: "f".repeat(64) });
-    fs.appendFileSync(t.checkpointsFile, forged + "\n");
+    fs.appendFileSync(t.checkpointsFile, `${forged}\n`);
     const r = runCli();
     fs.writeFileSync(t.checkpointsFile, before);
     expect(r.status).toBe(1);

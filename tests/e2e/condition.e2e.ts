@@ -1,9 +1,9 @@
 import { describe, expect, inject, it } from "vitest";
 import sharp from "sharp";
-import { signIn, useBrowser } from "./support/browser.ts";
+import { signIn, browserSession } from "./support/browser.ts";
 
 const baseUrl = inject("baseUrl");
-const browser = useBrowser(baseUrl);
+const browser = browserSession(baseUrl);
 
 describe("condition journeys", () => {
   it("when a framer compares the two demo reports of 2026-0001, then the abrasion shows as new and the tear as worsened", async () => {

@@ -3,10 +3,10 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { describe, expect, inject, it } from "vitest";
-import { signIn, useBrowser } from "./support/browser.ts";
+import { signIn, browserSession } from "./support/browser.ts";
 
 const baseUrl = inject("baseUrl");
-const browser = useBrowser(baseUrl);
+const browser = browserSession(baseUrl);
 
 describe("documents journey", () => {
   it("when the collector issues their object's dossier, then its code checks out on the public page and a made-up code does not", async () => {

@@ -1,8 +1,8 @@
 import { describe, expect, inject, it } from "vitest";
-import { signIn, useBrowser } from "./support/browser.ts";
+import { signIn, browserSession } from "./support/browser.ts";
 
 const baseUrl = inject("baseUrl");
-const browser = useBrowser(baseUrl);
+const browser = browserSession(baseUrl);
 
 describe("reframing journey", () => {
   it("when a framer reframes a mounted object, then the new record supersedes the old, whose drawing and hinges stay readable from the history", async () => {

@@ -1,8 +1,8 @@
 import { describe, expect, inject, it } from "vitest";
-import { signIn, useBrowser } from "./support/browser.ts";
+import { signIn, browserSession } from "./support/browser.ts";
 
 const baseUrl = inject("baseUrl");
-const browser = useBrowser(baseUrl);
+const browser = browserSession(baseUrl);
 
 const freshPage = () => browser.fresh();
 

@@ -27,7 +27,7 @@ export function pdfFile(pdf: Buffer): string {
 }
 
 const num = (tag: string, name: string) => Number(new RegExp(`${name}="([0-9.]+)"`).exec(tag)![1]);
-const unescape = (t: string) => t.replace(/&lt;/g, "<").replace(/&gt;/g, ">").replace(/&quot;/g, '"').replace(/&#39;/g, "'").replace(/&amp;/g, "&");
+const unescapeXml = (t: string) => t.replace(/&lt;/g, "<").replace(/&gt;/g, ">").replace(/&quot;/g, '"').replace(/&#39;/g, "'").replace(/&amp;/g, "&");
 
 /** Pages, lines and words with their boxes (points, origin top left), from `pdftotext -bbox-layout`. */
 export function pdfPages(pdf: Buffer): PdfPage[] {
@@ -37,7 +37,7 @@ export function pdfPages(pdf: Buffer): PdfPage[] {
     const page: PdfPage = { width: num(pm[1], "width"), height: num(pm[1], "height"), lines: [] };
     for (const lm of pm[2].matchAll(/<line ([^>]*)>([\s\S]*?)<\/line>/g)) {
       const words = [...lm[2].matchAll(/<word ([^>]*)>([\s\S]*?)<\/word>/g)].map((w) => ({
-        text: unescape(w[2]),
+        text: unescapeXml(w[2]),
         xMin: num(w[1], "xMin"),
         yMin: num(w[1], "yMin"),
         xMax: num(w[1], "xMax"),

@@ -34,7 +34,8 @@ export function Component() {
   if (signed.length < 2) return <EmptyState title="Two signed reports are needed">A comparison sets two condition reports of the object side by side.</EmptyState>;
   const pick = (k: "from" | "to", v: string) => setParams((p) => { const n = new URLSearchParams(p); n.set(k, v); return n; }, { replace: true });
   const label = (r: (typeof signed)[number]) => `${formatDate(r.reportDate)} · ${CONDITION_CONTEXT_LABELS[r.context]}`;
-  const counts = cmp.data?.findings.reduce<Record<string, number>>((a, f) => ((a[f.status] = (a[f.status] ?? 0) + 1), a), {}) ?? {};
+  const counts: Partial<Record<ComparisonStatus, number>> = {};
+  for (const f of cmp.data?.findings ?? []) counts[f.status] = (counts[f.status] ?? 0) + 1;
 
   return (
     <div className="space-y-5">
@@ -64,8 +65,8 @@ export function Component() {
                 </tr>
               </thead>
               <tbody>
-                {cmp.data.findings.map((f, i) => (
-                  <tr key={i} className="border-b border-stone-light align-top">
+                {cmp.data.findings.map((f) => (
+                  <tr key={`${f.status}-${f.before?.id ?? ""}-${f.after?.id ?? ""}`} className="border-b border-stone-light align-top">
                     <td className="px-3 py-2"><span className={`rounded px-2 py-0.5 text-xs font-semibold ${STATUS[f.status].cls}`}><span aria-hidden="true">{STATUS[f.status].mark} </span>{STATUS[f.status].label}</span></td>
                     <td className="px-3 py-2">{f.before ? `${f.before.term} · ${SEVERITY_LABELS[f.before.severity].toLowerCase()} · ${where(f.before)}${f.before.extent ? ` · ${f.before.extent}` : ""}` : "—"}</td>
                     <td className="px-3 py-2">{f.after ? `${f.after.term} · ${SEVERITY_LABELS[f.after.severity].toLowerCase()} · ${where(f.after)}${f.after.extent ? ` · ${f.after.extent}` : ""}` : "—"}</td>

@@ -7,7 +7,7 @@ import { useMe } from "@/features/session/api/session.ts";
 import { useObject } from "@/features/objects/api/objects.ts";
 import { useReport, useReportRevisions, useSignReport } from "@/features/condition/api/condition.ts";
 import { RatingBadge, ReportView } from "@/features/condition/components/report-view.tsx";
-import { Badge, Card, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { Badge, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { Button, ButtonLink } from "@/components/ui/button.tsx";
 import { objectPhotosQuery } from "@/features/photos/api/photos.ts";
 import { DocumentButton } from "@/features/documents/components/document-button.tsx";

@@ -113,13 +113,13 @@ export function Component() {
 
       <Card title="Recent receipts">
         <div className="space-y-4" aria-busy={receipts.isFetching}>
-          <div role="group" aria-label="Filter receipts" className="flex flex-wrap items-end gap-3">
+          <fieldset aria-label="Filter receipts" className="flex flex-wrap items-end gap-3">
             <EnumFilter label="In or out" any="In and out" values={DIRECTIONS} labels={DIRECTION_LABELS} value={direction} onChange={(v) => update({ direction: v })} />
             <EnumFilter label="Kind of hand-over" any="Any hand-over" values={CUSTODY_KINDS} labels={CUSTODY_KIND_LABELS} value={kind} onChange={(v) => update({ kind: v })} />
             <DateFilter label="From" wrapClassName="flex items-center gap-2 text-sm text-ink-soft" inputClassName={DateFilter.roomy} value={from} onChange={(v) => update({ from: v })} />
             <DateFilter label="to" wrapClassName="flex items-center gap-2 text-sm text-ink-soft" inputClassName={DateFilter.roomy} value={to} onChange={(v) => update({ to: v })} />
             <ClearFilters shown={filtered} className="py-2" onClear={() => update({ direction: undefined, kind: undefined, from: undefined, to: undefined })} />
-          </div>
+          </fieldset>
           <QueryView
             query={receipts}
             rows={5}

@@ -11,7 +11,7 @@ import { MountingView } from "@/features/mountings/components/mounting-view.tsx"
 import { Badge, Card, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { Button, ButtonLink } from "@/components/ui/button.tsx";
 import { TextField } from "@/components/ui/field.tsx";
-import { formatDate, formatDateTime } from "@/lib/format.ts";
+import { formatDate, } from "@/lib/format.ts";
 import { RevisionsList } from "@/components/revisions-list.tsx";
 import { ApiError } from "@/lib/api-client.ts";
 

@@ -109,7 +109,7 @@ export function Component() {
         }
       />
 
-      <div role="search" aria-label="Filter mountings" className="flex flex-wrap items-center gap-3">
+      <search aria-label="Filter mountings" className="flex flex-wrap items-center gap-3">
         <label className="sr-only" htmlFor="mountings-batch">
           Board batch
         </label>
@@ -133,7 +133,7 @@ export function Component() {
             update({ batch: undefined, framerId: undefined, from: undefined, to: undefined, method: undefined, status: undefined });
           }}
         />
-      </div>
+      </search>
 
       {backwards && (
         <Notice tone="warn" title="The dates are the wrong way round">

@@ -103,7 +103,7 @@ export function Component() {
         }
       />
 
-      <div role="search" className="flex flex-wrap items-center gap-3">
+      <search aria-label="Search the register" className="flex flex-wrap items-center gap-3">
         <label className="sr-only" htmlFor="register-search">
           Search objects
         </label>
@@ -134,7 +134,7 @@ export function Component() {
             update({ q: undefined, status: undefined, objectType: undefined, clientId: undefined, method: undefined, boardGrade: undefined, glazing: undefined, due: undefined });
           }}
         />
-      </div>
+      </search>
 
       <ListSection
         label="Objects"

@@ -11,7 +11,7 @@ import { ApiError } from "@/lib/api-client.ts";
 
 /** Only paths inside the app are followed after sign-in. */
 function safeNext(next: string | null): string {
-  return next && next.startsWith("/") && !next.startsWith("//") ? next : "/";
+  return next?.startsWith("/") && !next.startsWith("//") ? next : "/";
 }
 
 export function Component() {

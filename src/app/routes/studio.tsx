@@ -134,6 +134,7 @@ function FramePresets({ settings, readOnly }: { settings: StudioSettingsRecord; 
       {save.isError && <Notice tone="fail" title="Not saved">{save.error.message}</Notice>}
       {rows.length === 0 && <p className="text-sm text-graphite">No sizes yet.</p>}
       {rows.map((r, i) => (
+        // biome-ignore lint/suspicious/noArrayIndexKey: the inputs are controlled and errors are addressed by row number, so position is the row's identity
         <div key={i} className="grid grid-cols-[1fr_7rem_7rem_auto] items-end gap-2">
           <TextField label="Name" disabled={readOnly} value={r.label} error={errors[`${i}.label`]} onChange={(e) => set(i, "label", e.target.value)} />
           <TextField label={`Width (${u})`} disabled={readOnly} className="num" value={r.width} error={errors[`${i}.width`]} onChange={(e) => set(i, "width", e.target.value)} />

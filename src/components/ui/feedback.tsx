@@ -42,6 +42,7 @@ export function SkeletonRows({ rows = 8 }: { rows?: number }) {
   return (
     <div className="space-y-3 p-4" aria-label="Loading" role="status">
       {Array.from({ length: rows }, (_, i) => (
+        // biome-ignore lint/suspicious/noArrayIndexKey: placeholder rows with nothing but their position
         <Skeleton key={i} className="h-6 w-full" />
       ))}
     </div>

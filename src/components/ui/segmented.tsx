@@ -18,20 +18,26 @@ export function Segmented<T extends string>({
   padding?: string;
   hover?: boolean;
 }) {
-  return (
-    <div role={kind === "radio" ? "radiogroup" : "tablist"} aria-label={label} className="inline-flex rounded-card border border-stone text-sm">
-      {options.map((o) => (
-        <button
-          key={o}
-          type="button"
-          role={kind}
-          {...(kind === "radio" ? { "aria-checked": value === o } : { "aria-selected": value === o })}
-          onClick={() => onChange(o)}
-          className={`${padding} ${value === o ? "bg-accent text-paper-sheet" : hover ? "text-ink-soft hover:bg-paper-deep" : "text-ink-soft"}`}
-        >
-          {optionLabel(o)}
-        </button>
-      ))}
+  const group = { "aria-label": label, className: "inline-flex rounded-card border border-stone text-sm" };
+  const buttons = options.map((o) => (
+    <button
+      key={o}
+      type="button"
+      role={kind}
+      {...(kind === "radio" ? { "aria-checked": value === o } : { "aria-selected": value === o })}
+      onClick={() => onChange(o)}
+      className={`${padding} ${value === o ? "bg-accent text-paper-sheet" : hover ? "text-ink-soft hover:bg-paper-deep" : "text-ink-soft"}`}
+    >
+      {optionLabel(o)}
+    </button>
+  ));
+  return kind === "radio" ? (
+    <div role="radiogroup" {...group}>
+      {buttons}
+    </div>
+  ) : (
+    <div role="tablist" {...group}>
+      {buttons}
     </div>
   );
 }

@@ -52,7 +52,7 @@ export async function signIn(page: Page, baseUrl: string, email: string, passwor
 }
 
 /** One Chromium per spec file: call at the top of the file; `fresh()` gives a signed-out page and its watch. */
-export function useBrowser(baseUrl: string) {
+export function browserSession(baseUrl: string) {
   let ctx: Awaited<ReturnType<typeof launch>> | undefined;
   beforeAll(async () => {
     ctx = await launch();

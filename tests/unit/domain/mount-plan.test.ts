@@ -3,14 +3,13 @@ import { computePlan, type PlanContext, type PlanGeometry } from "../../../share
 import { planDrawing, type Shape } from "../../../shared/domain/mount-plan/drawing.ts";
 import { FRAME_PRESETS, SHEET_PRESETS } from "../../../shared/domain/mount-plan/presets.ts";
 import { MountPlanInputSchema, type Check, type MountPlan, type MountPlanInput } from "../../../shared/schemas/mount-plan.ts";
-import { formatLength, MM_PER_INCH } from "../../../shared/domain/units.ts";
+import { MM_PER_INCH } from "../../../shared/domain/units.ts";
 
 // The studio defaults: 5 mm minimum overlap a side and 2 mm total rebate clearance, both
 // common practice (no source) and studio settings (docs/trade-reference.md §2).
 const CTX: PlanContext = { minOverlapMm: 5, rebateClearanceMm: 2 };
 // 1 in = 25.4 mm exactly: international yard and pound agreement, 1959; NIST Handbook 44, Appendix C.
 const IN = 25.4;
-const EXACT = 1e-9;
 
 /** Parses with the contract first, as the API and the client do, then computes; fails when the plan is refused. */
 function planOf(input: MountPlanInput, ctx: PlanContext = CTX): { plan: MountPlan; geometry: PlanGeometry } {

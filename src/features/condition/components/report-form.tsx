@@ -41,7 +41,7 @@ const newId = () => (window.isSecureContext ? crypto.randomUUID() : `f-${Date.no
 
 /** Empty signature blocks are left out; an empty mounting is "none". */
 function toBody(v: ReportFormValues) {
-  const sig = (x?: { name: string; date: string; role?: string | null }) => (x && x.name.trim() ? x : undefined);
+  const sig = (x?: { name: string; date: string; role?: string | null }) => (x?.name.trim() ? x : undefined);
   return {
     context: v.context,
     reportDate: v.reportDate,
@@ -161,6 +161,7 @@ export function ReportForm({ mode, objectType, photos, terms, mountings, examine
             const loc = v.data.findings?.[i]?.location;
             const isSel = selected === f.id;
             return (
+              // biome-ignore lint/a11y/noNoninteractiveElementInteractions: focus moving into a finding's fields selects its marker on the photo; the fields themselves are the interaction
               <fieldset key={f._key} className={`rounded-card border p-3 ${isSel ? "border-accent" : "border-stone-light"}`} onFocus={() => setSelected(f.id)}>
                 <legend className="px-1 text-sm font-semibold">Finding {i + 1}</legend>
                 <div className="grid grid-cols-2 gap-3">

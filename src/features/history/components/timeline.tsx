@@ -29,7 +29,7 @@ export function Timeline({ objectId }: { objectId: string }) {
   const items = q.data?.pages.flatMap((p) => p.items) ?? [];
   return (
     <div className="space-y-3">
-      <div role="group" aria-label="Show" className="flex flex-wrap gap-1.5">
+      <fieldset aria-label="Show" className="flex flex-wrap gap-1.5">
         {GROUPS.map((g, i) => (
           <button
             key={g.label}
@@ -41,7 +41,7 @@ export function Timeline({ objectId }: { objectId: string }) {
             {g.label}
           </button>
         ))}
-      </div>
+      </fieldset>
       {q.isPending ? (
         <SkeletonRows rows={4} />
       ) : q.isError ? (

@@ -120,19 +120,28 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
 
   const submit = form.handleSubmit((values) => server.run(() => onSubmit(values)));
 
-  const Board = ({ role, label }: { role: "window" | "backing" | "top"; label: string }) => (
+  // A function, not a component: called inline so its fields are never remounted when the form re-renders.
+  const boardFields = (role: "window" | "backing" | "top", label: string) => (
     <fieldset className="rounded-card border border-stone-light p-3">
       <legend className="px-1 text-sm font-semibold">{label}</legend>
       <div className="grid grid-cols-2 gap-3 md:grid-cols-3">
         <SelectField label="Grade" wrapClassName="col-span-2 md:col-span-1" error={err(`data.boards.${role}.grade`)} {...register(`data.boards.${role}.grade`)}>
-          {(Object.keys(BOARD_GRADE_LABELS) as (keyof typeof BOARD_GRADE_LABELS)[]).map((g) => <option key={g} value={g}>{BOARD_GRADE_LABELS[g]}</option>)}
+          {(Object.keys(BOARD_GRADE_LABELS) as (keyof typeof BOARD_GRADE_LABELS)[]).map((g) => (
+            <option key={g} value={g}>
+              {BOARD_GRADE_LABELS[g]}
+            </option>
+          ))}
         </SelectField>
         <SelectField label="Buffer" error={err(`data.boards.${role}.buffered`)} {...register(`data.boards.${role}.buffered`, bool)}>
           <option value="false">Unbuffered</option>
           <option value="true">Buffered</option>
         </SelectField>
         <SelectField label="Thickness" error={err(`data.boards.${role}.ply`)} {...register(`data.boards.${role}.ply`, { setValueAs: (v) => Number(v) })}>
-          {[2, 4, 6, 8].map((p) => <option key={p} value={p}>{p}-ply</option>)}
+          {[2, 4, 6, 8].map((p) => (
+            <option key={p} value={p}>
+              {p}-ply
+            </option>
+          ))}
         </SelectField>
         <TextField label="Colour" error={err(`data.boards.${role}.colour`)} {...register(`data.boards.${role}.colour`)} />
         <TextField label="Maker" error={err(`data.boards.${role}.maker`)} {...register(`data.boards.${role}.maker`)} />
@@ -147,36 +156,54 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
   return (
     <div className="grid gap-6 xl:grid-cols-[minmax(24rem,30rem)_1fr]">
       <form onSubmit={submit} noValidate className="space-y-4" aria-label="Mounting record">
-        {server.error && <Notice tone="fail" title="Not saved">{server.error.message}</Notice>}
+        {server.error && (
+          <Notice tone="fail" title="Not saved">
+            {server.error.message}
+          </Notice>
+        )}
         {mode === "correct" && (
           <div className="rounded-card bg-paper-sheet p-4 shadow-card">
-            <Notice tone="info" title="A correction">The completed record stays as it was; this saves a new revision with your reason, and both stay readable.</Notice>
+            <Notice tone="info" title="A correction">
+              The completed record stays as it was; this saves a new revision with your reason, and both stay readable.
+            </Notice>
             <TextAreaField label="Reason for the correction" wrapClassName="mt-3" error={err("correctionReason")} {...register("correctionReason")} />
           </div>
         )}
         <section className="grid grid-cols-2 gap-3 rounded-card bg-paper-sheet p-4 shadow-card">
           <SelectField label="Reason" disabled={mode === "correct"} error={err("reason")} {...register("reason")}>
-            {MOUNTING_REASONS.map((r) => <option key={r} value={r}>{MOUNTING_REASON_LABELS[r]}</option>)}
+            {MOUNTING_REASONS.map((r) => (
+              <option key={r} value={r}>
+                {MOUNTING_REASON_LABELS[r]}
+              </option>
+            ))}
           </SelectField>
           <TextField label="Date mounted" type="date" disabled={mode === "correct"} error={err("mountedOn")} {...register("mountedOn")} />
         </section>
 
         <section className="space-y-3 rounded-card bg-paper-sheet p-4 shadow-card">
           <h2 className="font-semibold">Boards</h2>
-          <Board role="window" label="Window board" />
-          {hasTop && <Board role="top" label="Top board (double mount)" />}
-          <Board role="backing" label="Backing board" />
+          {boardFields("window", "Window board")}
+          {hasTop && boardFields("top", "Top board (double mount)")}
+          {boardFields("backing", "Backing board")}
         </section>
 
         <section className="space-y-3 rounded-card bg-paper-sheet p-4 shadow-card">
           <h2 className="font-semibold">Attachment</h2>
           <div className="grid grid-cols-2 gap-3">
             <SelectField label="Method" error={err("data.attachment.method")} {...register("data.attachment.method")}>
-              {ATTACHMENT_METHODS.map((m) => <option key={m} value={m}>{ATTACHMENT_LABELS[m]}</option>)}
+              {ATTACHMENT_METHODS.map((m) => (
+                <option key={m} value={m}>
+                  {ATTACHMENT_LABELS[m]}
+                </option>
+              ))}
             </SelectField>
             <SelectField label="Adhesive" error={err("data.attachment.adhesive")} {...register("data.attachment.adhesive", { setValueAs: (v) => (v === "" ? null : v) })}>
               <option value="">None given</option>
-              {ADHESIVES.map((a) => <option key={a} value={a}>{ADHESIVE_LABELS[a]}</option>)}
+              {ADHESIVES.map((a) => (
+                <option key={a} value={a}>
+                  {ADHESIVE_LABELS[a]}
+                </option>
+              ))}
             </SelectField>
             <TextField label="Tissue" error={err("data.attachment.tissue")} {...register("data.attachment.tissue")} />
             <TextField label="Tissue weight (g/m²)" inputMode="decimal" error={err("data.attachment.tissueWeightGsm")} {...register("data.attachment.tissueWeightGsm", num)} />
@@ -186,20 +213,46 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
               <div className="flex items-center justify-between">
                 <h3 className="text-sm font-semibold">Hinges ({hinges.fields.length})</h3>
                 <div className="flex gap-2">
-                  <Button variant="quiet" onClick={placeHinges}>Spread along the top</Button>
-                  <Button variant="quiet" onClick={() => hinges.append({ edge: "top", offsetMm: 10, widthMm: 25 })}>Add a hinge</Button>
+                  <Button variant="quiet" onClick={placeHinges}>
+                    Spread along the top
+                  </Button>
+                  <Button variant="quiet" onClick={() => hinges.append({ edge: "top", offsetMm: 10, widthMm: 25 })}>
+                    Add a hinge
+                  </Button>
                 </div>
               </div>
-              {err("data.attachment.hinges") && <p role="alert" className="text-sm text-fail">▲ {err("data.attachment.hinges")}</p>}
+              {err("data.attachment.hinges") && (
+                <p role="alert" className="text-sm text-fail">
+                  ▲ {err("data.attachment.hinges")}
+                </p>
+              )}
               <p className="text-xs text-graphite">Drag a hinge on the drawing, or select it and use the arrow keys. Positions are from the sheet's left (or top) corner, in mm.</p>
               {hinges.fields.map((f, i) => (
                 <div key={f.id} className="grid grid-cols-[1fr_6rem_6rem_auto] items-end gap-2">
                   <SelectField label={`Hinge ${i + 1} edge`} {...register(`data.attachment.hinges.${i}.edge`)}>
-                    {SIDES.map((s) => <option key={s} value={s}>{s[0].toUpperCase() + s.slice(1)}</option>)}
+                    {SIDES.map((s) => (
+                      <option key={s} value={s}>
+                        {s[0].toUpperCase() + s.slice(1)}
+                      </option>
+                    ))}
                   </SelectField>
-                  <TextField label="From corner" inputMode="decimal" className="num" error={err(`data.attachment.hinges.${i}.offsetMm`)} {...register(`data.attachment.hinges.${i}.offsetMm`, num)} />
-                  <TextField label="Width" inputMode="decimal" className="num" error={err(`data.attachment.hinges.${i}.widthMm`)} {...register(`data.attachment.hinges.${i}.widthMm`, num)} />
-                  <Button variant="quiet" aria-label={`Remove hinge ${i + 1}`} onClick={() => hinges.remove(i)}>Remove</Button>
+                  <TextField
+                    label="From corner"
+                    inputMode="decimal"
+                    className="num"
+                    error={err(`data.attachment.hinges.${i}.offsetMm`)}
+                    {...register(`data.attachment.hinges.${i}.offsetMm`, num)}
+                  />
+                  <TextField
+                    label="Width"
+                    inputMode="decimal"
+                    className="num"
+                    error={err(`data.attachment.hinges.${i}.widthMm`)}
+                    {...register(`data.attachment.hinges.${i}.widthMm`, num)}
+                  />
+                  <Button variant="quiet" aria-label={`Remove hinge ${i + 1}`} onClick={() => hinges.remove(i)}>
+                    Remove
+                  </Button>
                 </div>
               ))}
             </div>
@@ -209,7 +262,11 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
         <section className="grid grid-cols-2 gap-3 rounded-card bg-paper-sheet p-4 shadow-card">
           <h2 className="col-span-full font-semibold">Glazing, spacer and frame</h2>
           <SelectField label="Glazing" error={err("data.glazing.type")} {...register("data.glazing.type")}>
-            {GLAZING_TYPES.map((g) => <option key={g} value={g}>{GLAZING_TYPE_LABELS[g]}</option>)}
+            {GLAZING_TYPES.map((g) => (
+              <option key={g} value={g}>
+                {GLAZING_TYPE_LABELS[g]}
+              </option>
+            ))}
           </SelectField>
           <TextField label="Glazing thickness (mm)" inputMode="decimal" error={err("data.glazing.thicknessMm")} {...register("data.glazing.thicknessMm", num)} />
           <TextField label="Spacer" error={err("data.spacer.type")} {...register("data.spacer.type")} />
@@ -219,18 +276,34 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
           <TextField label="Moulding face (mm)" inputMode="decimal" error={err("data.frame.faceWidthMm")} {...register("data.frame.faceWidthMm", num)} />
           <TextField label="Rebate depth (mm)" inputMode="decimal" error={err("data.frame.rebateDepthMm")} {...register("data.frame.rebateDepthMm", num)} />
           <SelectField label="Backing" error={err("data.backing.type")} {...register("data.backing.type")}>
-            {BACKING_TYPES.map((b) => <option key={b} value={b}>{BACKING_TYPE_LABELS[b]}</option>)}
+            {BACKING_TYPES.map((b) => (
+              <option key={b} value={b}>
+                {BACKING_TYPE_LABELS[b]}
+              </option>
+            ))}
           </SelectField>
           <SelectField label="Sealing" error={err("data.sealing.type")} {...register("data.sealing.type")}>
-            {SEALING_TYPES.map((b) => <option key={b} value={b}>{SEALING_TYPE_LABELS[b]}</option>)}
+            {SEALING_TYPES.map((b) => (
+              <option key={b} value={b}>
+                {SEALING_TYPE_LABELS[b]}
+              </option>
+            ))}
           </SelectField>
           <TextField label="Hanging hardware" error={err("data.hanging.hardware")} {...register("data.hanging.hardware")} />
           <TextField label="Wire" error={err("data.hanging.wire")} {...register("data.hanging.wire")} />
-          <p className="col-span-full text-xs text-graphite">Hang from hardware and wall fixings rated well above the framed weight, on two wall points; follow the hardware maker's ratings and local building codes.</p>
+          <p className="col-span-full text-xs text-graphite">
+            Hang from hardware and wall fixings rated well above the framed weight, on two wall points; follow the hardware maker's ratings and local building codes.
+          </p>
         </section>
 
         <section className="space-y-3 rounded-card bg-paper-sheet p-4 shadow-card">
-          <TextAreaField label="How to undo this mounting" rows={4} error={err("data.undoNotes")} hint="What the next framer must release, and how: e.g. which hinges, the paste used, how to release it." {...register("data.undoNotes")} />
+          <TextAreaField
+            label="How to undo this mounting"
+            rows={4}
+            error={err("data.undoNotes")}
+            hint="What the next framer must release, and how: e.g. which hinges, the paste used, how to release it."
+            {...register("data.undoNotes")}
+          />
           <TextAreaField label="Other notes" error={err("data.notes")} {...register("data.notes")} />
         </section>
 
@@ -243,7 +316,9 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
           {model ? (
             <PlanDrawing model={model} title="The mount drawn to scale with the hinges" onHingeMove={moveHinge} hingeEdges={hingeMarks.map((h) => h.edge)} />
           ) : (
-            <Notice tone="warn" title="The plan cannot be drawn">Open the planner from the object's page and fix the plan first.</Notice>
+            <Notice tone="warn" title="The plan cannot be drawn">
+              Open the planner from the object's page and fix the plan first.
+            </Notice>
           )}
         </div>
         {live.result.ok && (

@@ -58,6 +58,7 @@ export function MountingView({ revision, settings }: { revision: MountingRevisio
             <Row label="Hinges">
               <ol className="num">
                 {d.attachment.hinges.map((h, i) => (
+                  // biome-ignore lint/suspicious/noArrayIndexKey: a saved record's hinges never reorder; the number is the hinge's name
                   <li key={i}>
                     {i + 1}. {h.edge} edge, {len(h.offsetMm)} from the corner, {len(h.widthMm)} wide
                   </li>

@@ -313,7 +313,7 @@ const ZoomViewer = forwardRef<ViewerHandle, { photo: Photo }>(function ZoomViewe
         )}
       </div>
       <div className="flex flex-wrap items-center justify-between gap-3 border-t border-stone bg-paper-sheet px-4 py-2 text-sm">
-        <div role="group" aria-label="Zoom" className="flex items-center gap-2">
+        <fieldset aria-label="Zoom" className="flex items-center gap-2">
           <Button variant="secondary" className="px-3 py-1" onClick={() => zoomAt((z) => z / STEP)} disabled={shown.zoom <= 1.001} aria-label="Zoom out">
             <span aria-hidden="true">−</span>
           </Button>
@@ -329,7 +329,7 @@ const ZoomViewer = forwardRef<ViewerHandle, { photo: Photo }>(function ZoomViewe
           <Button variant="quiet" className="px-3 py-1" onClick={() => zoomAt(() => actualPixels())}>
             Actual pixels
           </Button>
-        </div>
+        </fieldset>
         <p className="text-xs text-graphite" aria-live="polite">
           {fullState === "loading"
             ? "Loading the full-size version…"

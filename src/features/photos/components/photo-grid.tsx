@@ -21,6 +21,7 @@ export function PhotoGrid({ objectId, reportId, canUpload = false }: Props) {
     return (
       <div className="grid grid-cols-2 gap-3 sm:grid-cols-3" role="status" aria-label="Loading photos">
         {Array.from({ length: 3 }, (_, i) => (
+          // biome-ignore lint/suspicious/noArrayIndexKey: placeholder tiles with nothing but their position
           <Skeleton key={i} className="aspect-[4/3] w-full" />
         ))}
       </div>

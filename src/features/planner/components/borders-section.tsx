@@ -22,7 +22,10 @@ export function BordersSection({ register, values, settings, errors, L, u, apply
             <option value="">Choose a standard size…</option>
             {settings.framePresets.length > 0 && (
               <optgroup label="The studio's sizes">
-                {settings.framePresets.map((p, i) => <option key={i} value={`studio-${i}`}>{p.label}</option>)}
+                {settings.framePresets.map((p, i) => (
+                  // biome-ignore lint/suspicious/noArrayIndexKey: the option's value is its position in the studio's list
+                  <option key={i} value={`studio-${i}`}>{p.label}</option>
+                ))}
               </optgroup>
             )}
             {[...new Set(FRAME_PRESETS.map((p) => p.group))].map((g) => (

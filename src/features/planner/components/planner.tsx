@@ -60,7 +60,7 @@ export function Planner({ settings, initial, context, onSave, saveState }: Props
     else for (const f of result.plan.findings) if (f.severity === "error" && f.field) map[fieldForPath(f.field, values)] ??= f.message;
     return map;
   }, [result, values]);
-  const model = useMemo(() => (result.ok ? planDrawing(result.geometry) : null), [result, unit]);
+  const model = useMemo(() => (result.ok ? planDrawing(result.geometry) : null), [result]);
 
   function switchUnit(next: Unit) {
     const from = getValues("unit");
@@ -84,12 +84,13 @@ export function Planner({ settings, initial, context, onSave, saveState }: Props
       canonical.current[field] = { text, mm };
       setValue(field as Path<PlannerValues>, text as never);
     };
-    if (which === "sheet") (put("sheetW", p.width), put("sheetH", p.height));
-    if (which === "fit") (put("fit.width", p.width), put("fit.height", p.height), setValue("bordersMode", "fit"));
-    if (which === "board") (put("board.width", p.width), put("board.height", p.height));
+    const [w, h] = which === "sheet" ? ["sheetW", "sheetH"] : which === "fit" ? ["fit.width", "fit.height"] : ["board.width", "board.height"];
+    put(w, p.width);
+    put(h, p.height);
+    if (which === "fit") setValue("bordersMode", "fit");
   }
 
-  const L = (name: string, label: string, hint?: string) => (
+  const lengthField = (name: string, label: string, hint?: string) => (
     <TextField label={label} inputMode="decimal" className="num" autoComplete="off" error={errors[name]} hint={hint} {...register(name as Path<PlannerValues>)} />
   );
   const u = unit === "in" ? "in" : "mm";
@@ -101,7 +102,7 @@ export function Planner({ settings, initial, context, onSave, saveState }: Props
     setSaving(false);
   }
 
-  const sectionProps: SectionProps = { register, values, settings, errors, L, u, applyPreset };
+  const sectionProps: SectionProps = { register, values, settings, errors, L: lengthField, u, applyPreset };
 
   return (
     <div className="grid gap-6 xl:grid-cols-[minmax(22rem,26rem)_1fr]">

@@ -48,32 +48,32 @@ export type LengthField = (typeof LENGTH_FIELDS)[number];
 const side = (overlap: string): SideValues => ({ mode: "overlap", overlap, border: "", into: "", reveal: "" });
 
 export function defaultValues(unit: Unit, minOverlapMm: number): PlannerValues {
-  const L = (mm: number) => lengthInputValue(mm, unit);
+  const len = (mm: number) => lengthInputValue(mm, unit);
   return {
     unit,
-    sheetW: L(210),
-    sheetH: L(297),
+    sheetW: len(210),
+    sheetH: len(297),
     hasImageBorders: false,
     ib: { left: "", top: "", right: "", bottom: "" },
     windowMode: "all",
-    all: side(L(minOverlapMm)),
-    left: side(L(minOverlapMm)),
-    top: side(L(minOverlapMm)),
-    right: side(L(minOverlapMm)),
-    bottom: side(L(minOverlapMm)),
+    all: side(len(minOverlapMm)),
+    left: side(len(minOverlapMm)),
+    top: side(len(minOverlapMm)),
+    right: side(len(minOverlapMm)),
+    bottom: side(len(minOverlapMm)),
     custom: { width: "", height: "", left: "", top: "" },
     // Empty means "the studio minimum", used exactly; a converted copy could round it down.
     minOverlap: "",
     bordersMode: "all",
-    b: { all: L(unit === "in" ? 50.8 : 50), top: "", side: "", bottom: "", left: "", right: "" },
+    b: { all: len(unit === "in" ? 50.8 : 50), top: "", side: "", bottom: "", left: "", right: "" },
     fit: { preset: "", width: "", height: "" },
     weightMode: "none",
     weight: "",
     weightPct: "",
     minBorder: "",
     double: false,
-    doubleReveal: L(unit === "in" ? 4.7625 : 5),
-    glazing: { material: "glass", thickness: L(2), uv: true },
+    doubleReveal: len(unit === "in" ? 4.7625 : 5),
+    glazing: { material: "glass", thickness: len(2), uv: true },
     spacer: "",
     frame: { rebateDepth: "", lip: "", faceWidth: "", waste: "" },
     board: { preset: "", width: "", height: "", kerf: "" },
@@ -184,12 +184,25 @@ export function fromInput(input: MountPlanInput, base: PlannerValues): PlannerVa
     v.fit = { preset: "", width: s(input.fitOuter.width), height: s(input.fitOuter.height) };
   } else if (input.borders) {
     const b = input.borders;
-    if ("all" in b) (v.bordersMode = "all"), (v.b.all = s(b.all));
-    else if ("side" in b) (v.bordersMode = "tsb"), Object.assign(v.b, { top: s(b.top), side: s(b.side), bottom: s(b.bottom) });
-    else (v.bordersMode = "sides"), Object.assign(v.b, { left: s(b.left), top: s(b.top), right: s(b.right), bottom: s(b.bottom) });
+    if ("all" in b) {
+      v.bordersMode = "all";
+      v.b.all = s(b.all);
+    } else if ("side" in b) {
+      v.bordersMode = "tsb";
+      Object.assign(v.b, { top: s(b.top), side: s(b.side), bottom: s(b.bottom) });
+    } else {
+      v.bordersMode = "sides";
+      Object.assign(v.b, { left: s(b.left), top: s(b.top), right: s(b.right), bottom: s(b.bottom) });
+    }
   }
-  if (input.bottomWeight !== undefined) (v.weightMode = "amount"), (v.weight = s(input.bottomWeight));
-  if (input.bottomWeightPercent !== undefined) (v.weightMode = "percent"), (v.weightPct = s(input.bottomWeightPercent));
+  if (input.bottomWeight !== undefined) {
+    v.weightMode = "amount";
+    v.weight = s(input.bottomWeight);
+  }
+  if (input.bottomWeightPercent !== undefined) {
+    v.weightMode = "percent";
+    v.weightPct = s(input.bottomWeightPercent);
+  }
   v.minBorder = s(input.minBorder);
   v.double = !!input.doubleMount;
   if (input.doubleMount) v.doubleReveal = s(input.doubleMount.reveal);
