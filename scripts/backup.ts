@@ -15,7 +15,9 @@ try {
   // Secrets given through the environment are not in any file this script can copy: say so, every time.
   const fromEnv = [config.authSecret && "BETTER_AUTH_SECRET", config.historyKeyFromEnv && "HISTORY_KEY"].filter(Boolean);
   if (fromEnv.length)
-    console.log(`Note: ${fromEnv.join(" and ")} come${fromEnv.length === 1 ? "s" : ""} from the environment and ${fromEnv.length === 1 ? "is" : "are"} not in this backup. Keep ${fromEnv.length === 1 ? "it" : "them"} safe yourself: without HISTORY_KEY the restored history cannot be verified.`);
+    console.log(
+      `Note: ${fromEnv.join(" and ")} come${fromEnv.length === 1 ? "s" : ""} from the environment and ${fromEnv.length === 1 ? "is" : "are"} not in this backup. Keep ${fromEnv.length === 1 ? "it" : "them"} safe yourself: without HISTORY_KEY the restored history cannot be verified.`,
+    );
 } catch (e) {
   console.error(`Backup failed: ${e instanceof Error ? e.message : String(e)}`);
   process.exit(1);

@@ -68,7 +68,10 @@ console.log(`Seeded in ${((performance.now() - t0) / 1000).toFixed(1)} s.`);
 // ── Mountings: MOUNTED objects in a completed mount (every fifth object), a fifth of them reframed
 // (an earlier, superseded record), half corrected once (revision 2 with another window batch);
 // the objects' register columns set as the mountings service sets them. ────────────────────────────
-const HINGES = [{ edge: "top", offsetMm: 40, widthMm: 25 }, { edge: "top", offsetMm: 145, widthMm: 25 }] as const;
+const HINGES = [
+  { edge: "top", offsetMm: 40, widthMm: 25 },
+  { edge: "top", offsetMm: 145, widthMm: 25 },
+] as const;
 const MOUNT_KINDS: MountingDataInput[] = [
   { attachment: { method: "t-hinge", adhesive: "wheat-starch-paste", tissue: "Kozo", hinges: [...HINGES] }, grade: "museum", glazing: "uv-glass" },
   { attachment: { method: "corners", hinges: [] }, grade: "conservation", glazing: "ar-uv-glass" },
@@ -130,7 +133,25 @@ sqlite.transaction(() => {
       const old = randomUUID();
       const oldKind = (k + 1) % MOUNT_KINDS.length;
       const d = MOUNT_KINDS[oldKind];
-      insMounting.run(old, objectId, "superseded", "first-mounting", isoDay(mountedOnMs - 1500 * DAY), framer.id, framer.name, 1, d.attachment.method, d.boards.window.grade, d.glazing.type, id, mountedOnMs - 1500 * DAY, framer.id, mountedOn, "Superseded by the reframing.", framer.id);
+      insMounting.run(
+        old,
+        objectId,
+        "superseded",
+        "first-mounting",
+        isoDay(mountedOnMs - 1500 * DAY),
+        framer.id,
+        framer.name,
+        1,
+        d.attachment.method,
+        d.boards.window.grade,
+        d.glazing.type,
+        id,
+        mountedOnMs - 1500 * DAY,
+        framer.id,
+        mountedOn,
+        "Superseded by the reframing.",
+        framer.id,
+      );
       writeRevisions(old, oldKind, [[`MB-${String((k + 37) % 500).padStart(4, "0")}`, `BB-${String(k % 300).padStart(4, "0")}`]]);
       mountingRows++;
     }
@@ -138,7 +159,25 @@ sqlite.transaction(() => {
     const d = MOUNT_KINDS[kind];
     const revs: [string, string][] = [[`MB-${String(k % 500).padStart(4, "0")}`, `BB-${String((k * 3) % 300).padStart(4, "0")}`]];
     if (k % 2 === 0) revs.push([`MB-${String((k + 250) % 500).padStart(4, "0")}`, revs[0][1]]);
-    insMounting.run(id, objectId, "completed", k % 5 === 0 ? "reframing" : "first-mounting", mountedOn, framer.id, framer.name, revs.length, d.attachment.method, d.boards.window.grade, d.glazing.type, null, mountedOnMs, framer.id, null, null, framer.id);
+    insMounting.run(
+      id,
+      objectId,
+      "completed",
+      k % 5 === 0 ? "reframing" : "first-mounting",
+      mountedOn,
+      framer.id,
+      framer.name,
+      revs.length,
+      d.attachment.method,
+      d.boards.window.grade,
+      d.glazing.type,
+      null,
+      mountedOnMs,
+      framer.id,
+      null,
+      null,
+      framer.id,
+    );
     writeRevisions(id, kind, revs);
     mountingRows++;
     // Checks spread 3 to 10 years after mounting (invented: as if later condition checks had moved them on),
@@ -219,16 +258,28 @@ const freePort = () =>
   });
 // The port is known before the app is made, so its trusted origins (the CSRF guard's) include it.
 const inProcessPort = await freePort();
-const config = { ...loadConfig({ LOG_LEVEL: "silent", LOGIN_RATE_LIMIT: "1000", DATABASE_URL: file, NODE_ENV: "test", PORT: String(inProcessPort) }), authSecret: "bench-secret-bench-secret-bench-secret-0000", historyKey: BENCH_HISTORY_KEY, checkpointsFile: null };
+const config = {
+  ...loadConfig({ LOG_LEVEL: "silent", LOGIN_RATE_LIMIT: "1000", DATABASE_URL: file, NODE_ENV: "test", PORT: String(inProcessPort) }),
+  authSecret: "bench-secret-bench-secret-bench-secret-0000",
+  historyKey: BENCH_HISTORY_KEY,
+  checkpointsFile: null,
+};
 const { app } = createApp({ config, database });
 const server = app.listen(inProcessPort, "127.0.0.1");
 await new Promise((r) => server.once("listening", r));
 const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
 
 async function cookieFor(email: string) {
-  const r = await fetch(`${base}/api/session`, { method: "POST", headers: { "content-type": "application/json", origin: base }, body: JSON.stringify({ email, password: "bench-password" }) });
+  const r = await fetch(`${base}/api/session`, {
+    method: "POST",
+    headers: { "content-type": "application/json", origin: base },
+    body: JSON.stringify({ email, password: "bench-password" }),
+  });
   if (!r.ok) throw new Error(`sign-in failed: ${r.status}`);
-  return r.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+  return r.headers
+    .getSetCookie()
+    .map((c) => c.split(";")[0])
+    .join("; ");
 }
 
 async function measure(label: string, url: string, cookie: string) {
@@ -293,8 +344,31 @@ if (!verdict.ok) throw new Error(`history chain broken: ${JSON.stringify(verdict
 // ── Mount planner: the pure computation ────────────────────────────────────
 const PLAN_INPUTS = [
   { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 50 } },
-  { unit: "in", sheet: { width: "8", height: "10" }, window: { all: { mode: "overlap", overlap: "3/16" } }, fitOuter: { width: 16, height: 20 }, bottomWeightPercent: 12, glazing: { material: "glass", thickness: "3/32", uvFiltering: true } },
-  { unit: "mm", sheet: { width: 560, height: 760 }, imageBorders: { left: 25, top: 25, right: 25, bottom: 25 }, window: { left: { mode: "hide-border", border: 25, into: 3 }, top: { mode: "hide-border", border: 25, into: 3 }, right: { mode: "hide-border", border: 25, into: 3 }, bottom: { mode: "float", reveal: 10 } }, borders: { top: 80, side: 80, bottom: 95 }, doubleMount: { reveal: 5 }, glazing: { material: "acrylic", thickness: 3 }, boardSheet: { width: 1120, height: 815 }, materials: { boardGrade: "museum", attachment: "v-hinge", adhesive: "wheat-starch-paste", hingeCount: 3 }, object: { objectType: "watercolour", sensitivities: ["light-sensitive"] } },
+  {
+    unit: "in",
+    sheet: { width: "8", height: "10" },
+    window: { all: { mode: "overlap", overlap: "3/16" } },
+    fitOuter: { width: 16, height: 20 },
+    bottomWeightPercent: 12,
+    glazing: { material: "glass", thickness: "3/32", uvFiltering: true },
+  },
+  {
+    unit: "mm",
+    sheet: { width: 560, height: 760 },
+    imageBorders: { left: 25, top: 25, right: 25, bottom: 25 },
+    window: {
+      left: { mode: "hide-border", border: 25, into: 3 },
+      top: { mode: "hide-border", border: 25, into: 3 },
+      right: { mode: "hide-border", border: 25, into: 3 },
+      bottom: { mode: "float", reveal: 10 },
+    },
+    borders: { top: 80, side: 80, bottom: 95 },
+    doubleMount: { reveal: 5 },
+    glazing: { material: "acrylic", thickness: 3 },
+    boardSheet: { width: 1120, height: 815 },
+    materials: { boardGrade: "museum", attachment: "v-hinge", adhesive: "wheat-starch-paste", hingeCount: 3 },
+    object: { objectType: "watercolour", sensitivities: ["light-sensitive"] },
+  },
 ].map((i) => MountPlanInputSchema.parse(i));
 const ctx = { minOverlapMm: 5, rebateClearanceMm: 2 };
 for (let i = 0; i < 2000; i++) computePlan(PLAN_INPUTS[i % 3], ctx);
@@ -308,7 +382,18 @@ console.log(`\nMount plan computation (pure, 3 kinds of plan, one with board yie
 async function spawnBenchServer() {
   const port = await freePort();
   const child = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], {
-    env: { ...process.env, NODE_ENV: "test", PORT: String(port), HOST: "127.0.0.1", DATABASE_URL: file, SEED_DEMO: "false", LOG_LEVEL: "silent", LOGIN_RATE_LIMIT: "1000", BETTER_AUTH_SECRET: config.authSecret, HISTORY_KEY: BENCH_HISTORY_KEY_TEXT },
+    env: {
+      ...process.env,
+      NODE_ENV: "test",
+      PORT: String(port),
+      HOST: "127.0.0.1",
+      DATABASE_URL: file,
+      SEED_DEMO: "false",
+      LOG_LEVEL: "silent",
+      LOGIN_RATE_LIMIT: "1000",
+      BETTER_AUTH_SECRET: config.authSecret,
+      HISTORY_KEY: BENCH_HISTORY_KEY_TEXT,
+    },
     stdio: ["ignore", "ignore", "inherit"],
   });
   const base = `http://127.0.0.1:${port}`;
@@ -321,8 +406,15 @@ async function spawnBenchServer() {
     if (i > 150) throw new Error("bench server did not start");
     await new Promise((r) => setTimeout(r, 100));
   }
-  const r = await fetch(`${base}/api/session`, { method: "POST", headers: { "content-type": "application/json", origin: base }, body: JSON.stringify({ email: "framer@bench.test", password: "bench-password" }) });
-  const cookie = r.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+  const r = await fetch(`${base}/api/session`, {
+    method: "POST",
+    headers: { "content-type": "application/json", origin: base },
+    body: JSON.stringify({ email: "framer@bench.test", password: "bench-password" }),
+  });
+  const cookie = r.headers
+    .getSetCookie()
+    .map((c) => c.split(";")[0])
+    .join("; ");
   const stop = async () => {
     child.kill("SIGTERM");
     await new Promise((done) => child.once("exit", done));
@@ -336,18 +428,41 @@ const calcServer = await spawnBenchServer();
 const childBase = calcServer.base;
 const childCookie = calcServer.cookie;
 const agent = new http.Agent({ keepAlive: true, maxSockets: 16 });
-const bodies = PLAN_INPUTS.map((_, i) => JSON.stringify([
-  { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 50 } },
-  { unit: "in", sheet: { width: "8", height: "10" }, window: { all: { mode: "overlap", overlap: "3/16" } }, fitOuter: { width: 16, height: 20 }, bottomWeightPercent: 12, glazing: { material: "glass", thickness: "3/32", uvFiltering: true } },
-  { unit: "mm", sheet: { width: 560, height: 760 }, window: { all: { mode: "overlap", overlap: 6 } }, borders: { top: 80, side: 80, bottom: 95 }, doubleMount: { reveal: 5 }, glazing: { material: "acrylic", thickness: 3 }, boardSheet: { width: 1120, height: 815 } },
-][i]));
+const bodies = PLAN_INPUTS.map((_, i) =>
+  JSON.stringify(
+    [
+      { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 50 } },
+      {
+        unit: "in",
+        sheet: { width: "8", height: "10" },
+        window: { all: { mode: "overlap", overlap: "3/16" } },
+        fitOuter: { width: 16, height: 20 },
+        bottomWeightPercent: 12,
+        glazing: { material: "glass", thickness: "3/32", uvFiltering: true },
+      },
+      {
+        unit: "mm",
+        sheet: { width: 560, height: 760 },
+        window: { all: { mode: "overlap", overlap: 6 } },
+        borders: { top: 80, side: 80, bottom: 95 },
+        doubleMount: { reveal: 5 },
+        glazing: { material: "acrylic", thickness: 3 },
+        boardSheet: { width: 1120, height: 815 },
+      },
+    ][i],
+  ),
+);
 function post(body: string): Promise<number> {
   return new Promise((resolve, reject) => {
     const t = performance.now();
-    const req = http.request(`${childBase}/api/mount-plans/calculate`, { method: "POST", agent, headers: { "content-type": "application/json", origin: childBase, cookie: childCookie, "content-length": Buffer.byteLength(body) } }, (res) => {
-      res.resume();
-      res.on("end", () => (res.statusCode === 200 ? resolve(performance.now() - t) : reject(new Error(`calculate answered ${res.statusCode}`))));
-    });
+    const req = http.request(
+      `${childBase}/api/mount-plans/calculate`,
+      { method: "POST", agent, headers: { "content-type": "application/json", origin: childBase, cookie: childCookie, "content-length": Buffer.byteLength(body) } },
+      (res) => {
+        res.resume();
+        res.on("end", () => (res.statusCode === 200 ? resolve(performance.now() - t) : reject(new Error(`calculate answered ${res.statusCode}`))));
+      },
+    );
     req.on("error", reject);
     req.end(body);
   });
@@ -365,7 +480,9 @@ await Promise.all(
 const elapsed = (performance.now() - tl) / 1000;
 latencies.sort((a, b) => a - b);
 const q = (x: number) => latencies[Math.min(latencies.length - 1, Math.floor(x * latencies.length))].toFixed(2);
-console.log(`POST /api/mount-plans/calculate, ${CONCURRENCY} concurrent, ${latencies.length} requests: p50 ${q(0.5)} ms   p95 ${q(0.95)} ms   (${Math.round(latencies.length / elapsed)} req/s)`);
+console.log(
+  `POST /api/mount-plans/calculate, ${CONCURRENCY} concurrent, ${latencies.length} requests: p50 ${q(0.5)} ms   p95 ${q(0.95)} ms   (${Math.round(latencies.length / elapsed)} req/s)`,
+);
 agent.destroy();
 
 // The same load from wrk (Debian's package), a much lighter load generator, when it is installed.
@@ -393,7 +510,9 @@ await calcServer.stop();
   const photo = path.join(dir, "bench-24mp.jpg");
   const tg = performance.now();
   // Gaussian noise at sigma 20 compresses like a real camera file (about 11 MB at quality 90).
-  await sharp({ create: { width: 6000, height: 4000, channels: 3, background: "#808080", noise: { type: "gaussian", mean: 128, sigma: 20 } } }).jpeg({ quality: 90 }).toFile(photo);
+  await sharp({ create: { width: 6000, height: 4000, channels: 3, background: "#808080", noise: { type: "gaussian", mean: 128, sigma: 20 } } })
+    .jpeg({ quality: 90 })
+    .toFile(photo);
   const photoMb = fs.statSync(photo).size / 1e6;
   console.log(`\nPhotos: made a 6000 × 4000 JPEG (${photoMb.toFixed(1)} MB) in ${((performance.now() - tg) / 1000).toFixed(1)} s.`);
   const objectId = objectIds[0];
@@ -440,7 +559,14 @@ await calcServer.stop();
   });
   const line = out.stdout.trim().split("\n").pop() ?? "";
   if (out.status !== 0 || !line.startsWith("{")) throw new Error(`photo bench child failed (${out.status}): ${out.stdout}`);
-  const r = JSON.parse(line) as { base: number; renderPeak: number; peak: number; maxRss: number; render: { ms: number; full: number; web: number; thumb: number }[]; upload: number[] };
+  const r = JSON.parse(line) as {
+    base: number;
+    renderPeak: number;
+    peak: number;
+    maxRss: number;
+    render: { ms: number; full: number; web: number; thumb: number }[];
+    upload: number[];
+  };
   const mb = (b: number) => `${Math.round(b / 1048576)} MB`;
   const med = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
   const renderMs = r.render.map((x) => x.ms);
@@ -470,9 +596,27 @@ await calcServer.stop();
     reason: "first-mounting",
     mountedOn: "2026-11-02",
     data: {
-      plan: MountPlanInputSchema.parse({ unit: "mm", sheet: { width: 300, height: 400 }, window: { all: { mode: "overlap", overlap: 6 } }, borders: { all: 60 }, glazing: { material: "glass", thickness: 2, uvFiltering: true } }),
-      boards: { window: { grade: "museum", buffered: false, ply: 4, colour: null, maker: null, batch: "B-1" }, backing: { grade: "museum", buffered: false, ply: 4, colour: null, maker: null, batch: "B-1" } },
-      attachment: { method: "t-hinge", tissue: "Kozo", tissueWeightGsm: 9, adhesive: "wheat-starch-paste", hinges: [{ edge: "top", offsetMm: 50, widthMm: 25 }, { edge: "top", offsetMm: 225, widthMm: 25 }] },
+      plan: MountPlanInputSchema.parse({
+        unit: "mm",
+        sheet: { width: 300, height: 400 },
+        window: { all: { mode: "overlap", overlap: 6 } },
+        borders: { all: 60 },
+        glazing: { material: "glass", thickness: 2, uvFiltering: true },
+      }),
+      boards: {
+        window: { grade: "museum", buffered: false, ply: 4, colour: null, maker: null, batch: "B-1" },
+        backing: { grade: "museum", buffered: false, ply: 4, colour: null, maker: null, batch: "B-1" },
+      },
+      attachment: {
+        method: "t-hinge",
+        tissue: "Kozo",
+        tissueWeightGsm: 9,
+        adhesive: "wheat-starch-paste",
+        hinges: [
+          { edge: "top", offsetMm: 50, widthMm: 25 },
+          { edge: "top", offsetMm: 225, widthMm: 25 },
+        ],
+      },
       glazing: { type: "uv-glass", thicknessMm: 2 },
       undoNotes: "Release the two hinges with a damp blotter.",
       notes: null,
@@ -487,7 +631,15 @@ await calcServer.stop();
     data: {
       overallRating: "fair",
       summary: "Stable; foxing in the upper margin.",
-      findings: photoIds.map((p, i) => ({ id: `f${i}`, term: "foxing", location: { kind: "marker", photoId: p, x: 0.2 + i * 0.15, y: 0.3 }, extent: null, severity: "moderate", resolved: false, notes: null })),
+      findings: photoIds.map((p, i) => ({
+        id: `f${i}`,
+        term: "foxing",
+        location: { kind: "marker", photoId: p, x: 0.2 + i * 0.15, y: 0.3 },
+        extent: null,
+        severity: "moderate",
+        resolved: false,
+        notes: null,
+      })),
       recommendations: { display: null, handling: null, environment: null, referral: null },
       lightNotes: null,
       photoIds,
@@ -502,7 +654,9 @@ await calcServer.stop();
     if (i > 0) times.push(performance.now() - t);
   }
   times.sort((a, b) => a - b);
-  console.log(`\nObject dossier with ${photoIds.length} photos (24 MP originals, web versions embedded), 3 warm runs: median ${times[1].toFixed(0)} ms, worst ${times[2].toFixed(0)} ms   (target < 1500 ms ${times[2] < 1500 ? "✓" : "✕ over target"})`);
+  console.log(
+    `\nObject dossier with ${photoIds.length} photos (24 MP originals, web versions embedded), 3 warm runs: median ${times[1].toFixed(0)} ms, worst ${times[2].toFixed(0)} ms   (target < 1500 ms ${times[2] < 1500 ? "✓" : "✕ over target"})`,
+  );
 
   const clientObjects = (sqlite.prepare("select id from objects where client_id = ? limit 1000").all(clients[3].id) as { id: string }[]).map((r) => r.id);
   const st: number[] = [];
@@ -512,7 +666,9 @@ await calcServer.stop();
     st.push(performance.now() - t);
   }
   st.sort((a, b) => a - b);
-  console.log(`Schedule of values, ${clientObjects.length} objects, 3 runs: median ${st[1].toFixed(0)} ms, worst ${st[2].toFixed(0)} ms   (target < 5000 ms ${st[2] < 5000 ? "✓" : "✕ over target"})`);
+  console.log(
+    `Schedule of values, ${clientObjects.length} objects, 3 runs: median ${st[1].toFixed(0)} ms, worst ${st[2].toFixed(0)} ms   (target < 5000 ms ${st[2] < 5000 ? "✓" : "✕ over target"})`,
+  );
 }
 
 // ── The server keeps answering while the heaviest document is laid out ──────
@@ -521,7 +677,9 @@ await calcServer.stop();
 {
   const heavyClient = clients[3].id;
   // Gather 5,000 objects (or all there are) under one client: the largest schedule ScheduleBodySchema allows.
-  sqlite.prepare("update objects set client_id = ? where id in (select id from objects where client_id != ? limit max(0, 5000 - (select count(*) from objects where client_id = ?)))").run(heavyClient, heavyClient, heavyClient);
+  sqlite
+    .prepare("update objects set client_id = ? where id in (select id from objects where client_id != ? limit max(0, 5000 - (select count(*) from objects where client_id = ?)))")
+    .run(heavyClient, heavyClient, heavyClient);
   const count = (sqlite.prepare("select count(*) n from objects where client_id = ?").get(heavyClient) as { n: number }).n;
   const server = await spawnBenchServer();
   const headers = { cookie: server.cookie, origin: server.base, "content-type": "application/json" };
@@ -537,7 +695,10 @@ await calcServer.stop();
     const lat: number[] = [];
     while (!done) {
       const t1 = performance.now();
-      await Promise.all([fetch(`${server.base}/api/health`).then((r) => r.arrayBuffer()), fetch(`${server.base}/api/objects?pageSize=50`, { headers }).then((r) => r.arrayBuffer())]);
+      await Promise.all([
+        fetch(`${server.base}/api/health`).then((r) => r.arrayBuffer()),
+        fetch(`${server.base}/api/objects?pageSize=50`, { headers }).then((r) => r.arrayBuffer()),
+      ]);
       lat.push(performance.now() - t1);
       await new Promise((r) => setTimeout(r, 20));
     }
@@ -545,13 +706,19 @@ await calcServer.stop();
     const took = performance.now() - t;
     lat.sort((a, b) => a - b);
     const worst = lat.at(-1) ?? 0;
-    console.log(`${what}: ${status} in ${(took / 1000).toFixed(1)} s; meanwhile ${lat.length} health + register pairs, median ${(lat[Math.floor(lat.length / 2)] ?? 0).toFixed(0)} ms, worst ${worst.toFixed(0)} ms   (target < 100 ms ${worst < 100 ? "✓" : "✕ over target"})`);
+    console.log(
+      `${what}: ${status} in ${(took / 1000).toFixed(1)} s; meanwhile ${lat.length} health + register pairs, median ${(lat[Math.floor(lat.length / 2)] ?? 0).toFixed(0)} ms, worst ${worst.toFixed(0)} ms   (target < 100 ms ${worst < 100 ? "✓" : "✕ over target"})`,
+    );
   };
   console.log("");
-  await probeWhile(`Schedule of values of ${count.toLocaleString("en-GB")} objects through the server`, () => fetch(`${server.base}/api/clients/${heavyClient}/documents/schedule`, { method: "POST", headers, body: "{}" }));
+  await probeWhile(`Schedule of values of ${count.toLocaleString("en-GB")} objects through the server`, () =>
+    fetch(`${server.base}/api/clients/${heavyClient}/documents/schedule`, { method: "POST", headers, body: "{}" }),
+  );
   // The same client's datasets, gathered in the export worker (an archive gathers all of them the same way).
   for (const dataset of ["objects", "mountings"]) {
-    await probeWhile(`${dataset}.csv of the same ${count.toLocaleString("en-GB")} objects`, () => fetch(`${server.base}/api/clients/${heavyClient}/exports/${dataset}.csv`, { headers }));
+    await probeWhile(`${dataset}.csv of the same ${count.toLocaleString("en-GB")} objects`, () =>
+      fetch(`${server.base}/api/clients/${heavyClient}/exports/${dataset}.csv`, { headers }),
+    );
   }
   await server.stop();
 }

@@ -12,4 +12,10 @@ const stop = () => {
 };
 process.on("SIGINT", stop);
 process.on("SIGTERM", stop);
-for (const c of children) c.on("exit", (code) => { if (code) { stop(); process.exit(code); } });
+for (const c of children)
+  c.on("exit", (code) => {
+    if (code) {
+      stop();
+      process.exit(code);
+    }
+  });

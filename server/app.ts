@@ -73,16 +73,17 @@ export function createApp({ config, database, clock = () => new Date() }: AppDep
     }),
   );
   // Request logs at "info"; with a quieter level the middleware is left out altogether.
-  if (logger.isLevelEnabled("info")) app.use(
-    pinoHttp({
-      logger,
-      autoLogging: { ignore: (req) => req.url === "/api/health" || !req.url?.startsWith("/api") },
-      serializers: {
-        req: (req: { method: string; url: string }) => ({ method: req.method, url: req.url }),
-        res: (res: { statusCode: number }) => ({ status: res.statusCode }),
-      },
-    }),
-  );
+  if (logger.isLevelEnabled("info"))
+    app.use(
+      pinoHttp({
+        logger,
+        autoLogging: { ignore: (req) => req.url === "/api/health" || !req.url?.startsWith("/api") },
+        serializers: {
+          req: (req: { method: string; url: string }) => ({ method: req.method, url: req.url }),
+          res: (res: { statusCode: number }) => ({ status: res.statusCode }),
+        },
+      }),
+    );
 
   app.get("/api/health", (_req, res) => {
     database.sqlite.prepare("select 1").get();
@@ -128,9 +129,15 @@ export function createApp({ config, database, clock = () => new Date() }: AppDep
 
   if (config.clientDir && fs.existsSync(config.clientDir)) {
     const dir = config.clientDir;
-    app.use(express.static(dir, { index: false, maxAge: "1h", setHeaders: (res, file) => {
-      if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader("Cache-Control", "public, max-age=31536000, immutable");
-    } }));
+    app.use(
+      express.static(dir, {
+        index: false,
+        maxAge: "1h",
+        setHeaders: (res, file) => {
+          if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader("Cache-Control", "public, max-age=31536000, immutable");
+        },
+      }),
+    );
     app.get("/{*spa}", (_req, res) => {
       res.setHeader("Cache-Control", "no-cache");
       res.sendFile(path.join(dir, "index.html"));

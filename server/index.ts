@@ -22,17 +22,15 @@ const { app, logger } = createApp({ config: { ...config, authSecret, ...keying }
 if (keyed) logger.info({ events: keyed }, "history chains keyed with the history key and checkpointed");
 // What a crash may have left: half-written files, dead processes' upload folders, files no row names.
 const swept = sweepAfterCrash(database.db, config.uploadsDir);
-if (swept.incomingRemoved || swept.uploadTempRemoved) logger.info({ incoming: swept.incomingRemoved, uploadFolders: swept.uploadTempRemoved }, "removed temporary files left by an earlier run");
-if (swept.quarantined.length) logger.warn({ files: swept.quarantined.length, folder: swept.quarantineDir }, "stored files that no record names were moved to quarantine; look at them, then delete the folder");
+if (swept.incomingRemoved || swept.uploadTempRemoved)
+  logger.info({ incoming: swept.incomingRemoved, uploadFolders: swept.uploadTempRemoved }, "removed temporary files left by an earlier run");
+if (swept.quarantined.length)
+  logger.warn({ files: swept.quarantined.length, folder: swept.quarantineDir }, "stored files that no record names were moved to quarantine; look at them, then delete the folder");
 const server = app.listen(config.port, config.host, () => {
   const address = server.address();
   const port = typeof address === "object" && address ? address.port : config.port;
   const url = config.clientDir ? config.publicUrl.replace(`:${config.port}`, `:${port}`) : `http://localhost:${port}/api/health`;
-  const lines = [
-    "",
-    `  Reversa is running: open ${url}`,
-    `  Database: ${config.databaseUrl}${seeded ? " (new; demo studio seeded)" : ""}`,
-  ];
+  const lines = ["", `  Reversa is running: open ${url}`, `  Database: ${config.databaseUrl}${seeded ? " (new; demo studio seeded)" : ""}`];
   if (config.seedDemo) {
     lines.push(`  Demo sign-ins (password "${DEMO_PASSWORD}"):`);
     for (const u of DEMO_USERS) lines.push(`    ${u.role.padEnd(10)} ${u.email}`);

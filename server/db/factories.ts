@@ -30,9 +30,6 @@ export function makeObject(db: Db, clientId: string, over: Partial<ObjectCreateI
   return insertObject(db, data, null);
 }
 
-export async function makeUser(
-  db: Db,
-  opts: { email: string; name: string; role: Role; clientId?: string | null; password: string },
-): Promise<string> {
+export async function makeUser(db: Db, opts: { email: string; name: string; role: Role; clientId?: string | null; password: string }): Promise<string> {
   return insertUser(db, opts);
 }

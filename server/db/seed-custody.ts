@@ -32,7 +32,14 @@ const STEPS: Record<string, Step[]> = {
     { kind: "return-to-owner", date: "2026-04-10", condition: "Reframed in museum board and UV-filtering glass; no change to the sheet.", location: "Owner's home, study" },
     { kind: "intake", date: "2026-11-18", condition: "Stable; frame knocked at the top left corner in transit, glazing intact." },
   ],
-  "2026-0002": [{ kind: "intake", date: "2026-10-06", condition: "Pastel stable on the whole; loose particles along the lower edge inside the old glass.", notes: "Carried flat, face up, by the owner." }],
+  "2026-0002": [
+    {
+      kind: "intake",
+      date: "2026-10-06",
+      condition: "Pastel stable on the whole; loose particles along the lower edge inside the old glass.",
+      notes: "Carried flat, face up, by the owner.",
+    },
+  ],
   "2026-0003": [
     { kind: "intake", date: "2026-05-14", condition: "Good; pencil inscription clear; slight cockling at the plate mark." },
     { kind: "return-to-owner", date: "2026-06-02", condition: "Hinged on T-hinges in a new window mount; as received otherwise." },
@@ -45,9 +52,23 @@ const STEPS: Record<string, Step[]> = {
   "2026-0006": [{ kind: "intake", date: "2026-11-24", condition: "Good; colour even; no bleeding at the edges." }],
   "2026-0008": [
     { kind: "intake", date: "2026-08-04", condition: "Good; sheet flat; old tape residue on the back, upper corners." },
-    { kind: "loan-out", date: "2026-09-15", party: "Eastharbour Gallery (an invented venue)", signedBy: "Priya Anand-Coll, Exhibitions", condition: "Framed for the loan; sheet as received, tape residue removed.", notes: "Loan agreement held by the owner." },
+    {
+      kind: "loan-out",
+      date: "2026-09-15",
+      party: "Eastharbour Gallery (an invented venue)",
+      signedBy: "Priya Anand-Coll, Exhibitions",
+      condition: "Framed for the loan; sheet as received, tape residue removed.",
+      notes: "Loan agreement held by the owner.",
+    },
   ],
-  "2026-0009": [{ kind: "intake", date: "2026-10-02", condition: "Fragile; old fold lines with small tears at two folds; light surface dirt.", notes: "Carried in a rigid folder; two people for the crate." }],
+  "2026-0009": [
+    {
+      kind: "intake",
+      date: "2026-10-02",
+      condition: "Fragile; old fold lines with small tears at two folds; light surface dirt.",
+      notes: "Carried in a rigid folder; two people for the crate.",
+    },
+  ],
   "2026-0010": [{ kind: "intake", date: "2026-10-02", condition: "Stable; slight fading along the top edge where the old window sat." }],
   "2026-0013": [{ kind: "intake", date: "2026-10-21", condition: "Image faded to warm brown; sheet stable; no silvering." }],
   "2026-0014": [
@@ -60,24 +81,52 @@ const STEPS: Record<string, Step[]> = {
   ],
   "2026-0016": [
     { kind: "intake", date: "2026-07-08", condition: "Silk threads loose in two letters; card support brittle at the edges." },
-    { kind: "to-conservator", date: "2026-07-30", party: "Lena Marsh, textile conservator (invented)", signedBy: "Lena Marsh", condition: "As received; packed flat between tissue in a rigid box.", location: "With the textile conservator" },
+    {
+      kind: "to-conservator",
+      date: "2026-07-30",
+      party: "Lena Marsh, textile conservator (invented)",
+      signedBy: "Lena Marsh",
+      condition: "As received; packed flat between tissue in a rigid box.",
+      location: "With the textile conservator",
+    },
   ],
   "2026-0017": [{ kind: "intake", date: "2026-11-09", condition: "Chalk stable; a few particles loose at the lower edge; no smudging." }],
   "2026-0018": [
     { kind: "intake", date: "2026-06-15", condition: "Good; colour even; no surface marks." },
-    { kind: "loan-out", date: "2026-08-26", party: "Harbour Lights touring exhibition (invented)", signedBy: "Owen Taverner, Registrar", condition: "Framed for touring; print as received.", location: "Touring exhibition, venue 2" },
+    {
+      kind: "loan-out",
+      date: "2026-08-26",
+      party: "Harbour Lights touring exhibition (invented)",
+      signedBy: "Owen Taverner, Registrar",
+      condition: "Framed for touring; print as received.",
+      location: "Touring exhibition, venue 2",
+    },
   ],
   "2026-0019": [{ kind: "intake", date: "2026-10-14", condition: "Good; one corner of the sheet slightly dog-eared." }],
   "2026-0021": [{ kind: "intake", date: "2026-11-27", condition: "Stable; gouache slightly cracked in the sky, not lifting." }],
   "2026-0022": [{ kind: "intake", date: "2026-10-28", condition: "Good; tone even; sheet flat." }],
-  "2026-0023": [{ kind: "intake", date: "2026-10-09", condition: "Fragile; old folds with splits at two crossings; edges torn in places.", notes: "Brought rolled; unrolled on arrival with the owner present." }],
+  "2026-0023": [
+    {
+      kind: "intake",
+      date: "2026-10-09",
+      condition: "Fragile; old folds with splits at two crossings; edges torn in places.",
+      notes: "Brought rolled; unrolled on arrival with the owner present.",
+    },
+  ],
   "2026-0024": [{ kind: "intake", date: "2026-10-16", condition: "Ink stable; small losses along the old fold; seal intact." }],
   "2026-0025": [
     { kind: "intake", date: "2026-01-19", condition: "Good; slight silvering at the edges." },
     { kind: "return-to-owner", date: "2026-02-09", condition: "Framed for the reading room display; silvering unchanged.", location: "Reading room display" },
   ],
   "2026-0026": [{ kind: "intake", date: "2026-11-12", condition: "Good; light surface dirt; small tear at the top edge." }],
-  "2026-0027": [{ kind: "intake", date: "2026-11-12", condition: "Stable; varnish slightly crazed at one corner; plate cracked, old repair." , notes: "Glass plate: carried in its case, gloves on." }],
+  "2026-0027": [
+    {
+      kind: "intake",
+      date: "2026-11-12",
+      condition: "Stable; varnish slightly crazed at one corner; plate cracked, old repair.",
+      notes: "Glass plate: carried in its case, gloves on.",
+    },
+  ],
   "2026-0029": [{ kind: "intake", date: "2026-11-30", condition: "Charcoal smudged at the lower right before arrival; no loose media." }],
 };
 

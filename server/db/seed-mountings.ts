@@ -8,7 +8,15 @@ import type { MountPlanInput } from "../../shared/schemas/mount-plan.ts";
 import { createMountingsService } from "../features/mountings/mountings.service.ts";
 
 /** Invented demo mountings, entered through the same service as the app, so their history is written too. */
-const museum = (batch: string, extra: object = {}) => ({ grade: "museum" as const, buffered: false, ply: 4 as const, colour: "Warm white", maker: "Demo board mill", batch, ...extra });
+const museum = (batch: string, extra: object = {}) => ({
+  grade: "museum" as const,
+  buffered: false,
+  ply: 4 as const,
+  colour: "Warm white",
+  maker: "Demo board mill",
+  batch,
+  ...extra,
+});
 const topHinges = (w: number, n = 2) => Array.from({ length: n }, (_, i) => ({ edge: "top" as const, offsetMm: Math.round(((i + 0.5) * w) / n - 12), widthMm: 25 }));
 
 type Demo = { number: string; mountings: { reason: string; mountedOn: string; plan: MountPlanInput; data: Omit<MountingDataInput, "plan"> }[] };
@@ -20,7 +28,15 @@ const DEMO: Demo[] = [
       {
         reason: "first-mounting",
         mountedOn: "2021-03-10",
-        plan: { unit: "mm", sheet: { width: 330, height: 420 }, imageBorders: { left: 52, top: 48, right: 52, bottom: 70 }, window: { all: { mode: "overlap", overlap: 6 } }, borders: { all: 70 }, bottomWeight: 15, glazing: { material: "glass", thickness: 2, uvFiltering: false } },
+        plan: {
+          unit: "mm",
+          sheet: { width: 330, height: 420 },
+          imageBorders: { left: 52, top: 48, right: 52, bottom: 70 },
+          window: { all: { mode: "overlap", overlap: 6 } },
+          borders: { all: 70 },
+          bottomWeight: 15,
+          glazing: { material: "glass", thickness: 2, uvFiltering: false },
+        },
         data: {
           boards: { window: museum("WB-2011-07"), backing: museum("WB-2011-07") },
           attachment: { method: "t-hinge", tissue: "Kozo tissue", tissueWeightGsm: 11, adhesive: "wheat-starch-paste", hinges: topHinges(330) },
@@ -34,7 +50,15 @@ const DEMO: Demo[] = [
       {
         reason: "glazing-change",
         mountedOn: "2026-10-02",
-        plan: { unit: "mm", sheet: { width: 330, height: 420 }, imageBorders: { left: 52, top: 48, right: 52, bottom: 70 }, window: { all: { mode: "overlap", overlap: 6 } }, borders: { all: 70 }, bottomWeight: 15, glazing: { material: "glass", thickness: 2, uvFiltering: true } },
+        plan: {
+          unit: "mm",
+          sheet: { width: 330, height: 420 },
+          imageBorders: { left: 52, top: 48, right: 52, bottom: 70 },
+          window: { all: { mode: "overlap", overlap: 6 } },
+          borders: { all: 70 },
+          bottomWeight: 15,
+          glazing: { material: "glass", thickness: 2, uvFiltering: true },
+        },
         data: {
           boards: { window: museum("MB-2026-114"), backing: museum("MB-2026-114") },
           attachment: { method: "t-hinge", tissue: "Kozo tissue", tissueWeightGsm: 11, adhesive: "wheat-starch-paste", hinges: topHinges(330) },
@@ -53,7 +77,14 @@ const DEMO: Demo[] = [
       {
         reason: "first-mounting",
         mountedOn: "2025-05-02",
-        plan: { unit: "in", sheet: { width: 8, height: 10 }, window: { all: { mode: "float", reveal: "1/4" } }, fitOuter: { width: 16, height: 20 }, bottomWeightPercent: 10, glazing: { material: "glass", thickness: "3/32", uvFiltering: true } },
+        plan: {
+          unit: "in",
+          sheet: { width: 8, height: 10 },
+          window: { all: { mode: "float", reveal: "1/4" } },
+          fitOuter: { width: 16, height: 20 },
+          bottomWeightPercent: 10,
+          glazing: { material: "glass", thickness: "3/32", uvFiltering: true },
+        },
         data: {
           boards: { window: museum("PB-2024-03", { patPassed: true }), backing: museum("PB-2024-03", { patPassed: true }) },
           attachment: { method: "corners", adhesive: "none", hinges: [] },
@@ -72,7 +103,14 @@ const DEMO: Demo[] = [
       {
         reason: "first-mounting",
         mountedOn: "2024-09-16",
-        plan: { unit: "mm", sheet: { width: 230, height: 310 }, imageBorders: { left: 30, top: 28, right: 30, bottom: 45 }, window: { all: { mode: "overlap", overlap: 8 } }, borders: { top: 60, side: 60, bottom: 75 }, glazing: { material: "glass", thickness: 2, uvFiltering: true } },
+        plan: {
+          unit: "mm",
+          sheet: { width: 230, height: 310 },
+          imageBorders: { left: 30, top: 28, right: 30, bottom: 45 },
+          window: { all: { mode: "overlap", overlap: 8 } },
+          borders: { top: 60, side: 60, bottom: 75 },
+          glazing: { material: "glass", thickness: 2, uvFiltering: true },
+        },
         data: {
           boards: { window: museum("MB-2024-88"), backing: museum("MB-2024-88") },
           attachment: { method: "t-hinge", tissue: "Kozo tissue", tissueWeightGsm: 9, adhesive: "wheat-starch-paste", hinges: topHinges(230) },
@@ -90,7 +128,15 @@ const DEMO: Demo[] = [
       {
         reason: "first-mounting",
         mountedOn: "2025-02-20",
-        plan: { unit: "mm", sheet: { width: 432, height: 559 }, imageBorders: { left: 38, top: 38, right: 38, bottom: 38 }, window: { all: { mode: "float", reveal: 12 } }, borders: { all: 80 }, bottomWeight: 10, glazing: { material: "acrylic", thickness: 3, uvFiltering: true } },
+        plan: {
+          unit: "mm",
+          sheet: { width: 432, height: 559 },
+          imageBorders: { left: 38, top: 38, right: 38, bottom: 38 },
+          window: { all: { mode: "float", reveal: 12 } },
+          borders: { all: 80 },
+          bottomWeight: 10,
+          glazing: { material: "acrylic", thickness: 3, uvFiltering: true },
+        },
         data: {
           boards: { window: museum("MB-2024-91"), backing: museum("MB-2024-91") },
           attachment: { method: "v-hinge", tissue: "Gampi tissue", tissueWeightGsm: 12, adhesive: "methyl-cellulose", hinges: topHinges(432, 3) },

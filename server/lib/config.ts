@@ -50,7 +50,14 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     seedDemo: e.SEED_DEMO,
     publicUrl,
     publicUrlGiven: e.PUBLIC_URL !== undefined,
-    trustedOrigins: [publicUrl, `http://localhost:${e.PORT}`, `http://127.0.0.1:${e.PORT}`, ...e.TRUSTED_ORIGINS.split(",").map((s) => s.trim()).filter(Boolean)],
+    trustedOrigins: [
+      publicUrl,
+      `http://localhost:${e.PORT}`,
+      `http://127.0.0.1:${e.PORT}`,
+      ...e.TRUSTED_ORIGINS.split(",")
+        .map((s) => s.trim())
+        .filter(Boolean),
+    ],
     authSecret: e.BETTER_AUTH_SECRET,
     historyKeyFromEnv: e.HISTORY_KEY,
     historyCheckpoints: e.HISTORY_CHECKPOINTS,

@@ -22,7 +22,6 @@ export function validationError(error: ZodError): AppError {
   const fields = issuesToFields(error.issues);
   const n = Object.keys(fields).length;
   const first = Object.entries(fields)[0];
-  const message =
-    n === 1 && first ? `Check ${first[0]}: ${first[1]}` : `Check the ${n} highlighted fields: ${Object.keys(fields).slice(0, 4).join(", ")}${n > 4 ? "…" : ""}.`;
+  const message = n === 1 && first ? `Check ${first[0]}: ${first[1]}` : `Check the ${n} highlighted fields: ${Object.keys(fields).slice(0, 4).join(", ")}${n > 4 ? "…" : ""}.`;
   return new AppError("validation_failed", message, fields);
 }

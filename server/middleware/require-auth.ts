@@ -19,7 +19,11 @@ export function createSessionResolver(auth: Auth, db: Db, opts: { ttlMs?: number
   const ttlMs = opts.ttlMs ?? 10_000;
   const max = opts.max ?? 10_000;
   const verified = new Map<string, { userId: string; until: number }>();
-  const userById = db.select().from(userTable).where(eq(userTable.id, sql.placeholder("id"))).prepare();
+  const userById = db
+    .select()
+    .from(userTable)
+    .where(eq(userTable.id, sql.placeholder("id")))
+    .prepare();
 
   const tokenOf = (req: Request): string | null => {
     const header = req.headers.cookie;

@@ -21,12 +21,7 @@ export function currentUser(req: Request): SessionUser {
  * Record-level check. A user who may not even read the record gets 404, so that
  * other clients' records cannot be discovered; one who may read but not act gets 403.
  */
-export function assertCan(
-  user: SessionUser,
-  action: Action,
-  resource: Resource,
-  opts: { readAction?: Action; what?: string } = {},
-) {
+export function assertCan(user: SessionUser, action: Action, resource: Resource, opts: { readAction?: Action; what?: string } = {}) {
   if (can(user, action, resource)) return;
   const readAction = opts.readAction ?? "object:read";
   if (action !== readAction && can(user, readAction, resource)) throw forbidden();

@@ -17,9 +17,17 @@ export function sameOriginWrites(trustedOrigins: string[]): RequestHandler {
     const origin = req.get("origin");
     if (origin !== undefined) {
       if (origin !== "null" && trusted.has(origin.replace(/\/+$/, "").toLowerCase())) return next();
-      return next(forbidden(`This request came from ${origin === "null" ? "a page with no origin" : origin}, which is not this studio's address; it was refused. Open Reversa at its own address and try again.`));
+      return next(
+        forbidden(
+          `This request came from ${origin === "null" ? "a page with no origin" : origin}, which is not this studio's address; it was refused. Open Reversa at its own address and try again.`,
+        ),
+      );
     }
     if (req.get("sec-fetch-site") === "same-origin") return next();
-    next(forbidden("This request did not say which site it came from (no Origin header), so it was refused. Use Reversa in a browser at its own address, or send the Origin header from a script."));
+    next(
+      forbidden(
+        "This request did not say which site it came from (no Origin header), so it was refused. Use Reversa in a browser at its own address, or send the Origin header from a script.",
+      ),
+    );
   };
 }

@@ -9,9 +9,7 @@ export function minorDigits(currency: string): number {
 
 export function formatMoney(minor: number, currency: string, locale = "en-GB"): string {
   const digits = minorDigits(currency);
-  return new Intl.NumberFormat(locale, { style: "currency", currency, minimumFractionDigits: digits, maximumFractionDigits: digits }).format(
-    minor / 10 ** digits,
-  );
+  return new Intl.NumberFormat(locale, { style: "currency", currency, minimumFractionDigits: digits, maximumFractionDigits: digits }).format(minor / 10 ** digits);
 }
 
 /** Reads "12,500.00" or "12500" into minor units; null when it is not an amount. */

@@ -96,7 +96,10 @@ function planInputFor(data: MountingData): MountPlanParsed {
     ...(data.attachment.adhesive ? { adhesive: data.attachment.adhesive } : {}),
     ...(data.attachment.tissue ? { tissue: data.attachment.tissue } : {}),
     ...(HINGE_METHODS.includes(data.attachment.method)
-      ? { hingeCount: hinges.length, hingeEdge: edges.size === 0 || (edges.size === 1 && edges.has("top")) ? "top" : edges.has("top") && !edges.has("bottom") ? "top-and-sides" : "all-edges" }
+      ? {
+          hingeCount: hinges.length,
+          hingeEdge: edges.size === 0 || (edges.size === 1 && edges.has("top")) ? "top" : edges.has("top") && !edges.has("bottom") ? "top-and-sides" : "all-edges",
+        }
       : {}),
   } as MountPlanParsed["materials"];
   const g = data.glazing;

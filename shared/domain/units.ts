@@ -24,7 +24,11 @@ export function parseLength(input: number | string, unit: Unit): ParseResult {
     return { ok: true, mm: unit === "in" ? input * MM_PER_INCH : input };
   }
   // A comma before exactly three digits groups thousands ("1,120" is 1120); any other comma is a decimal point ("12,5").
-  let text = input.trim().toLowerCase().replace(/,(?=\d{3}(?:\D|$))/g, "").replace(/,/g, ".");
+  let text = input
+    .trim()
+    .toLowerCase()
+    .replace(/,(?=\d{3}(?:\D|$))/g, "")
+    .replace(/,/g, ".");
   if (text === "") return { ok: false, message: "Enter a length." };
   let u: Unit = unit;
   const suffix = text.match(/\s*(mm|in|inch|inches|")$/);

@@ -22,7 +22,11 @@ export const optionalText = (max: number) =>
     .transform((v) => v ?? null);
 
 export const requiredText = (max: number, message: string) =>
-  z.string({ message }).trim().min(1, { message }).max(max, { message: `Keep this under ${max} characters.` });
+  z
+    .string({ message })
+    .trim()
+    .min(1, { message })
+    .max(max, { message: `Keep this under ${max} characters.` });
 
 export const PageQuerySchema = z.object({
   page: z.coerce.number().int().min(1).default(1),

@@ -29,18 +29,36 @@ export const SEVERITY_CAP: Record<FindingSeverity, Rating> = { slight: "good", m
 
 /** Where on the sheet: a 3 × 3 grid, the four edges, or the back. */
 export const ZONES = [
-  "top-left", "top-centre", "top-right",
-  "middle-left", "centre", "middle-right",
-  "bottom-left", "bottom-centre", "bottom-right",
-  "edge-top", "edge-right", "edge-bottom", "edge-left",
+  "top-left",
+  "top-centre",
+  "top-right",
+  "middle-left",
+  "centre",
+  "middle-right",
+  "bottom-left",
+  "bottom-centre",
+  "bottom-right",
+  "edge-top",
+  "edge-right",
+  "edge-bottom",
+  "edge-left",
   "verso",
 ] as const;
 export type Zone = (typeof ZONES)[number];
 export const ZONE_LABELS: Record<Zone, string> = {
-  "top-left": "Top left", "top-centre": "Top centre", "top-right": "Top right",
-  "middle-left": "Middle left", centre: "Centre", "middle-right": "Middle right",
-  "bottom-left": "Bottom left", "bottom-centre": "Bottom centre", "bottom-right": "Bottom right",
-  "edge-top": "Top edge", "edge-right": "Right edge", "edge-bottom": "Bottom edge", "edge-left": "Left edge",
+  "top-left": "Top left",
+  "top-centre": "Top centre",
+  "top-right": "Top right",
+  "middle-left": "Middle left",
+  centre: "Centre",
+  "middle-right": "Middle right",
+  "bottom-left": "Bottom left",
+  "bottom-centre": "Bottom centre",
+  "bottom-right": "Bottom right",
+  "edge-top": "Top edge",
+  "edge-right": "Right edge",
+  "edge-bottom": "Bottom edge",
+  "edge-left": "Left edge",
   verso: "Verso (back)",
 };
 
@@ -108,13 +126,23 @@ export type ConditionDataInput = z.input<typeof ConditionDataSchema>;
 export const ConditionCreateSchema = z.object({
   context: z.enum(CONDITION_CONTEXTS, { message: "Choose why the object is examined." }),
   reportDate: isoDate,
-  mountingId: z.string().min(1).max(64).nullable().optional().transform((v) => v ?? null),
+  mountingId: z
+    .string()
+    .min(1)
+    .max(64)
+    .nullable()
+    .optional()
+    .transform((v) => v ?? null),
   data: ConditionDataSchema,
 });
 export type ConditionCreate = z.infer<typeof ConditionCreateSchema>;
 export const ConditionDraftUpdateSchema = ConditionCreateSchema.extend({ version: z.number().int().min(1) });
 export const ConditionSignSchema = z.object({ version: z.number().int().min(1) });
-export const ConditionCorrectionSchema = z.object({ version: z.number().int().min(1), correctionReason: requiredText(1000, "Say why the report is corrected."), data: ConditionDataSchema });
+export const ConditionCorrectionSchema = z.object({
+  version: z.number().int().min(1),
+  correctionReason: requiredText(1000, "Say why the report is corrected."),
+  data: ConditionDataSchema,
+});
 
 export const ConditionListQuerySchema = z.object({
   rating: z.enum(RATINGS).optional(),
@@ -122,7 +150,10 @@ export const ConditionListQuerySchema = z.object({
   from: isoDate.optional(),
   to: isoDate.optional(),
   examinerId: z.string().max(64).optional(),
-  unresolved: z.enum(["true", "false"]).optional().transform((v) => (v === undefined ? undefined : v === "true")),
+  unresolved: z
+    .enum(["true", "false"])
+    .optional()
+    .transform((v) => (v === undefined ? undefined : v === "true")),
   /** Objects whose check is due by this date. */
   dueBy: isoDate.optional(),
   page: z.coerce.number().int().min(1).default(1),

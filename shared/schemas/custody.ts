@@ -35,13 +35,11 @@ export const CustodyCreateSchema = z
     location: optionalText(200),
     notes: optionalText(2000),
     /** For a loan or a stay with a conservator: the day it is agreed to come back. */
-    returnDue: z.preprocess(
-      (v) => (v === "" || v === undefined ? null : v),
-      isoDateOf("2027-03-31").nullable(),
-    ).optional(),
+    returnDue: z.preprocess((v) => (v === "" || v === undefined ? null : v), isoDateOf("2027-03-31").nullable()).optional(),
   })
   .superRefine((d, ctx) => {
-    if (d.returnDue && !RETURN_DUE_KINDS.includes(d.kind)) ctx.addIssue({ code: "custom", path: ["returnDue"], message: "Only a loan or a stay with a conservator has a return date." });
+    if (d.returnDue && !RETURN_DUE_KINDS.includes(d.kind))
+      ctx.addIssue({ code: "custom", path: ["returnDue"], message: "Only a loan or a stay with a conservator has a return date." });
     else if (d.returnDue && d.returnDue < d.date) ctx.addIssue({ code: "custom", path: ["returnDue"], message: "The agreed return date is before the hand-over date." });
   });
 export type CustodyCreate = z.infer<typeof CustodyCreateSchema>;

@@ -12,7 +12,17 @@ export const DOCUMENT_KIND_LABELS: Record<DocumentKind, string> = {
   "back-label": "Back label",
   "label-sheet": "Sheet of back labels",
 };
-export type IssuedDocument = { id: string; code: string; kind: DocumentKind; title: string; objectId: string | null; clientId: string | null; paperSize: string; issuedAt: string; issuedByName: string };
+export type IssuedDocument = {
+  id: string;
+  code: string;
+  kind: DocumentKind;
+  title: string;
+  objectId: string | null;
+  clientId: string | null;
+  paperSize: string;
+  issuedAt: string;
+  issuedByName: string;
+};
 /** What GET /api/verify/:code tells anyone, signed in or not. */
 /**
  * What the public check of a code tells: the kind, the object number, the day, and the issued file's
@@ -33,7 +43,10 @@ export function normaliseCode(typed: string): string {
 export const LABEL_SHEET_MAX = 400;
 
 const Ids = (max: number, what: string) =>
-  z.array(z.string().min(1).max(64), { message: `Give the ${what} as a list of ids.` }).min(1, { message: `Choose at least one ${what.replace(/s$/, "")}.` }).max(max, { message: `At most ${max} ${what} at once.` });
+  z
+    .array(z.string().min(1).max(64), { message: `Give the ${what} as a list of ids.` })
+    .min(1, { message: `Choose at least one ${what.replace(/s$/, "")}.` })
+    .max(max, { message: `At most ${max} ${what} at once.` });
 
 /** Chosen objects, or the register's filter as the register screen holds it (the owner is the route's client). */
 export const ScheduleBodySchema = RegisterFilterSchema.omit({ clientId: true })
@@ -42,12 +55,12 @@ export const ScheduleBodySchema = RegisterFilterSchema.omit({ clientId: true })
   .default({});
 export const WorkshopBodySchema = z.object({
   mountingIds: Ids(200, "mountings"),
-  boardSheetId: z.enum(STANDARD_BOARD_SHEETS.map((b) => b.id) as [string, ...string[]], { message: `Choose a board sheet: ${STANDARD_BOARD_SHEETS.map((b) => b.label).join(", ")}.` }).optional(),
+  boardSheetId: z
+    .enum(STANDARD_BOARD_SHEETS.map((b) => b.id) as [string, ...string[]], { message: `Choose a board sheet: ${STANDARD_BOARD_SHEETS.map((b) => b.label).join(", ")}.` })
+    .optional(),
 });
 /** Chosen objects, or the register's filter as the register screen holds it (with its owner, if one is chosen). */
-export const LabelSheetBodySchema = RegisterFilterSchema
-  .extend({ objectIds: Ids(LABEL_SHEET_MAX, "objects").optional() })
-  .strict();
+export const LabelSheetBodySchema = RegisterFilterSchema.extend({ objectIds: Ids(LABEL_SHEET_MAX, "objects").optional() }).strict();
 
 export const ReceiptParamsSchema = z.object({ receiptId: z.string().min(1).max(64) });
 

@@ -1,16 +1,6 @@
 import { z } from "zod";
 
-export const ERROR_CODES = [
-  "validation_failed",
-  "unauthenticated",
-  "forbidden",
-  "not_found",
-  "conflict",
-  "rate_limited",
-  "payload_too_large",
-  "unavailable",
-  "internal",
-] as const;
+export const ERROR_CODES = ["validation_failed", "unauthenticated", "forbidden", "not_found", "conflict", "rate_limited", "payload_too_large", "unavailable", "internal"] as const;
 export type ErrorCode = (typeof ERROR_CODES)[number];
 
 /** The HTTP status of each code: an error is made from its code, so the two never disagree. */

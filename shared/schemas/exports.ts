@@ -20,5 +20,8 @@ export const DatasetParamsSchema = z.object({
 });
 export const ExportFilterQuerySchema = z.object({ status: z.enum(OBJECT_STATUSES).optional(), objectType: z.enum(OBJECT_TYPES).optional() });
 /** `originals: true` (studio staff only) puts the photos' original files in, with their metadata. */
-export const ArchiveBodySchema = z.object({ originals: z.boolean({ message: "originals is true or false." }).default(false) }).strict().default({ originals: false });
+export const ArchiveBodySchema = z
+  .object({ originals: z.boolean({ message: "originals is true or false." }).default(false) })
+  .strict()
+  .default({ originals: false });
 export const ExportJobParamsSchema = z.object({ jobId: z.string().min(1).max(64) });

@@ -152,9 +152,7 @@ export const MountPlanInputSchema = z
     /** Borders narrower than this are reported. */
     minBorder: LengthSchema.optional(),
     doubleMount: z.object({ reveal: LengthSchema }).optional(),
-    glazing: z
-      .object({ material: z.enum(GLAZING_MATERIALS, { message: "Choose glass or acrylic." }), thickness: LengthSchema, uvFiltering: z.boolean().optional() })
-      .optional(),
+    glazing: z.object({ material: z.enum(GLAZING_MATERIALS, { message: "Choose glass or acrylic." }), thickness: LengthSchema, uvFiltering: z.boolean().optional() }).optional(),
     spacer: z.object({ depth: LengthSchema }).optional(),
     /** Thickness of the boards in the package; default 4-ply, about 1.4 mm. */
     boards: z.object({ window: LengthSchema.optional(), backing: LengthSchema.optional(), extraBacking: LengthSchema.optional() }).optional(),
@@ -280,22 +278,22 @@ export type SavedPlan = {
 
 export const CuttingListRequestSchema = z
   .object({
-  unit: z.enum(UNITS, { message: 'Choose "mm" or "in".' }),
-  boardSheet: SizeSchema,
-  kerf: LengthSchema.optional(),
-  pieces: z
-    .array(
-      z.object({
-        id: z.string().trim().min(1).max(80),
-        label: z.string().trim().max(200).optional(),
-        width: LengthSchema,
-        height: LengthSchema,
-        quantity: z.number().int().min(1, { message: "Quantity must be at least 1." }).max(500, { message: "Keep each quantity at most 500." }),
-      }),
-    )
-    .min(1, { message: "Add at least one board to cut." })
-    .max(200, { message: "Keep a batch to at most 200 lines." })
-    .refine((pieces) => pieces.reduce((n, p) => n + p.quantity, 0) <= 2000, { message: "Keep a batch to at most 2,000 boards in all; split larger orders." }),
+    unit: z.enum(UNITS, { message: 'Choose "mm" or "in".' }),
+    boardSheet: SizeSchema,
+    kerf: LengthSchema.optional(),
+    pieces: z
+      .array(
+        z.object({
+          id: z.string().trim().min(1).max(80),
+          label: z.string().trim().max(200).optional(),
+          width: LengthSchema,
+          height: LengthSchema,
+          quantity: z.number().int().min(1, { message: "Quantity must be at least 1." }).max(500, { message: "Keep each quantity at most 500." }),
+        }),
+      )
+      .min(1, { message: "Add at least one board to cut." })
+      .max(200, { message: "Keep a batch to at most 200 lines." })
+      .refine((pieces) => pieces.reduce((n, p) => n + p.quantity, 0) <= 2000, { message: "Keep a batch to at most 2,000 boards in all; split larger orders." }),
   })
   .superRefine((r, ctx) => {
     checkBounds(ctx, r.unit, [

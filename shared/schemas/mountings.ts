@@ -3,15 +3,7 @@ import { ADHESIVES, ATTACHMENT_METHODS, MountPlanInputSchema, SIDES, type MountP
 import { optionalText, requiredText, isoDate as isoDateOf } from "./common.ts";
 import type { CatalogueFacts } from "../domain/mounting.ts";
 
-export const MOUNTING_REASONS = [
-  "first-mounting",
-  "reframing",
-  "remount-after-damage",
-  "hinge-repair",
-  "glazing-change",
-  "taken-out-of-frame",
-  "other",
-] as const;
+export const MOUNTING_REASONS = ["first-mounting", "reframing", "remount-after-damage", "hinge-repair", "glazing-change", "taken-out-of-frame", "other"] as const;
 export const MOUNTING_REASON_LABELS: Record<(typeof MOUNTING_REASONS)[number], string> = {
   "first-mounting": "First mounting",
   reframing: "Reframing",
@@ -58,7 +50,10 @@ export const SEALING_TYPE_LABELS: Record<(typeof SEALING_TYPES)[number], string>
 };
 
 const mm = (label: string, max = 3000) =>
-  z.number({ message: `${label}: enter a length in mm.` }).min(0, { message: `${label} cannot be negative.` }).max(max, { message: `${label} must be at most ${max} mm.` });
+  z
+    .number({ message: `${label}: enter a length in mm.` })
+    .min(0, { message: `${label} cannot be negative.` })
+    .max(max, { message: `${label} must be at most ${max} mm.` });
 
 export const BoardSchema = z.object({
   grade: z.enum(["museum", "conservation", "other"], { message: "Choose the board grade." }),
@@ -86,14 +81,49 @@ export const MountingDataSchema = z
     attachment: z.object({
       method: z.enum(ATTACHMENT_METHODS, { message: "Choose how the object is attached." }),
       tissue: optionalText(120),
-      tissueWeightGsm: z.number().positive({ message: "Tissue weight must be greater than 0." }).max(200).nullable().optional().transform((v) => v ?? null),
-      adhesive: z.enum(ADHESIVES).nullable().optional().transform((v) => v ?? null),
+      tissueWeightGsm: z
+        .number()
+        .positive({ message: "Tissue weight must be greater than 0." })
+        .max(200)
+        .nullable()
+        .optional()
+        .transform((v) => v ?? null),
+      adhesive: z
+        .enum(ADHESIVES)
+        .nullable()
+        .optional()
+        .transform((v) => v ?? null),
       hinges: z.array(HingeSchema).max(40, { message: "At most 40 hinges." }).default([]),
     }),
-    glazing: z.object({ type: z.enum(GLAZING_TYPES, { message: "Choose the glazing." }), thicknessMm: mm("Glazing thickness", 20).nullable().optional().transform((v) => v ?? null) }),
-    spacer: z.object({ type: optionalText(120), depthMm: mm("Spacer depth", 100).nullable().optional().transform((v) => v ?? null) }).optional(),
+    glazing: z.object({
+      type: z.enum(GLAZING_TYPES, { message: "Choose the glazing." }),
+      thicknessMm: mm("Glazing thickness", 20)
+        .nullable()
+        .optional()
+        .transform((v) => v ?? null),
+    }),
+    spacer: z
+      .object({
+        type: optionalText(120),
+        depthMm: mm("Spacer depth", 100)
+          .nullable()
+          .optional()
+          .transform((v) => v ?? null),
+      })
+      .optional(),
     frame: z
-      .object({ moulding: optionalText(200), finish: optionalText(120), faceWidthMm: mm("Moulding face width", 300).nullable().optional().transform((v) => v ?? null), rebateDepthMm: mm("Rebate depth", 200).nullable().optional().transform((v) => v ?? null) })
+      .object({
+        moulding: optionalText(200),
+        finish: optionalText(120),
+        faceWidthMm: mm("Moulding face width", 300)
+          .nullable()
+          .optional()
+          .transform((v) => v ?? null),
+        rebateDepthMm: mm("Rebate depth", 200)
+          .nullable()
+          .optional()
+          .transform((v) => v ?? null),
+      })
       .optional(),
     backing: z.object({ type: z.enum(BACKING_TYPES), notes: optionalText(300) }).optional(),
     sealing: z.object({ type: z.enum(SEALING_TYPES), notes: optionalText(300) }).optional(),

@@ -4,16 +4,7 @@ import { isCurrencyCode } from "../domain/money.ts";
 import type { ATTACHMENT_METHODS, BOARD_GRADES } from "./mount-plan.ts";
 import type { GLAZING_TYPES } from "./mountings.ts";
 
-export const OBJECT_TYPES = [
-  "print",
-  "drawing",
-  "watercolour",
-  "pastel",
-  "photograph",
-  "document",
-  "textile-on-paper",
-  "other",
-] as const;
+export const OBJECT_TYPES = ["print", "drawing", "watercolour", "pastel", "photograph", "document", "textile-on-paper", "other"] as const;
 export const OBJECT_TYPE_LABELS: Record<(typeof OBJECT_TYPES)[number], string> = {
   print: "Print",
   drawing: "Drawing",
@@ -121,7 +112,11 @@ const ValuationShape = {
     .optional()
     .transform((v) => v ?? null),
   valuationDate: isoDate,
-  valuationBasis: z.enum(VALUATION_BASES).nullable().optional().transform((v) => v ?? null),
+  valuationBasis: z
+    .enum(VALUATION_BASES)
+    .nullable()
+    .optional()
+    .transform((v) => v ?? null),
   valuer: optionalText(200),
 };
 
@@ -133,7 +128,11 @@ export const ObjectBaseSchema = z.object({
   objectType: z.enum(OBJECT_TYPES, { message: "Choose the object type." }),
   medium: optionalText(300),
   support: optionalText(300),
-  photoProcess: z.enum(PHOTO_PROCESSES).nullable().optional().transform((v) => v ?? null),
+  photoProcess: z
+    .enum(PHOTO_PROCESSES)
+    .nullable()
+    .optional()
+    .transform((v) => v ?? null),
   edition: optionalText(200),
   inscriptions: optionalText(2000),
   sheetWidthMm: mm("Sheet width"),
@@ -224,7 +223,16 @@ export const ObjectListQuerySchema = z.object({
 });
 export type ObjectListQuery = z.infer<typeof ObjectListQuerySchema>;
 /** The register's filter without its sort and page: what a schedule of values or a label sheet is made for. */
-export const RegisterFilterSchema = ObjectListQuerySchema.pick({ q: true, clientId: true, status: true, objectType: true, method: true, boardGrade: true, glazing: true, checkDueBy: true });
+export const RegisterFilterSchema = ObjectListQuerySchema.pick({
+  q: true,
+  clientId: true,
+  status: true,
+  objectType: true,
+  method: true,
+  boardGrade: true,
+  glazing: true,
+  checkDueBy: true,
+});
 
 /** An object as the API returns it. Valuation fields are null and `valuationVisible` false for those who may not see them. */
 export type ObjectRecord = Omit<ObjectCreate, never> & {

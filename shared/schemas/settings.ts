@@ -13,11 +13,7 @@ export const StudioSettingsSchema = z.object({
   unit: z.enum(UNITS, { message: "Choose mm or inches." }),
   vocabulary: z.enum(VOCABULARIES, { message: "Choose mount or mat." }),
   paperSize: z.enum(PAPER_SIZES, { message: "Choose A4 or US Letter." }),
-  currency: z
-    .string()
-    .trim()
-    .toUpperCase()
-    .refine(isCurrencyCode, { message: "Use an ISO 4217 currency code such as GBP." }),
+  currency: z.string().trim().toUpperCase().refine(isCurrencyCode, { message: "Use an ISO 4217 currency code such as GBP." }),
   minOverlapMm: z
     .number({ message: "Enter the minimum overlap in mm." })
     .min(1, { message: "Minimum overlap must be at least 1 mm." })
@@ -26,8 +22,18 @@ export const StudioSettingsSchema = z.object({
     .number({ message: "Enter the rebate clearance in mm." })
     .min(0, { message: "Rebate clearance cannot be negative." })
     .max(10, { message: "Rebate clearance must be at most 10 mm." }),
-  checkIntervalMonths: z.number({ message: "Enter a number of months." }).int({ message: "Use whole months." }).min(1, { message: "At least 1 month." }).max(120, { message: "At most 120 months." }).default(24),
-  checkIntervalOnLoanMonths: z.number({ message: "Enter a number of months." }).int({ message: "Use whole months." }).min(1, { message: "At least 1 month." }).max(120, { message: "At most 120 months." }).default(12),
+  checkIntervalMonths: z
+    .number({ message: "Enter a number of months." })
+    .int({ message: "Use whole months." })
+    .min(1, { message: "At least 1 month." })
+    .max(120, { message: "At most 120 months." })
+    .default(24),
+  checkIntervalOnLoanMonths: z
+    .number({ message: "Enter a number of months." })
+    .int({ message: "Use whole months." })
+    .min(1, { message: "At least 1 month." })
+    .max(120, { message: "At most 120 months." })
+    .default(12),
   framePresets: z
     .array(
       z.object({

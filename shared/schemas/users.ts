@@ -11,12 +11,26 @@ export const UserCreateSchema = z
     name: requiredText(200, "Give the person's name."),
     email: z.email({ message: "Enter a valid e-mail address." }).transform((v) => v.toLowerCase()),
     role: RoleSchema,
-    clientId: z.string().min(1).max(64).nullable().optional().transform((v) => v ?? null),
-    password: z.string({ message: "Give a first password." }).min(PASSWORD_MIN_LENGTH, { message: `Use at least ${PASSWORD_MIN_LENGTH} characters: a phrase of a few unrelated words is easiest to remember.` }).max(200),
+    clientId: z
+      .string()
+      .min(1)
+      .max(64)
+      .nullable()
+      .optional()
+      .transform((v) => v ?? null),
+    password: z
+      .string({ message: "Give a first password." })
+      .min(PASSWORD_MIN_LENGTH, { message: `Use at least ${PASSWORD_MIN_LENGTH} characters: a phrase of a few unrelated words is easiest to remember.` })
+      .max(200),
   })
   .superRefine((u, ctx) => {
     const needsClient = u.role === "collector" || u.role === "registrar";
-    if (needsClient && !u.clientId) ctx.addIssue({ code: "custom", path: ["clientId"], message: u.role === "collector" ? "A collector belongs to one private owner: choose it." : "A registrar belongs to one institution: choose it." });
+    if (needsClient && !u.clientId)
+      ctx.addIssue({
+        code: "custom",
+        path: ["clientId"],
+        message: u.role === "collector" ? "A collector belongs to one private owner: choose it." : "A registrar belongs to one institution: choose it.",
+      });
     if (!needsClient && u.clientId) ctx.addIssue({ code: "custom", path: ["clientId"], message: "Studio staff do not belong to a client." });
   });
 export type UserCreate = z.infer<typeof UserCreateSchema>;

@@ -23,7 +23,9 @@ export function ChecksList({ checks, showSources = true }: { checks: Check[]; sh
       <ul className="divide-y divide-stone-light" data-testid="plan-checks">
         {checks.map((c) => (
           <li key={c.id} className="flex gap-3 py-2 print:py-0.5">
-            <span className={`mt-0.5 inline-flex h-6 min-w-14 items-center justify-center gap-1 rounded px-1.5 text-xs font-semibold print:h-4 print:text-[9px] ${VERDICT[c.verdict].cls}`}>
+            <span
+              className={`mt-0.5 inline-flex h-6 min-w-14 items-center justify-center gap-1 rounded px-1.5 text-xs font-semibold print:h-4 print:text-[9px] ${VERDICT[c.verdict].cls}`}
+            >
               <span aria-hidden="true">{VERDICT[c.verdict].mark}</span>
               {VERDICT[c.verdict].word}
             </span>
@@ -35,7 +37,9 @@ export function ChecksList({ checks, showSources = true }: { checks: Check[]; sh
           </li>
         ))}
       </ul>
-      <p className="mt-3 text-xs text-graphite print:mt-1 print:text-[9px]">These checks are planning aids, not conservation treatment advice; for a damaged or unstable object, consult a qualified conservator.</p>
+      <p className="mt-3 text-xs text-graphite print:mt-1 print:text-[9px]">
+        These checks are planning aids, not conservation treatment advice; for a damaged or unstable object, consult a qualified conservator.
+      </p>
     </>
   );
 }

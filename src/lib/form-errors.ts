@@ -33,10 +33,7 @@ export function errorAt(errors: unknown, path: string): string | undefined {
  * The values stay exactly as typed. `accept` limits the messages to paths the form has a field for;
  * `focus` moves to the first one.
  */
-export function useServerErrors<T extends FieldValues>(
-  form: { setError: UseFormSetError<T> },
-  opts: { accept?: (path: string) => boolean; focus?: boolean } = {},
-) {
+export function useServerErrors<T extends FieldValues>(form: { setError: UseFormSetError<T> }, opts: { accept?: (path: string) => boolean; focus?: boolean } = {}) {
   const [error, setError] = useState<ApiError | null>(null);
   async function run<R>(save: () => Promise<R>): Promise<R | undefined> {
     setError(null);
@@ -58,14 +55,13 @@ export function useServerErrors<T extends FieldValues>(
  * A resolver's answer for a record that can be corrected: the shared schema's result, plus the reason
  * a correction must give. Either the parsed body with the trimmed reason, or every message at its field.
  */
-export function withCorrectionReason<V extends FieldValues, P extends { success: true; data: object } | { success: false; error: { issues: readonly { path: PropertyKey[]; message: string }[] } }>(
-  parsed: P,
-  correcting: boolean,
-  reason: string,
-  missingReason: string,
-) {
+export function withCorrectionReason<
+  V extends FieldValues,
+  P extends { success: true; data: object } | { success: false; error: { issues: readonly { path: PropertyKey[]; message: string }[] } },
+>(parsed: P, correcting: boolean, reason: string, missingReason: string) {
   const fields = parsed.success ? {} : issuesToFields(parsed.error.issues);
   if (correcting && !reason.trim()) fields.correctionReason = missingReason;
-  if (parsed.success && Object.keys(fields).length === 0) return { values: { ...(parsed.data as Extract<P, { success: true }>["data"]), correctionReason: reason.trim() }, errors: {} };
+  if (parsed.success && Object.keys(fields).length === 0)
+    return { values: { ...(parsed.data as Extract<P, { success: true }>["data"]), correctionReason: reason.trim() }, errors: {} };
   return { values: {}, errors: nestedErrors<V>(fields) };
 }

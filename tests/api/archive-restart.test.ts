@@ -57,6 +57,10 @@ describe("an archive job when the server is killed while it is built", () => {
     expect(state).toBe("done");
     const zip = await fetch(`${second.baseUrl}/api/exports/${newId}/download`, { headers: { cookie } });
     expect(zip.status).toBe(200);
-    expect(Buffer.from(await zip.arrayBuffer()).subarray(0, 2).toString("latin1")).toBe("PK");
+    expect(
+      Buffer.from(await zip.arrayBuffer())
+        .subarray(0, 2)
+        .toString("latin1"),
+    ).toBe("PK");
   }, 240_000);
 });

@@ -35,7 +35,11 @@ describe("npm run backup and npm run restore", () => {
     let n = 0;
     const create = async () => {
       const number = `BK-${String(++n).padStart(5, "0")}`;
-      const r = await fetch(`${server.baseUrl}/api/objects`, { method: "POST", headers, body: JSON.stringify({ objectNumber: number, title: `Backup study ${n}`, objectType: "print", sheetWidthMm: 210, sheetHeightMm: 297, clientId, status: "in-studio" }) });
+      const r = await fetch(`${server.baseUrl}/api/objects`, {
+        method: "POST",
+        headers,
+        body: JSON.stringify({ objectNumber: number, title: `Backup study ${n}`, objectType: "print", sheetWidthMm: 210, sheetHeightMm: 297, clientId, status: "in-studio" }),
+      });
       if (r.status !== 201) throw new Error(`create answered ${r.status}: ${await r.text()}`);
       return (await r.json()).id as string;
     };
@@ -45,7 +49,18 @@ describe("npm run backup and npm run restore", () => {
     const target = before[0];
     const form = new FormData();
     form.set("kind", "recto");
-    form.set("file", new Blob([await sharp({ create: { width: 48, height: 32, channels: 3, background: { r: 120, g: 100, b: 80 } } }).png().toBuffer()], { type: "image/png" }), "recto.png");
+    form.set(
+      "file",
+      new Blob(
+        [
+          await sharp({ create: { width: 48, height: 32, channels: 3, background: { r: 120, g: 100, b: 80 } } })
+            .png()
+            .toBuffer(),
+        ],
+        { type: "image/png" },
+      ),
+      "recto.png",
+    );
     const up = await fetch(`${server.baseUrl}/api/objects/${target}/photos`, { method: "POST", headers: { cookie, origin: server.baseUrl }, body: form });
     expect(up.status).toBe(201);
     const photo = await up.json();
@@ -114,7 +129,19 @@ describe("npm run backup and npm run restore", () => {
     // Objects keep being made (each one an event and a checkpoint) while the backup runs.
     const load = (async () => {
       while (loading) {
-        const r = await fetch(`${server.baseUrl}/api/objects`, { method: "POST", headers, body: JSON.stringify({ objectNumber: `CP-${String(++n).padStart(5, "0")}`, title: `Checkpoint study ${n}`, objectType: "print", sheetWidthMm: 210, sheetHeightMm: 297, clientId, status: "in-studio" }) });
+        const r = await fetch(`${server.baseUrl}/api/objects`, {
+          method: "POST",
+          headers,
+          body: JSON.stringify({
+            objectNumber: `CP-${String(++n).padStart(5, "0")}`,
+            title: `Checkpoint study ${n}`,
+            objectType: "print",
+            sheetWidthMm: 210,
+            sheetHeightMm: 297,
+            clientId,
+            status: "in-studio",
+          }),
+        });
         if (r.status !== 201) failures.push(`${r.status} ${await r.text()}`);
       }
     })();

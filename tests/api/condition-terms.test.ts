@@ -80,7 +80,9 @@ describe("reading the vocabulary", () => {
 
 describe("keeping the vocabulary", () => {
   it("when the admin adds a term, then it answers 201 and it goes last in its list", async () => {
-    const res = await as.admin.post("/api/condition-terms").send({ list: "paper", term: "  media flaking  ", caution: "Friable media: do not brush; keep the sheet flat and face up." });
+    const res = await as.admin
+      .post("/api/condition-terms")
+      .send({ list: "paper", term: "  media flaking  ", caution: "Friable media: do not brush; keep the sheet flat and face up." });
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({ list: "paper", term: "media flaking", active: true, sortOrder: 23 });
     expect(res.body.caution).toMatch(/Friable/);
@@ -121,7 +123,9 @@ describe("keeping the vocabulary", () => {
 
   it("when the admin edits a term, then its words, caution and place change", async () => {
     const made = (await as.admin.post("/api/condition-terms").send({ list: "paper", term: "smoke damge" })).body as Term;
-    const res = await as.admin.put(`/api/condition-terms/${made.id}`).send({ list: "paper", term: "smoke damage", caution: "Soot smears: do not touch the surface.", active: true, sortOrder: 2 });
+    const res = await as.admin
+      .put(`/api/condition-terms/${made.id}`)
+      .send({ list: "paper", term: "smoke damage", caution: "Soot smears: do not touch the surface.", active: true, sortOrder: 2 });
     expect(res.status).toBe(200);
     expect(res.body).toEqual({ id: made.id, list: "paper", term: "smoke damage", caution: "Soot smears: do not touch the surface.", active: true, sortOrder: 2 });
   });
@@ -177,10 +181,15 @@ describe("keeping the vocabulary", () => {
 
 describe("old reports keep their words", () => {
   it("when a term used in a signed report is renamed and retired, then the report still reads as written, with its caution", async () => {
-    const made = (await as.admin.post("/api/condition-terms").send({ list: "paper", term: "active mould bloom", caution: "Treat as mould: nitrile gloves and a respirator." })).body as Term;
+    const made = (await as.admin.post("/api/condition-terms").send({ list: "paper", term: "active mould bloom", caution: "Treat as mould: nitrile gloves and a respirator." }))
+      .body as Term;
     const objectId = makeObject(t.db, studio.collectorClient.id);
     const finding = { id: "f-1", term: "active mould bloom", location: { kind: "zone", zone: "verso" }, severity: "moderate" };
-    const draft = await as.framer.post(`/api/objects/${objectId}/condition`).send({ context: "arrival", reportDate: "2026-03-02", data: { overallRating: "fair", summary: "Bloom on the back.", findings: [finding], signatures: { examiner: { name: "Test framer", date: "2026-03-02" } } } });
+    const draft = await as.framer.post(`/api/objects/${objectId}/condition`).send({
+      context: "arrival",
+      reportDate: "2026-03-02",
+      data: { overallRating: "fair", summary: "Bloom on the back.", findings: [finding], signatures: { examiner: { name: "Test framer", date: "2026-03-02" } } },
+    });
     expect(draft.status).toBe(201);
     const signed = await as.framer.post(`/api/condition/${draft.body.id}/sign`).send({ version: draft.body.version });
     expect(signed.status).toBe(200);

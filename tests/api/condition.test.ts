@@ -62,7 +62,23 @@ async function signedOn(objectId: string, data: ConditionDataInput = DATA, over:
 /** A photo row as the photos feature would leave it (the files themselves are not needed here). */
 function makePhoto(objectId: string): string {
   const id = randomUUID();
-  t.db.insert(photos).values({ id, objectId, kind: "condition", mime: "image/jpeg", width: 1200, height: 900, bytes: 123_456, sha256: "a".repeat(64), originalKey: `o/${id}`, fullKey: `f/${id}`, webKey: `w/${id}`, thumbKey: `t/${id}` }).run();
+  t.db
+    .insert(photos)
+    .values({
+      id,
+      objectId,
+      kind: "condition",
+      mime: "image/jpeg",
+      width: 1200,
+      height: 900,
+      bytes: 123_456,
+      sha256: "a".repeat(64),
+      originalKey: `o/${id}`,
+      fullKey: `f/${id}`,
+      webKey: `w/${id}`,
+      thumbKey: `t/${id}`,
+    })
+    .run();
   return id;
 }
 function makeMounting(objectId: string, status: "draft" | "completed" = "completed", mountedOn = "2026-01-10"): string {
@@ -154,7 +170,11 @@ describe("the life cycle of a condition report", () => {
   it("when the report is signed, then one condition-reported event tells the rating, findings and examiner", () => {
     const evs = eventsOf(objectId);
     expect(evs).toHaveLength(1);
-    expect(evs[0]).toMatchObject({ type: "condition-reported", actorName: "Test framer", summary: "Condition on arrival: poor — 3 findings (foxing, tear, abrasion). Examined by Test framer." });
+    expect(evs[0]).toMatchObject({
+      type: "condition-reported",
+      actorName: "Test framer",
+      summary: "Condition on arrival: poor — 3 findings (foxing, tear, abrasion). Examined by Test framer.",
+    });
     expect(evs[0].at.toISOString()).toBe(NOW.toISOString());
     expect(evs[0].data).toMatchObject({ reportId: report.id, revision: 1, rating: "poor", findings: 3, unresolved: 2 });
   });
@@ -183,7 +203,9 @@ describe("the life cycle of a condition report", () => {
 
   it("when a signed report is corrected with a reason, then revision 2 holds the correction and the register columns follow it", async () => {
     const data = { ...report.current.data, overallRating: "fair" as const, findings: [FOXING, { ...TEAR, severity: "moderate" as const }, { ...ABRASION, resolved: true }] };
-    const res = await as.framer.post(`/api/condition/${report.id}/corrections`).send({ version: report.version, correctionReason: "The tear was measured again: moderate, not severe.", data });
+    const res = await as.framer
+      .post(`/api/condition/${report.id}/corrections`)
+      .send({ version: report.version, correctionReason: "The tear was measured again: moderate, not severe.", data });
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({ id: report.id, status: "signed", currentRevision: 2, version: report.version + 1, rating: "fair" });
     expect(res.body.current).toMatchObject({ revision: 2, correctionReason: "The tear was measured again: moderate, not severe.", createdByName: "Test framer" });
@@ -227,7 +249,9 @@ describe("the life cycle of a condition report", () => {
   });
 
   it("when a correction starts from a stale version, then it answers 409 and no revision is added", async () => {
-    const res = await as.admin.post(`/api/condition/${report.id}/corrections`).send({ version: report.version - 1, correctionReason: "Stale tab.", data: with_({ summary: "From a stale tab." }) });
+    const res = await as.admin
+      .post(`/api/condition/${report.id}/corrections`)
+      .send({ version: report.version - 1, correctionReason: "Stale tab.", data: with_({ summary: "From a stale tab." }) });
     expect(res.status).toBe(409);
     expectErrorShape(res.body, "conflict");
     expect(reportRow(report.id).currentRevision).toBe(2);
@@ -360,7 +384,9 @@ describe("signing", () => {
   });
 
   it("when a signature's date is not a real day, then even the draft is refused, at that date", async () => {
-    const res = await as.framer.post(`/api/objects/${makeObject(t.db, studio.institution.id)}/condition`).send(createBody(with_({ signatures: { examiner: { name: "Test framer", date: "2026-02-30" } } })));
+    const res = await as.framer
+      .post(`/api/objects/${makeObject(t.db, studio.institution.id)}/condition`)
+      .send(createBody(with_({ signatures: { examiner: { name: "Test framer", date: "2026-02-30" } } })));
     expect(res.status).toBe(422);
     expect(Object.keys(expectErrorShape(res.body, "validation_failed").fields ?? {})).toEqual(["data.signatures.examiner.date"]);
   });
@@ -376,7 +402,9 @@ describe("signing", () => {
 
   it("when a correction of a loan report drops the other party's signature, then it answers 422", async () => {
     const s = await signedOn(makeObject(t.db, studio.institution.id), with_({ signatures: { examiner: EXAMINER, otherParty: OTHER_PARTY } }), { context: "loan-return" });
-    const res = await as.framer.post(`/api/condition/${s.id}/corrections`).send({ version: s.version, correctionReason: "Tidy.", data: with_({ signatures: { examiner: EXAMINER } }) });
+    const res = await as.framer
+      .post(`/api/condition/${s.id}/corrections`)
+      .send({ version: s.version, correctionReason: "Tidy.", data: with_({ signatures: { examiner: EXAMINER } }) });
     expect(res.status).toBe(422);
     expect(Object.keys(expectErrorShape(res.body, "validation_failed").fields ?? {})).toEqual(["data.signatures.otherParty"]);
     expect(reportRow(s.id).currentRevision).toBe(1);
@@ -510,7 +538,9 @@ describe("what a report may refer to", () => {
     expect((await as.admin.put(`/api/condition-terms/${made.body.id}`).send({ ...made.body, active: false })).status).toBe(200);
     const fields = await refused(createBody(with_({ findings: [bloom] })));
     expect(fields["data.findings.0.term"]).toMatch(/retired/);
-    const fix = await as.framer.post(`/api/condition/${s.id}/corrections`).send({ version: s.version, correctionReason: "Extent measured.", data: with_({ findings: [{ ...bloom, extent: "Whole lower half" }] }) });
+    const fix = await as.framer
+      .post(`/api/condition/${s.id}/corrections`)
+      .send({ version: s.version, correctionReason: "Extent measured.", data: with_({ findings: [{ ...bloom, extent: "Whole lower half" }] }) });
     expect(fix.status).toBe(201);
     expect(fix.body.current.data.findings[0].term).toBe("bloom");
   });
@@ -588,7 +618,10 @@ describe("comparing two reports", () => {
   beforeAll(async () => {
     objectId = makeObject(t.db, studio.collectorClient.id);
     arrival = await signedOn(objectId, DATA, { reportDate: "2026-03-02" });
-    check = await signedOn(objectId, with_({ overallRating: "poor", findings: [FOXING, { ...TEAR, severity: "severe" }, ABRASION] }), { context: "periodic-check", reportDate: "2026-11-19" });
+    check = await signedOn(objectId, with_({ overallRating: "poor", findings: [FOXING, { ...TEAR, severity: "severe" }, ABRASION] }), {
+      context: "periodic-check",
+      reportDate: "2026-11-19",
+    });
   });
 
   const byTerm = (fs: ComparedFinding[]) => Object.fromEntries(fs.map((f) => [(f.after ?? f.before)!.term, f.status]));
@@ -660,8 +693,16 @@ describe("the condition register", () => {
     r.ownArrival = await signedOn(own, with_({ overallRating: "fair" }), { reportDate: "2031-01-10" }, examinerAgent);
     r.ownDraft = await draftOn(own, with_({ overallRating: "good", findings: [FOXING] }), { reportDate: "2031-02-01", context: "periodic-check" });
     r.instCheck = await signedOn(inst, with_({ overallRating: "poor", findings: [{ ...TEAR, severity: "severe" }] }), { reportDate: "2031-03-05", context: "periodic-check" });
-    r.instResolved = await signedOn(inst, with_({ overallRating: "good", findings: [{ ...FOXING, resolved: true }] }), { reportDate: "2031-04-01", context: "after-mounting" }, examinerAgent);
-    r.otherIncident = await signedOn(otherInst, with_({ overallRating: "unstable", findings: [{ ...TEAR, severity: "critical" }] }), { reportDate: "2031-05-20", context: "incident" });
+    r.instResolved = await signedOn(
+      inst,
+      with_({ overallRating: "good", findings: [{ ...FOXING, resolved: true }] }),
+      { reportDate: "2031-04-01", context: "after-mounting" },
+      examinerAgent,
+    );
+    r.otherIncident = await signedOn(otherInst, with_({ overallRating: "unstable", findings: [{ ...TEAR, severity: "critical" }] }), {
+      reportDate: "2031-05-20",
+      context: "incident",
+    });
     // The signings above set each object's check date; pin them so the due-by filter has clear answers.
     t.db.update(objects).set({ checkDueOn: "2031-06-30" }).where(eq(objects.id, own)).run();
     t.db.update(objects).set({ checkDueOn: "2033-03-05" }).where(eq(objects.id, inst)).run();
@@ -859,7 +900,9 @@ describe("who may do what with condition reports", () => {
       run: async (agent, objectId) => {
         const s = await signedOn(objectId);
         const before = snapshot(objectId);
-        const res = await agent.post(`/api/condition/${s.id}/corrections`).send({ version: s.version, correctionReason: "Extent measured again.", data: with_({ summary: "Corrected." }) });
+        const res = await agent
+          .post(`/api/condition/${s.id}/corrections`)
+          .send({ version: s.version, correctionReason: "Extent measured again.", data: with_({ summary: "Corrected." }) });
         return { status: res.status, body: res.body, written: () => snapshot(objectId) !== before };
       },
     },

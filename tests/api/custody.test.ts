@@ -448,7 +448,11 @@ describe("the demo custody seed", () => {
     }
     const days = (res.body.items as InStudioItem[]).map((i) => i.since);
     expect(days).toEqual([...days].sort());
-    const statuses = d.db.select({ status: objects.status }).from(objects).all().map((o) => o.status);
+    const statuses = d.db
+      .select({ status: objects.status })
+      .from(objects)
+      .all()
+      .map((o) => o.status);
     expect(statuses.filter((s) => s === "on-loan")).toHaveLength(2);
     expect(statuses.filter((s) => s === "with-conservator")).toHaveLength(1);
   });
@@ -464,6 +468,12 @@ describe("the demo custody seed", () => {
     expect(history.body.items.map((e: HistoryEvent) => e.type)).toEqual(["custody-out", "custody-in"]);
     expect(history.body.items[0].summary).toContain("Sent to a conservator on 30 Jul 2026: from Tidewell & Marr Conservation Framing to Lena Marsh");
     expect(verifyChains(d.db).ok).toBe(true);
-    expect(d.db.select().from(events).all().filter((e) => e.type.startsWith("custody-") || e.type.startsWith("loan-"))).toHaveLength(written);
+    expect(
+      d.db
+        .select()
+        .from(events)
+        .all()
+        .filter((e) => e.type.startsWith("custody-") || e.type.startsWith("loan-")),
+    ).toHaveLength(written);
   });
 });

@@ -39,10 +39,35 @@ const MOUNTING = (mountedOn: string) => ({
 
 describe("every write and filter refuses a day that does not exist, naming the field, and saves nothing", () => {
   const writes: [string, (d: string) => Promise<{ status: number; body: unknown }>, string, () => number][] = [
-    ["object valuation date", (d) => framer.post("/api/objects").send({ objectNumber: `D-${Math.random().toString(36).slice(2, 8)}`, title: "Study", objectType: "print", sheetWidthMm: 210, sheetHeightMm: 297, clientId, status: "in-studio", valuationDate: d }), "valuationDate", () => t.db.select().from(objects).all().length],
+    [
+      "object valuation date",
+      (d) =>
+        framer.post("/api/objects").send({
+          objectNumber: `D-${Math.random().toString(36).slice(2, 8)}`,
+          title: "Study",
+          objectType: "print",
+          sheetWidthMm: 210,
+          sheetHeightMm: 297,
+          clientId,
+          status: "in-studio",
+          valuationDate: d,
+        }),
+      "valuationDate",
+      () => t.db.select().from(objects).all().length,
+    ],
     ["mounting date", (d) => framer.post(`/api/objects/${objectId}/mountings`).send(MOUNTING(d)), "mountedOn", () => t.db.select().from(mountings).all().length],
-    ["condition report date", (d) => framer.post(`/api/objects/${objectId}/condition`).send({ context: "arrival", reportDate: d, data: { overallRating: "good", summary: "Sound." } }), "reportDate", () => t.db.select().from(conditionReports).all().length],
-    ["custody date", (d) => framer.post(`/api/objects/${objectId}/custody`).send({ kind: "intake", date: d, fromParty: "Owner", toParty: "Studio", condition: "Sound.", signedBy: "A. Framer" }), "date", () => t.db.select().from(custodyReceipts).all().length],
+    [
+      "condition report date",
+      (d) => framer.post(`/api/objects/${objectId}/condition`).send({ context: "arrival", reportDate: d, data: { overallRating: "good", summary: "Sound." } }),
+      "reportDate",
+      () => t.db.select().from(conditionReports).all().length,
+    ],
+    [
+      "custody date",
+      (d) => framer.post(`/api/objects/${objectId}/custody`).send({ kind: "intake", date: d, fromParty: "Owner", toParty: "Studio", condition: "Sound.", signedBy: "A. Framer" }),
+      "date",
+      () => t.db.select().from(custodyReceipts).all().length,
+    ],
   ];
   it.each(writes)("when the %s is not a real day, then it answers 422 naming it", async (_what, send, field, count) => {
     const before = count();

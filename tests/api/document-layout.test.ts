@@ -75,8 +75,20 @@ beforeAll(async () => {
   for (let i = 0; i < 5; i++) {
     const data = {
       plan: { unit: "mm", sheet: { width: 560, height: 760 }, window: { all: { mode: "overlap", overlap: 6 + i } }, borders: { top: 80, side: 80, bottom: 95 } },
-      boards: { window: { grade: "museum", buffered: true, ply: 4, patPassed: true, batch: `B-${LONG_WORD.slice(0, 30)}-${i}` }, backing: { grade: "museum", buffered: false, ply: 4 } },
-      attachment: { method: "t-hinge", tissue: "Kozo, 9 g/m²", adhesive: "wheat-starch-paste", hinges: [{ edge: "top", offsetMm: 80, widthMm: 25 }, { edge: "top", offsetMm: 280, widthMm: 25 }, { edge: "top", offsetMm: 480, widthMm: 25 }] },
+      boards: {
+        window: { grade: "museum", buffered: true, ply: 4, patPassed: true, batch: `B-${LONG_WORD.slice(0, 30)}-${i}` },
+        backing: { grade: "museum", buffered: false, ply: 4 },
+      },
+      attachment: {
+        method: "t-hinge",
+        tissue: "Kozo, 9 g/m²",
+        adhesive: "wheat-starch-paste",
+        hinges: [
+          { edge: "top", offsetMm: 80, widthMm: 25 },
+          { edge: "top", offsetMm: 280, widthMm: 25 },
+          { edge: "top", offsetMm: 480, widthMm: 25 },
+        ],
+      },
       glazing: { type: "uv-acrylic", thicknessMm: 3 },
       undoNotes: `Release each hinge with a damp blotter.\nLift the sheet only once the paste has softened.\n${LONG_WORD}`,
     };
@@ -85,7 +97,12 @@ beforeAll(async () => {
     const done = await framer.post(`/api/mountings/${draft.body.id}/complete`).send({ version: draft.body.version });
     expect(done.status, JSON.stringify(done.body)).toBe(200);
   }
-  mountingIds = t.db.select({ id: mountings.id }).from(mountings).all().map((r) => r.id).slice(0, 40);
+  mountingIds = t.db
+    .select({ id: mountings.id })
+    .from(mountings)
+    .all()
+    .map((r) => r.id)
+    .slice(0, 40);
 
   // A signed condition report with forty findings and every recommendation.
   const findings = Array.from({ length: 40 }, (_, i) => ({
@@ -103,7 +120,12 @@ beforeAll(async () => {
       overallRating: "fair",
       summary: `Stable overall. ${LINES}`,
       findings,
-      recommendations: { display: "Display at 50 lux or less, for no more than three months a year.", handling: `Handle in its mount only.\n${LONG_WORD}`, environment: "Keep at 40–55 % relative humidity.", referral: "Refer the tideline staining to a qualified conservator before any reframing." },
+      recommendations: {
+        display: "Display at 50 lux or less, for no more than three months a year.",
+        handling: `Handle in its mount only.\n${LONG_WORD}`,
+        environment: "Keep at 40–55 % relative humidity.",
+        referral: "Refer the tideline staining to a qualified conservator before any reframing.",
+      },
       signatures: { examiner: { name: "Test framer", date: "2026-03-02" }, otherParty: { name: "Registrar of the collection", date: "2026-03-02", role: "Registrar" } },
     },
   });
@@ -226,7 +248,9 @@ describe.each(CONFIGS)("documents on $paperSize in $unit, with a long record", (
     expect(text).toMatch(/undoing it is bench work, not something for the owner/);
     expect(text).toContain("T-hinges");
     expect(text).not.toMatch(/t-hinge|wheat-starch-paste/);
-    expectReadable(`dossier-${tag}`, pdf, cfg, { tableHeaders: [{ header: /^(No\.?|#)?\s*Finding\b.*Severity/, row: /^\d+ (foxing|tear|abrasion|crease|stain|cockling|flyspecks|loss|fading|tide line)\b/i }] });
+    expectReadable(`dossier-${tag}`, pdf, cfg, {
+      tableHeaders: [{ header: /^(No\.?|#)?\s*Finding\b.*Severity/, row: /^\d+ (foxing|tear|abrasion|crease|stain|cockling|flyspecks|loss|fading|tide line)\b/i }],
+    });
   });
 
   it("the condition report is readable page by page", async () => {
@@ -236,7 +260,9 @@ describe.each(CONFIGS)("documents on $paperSize in $unit, with a long record", (
     expect(text).toContain("Support Cotton rag paper, 300 g/m²");
     expect(text).toMatch(/Framed or unframed In its mount and glazed frame: .* \(mounted 2024-03-05\)/);
     expect(text).toMatch(/Location at examination Store B, plan chest 4, drawer 2/);
-    expectReadable(`condition-${tag}`, pdf, cfg, { tableHeaders: [{ header: /^(No\.?|#)?\s*Finding\b.*Severity/, row: /^\d+ (foxing|tear|abrasion|crease|stain|cockling|flyspecks|loss|fading|tide line)\b/i }] });
+    expectReadable(`condition-${tag}`, pdf, cfg, {
+      tableHeaders: [{ header: /^(No\.?|#)?\s*Finding\b.*Severity/, row: /^\d+ (foxing|tear|abrasion|crease|stain|cockling|flyspecks|loss|fading|tide line)\b/i }],
+    });
   });
 
   it("the schedule of values is readable page by page", async () => {

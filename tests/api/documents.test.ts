@@ -24,7 +24,11 @@ const binary = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer
   res.on("data", (c: Buffer) => chunks.push(c));
   res.on("end", () => cb(null, Buffer.concat(chunks)));
 };
-const post = (agent: Agent, url: string) => agent.post(url).buffer(true).parse(binary as never);
+const post = (agent: Agent, url: string) =>
+  agent
+    .post(url)
+    .buffer(true)
+    .parse(binary as never);
 
 /** Runs a poppler tool on the PDF's bytes. */
 function poppler(tool: "pdftotext" | "pdffonts" | "pdfinfo", pdf: Buffer): string {
@@ -74,14 +78,20 @@ describe("the object dossier", () => {
   it("when poppler opens it, then Libre Franklin is embedded and the text holds the object number, the plan's window and the code", async () => {
     const fonts = poppler("pdffonts", pdf);
     // pdffonts columns: name type encoding emb sub uni object ID — every font is Libre Franklin, embedded.
-    const rows = fonts.split("\n").slice(2).filter((l) => l.trim());
+    const rows = fonts
+      .split("\n")
+      .slice(2)
+      .filter((l) => l.trim());
     expect(rows.length).toBeGreaterThan(0);
     for (const row of rows) expect(row).toMatch(/^[A-Z]{6}\+LibreFranklin\S*\s.*\syes\s+(yes|no)\s+(yes|no)\s+\d+\s+\d+\s*$/);
 
     expect(text).toContain("2026-0003");
     expect(text).toContain(code);
     // The window as the API computes it for the current mounting (318 × 408 mm in the demo), never typed here.
-    const mountings = (await as.framer.get(`/api/objects/${objectId()}/mountings`)).body.items as { status: string; current: { plan: { display: Record<string, string> }; data: { undoNotes: string } } }[];
+    const mountings = (await as.framer.get(`/api/objects/${objectId()}/mountings`)).body.items as {
+      status: string;
+      current: { plan: { display: Record<string, string> }; data: { undoNotes: string } };
+    }[];
     const current = mountings.find((m) => m.status === "completed")!;
     expect(current.current.plan.display.aperture).toMatch(/^\d+(\.\d)? × \d+(\.\d)? mm$/);
     expect(text).toContain(current.current.plan.display.aperture);
@@ -180,7 +190,14 @@ describe("valuations on documents", () => {
     expect(valuationLine(stripped)).toBeNull();
     const leaky = { valuationVisible: false, valuationMinor: 65000, valuationCurrency: "GBP" } as unknown as ObjectRecord;
     expect(valuationLine(leaky)).toBeNull();
-    const shown = { valuationVisible: true, valuationMinor: 65000, valuationCurrency: "GBP", valuationBasis: "market", valuationDate: "2026-01-10", valuer: null } as unknown as ObjectRecord;
+    const shown = {
+      valuationVisible: true,
+      valuationMinor: 65000,
+      valuationCurrency: "GBP",
+      valuationBasis: "market",
+      valuationDate: "2026-01-10",
+      valuer: null,
+    } as unknown as ObjectRecord;
     expect(valuationLine(shown)).toContain(formatMoney(65000, "GBP"));
   });
 });
@@ -188,7 +205,12 @@ describe("valuations on documents", () => {
 describe("the condition report for an insurer", () => {
   it("when the demo's latest report of 2026-0001 is issued, then it lists the findings, the comparison in words, the sentence on treatment and the code", async () => {
     const objectId = idOf("2026-0001");
-    const reports = (await as.framer.get(`/api/objects/${objectId}/condition`)).body.items as { id: string; reportDate: string; status: string; current: { data: { findings: { term: string }[] } } }[];
+    const reports = (await as.framer.get(`/api/objects/${objectId}/condition`)).body.items as {
+      id: string;
+      reportDate: string;
+      status: string;
+      current: { data: { findings: { term: string }[] } };
+    }[];
     const latest = reports.filter((r) => r.status === "signed").sort((a, b) => (a.reportDate < b.reportDate ? 1 : -1))[0];
     const res = await post(as.collector, `/api/condition/${latest.id}/document`);
     expect(res.status).toBe(200);
@@ -209,7 +231,9 @@ describe("the condition report for an insurer", () => {
 
   it("when a report has a photo with markers, then the photo is embedded with the findings' numbers, and the mould caution is shown", async () => {
     const objectId = idOf("2026-0003");
-    const jpeg = await sharp({ create: { width: 600, height: 400, channels: 3, background: { r: 226, g: 214, b: 190 } } }).jpeg().toBuffer();
+    const jpeg = await sharp({ create: { width: 600, height: 400, channels: 3, background: { r: 226, g: 214, b: 190 } } })
+      .jpeg()
+      .toBuffer();
     const up = await as.framer.post(`/api/objects/${objectId}/photos`).field("kind", "recto").field("caption", "Recto before mounting").attach("file", jpeg, "recto.jpg");
     expect(up.status, JSON.stringify(up.body)).toBe(201);
     const photoId = up.body.id as string;
@@ -223,7 +247,14 @@ describe("the condition report for an insurer", () => {
         overallRating: "fair",
         summary: "Stable overall; two marked findings on the recto.",
         findings: [
-          { id: "f-a", term: "foxing", location: { kind: "marker", photoId, x: 0.25, y: 0.3 }, severity: "slight", extent: "scattered spots", notes: "Two spots near the plate mark.\nBoth small." },
+          {
+            id: "f-a",
+            term: "foxing",
+            location: { kind: "marker", photoId, x: 0.25, y: 0.3 },
+            severity: "slight",
+            extent: "scattered spots",
+            notes: "Two spots near the plate mark.\nBoth small.",
+          },
           { id: "f-b", term: mould.term, location: { kind: "marker", photoId, x: 0.7, y: 0.65 }, severity: "moderate", extent: "one patch" },
         ],
         photoIds: [photoId],
@@ -249,7 +280,10 @@ describe("the condition report for an insurer", () => {
     expect(text).toContain("markers 1, 2");
     // Typed notes with line breaks are set line by line, so no text falls back to an unembedded font.
     expect(text).toContain("Both small.");
-    const fonts = poppler("pdffonts", pdf).split("\n").slice(2).filter((l) => l.trim());
+    const fonts = poppler("pdffonts", pdf)
+      .split("\n")
+      .slice(2)
+      .filter((l) => l.trim());
     for (const row of fonts) expect(row).toMatch(/^[A-Z]{6}\+LibreFranklin\S*\s.*\syes\s+(yes|no)\s+(yes|no)\s+\d+\s+\d+\s*$/);
     expect(text).toContain(mould.caution!.slice(0, 40).replace(/\s+/g, " "));
     // The markers are drawn over the photo: their numbers are text on the page, and the photo is an image.

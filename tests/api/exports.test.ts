@@ -71,7 +71,14 @@ async function json(agent: Agent, url: string): Promise<Record<string, string | 
 const asCsvCells = (rows: Record<string, string | number | null>[]) =>
   rows.map((r) =>
     Object.fromEntries(
-      Object.entries(r).map(([k, v]) => [k, v == null ? "" : k === "Valuation" && typeof v === "number" ? minorToDecimal(Math.round(v * 10 ** minorDigits(String(r["Valuation currency"]))), String(r["Valuation currency"])) : String(v)]),
+      Object.entries(r).map(([k, v]) => [
+        k,
+        v == null
+          ? ""
+          : k === "Valuation" && typeof v === "number"
+            ? minorToDecimal(Math.round(v * 10 ** minorDigits(String(r["Valuation currency"]))), String(r["Valuation currency"]))
+            : String(v),
+      ]),
     ),
   );
 
@@ -88,12 +95,27 @@ beforeAll(async () => {
   const byName = (name: string) => t.db.select({ id: clients.id }).from(clients).where(eq(clients.name, name)).get()!.id;
   varga = byName("Odile Varga-Pennick");
   wrenfold = byName("Wrenfold Hall Collection Trust");
-  makeObject(t.db, varga, { objectNumber: "2026-0900", title: TRICKY, objectType: "document", status: "in-studio", valuationMinor: 12345, valuationCurrency: "GBP", valuationDate: "2026-05-01", valuationBasis: "agreed" });
+  makeObject(t.db, varga, {
+    objectNumber: "2026-0900",
+    title: TRICKY,
+    objectType: "document",
+    status: "in-studio",
+    valuationMinor: 12345,
+    valuationCurrency: "GBP",
+    valuationDate: "2026-05-01",
+    valuationBasis: "agreed",
+  });
 
   // One photo on one of the collector's objects, through the real upload route.
-  const target = t.db.select().from(objects).where(and(eq(objects.clientId, varga), eq(objects.objectNumber, "2026-0001"))).get()!;
+  const target = t.db
+    .select()
+    .from(objects)
+    .where(and(eq(objects.clientId, varga), eq(objects.objectNumber, "2026-0001")))
+    .get()!;
   photoObjectNumber = target.objectNumber;
-  const png = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: 184, g: 152, b: 118 } } }).png().toBuffer();
+  const png = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: 184, g: 152, b: 118 } } })
+    .png()
+    .toBuffer();
   const up = await as.framer.post(`/api/objects/${target.id}/photos`).field("kind", "recto").attach("file", png, { filename: "recto.png" });
   if (up.status !== 201) throw new Error(`Photo upload answered ${up.status}: ${JSON.stringify(up.body)}`);
   photoId = up.body.id;
@@ -118,7 +140,24 @@ describe("single-dataset exports", () => {
 
   it("when any dataset is read, then no cell is a stored code: every value is in words (docs/exports.md)", async () => {
     const codes = new Set<string>(
-      [CONDITION_CONTEXTS, RATINGS, SEVERITIES, ZONES, CUSTODY_KINDS, ATTACHMENT_METHODS, ADHESIVES, BOARD_GRADES, MOUNTING_REASONS, MOUNTING_STATUSES, GLAZING_TYPES, OBJECT_TYPES, PHOTO_PROCESSES, SENSITIVITIES, OBJECT_STATUSES, VALUATION_BASES].flat(),
+      [
+        CONDITION_CONTEXTS,
+        RATINGS,
+        SEVERITIES,
+        ZONES,
+        CUSTODY_KINDS,
+        ATTACHMENT_METHODS,
+        ADHESIVES,
+        BOARD_GRADES,
+        MOUNTING_REASONS,
+        MOUNTING_STATUSES,
+        GLAZING_TYPES,
+        OBJECT_TYPES,
+        PHOTO_PROCESSES,
+        SENSITIVITIES,
+        OBJECT_STATUSES,
+        VALUATION_BASES,
+      ].flat(),
     );
     let cells = 0;
     for (const dataset of ["objects", "mountings", "condition", "custody", "valuations"] as const) {
@@ -140,7 +179,11 @@ describe("single-dataset exports", () => {
     expect(vals.length).toBeGreaterThan(0);
     for (const v of vals) {
       expect(typeof v.Valuation).toBe("number");
-      const o = t.db.select().from(objects).where(and(eq(objects.clientId, varga), eq(objects.objectNumber, String(v["Object number"])))).get()!;
+      const o = t.db
+        .select()
+        .from(objects)
+        .where(and(eq(objects.clientId, varga), eq(objects.objectNumber, String(v["Object number"]))))
+        .get()!;
       expect(Math.round((v.Valuation as number) * 10 ** minorDigits(o.valuationCurrency!))).toBe(o.valuationMinor);
     }
     const objs = await json(as.collector, `/api/clients/${varga}/exports/objects.json`);
@@ -157,7 +200,12 @@ describe("single-dataset exports", () => {
       const lines = String(c.Findings).split("\n");
       expect(lines).toHaveLength(c["Number of findings"] as number);
       for (const [i, l] of lines.entries()) expect(l.startsWith(`${i + 1}. `)).toBe(true);
-      const report = t.db.select().from(conditionRevisions).where(eq(conditionRevisions.reportId, String(c["Condition check/assessment reference number"]))).all().at(-1)!;
+      const report = t.db
+        .select()
+        .from(conditionRevisions)
+        .where(eq(conditionRevisions.reportId, String(c["Condition check/assessment reference number"])))
+        .all()
+        .at(-1)!;
       const data = report.data as { findings: { term: string; severity: string }[]; recommendations: Record<string, string | null> };
       for (const [i, f] of data.findings.entries()) expect(lines[i]).toContain(f.term);
       expect(c["Recommendation: handling"]).toBe(data.recommendations.handling ?? null);
@@ -167,12 +215,24 @@ describe("single-dataset exports", () => {
 
   it("when the custody dataset is read, then it lists every hand-over of the client's objects as recorded", async () => {
     const rows = await json(as.collector, `/api/clients/${varga}/exports/custody.json`);
-    const ids = t.db.select({ id: objects.id }).from(objects).where(eq(objects.clientId, varga)).all().map((o) => o.id);
+    const ids = t.db
+      .select({ id: objects.id })
+      .from(objects)
+      .where(eq(objects.clientId, varga))
+      .all()
+      .map((o) => o.id);
     const recorded = t.db.select().from(custodyReceipts).where(inArray(custodyReceipts.objectId, ids)).all();
     expect(rows.map((r) => r["Receipt id"]).sort()).toEqual(recorded.map((r) => r.id).sort());
     for (const r of recorded) {
       const row = rows.find((x) => x["Receipt id"] === r.id)!;
-      expect(row).toMatchObject({ Date: r.date, From: r.fromParty, To: r.toParty, "Signed by": r.signedBy, "Hand-over": CUSTODY_KIND_LABELS[r.kind as keyof typeof CUSTODY_KIND_LABELS], "Agreed return date": r.returnDue ?? null });
+      expect(row).toMatchObject({
+        Date: r.date,
+        From: r.fromParty,
+        To: r.toParty,
+        "Signed by": r.signedBy,
+        "Hand-over": CUSTODY_KIND_LABELS[r.kind as keyof typeof CUSTODY_KIND_LABELS],
+        "Agreed return date": r.returnDue ?? null,
+      });
     }
     expect((await as.registrar.get(`/api/clients/${varga}/exports/custody.json`)).status).toBe(404);
   });
@@ -213,7 +273,19 @@ describe("single-dataset exports", () => {
 
   it("when the header is read, then it uses the Spectrum 5.0 unit names, and lengths carry their unit", async () => {
     const { header } = await csv(as.framer, `/api/clients/${varga}/exports/objects.csv`);
-    for (const name of ["Object number", "Object name", "Title", "Production person", "Production date", "Current location", "Condition check date", "Valuation", "Valuation currency", "Valuation date", "Valuer"])
+    for (const name of [
+      "Object number",
+      "Object name",
+      "Title",
+      "Production person",
+      "Production date",
+      "Current location",
+      "Condition check date",
+      "Valuation",
+      "Valuation currency",
+      "Valuation date",
+      "Valuer",
+    ])
       expect(header).toContain(name);
     for (const h of header.filter((h) => h.startsWith("Dimension"))) expect(h).toMatch(/\(mm\)$/);
     const cond = await csv(as.framer, `/api/clients/${varga}/exports/condition.csv`);
@@ -226,7 +298,11 @@ describe("single-dataset exports", () => {
     for (const r of inStudio) expect(r.Status).toBe(OBJECT_STATUS_LABELS["in-studio"]);
     const photographs = await json(as.framer, `/api/clients/${varga}/exports/objects.json?objectType=photograph`);
     expect(photographs.map((r) => r["Object name"])).toEqual(photographs.map(() => "Photograph"));
-    const inDb = t.db.select({ n: sql<number>`count(*)` }).from(objects).where(and(eq(objects.clientId, varga), eq(objects.objectType, "photograph"))).get()!.n;
+    const inDb = t.db
+      .select({ n: sql<number>`count(*)` })
+      .from(objects)
+      .where(and(eq(objects.clientId, varga), eq(objects.objectType, "photograph")))
+      .get()!.n;
     expect(inDb).toBeGreaterThan(0);
     expect(photographs.length).toBe(inDb);
     const all = await json(as.framer, `/api/clients/${varga}/exports/objects.json`);
@@ -234,7 +310,12 @@ describe("single-dataset exports", () => {
   });
 
   it("when the collector or the registrar export their own client's records, then they see the valuation columns, as the studio does", async () => {
-    for (const [agent, client] of [[as.collector, varga], [as.registrar, wrenfold], [as.admin, wrenfold], [as.framer, varga]] as const) {
+    for (const [agent, client] of [
+      [as.collector, varga],
+      [as.registrar, wrenfold],
+      [as.admin, wrenfold],
+      [as.framer, varga],
+    ] as const) {
       const { header, rows } = await csv(agent, `/api/clients/${client}/exports/objects.csv`);
       expect(header).toEqual(expect.arrayContaining(VALUATION_COLUMNS));
       expect(rows.some((r) => r.Valuation !== "")).toBe(true);
@@ -276,7 +357,10 @@ describe("single-dataset exports", () => {
   });
 
   it("when someone exports another client's records, then it answers 404, as for a client that does not exist", async () => {
-    for (const [agent, client] of [[as.collector, wrenfold], [as.registrar, varga]] as const) {
+    for (const [agent, client] of [
+      [as.collector, wrenfold],
+      [as.registrar, varga],
+    ] as const) {
       for (const url of [`/api/clients/${client}/exports/objects.csv`, `/api/clients/${client}/exports/valuations.json`]) {
         const res = await agent.get(url);
         expect(res.status, url).toBe(404);
@@ -351,18 +435,32 @@ describe("bulk ZIP of one client's records", () => {
     expect(res.headers["content-type"]).toBe("application/zip");
     expect(res.headers["content-disposition"]).toMatch(/^attachment; filename=".+\.zip"$/);
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-export-test-"));
-    const ids = t.db.select({ id: objects.id }).from(objects).where(eq(objects.clientId, varga)).all().map((o) => o.id);
+    const ids = t.db
+      .select({ id: objects.id })
+      .from(objects)
+      .where(eq(objects.clientId, varga))
+      .all()
+      .map((o) => o.id);
     try {
       const file = path.join(dir, "export.zip");
       fs.writeFileSync(file, res.body as Buffer);
       const names = unzipList(file).sort();
       const datasets = ["condition", "custody", "mountings", "objects", "valuations"].flatMap((d) => [`${d}.csv`, `${d}.json`]);
-      const numbers = t.db.select({ n: objects.objectNumber }).from(objects).where(eq(objects.clientId, varga)).all().map((o) => o.n);
+      const numbers = t.db
+        .select({ n: objects.objectNumber })
+        .from(objects)
+        .where(eq(objects.clientId, varga))
+        .all()
+        .map((o) => o.n);
       for (const n of [...datasets, "manifest.csv", "manifest.json", ...numbers.map((n) => `dossiers/${n}.pdf`)]) expect(names, n).toContain(n);
       // The photo is named so a person can tell it apart: object number, its order, its kind.
       expect(names.filter((n) => new RegExp(`^photos/${photoObjectNumber}/${photoObjectNumber}-01-recto-front\\.(png|jpg)$`).test(n))).toHaveLength(1);
       // Every signed condition report and every custody receipt of the client's objects, as PDFs.
-      const signed = t.db.select({ n: sql<number>`count(*)` }).from(conditionReports).where(and(inArray(conditionReports.objectId, ids), eq(conditionReports.status, "signed"))).get()!.n;
+      const signed = t.db
+        .select({ n: sql<number>`count(*)` })
+        .from(conditionReports)
+        .where(and(inArray(conditionReports.objectId, ids), eq(conditionReports.status, "signed")))
+        .get()!.n;
       const receipts = t.db.select({ n: sql<number>`count(*)` }).from(custodyReceipts).where(inArray(custodyReceipts.objectId, ids)).get()!.n;
       expect(signed).toBeGreaterThan(0);
       expect(receipts).toBeGreaterThan(0);
@@ -371,7 +469,14 @@ describe("bulk ZIP of one client's records", () => {
       for (const pdfName of names.filter((n) => n.endsWith(".pdf")).slice(0, 3)) expect(unzipFile(file, pdfName).subarray(0, 5).toString("latin1")).toBe("%PDF-");
 
       // The manifest lists every file but itself, and each SHA-256 is that of the file in the ZIP (FIPS 180-4, node:crypto).
-      const manifest = JSON.parse(unzipFile(file, "manifest.json").toString("utf8")) as { file: string; kind: string; objectNumber: string | null; caption: string | null; bytes: number; sha256: string }[];
+      const manifest = JSON.parse(unzipFile(file, "manifest.json").toString("utf8")) as {
+        file: string;
+        kind: string;
+        objectNumber: string | null;
+        caption: string | null;
+        bytes: number;
+        sha256: string;
+      }[];
       expect(manifest.map((m) => m.file).sort()).toEqual(names.filter((n) => !n.startsWith("manifest.")));
       for (const m of manifest) {
         const bytes = unzipFile(file, m.file);
@@ -385,7 +490,11 @@ describe("bulk ZIP of one client's records", () => {
       const photoEntry = manifest.find((m) => m.file.startsWith("photos/"))!;
       expect(photoEntry).toMatchObject({ kind: "photo (full size, metadata removed)", objectNumber: photoObjectNumber });
       const served = await raw(as.collector, `/api/photos/${photoId}/full`);
-      expect(photoEntry.sha256).toBe(createHash("sha256").update(served.body as Buffer).digest("hex"));
+      expect(photoEntry.sha256).toBe(
+        createHash("sha256")
+          .update(served.body as Buffer)
+          .digest("hex"),
+      );
       const originalSha = t.db.select({ sha: photos.sha256 }).from(photos).where(eq(photos.id, photoId)).get()!.sha;
       expect(photoEntry.sha256).not.toBe(originalSha);
 
@@ -398,11 +507,27 @@ describe("bulk ZIP of one client's records", () => {
 
     // Each object in the ZIP has one "archive exported" event naming what went in; issuing its PDFs for the
     // archive wrote no "document issued" event of its own; the single downloads wrote none.
-    const exported = t.db.select().from(events).where(and(eq(events.type, "exported"), inArray(events.objectId, ids))).all();
+    const exported = t.db
+      .select()
+      .from(events)
+      .where(and(eq(events.type, "exported"), inArray(events.objectId, ids)))
+      .all();
     expect(exported).toHaveLength(ids.length);
     for (const e of exported) expect(e.summary).toMatch(/^Included in an archive of Odile Varga-Pennick's records: object dossier [0-9A-F]{4}-[0-9A-F]{4}-[0-9A-F]{4}/);
     expect(t.db.select({ n: sql<number>`count(*)` }).from(events).where(eq(events.type, "document-issued")).get()!.n).toBe(eventsBefore);
-    const others = t.db.select({ n: sql<number>`count(*)` }).from(events).where(and(eq(events.type, "exported"), sql`${events.objectId} not in (${sql.join(ids.map((i) => sql`${i}`), sql`, `)})`)).get()!.n;
+    const others = t.db
+      .select({ n: sql<number>`count(*)` })
+      .from(events)
+      .where(
+        and(
+          eq(events.type, "exported"),
+          sql`${events.objectId} not in (${sql.join(
+            ids.map((i) => sql`${i}`),
+            sql`, `,
+          )})`,
+        ),
+      )
+      .get()!.n;
     expect(others).toBe(0);
   });
 

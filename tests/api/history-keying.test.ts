@@ -23,7 +23,17 @@ function makePlain(breakOne = false) {
   const last = new Map<string, string>();
   for (const r of rows) {
     const prevHash = last.get(String(r.object_id)) ?? null;
-    const hash = plainEventHash({ objectId: String(r.object_id), type: String(r.type), at: Number(r.at), actorId: (r.actor_id as string) ?? null, actorName: String(r.actor_name), summary: String(r.summary), data: JSON.parse(String(r.data)), prevHash, occurredOn: (r.occurred_on as string) ?? undefined });
+    const hash = plainEventHash({
+      objectId: String(r.object_id),
+      type: String(r.type),
+      at: Number(r.at),
+      actorId: (r.actor_id as string) ?? null,
+      actorName: String(r.actor_name),
+      summary: String(r.summary),
+      data: JSON.parse(String(r.data)),
+      prevHash,
+      occurredOn: (r.occurred_on as string) ?? undefined,
+    });
     s.prepare("update events set prev_hash = ?, hash = ? where seq = ?").run(prevHash, hash, r.seq);
     last.set(String(r.object_id), hash);
   }

@@ -32,11 +32,24 @@ const objectBody = (clientId: string, over: Partial<ObjectCreateInput> = {}): Ob
 const DATA: MountingDataInput = {
   plan: { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 60 } },
   boards: { window: { grade: "museum", buffered: false, ply: 4 }, backing: { grade: "museum", buffered: false, ply: 4 } },
-  attachment: { method: "t-hinge", tissue: "Kozo", adhesive: "wheat-starch-paste", hinges: [{ edge: "top", offsetMm: 40, widthMm: 25 }, { edge: "top", offsetMm: 145, widthMm: 25 }] },
+  attachment: {
+    method: "t-hinge",
+    tissue: "Kozo",
+    adhesive: "wheat-starch-paste",
+    hinges: [
+      { edge: "top", offsetMm: 40, widthMm: 25 },
+      { edge: "top", offsetMm: 145, widthMm: 25 },
+    ],
+  },
   glazing: { type: "uv-glass", thicknessMm: 2 },
   undoNotes: "Release both hinges with a damp blotter.",
 };
-const REFRAME: MountingDataInput = { ...DATA, attachment: { method: "corners", hinges: [] }, glazing: { type: "ar-uv-glass", thicknessMm: 3 }, undoNotes: "Slide the sheet out of the corners." };
+const REFRAME: MountingDataInput = {
+  ...DATA,
+  attachment: { method: "corners", hinges: [] },
+  glazing: { type: "ar-uv-glass", thicknessMm: 3 },
+  undoNotes: "Slide the sheet out of the corners.",
+};
 
 async function createObject(agent: Agent, body: ObjectCreateInput): Promise<ObjectRecord> {
   const res = await agent.post("/api/objects").send(body);
@@ -86,7 +99,9 @@ beforeAll(async () => {
   if (plan.status !== 200) throw new Error(`Plan answered ${plan.status}`);
   first = await mount(obj.id, DATA, "first-mounting", "2026-03-02");
   second = await mount(obj.id, REFRAME, "reframing", "2027-05-10");
-  const corr = await as.framer.post(`/api/mountings/${second.id}/corrections`).send({ version: second.version, correctionReason: "Glazing was UV acrylic.", data: { ...REFRAME, glazing: { type: "uv-acrylic", thicknessMm: 3 } } });
+  const corr = await as.framer
+    .post(`/api/mountings/${second.id}/corrections`)
+    .send({ version: second.version, correctionReason: "Glazing was UV acrylic.", data: { ...REFRAME, glazing: { type: "uv-acrylic", thicknessMm: 3 } } });
   if (corr.status !== 201) throw new Error(`Correction answered ${corr.status}`);
   second = corr.body;
   const rem = await as.framer.post(`/api/mountings/${second.id}/remove`).send({ version: second.version, endedOn: "2028-01-10", endReason: "Lent unframed." });
@@ -167,7 +182,10 @@ describe("the events each action writes", () => {
   });
 
   it("when an edit changes nothing, then no event is written", async () => {
-    const o = await createObject(as.framer, objectBody(studio.institution.id, { sensitivities: ["light-sensitive"], borderLeftMm: 10, borderTopMm: 10, borderRightMm: 10, borderBottomMm: 12 }));
+    const o = await createObject(
+      as.framer,
+      objectBody(studio.institution.id, { sensitivities: ["light-sensitive"], borderLeftMm: 10, borderTopMm: 10, borderRightMm: 10, borderBottomMm: 12 }),
+    );
     await edit(as.framer, o, {});
     expect((await history(as.framer, o.id)).items.map((e) => e.type)).toEqual(["created"]);
   });
@@ -271,7 +289,17 @@ describe("the hash chain", () => {
     let prev: string | null = null;
     for (const r of rows) {
       expect(r.prevHash, `event ${r.seq}`).toBe(prev);
-      const content = { objectId: r.objectId, type: r.type, at: r.at.getTime(), actorId: r.actorId, actorName: r.actorName, summary: r.summary, data: r.data, prevHash: r.prevHash, occurredOn: r.occurredOn ?? undefined };
+      const content = {
+        objectId: r.objectId,
+        type: r.type,
+        at: r.at.getTime(),
+        actorId: r.actorId,
+        actorName: r.actorName,
+        summary: r.summary,
+        data: r.data,
+        prevHash: r.prevHash,
+        occurredOn: r.occurredOn ?? undefined,
+      };
       // Recomputed by hand (HMAC-SHA256, RFC 2104, keyed with the app's history key) as well as through eventHash.
       const byHand = createHmac("sha256", t.historyKey).update(canonicalJson(content)).digest("hex");
       expect(r.hash, `event ${r.seq}`).toBe(byHand);
@@ -283,9 +311,27 @@ describe("the hash chain", () => {
 
   it("when any part of an event's content or its link changes, then its hash changes", () => {
     const r = rowsOf(t, obj.id)[1];
-    const content = { objectId: r.objectId, type: r.type, at: r.at.getTime(), actorId: r.actorId, actorName: r.actorName, summary: r.summary, data: r.data, prevHash: r.prevHash, occurredOn: r.occurredOn ?? undefined };
+    const content = {
+      objectId: r.objectId,
+      type: r.type,
+      at: r.at.getTime(),
+      actorId: r.actorId,
+      actorName: r.actorName,
+      summary: r.summary,
+      data: r.data,
+      prevHash: r.prevHash,
+      occurredOn: r.occurredOn ?? undefined,
+    };
     const h = eventHash(content, t.historyKey);
-    for (const over of [{ summary: `${r.summary} ` }, { at: content.at + 1 }, { prevHash: "0".repeat(64) }, { actorName: "Someone else" }, { data: { ...(r.data as object), extra: 1 } }, { type: "created" }, { occurredOn: "1999-01-01" }]) {
+    for (const over of [
+      { summary: `${r.summary} ` },
+      { at: content.at + 1 },
+      { prevHash: "0".repeat(64) },
+      { actorName: "Someone else" },
+      { data: { ...(r.data as object), extra: 1 } },
+      { type: "created" },
+      { occurredOn: "1999-01-01" },
+    ]) {
       expect(eventHash({ ...content, ...over }, t.historyKey), JSON.stringify(over)).not.toBe(h);
     }
   });
@@ -345,7 +391,10 @@ describe("who may read and verify history", () => {
   });
 
   it("when a collector or registrar asks to verify a chain, then both verify routes answer 403", async () => {
-    for (const [agent, id] of [[as.collector, obj.id], [as.registrar, institutions.id]] as const) {
+    for (const [agent, id] of [
+      [as.collector, obj.id],
+      [as.registrar, institutions.id],
+    ] as const) {
       for (const path of [`/api/objects/${id}/history/verify`, "/api/history/verify"]) {
         const res = await agent.get(path);
         expect(res.status, path).toBe(403);

@@ -34,7 +34,10 @@ const PX_PER_MM = DPI / 25.4;
 
 /** A page as greyscale pixels, rendered by poppler. */
 async function grey(pdf: Buffer, page: number) {
-  const { data, info } = await sharp(pageImage(pdf, page, DPI)).greyscale().raw().toBuffer({ resolveWithObject: true });
+  const { data, info } = await sharp(pageImage(pdf, page, DPI))
+    .greyscale()
+    .raw()
+    .toBuffer({ resolveWithObject: true });
   return { data, width: info.width, height: info.height };
 }
 
@@ -150,7 +153,12 @@ describe("the sheet of labels", () => {
       const before = getSettings(t.db);
       saveSettings(t.db, { ...before, paperSize: paper });
       try {
-        const ids = t.db.select({ id: objects.id }).from(objects).all().map((r) => r.id).slice(0, 10);
+        const ids = t.db
+          .select({ id: objects.id })
+          .from(objects)
+          .all()
+          .map((r) => r.id)
+          .slice(0, 10);
         const { pdf } = await issue("/api/documents/label-sheet", { objectIds: ids });
         const info = pdfInfo(pdf);
         // ISO 216: A4 = 210 × 297 mm; US Letter = 8.5 × 11 in = 612 × 792 pt.
@@ -177,7 +185,12 @@ describe("the sheet of labels", () => {
         for (let p = 1; p <= info.pages; p++) {
           for (let r = 0; r + 1 < ys.length; r++) {
             for (let c = 0; c + 1 < xs.length; c++) {
-              const region = { left: Math.round(xs[c] * scale) + 2, top: Math.round(ys[r] * scale) + 2, width: Math.round((xs[c + 1] - xs[c]) * scale) - 4, height: Math.round((ys[r + 1] - ys[r]) * scale) - 4 };
+              const region = {
+                left: Math.round(xs[c] * scale) + 2,
+                top: Math.round(ys[r] * scale) + 2,
+                width: Math.round((xs[c + 1] - xs[c]) * scale) - 4,
+                height: Math.round((ys[r + 1] - ys[r]) * scale) - 4,
+              };
               const url = await decodeQr(pdf, p, region);
               if (url) decoded.push(url);
             }
@@ -198,7 +211,11 @@ describe("the sheet of labels", () => {
     expect(want.length).toBeGreaterThan(1);
     const { pdf } = await issue("/api/documents/label-sheet", filter);
     const text = words(pdf).join("\n");
-    const all = t.db.select().from(objects).all().map((o) => o.objectNumber);
+    const all = t.db
+      .select()
+      .from(objects)
+      .all()
+      .map((o) => o.objectNumber);
     expect(all.filter((n) => new RegExp(`(^|\\s)${n}(\\s|$)`, "m").test(text)).sort()).toEqual(want.sort());
     const none = await post(framer, "/api/documents/label-sheet", { clientId: varga, q: "nothing-matches-this" });
     expect(none.status).toBe(422);

@@ -107,7 +107,10 @@ describe("the schedule of values", () => {
     expect(rows.length).toBeGreaterThan(0);
     for (const r of rows) expect(text).toContain(r.objectNumber);
     expect(text).toContain("Tomasz Eberlin");
-    const listed = sumRows(text, rows.map((r) => r.objectNumber));
+    const listed = sumRows(
+      text,
+      rows.map((r) => r.objectNumber),
+    );
     const totals = totalsIn(text);
     expect(totals.size).toBeGreaterThan(0);
     expect(listed).toEqual(totals);
@@ -138,9 +141,37 @@ describe("the schedule of values", () => {
   it("gives per object its type and medium, sheet and framed size, valuation basis and date, and says when a total mixes bases or holds old values", async () => {
     const c = makeClient(t.db, { kind: "private", name: "Orla Fenwick-Hay" });
     const recent = new Date(Date.now() - 200 * 86_400_000).toISOString().slice(0, 10);
-    const a = makeObject(t.db, c.id, { objectNumber: "SV-1", title: "Estuary at dusk", objectType: "print", medium: "Etching and aquatint", sheetWidthMm: 300, sheetHeightMm: 400, valuationMinor: 100_000, valuationCurrency: "GBP", valuationBasis: "market", valuationDate: "2015-04-01" } as never);
-    makeObject(t.db, c.id, { objectNumber: "SV-2", title: "Two herons", objectType: "drawing", medium: "Graphite", valuationMinor: 50_000, valuationCurrency: "GBP", valuationBasis: "replacement", valuationDate: recent } as never);
-    makeObject(t.db, c.id, { objectNumber: "SV-3", title: "Pier, low tide", objectType: "photograph", medium: "Gelatin silver print", valuationMinor: 20_000, valuationCurrency: "EUR", valuationBasis: "agreed" } as never);
+    const a = makeObject(t.db, c.id, {
+      objectNumber: "SV-1",
+      title: "Estuary at dusk",
+      objectType: "print",
+      medium: "Etching and aquatint",
+      sheetWidthMm: 300,
+      sheetHeightMm: 400,
+      valuationMinor: 100_000,
+      valuationCurrency: "GBP",
+      valuationBasis: "market",
+      valuationDate: "2015-04-01",
+    } as never);
+    makeObject(t.db, c.id, {
+      objectNumber: "SV-2",
+      title: "Two herons",
+      objectType: "drawing",
+      medium: "Graphite",
+      valuationMinor: 50_000,
+      valuationCurrency: "GBP",
+      valuationBasis: "replacement",
+      valuationDate: recent,
+    } as never);
+    makeObject(t.db, c.id, {
+      objectNumber: "SV-3",
+      title: "Pier, low tide",
+      objectType: "photograph",
+      medium: "Gelatin silver print",
+      valuationMinor: 20_000,
+      valuationCurrency: "EUR",
+      valuationBasis: "agreed",
+    } as never);
     makeObject(t.db, c.id, { objectNumber: "SV-4", title: "Unvalued sketch", objectType: "drawing" } as never);
     // Sheet 300 × 400, 5 mm overlap a side: window 290 × 390; 60 mm borders: outer 410 × 510. Rebate = outer + 2 mm
     // clearance = 412 × 512; sight = rebate − 2 × 6 mm lip = 400 × 500; frame outside = sight + 2 × 25 mm face = 450 × 550
@@ -148,7 +179,15 @@ describe("the schedule of values", () => {
     const data = {
       plan: { unit: "mm", sheet: { width: 300, height: 400 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 60 } },
       boards: { window: { grade: "museum", buffered: true, ply: 4 }, backing: { grade: "museum", buffered: false, ply: 4 } },
-      attachment: { method: "t-hinge", tissue: "Kozo", adhesive: "wheat-starch-paste", hinges: [{ edge: "top", offsetMm: 60, widthMm: 25 }, { edge: "top", offsetMm: 240, widthMm: 25 }] },
+      attachment: {
+        method: "t-hinge",
+        tissue: "Kozo",
+        adhesive: "wheat-starch-paste",
+        hinges: [
+          { edge: "top", offsetMm: 60, widthMm: 25 },
+          { edge: "top", offsetMm: 240, widthMm: 25 },
+        ],
+      },
       glazing: { type: "uv-acrylic", thicknessMm: 3 },
       frame: { moulding: "Oak, 25 mm flat", faceWidthMm: 25 },
       undoNotes: "Release the hinges with a damp blotter.",
@@ -185,7 +224,12 @@ describe("the schedule of values", () => {
       const listed = await as.framer.get("/api/objects").query({ ...filter, clientId: wrenfold, pageSize: 200 });
       expect(listed.status).toBe(200);
       const want = (listed.body.items as { objectNumber: string }[]).map((o) => o.objectNumber);
-      const all = t.db.select().from(objects).where(eq(objects.clientId, wrenfold)).all().map((o) => o.objectNumber);
+      const all = t.db
+        .select()
+        .from(objects)
+        .where(eq(objects.clientId, wrenfold))
+        .all()
+        .map((o) => o.objectNumber);
       const res = await post(as.framer, `/api/clients/${wrenfold}/documents/schedule`, filter);
       const { text } = await expectDocument(res, "schedule-of-values");
       const shown = all.filter((n) => new RegExp(`^\\s*${n}\\b`, "m").test(text));
@@ -212,7 +256,15 @@ describe("the schedule of values", () => {
   it("renders 1,000 objects over many pages with the table header on each page (its time is measured by npm run bench)", async () => {
     const big = makeClient(t.db, { kind: "institution", name: "Large collection trust" });
     for (let i = 0; i < 1000; i++) {
-      makeObject(t.db, big.id, { objectNumber: `BIG-${String(i).padStart(4, "0")}`, title: `Harbour study ${i}`, maker: i % 3 ? "Ilse Korrow" : null, valuationMinor: 1000 + i * 137, valuationCurrency: i % 5 === 0 ? "EUR" : "GBP", valuationDate: "2026-01-01", valuationBasis: "agreed" } as never);
+      makeObject(t.db, big.id, {
+        objectNumber: `BIG-${String(i).padStart(4, "0")}`,
+        title: `Harbour study ${i}`,
+        maker: i % 3 ? "Ilse Korrow" : null,
+        valuationMinor: 1000 + i * 137,
+        valuationCurrency: i % 5 === 0 ? "EUR" : "GBP",
+        valuationDate: "2026-01-01",
+        valuationBasis: "agreed",
+      } as never);
     }
     const started = performance.now();
     const res = await post(as.admin, `/api/clients/${big.id}/documents/schedule`);
@@ -226,7 +278,12 @@ describe("the schedule of values", () => {
     expect(sumRows(text, numbers)).toEqual(totalsIn(text));
     console.info(`schedule of 1,000 objects: ${pages} pages in ${Math.round(ms)} ms`);
     // The bench entry point renders the same without writing a record.
-    const ids = t.db.select({ id: objects.id }).from(objects).where(eq(objects.clientId, big.id)).all().map((r) => r.id);
+    const ids = t.db
+      .select({ id: objects.id })
+      .from(objects)
+      .where(eq(objects.clientId, big.id))
+      .all()
+      .map((r) => r.id);
     const admin = t.db.select().from(user).where(eq(user.email, "admin@reversa.test")).get()!;
     const benchPdf = await renderScheduleForBench(t.db, { id: admin.id, name: admin.name, email: admin.email, role: "admin", clientId: null }, ids);
     expect(benchPdf.subarray(0, 5).toString()).toBe("%PDF-");
@@ -251,7 +308,11 @@ describe("the custody receipt", () => {
   });
 
   it("warns about glass where the current mounting is glazed with glass", async () => {
-    const glazed = t.db.select().from(objects).where(and(isNotNull(objects.currentMountingId), eq(objects.currentGlazing, "uv-glass"))).all();
+    const glazed = t.db
+      .select()
+      .from(objects)
+      .where(and(isNotNull(objects.currentMountingId), eq(objects.currentGlazing, "uv-glass")))
+      .all();
     const withReceipt = glazed.map((o) => ({ o, r: t.db.select().from(custodyReceipts).where(eq(custodyReceipts.objectId, o.id)).get() })).find((x) => x.r);
     expect(withReceipt, "the demo holds a glass-glazed object with a receipt").toBeDefined();
     const res = await post(as.framer, `/api/custody/${withReceipt!.r!.id}/document`);
@@ -312,12 +373,22 @@ describe("back labels", () => {
     expect(text).toContain("Reversible mount — do not use pressure-sensitive tape");
     expect(poppler("pdftotext", pdf, false).replace(/\s+/g, "")).toContain(`http://reversa.example.test/objects/${o.id}`);
     expect(pdf.toString("latin1")).toContain(`/URI (http://reversa.example.test/objects/${o.id})`);
-    expect(poppler("pdfimages", pdf).split("\n").filter((l) => /^\s*\d+\s+\d+\s+image/.test(l)).length).toBeGreaterThanOrEqual(1);
+    expect(
+      poppler("pdfimages", pdf)
+        .split("\n")
+        .filter((l) => /^\s*\d+\s+\d+\s+image/.test(l)).length,
+    ).toBeGreaterThanOrEqual(1);
     expect((await post(as.registrar, `/api/objects/${o.id}/documents/back-label`)).status).toBe(403);
   });
 
   it("prints a sheet of labels, 8 to an A4 page, on the studio's paper size, with one code for the sheet", async () => {
-    const os = t.db.select().from(objects).innerJoin(clients, eq(clients.id, objects.clientId)).all().slice(0, 9).map((r) => r.objects);
+    const os = t.db
+      .select()
+      .from(objects)
+      .innerJoin(clients, eq(clients.id, objects.clientId))
+      .all()
+      .slice(0, 9)
+      .map((r) => r.objects);
     const res = await post(as.framer, "/api/documents/label-sheet", { objectIds: os.map((o) => o.id) });
     const { text, pdf } = await expectDocument(res, "label-sheet");
     keep("label-sheet", pdf);

@@ -78,7 +78,12 @@ describe("POST /api/mount-plans/calculate", () => {
 
   it("when lengths are written 7 5/8, 7-5/8 or 7.625, then they read alike", async () => {
     const bodies = [];
-    for (const [w, h] of [["7 5/8", "9 5/8"], ["7-5/8", "9-5/8"], ["7.625", "9.625"], [7.625, 9.625]] as const) {
+    for (const [w, h] of [
+      ["7 5/8", "9 5/8"],
+      ["7-5/8", "9-5/8"],
+      ["7.625", "9.625"],
+      [7.625, 9.625],
+    ] as const) {
       const res = await calculate(as.framer, { unit: "in", sheet: { width: w, height: h }, window: { all: { mode: "overlap", overlap: "3/16" } } });
       expect(res.status, `${w} × ${h}`).toBe(200);
       bodies.push(res.body);
@@ -198,7 +203,15 @@ describe("POST /api/mount-plans/calculate", () => {
 
     it("when a 500 × 400 mm outer has 2 mm glass, then the API gives the glass as 1.0 kg", async () => {
       // 0.2 m² × 2 mm × 2.5 kg/m²/mm (EN 572-1 via glass makers' data sheets).
-      const plan = planBody(await calculate(as.framer, { unit: "mm", sheet: { width: 310, height: 210 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 100 }, glazing: { material: "glass", thickness: 2 } }));
+      const plan = planBody(
+        await calculate(as.framer, {
+          unit: "mm",
+          sheet: { width: 310, height: 210 },
+          window: { all: { mode: "overlap", overlap: 5 } },
+          borders: { all: 100 },
+          glazing: { material: "glass", thickness: 2 },
+        }),
+      );
       expect(plan.outer).toEqual({ width: 500, height: 400 });
       expect(plan.glazing.weightKg).toBe(1);
     });
@@ -219,7 +232,12 @@ describe("POST /api/mount-plans/cutting-list", () => {
   it("when a framer sends a valid batch, then every blank is placed on a sheet and nothing is left over", async () => {
     const res = await as.framer.post("/api/mount-plans/cutting-list").send(BATCH);
     expect(res.status).toBe(200);
-    const body = res.body as { sheets: { placements: { pieceId: string; x: number; y: number; width: number; height: number }[]; utilisation: number }[]; sheetCount: number; utilisation: number; unplaced: unknown[] };
+    const body = res.body as {
+      sheets: { placements: { pieceId: string; x: number; y: number; width: number; height: number }[]; utilisation: number }[];
+      sheetCount: number;
+      utilisation: number;
+      unplaced: unknown[];
+    };
     expect(body.unplaced).toEqual([]);
     expect(body.sheetCount).toBe(body.sheets.length);
     // Area: 3 × 320 + 5 × 80 = 1360 in² on 1280 in² sheets, so at least two sheets.
@@ -262,7 +280,9 @@ describe("POST /api/mount-plans/cutting-list", () => {
   });
 
   it("when a piece is larger than the sheet whichever way round, then it comes back unplaced with a reason naming it", async () => {
-    const res = await as.framer.post("/api/mount-plans/cutting-list").send({ ...BATCH, pieces: [BATCH.pieces[1], { id: "big", label: "Estate map", width: 36, height: 48, quantity: 1 }] });
+    const res = await as.framer
+      .post("/api/mount-plans/cutting-list")
+      .send({ ...BATCH, pieces: [BATCH.pieces[1], { id: "big", label: "Estate map", width: 36, height: 48, quantity: 1 }] });
     expect(res.status).toBe(200);
     expect(res.body.unplaced).toHaveLength(1);
     expect(res.body.unplaced[0].id).toBe("big");
@@ -364,7 +384,11 @@ describe("plan drafts: GET and PUT /api/objects/:id/plan", () => {
   });
 
   it("when a registrar or collector reaches for another client's object, then GET and PUT answer 404", async () => {
-    for (const [agent, id] of [[as.registrar, ids.collectors], [as.collector, ids.institutions], [as.registrar, ids.others]] as const) {
+    for (const [agent, id] of [
+      [as.registrar, ids.collectors],
+      [as.collector, ids.institutions],
+      [as.registrar, ids.others],
+    ] as const) {
       const get = await agent.get(`/api/objects/${id}/plan`);
       expect(get.status).toBe(404);
       expectErrorShape(get.body, "not_found");

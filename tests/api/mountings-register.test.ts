@@ -119,7 +119,13 @@ describe("GET /api/mountings: the register", () => {
       glazing: "ar-uv-glass",
       batches: ["CB-7710"],
     });
-    expect(p.items.find((i) => i.id === ids.aFirst)).toMatchObject({ status: "superseded", method: "t-hinge", boardGrade: "museum", glazing: "uv-glass", batches: ["MB-2291", "MB-2292"] });
+    expect(p.items.find((i) => i.id === ids.aFirst)).toMatchObject({
+      status: "superseded",
+      method: "t-hinge",
+      boardGrade: "museum",
+      glazing: "uv-glass",
+      batches: ["MB-2291", "MB-2292"],
+    });
   });
 
   it("when a record was corrected, then its batches are those of the current revision", async () => {

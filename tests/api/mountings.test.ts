@@ -159,7 +159,13 @@ describe("the life cycle of a mounting record", () => {
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ id: first.id, status: "completed", version: 3, currentRevision: 1 });
     first = res.body;
-    expect(objectRow(objectId)).toEqual({ currentMountingId: first.id, currentMethod: "t-hinge", currentBoardGrade: "museum", currentGlazing: "uv-glass", lastMountedOn: "2026-03-02" });
+    expect(objectRow(objectId)).toEqual({
+      currentMountingId: first.id,
+      currentMethod: "t-hinge",
+      currentBoardGrade: "museum",
+      currentGlazing: "uv-glass",
+      lastMountedOn: "2026-03-02",
+    });
   });
 
   it("when someone edits a completed record in place, then it answers 409 and the record is unchanged", async () => {
@@ -188,7 +194,13 @@ describe("the life cycle of a mounting record", () => {
     expect(old.status).toBe(200);
     expect(old.body).toMatchObject({ status: "superseded", supersededById: second.id, endedOn: "2027-05-10" });
     expect(old.body.endReason).toContain("2027-05-10");
-    expect(objectRow(objectId)).toEqual({ currentMountingId: second.id, currentMethod: "corners", currentBoardGrade: "conservation", currentGlazing: "ar-uv-glass", lastMountedOn: "2027-05-10" });
+    expect(objectRow(objectId)).toEqual({
+      currentMountingId: second.id,
+      currentMethod: "corners",
+      currentBoardGrade: "conservation",
+      currentGlazing: "ar-uv-glass",
+      lastMountedOn: "2027-05-10",
+    });
   });
 
   it("when the superseded record is opened later, then its plan, materials and hinge positions are all still there", async () => {
@@ -219,7 +231,9 @@ describe("the life cycle of a mounting record", () => {
 
   it("when a completed record is corrected with a reason, then revision 2 holds the correction and the object's columns follow it", async () => {
     const corrected = with_({ ...REFRAME, glazing: { type: "uv-acrylic", thicknessMm: 3 }, notes: "Glazing was acrylic, not glass." });
-    const res = await as.framer.post(`/api/mountings/${second.id}/corrections`).send({ version: second.version, correctionReason: "Wrong glazing recorded at the bench.", data: corrected });
+    const res = await as.framer
+      .post(`/api/mountings/${second.id}/corrections`)
+      .send({ version: second.version, correctionReason: "Wrong glazing recorded at the bench.", data: corrected });
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({ id: second.id, status: "completed", currentRevision: 2, version: second.version + 1 });
     expect(res.body.current).toMatchObject({ revision: 2, correctionReason: "Wrong glazing recorded at the bench.", createdByName: "Test framer" });
@@ -244,7 +258,11 @@ describe("the life cycle of a mounting record", () => {
   });
 
   it("when a superseded record is corrected, then it gets a revision but the object's columns stay on the current mount", async () => {
-    const res = await as.framer.post(`/api/mountings/${first.id}/corrections`).send({ version: (await as.framer.get(`/api/mountings/${first.id}`)).body.version, correctionReason: "Tissue weight was 9 g/m².", data: with_({ attachment: { ...first.current.data.attachment, tissueWeightGsm: 9 } }) });
+    const res = await as.framer.post(`/api/mountings/${first.id}/corrections`).send({
+      version: (await as.framer.get(`/api/mountings/${first.id}`)).body.version,
+      correctionReason: "Tissue weight was 9 g/m².",
+      data: with_({ attachment: { ...first.current.data.attachment, tissueWeightGsm: 9 } }),
+    });
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({ status: "superseded", currentRevision: 2, supersededById: second.id });
     expect(res.body.current.data.attachment.tissueWeightGsm).toBe(9);
@@ -265,7 +283,9 @@ describe("the life cycle of a mounting record", () => {
   });
 
   it("when a correction starts from a stale version, then it answers 409 and no revision is added", async () => {
-    const res = await as.admin.post(`/api/mountings/${second.id}/corrections`).send({ version: second.version - 1, correctionReason: "Stale tab.", data: with_({ ...REFRAME, notes: "From a stale tab" }) });
+    const res = await as.admin
+      .post(`/api/mountings/${second.id}/corrections`)
+      .send({ version: second.version - 1, correctionReason: "Stale tab.", data: with_({ ...REFRAME, notes: "From a stale tab" }) });
     expect(res.status).toBe(409);
     expectErrorShape(res.body, "conflict");
     expect(mountingRow(second.id)!.currentRevision).toBe(2);
@@ -337,7 +357,9 @@ describe("the plan's checks cover the record's materials", () => {
   });
 
   it("when the window board is of grade other, then the archival-boards check fails (NEDCC leaflet 4.10)", async () => {
-    const res = await as.framer.post(`/api/objects/${objectId}/mountings`).send(createBody(with_({ boards: { ...DATA.boards, window: { grade: "other", buffered: true, ply: 4 } } })));
+    const res = await as.framer
+      .post(`/api/objects/${objectId}/mountings`)
+      .send(createBody(with_({ boards: { ...DATA.boards, window: { grade: "other", buffered: true, ply: 4 } } })));
     expect(res.status).toBe(201);
     expect(check(res, "archival-boards").verdict).toBe("fail");
     expect(res.body.current.plan.level).toBe("fail");
@@ -378,7 +400,11 @@ describe("the plan's checks cover the record's materials", () => {
     const photo = catalogued({ objectType: "photograph", photoProcess: "cyanotype" });
     const res = await as.framer
       .post(`/api/objects/${photo}/mountings`)
-      .send(createBody(with_({ plan: { ...DATA.plan, object: { objectType: "print" } }, boards: { ...DATA.boards, window: { grade: "museum", buffered: true, ply: 4, patPassed: true } } })));
+      .send(
+        createBody(
+          with_({ plan: { ...DATA.plan, object: { objectType: "print" } }, boards: { ...DATA.boards, window: { grade: "museum", buffered: true, ply: 4, patPassed: true } } }),
+        ),
+      );
     expect(res.status).toBe(201);
     expect(check(res, "photo-board").verdict).toBe("fail");
     expect(check(res, "photo-board").reason).not.toContain("does not apply");
@@ -392,7 +418,19 @@ describe("the plan's checks cover the record's materials", () => {
   });
 
   it("when the hinges are not along the top edge, then the hinge-placement check warns", async () => {
-    const res = await as.framer.post(`/api/objects/${objectId}/mountings`).send(createBody(with_({ attachment: { ...DATA.attachment, hinges: [{ edge: "left", offsetMm: 40, widthMm: 25 }, { edge: "top", offsetMm: 100, widthMm: 25 }] } })));
+    const res = await as.framer.post(`/api/objects/${objectId}/mountings`).send(
+      createBody(
+        with_({
+          attachment: {
+            ...DATA.attachment,
+            hinges: [
+              { edge: "left", offsetMm: 40, widthMm: 25 },
+              { edge: "top", offsetMm: 100, widthMm: 25 },
+            ],
+          },
+        }),
+      ),
+    );
     expect(res.status).toBe(201);
     expect(check(res, "hinge-placement").verdict).toBe("warn");
   });
@@ -413,7 +451,9 @@ describe("the plan's checks cover the record's materials", () => {
 
   it("when a catalogued cyanotype sits on buffered board, then the photo-board check fails (research consensus, via CCAHA)", async () => {
     const cyan = catalogued({ objectType: "photograph", photoProcess: "cyanotype" });
-    const res = await as.framer.post(`/api/objects/${cyan}/mountings`).send(createBody(with_({ boards: { ...DATA.boards, window: { grade: "museum", buffered: true, ply: 4, patPassed: true } } })));
+    const res = await as.framer
+      .post(`/api/objects/${cyan}/mountings`)
+      .send(createBody(with_({ boards: { ...DATA.boards, window: { grade: "museum", buffered: true, ply: 4, patPassed: true } } })));
     expect(res.status).toBe(201);
     expect(check(res, "photo-board").verdict).toBe("fail");
   });
@@ -461,7 +501,19 @@ describe("records the contract refuses", () => {
   });
 
   it("when a hinge has no width, then it answers 422 at that hinge's widthMm", async () => {
-    const fields = await refused(createBody(with_({ attachment: { ...DATA.attachment, hinges: [{ edge: "top", offsetMm: 40, widthMm: 25 }, { edge: "top", offsetMm: 100, widthMm: 0 }] } })));
+    const fields = await refused(
+      createBody(
+        with_({
+          attachment: {
+            ...DATA.attachment,
+            hinges: [
+              { edge: "top", offsetMm: 40, widthMm: 25 },
+              { edge: "top", offsetMm: 100, widthMm: 0 },
+            ],
+          },
+        }),
+      ),
+    );
     expect(Object.keys(fields)).toEqual(["data.attachment.hinges.1.widthMm"]);
   });
 
@@ -490,7 +542,9 @@ describe("records the contract refuses", () => {
 
   it("when a correction would make the plan impossible, then it answers 422 and no revision is added", async () => {
     const m = await completedOn(makeObject(t.db, studio.institution.id));
-    const res = await as.framer.post(`/api/mountings/${m.id}/corrections`).send({ version: m.version, correctionReason: "Bad numbers.", data: with_({ plan: { ...DATA.plan, window: { all: { mode: "overlap", overlap: 150 } } } }) });
+    const res = await as.framer
+      .post(`/api/mountings/${m.id}/corrections`)
+      .send({ version: m.version, correctionReason: "Bad numbers.", data: with_({ plan: { ...DATA.plan, window: { all: { mode: "overlap", overlap: 150 } } } }) });
     expect(res.status).toBe(422);
     expect(Object.keys(expectErrorShape(res.body, "validation_failed").fields ?? {})).toEqual(["data.plan.window"]);
     expect(mountingRow(m.id)!.currentRevision).toBe(1);
@@ -631,7 +685,9 @@ describe("who may do what with mounting records", () => {
       run: async (agent, objectId) => {
         const m = await completedOn(objectId);
         const before = snapshot(objectId);
-        const res = await agent.post(`/api/mountings/${m.id}/corrections`).send({ version: m.version, correctionReason: "Hinge widths measured again.", data: with_({ notes: "Corrected" }) });
+        const res = await agent
+          .post(`/api/mountings/${m.id}/corrections`)
+          .send({ version: m.version, correctionReason: "Hinge widths measured again.", data: with_({ notes: "Corrected" }) });
         return { status: res.status, body: res.body, written: () => snapshot(objectId) !== before };
       },
     },

@@ -29,7 +29,14 @@ function setRegister(objectId: string, cols: Partial<typeof objects.$inferInsert
 const HINGED: MountingDataInput = {
   plan: { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 60 } },
   boards: { window: { grade: "museum", buffered: false, ply: 4, batch: "MB-2291" }, backing: { grade: "museum", buffered: false, ply: 4 } },
-  attachment: { method: "t-hinge", adhesive: "wheat-starch-paste", hinges: [{ edge: "top", offsetMm: 40, widthMm: 25 }, { edge: "top", offsetMm: 145, widthMm: 25 }] },
+  attachment: {
+    method: "t-hinge",
+    adhesive: "wheat-starch-paste",
+    hinges: [
+      { edge: "top", offsetMm: 40, widthMm: 25 },
+      { edge: "top", offsetMm: 145, widthMm: 25 },
+    ],
+  },
   glazing: { type: "uv-glass", thicknessMm: 2 },
   undoNotes: "Release both T-hinges with a damp blotter over the paste.",
 };
@@ -69,7 +76,15 @@ describe("register columns", () => {
 
   it("when an object was never mounted, then its mount columns are empty and the old columns are all still there", async () => {
     const f = (await list(framer, "q=2026-0006")).items[0];
-    expect(f).toMatchObject({ objectNumber: "2026-0006", title: "Heron", objectType: "print", status: "in-studio", sheetWidthMm: 210, sheetHeightMm: 297, clientName: "Ada Collector" });
+    expect(f).toMatchObject({
+      objectNumber: "2026-0006",
+      title: "Heron",
+      objectType: "print",
+      status: "in-studio",
+      sheetWidthMm: 210,
+      sheetHeightMm: 297,
+      clientName: "Ada Collector",
+    });
     expect(f).toMatchObject({ currentMethod: null, currentBoardGrade: null, currentGlazing: null, lastMountedOn: null, checkDueOn: null });
     expect(typeof f.updatedAt).toBe("string");
   });
@@ -156,7 +171,10 @@ describe("date sorts", () => {
       const whole = numbers(await list(framer, q));
       const pages = [];
       for (let p = 1; p <= 4; p++) pages.push(await list(framer, `${q}&pageSize=2&page=${p}`));
-      expect(pages.map((p) => p.total), q).toEqual([7, 7, 7, 7]);
+      expect(
+        pages.map((p) => p.total),
+        q,
+      ).toEqual([7, 7, 7, 7]);
       expect(pages.flatMap(numbers), q).toEqual(whole);
       // Pages that start past the five dated objects still land on the right undated rows.
       expect(numbers(await list(framer, `${q}&pageSize=1&page=6`)), q).toEqual(whole.slice(5, 6));

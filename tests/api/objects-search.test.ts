@@ -23,7 +23,14 @@ beforeAll(async () => {
   makeObject(t.db, a, { objectNumber: "2026-0014", title: "Three pears on a blue cloth", maker: "Amadou Fenn", objectType: "pastel", status: "in-studio" });
   makeObject(t.db, a, { objectNumber: "2026-0015", title: "Harbour wall, morning", maker: "Ilse Korrow", objectType: "print", status: "with-owner" });
   makeObject(t.db, b, { objectNumber: "2026-0016", title: "Estuary at low water", maker: "Ilse Korrow", objectType: "watercolour", status: "in-studio" });
-  makeObject(t.db, b, { objectNumber: "2026-0140", title: "Birch bark, detail", maker: "Jarno Heikkilä-Moss", objectType: "photograph", photoProcess: "pigment-inkjet", status: "with-owner" });
+  makeObject(t.db, b, {
+    objectNumber: "2026-0140",
+    title: "Birch bark, detail",
+    maker: "Jarno Heikkilä-Moss",
+    objectType: "photograph",
+    photoProcess: "pigment-inkjet",
+    status: "with-owner",
+  });
   makeObject(t.db, b, { objectNumber: "2025-0001", title: "Night tram", objectType: "print", status: "on-loan" });
   framer = await agentFor(t, s.people.framer);
   collector = await agentFor(t, s.people.collector);

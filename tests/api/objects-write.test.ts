@@ -76,9 +76,7 @@ describe("POST /api/objects", () => {
   });
 
   it("when the body breaks field and cross-field rules, then it answers 422 naming each field", async () => {
-    const res = await framer
-      .post("/api/objects")
-      .send(body({ objectNumber: "W-0400", sheetWidthMm: -5, valuationMinor: 100, photoProcess: "albumen" }));
+    const res = await framer.post("/api/objects").send(body({ objectNumber: "W-0400", sheetWidthMm: -5, valuationMinor: 100, photoProcess: "albumen" }));
     expect(res.status).toBe(422);
     const fields = expectErrorShape(res.body, "validation_failed").fields!;
     expect(Object.keys(fields).sort()).toEqual(["photoProcess", "sheetWidthMm", "valuationCurrency"]);

@@ -33,7 +33,9 @@ const GPS_EXIF = {
   IFD2: { DateTimeOriginal: "2026:11:20 14:03:05", OffsetTimeOriginal: "+01:00" },
   IFD3: { GPSLatitudeRef: "N", GPSLatitude: "51/1 30/1 0/1", GPSLongitudeRef: "W", GPSLongitude: "0/1 7/1 30/1" },
 };
-const SVG = Buffer.from(`<?xml version="1.0" encoding="UTF-8"?>\n<svg xmlns="http://www.w3.org/2000/svg" width="100" height="100"><rect width="100" height="100" fill="red"/></svg>\n`);
+const SVG = Buffer.from(
+  `<?xml version="1.0" encoding="UTF-8"?>\n<svg xmlns="http://www.w3.org/2000/svg" width="100" height="100"><rect width="100" height="100" fill="red"/></svg>\n`,
+);
 
 const CRC_TABLE = Array.from({ length: 256 }, (_, n) => {
   let c = n;
@@ -73,7 +75,12 @@ async function bombPng(width: number, height: number): Promise<Buffer> {
   for (let y = 0; y < height; y += rows) deflate.write(zeros.subarray(0, row * Math.min(rows, height - y)));
   deflate.end();
   await ended;
-  return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), pngChunk("IHDR", ihdr), pngChunk("IDAT", Buffer.concat(parts)), pngChunk("IEND", Buffer.alloc(0))]);
+  return Buffer.concat([
+    Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
+    pngChunk("IHDR", ihdr),
+    pngChunk("IDAT", Buffer.concat(parts)),
+    pngChunk("IEND", Buffer.alloc(0)),
+  ]);
 }
 /** A valid JPEG's start followed by padding up to `bytes`: big, but every header check would pass. */
 async function paddedJpeg(bytes: number): Promise<Buffer> {
@@ -156,7 +163,14 @@ describe("POST /api/objects/:id/photos — refusals", () => {
 
   it("when a PNG is named .png but sent as image/jpeg, then the declared type still has to agree", async () => {
     const buffer = await pngBytes();
-    await expectRefused(t, UPLOADS, () => upload(as.framer, obj.collector, { buffer, filename: "recto.png", contentType: "image/jpeg" }), 422, "validation_failed", /says it is a JPEG image, but its contents are a PNG image/);
+    await expectRefused(
+      t,
+      UPLOADS,
+      () => upload(as.framer, obj.collector, { buffer, filename: "recto.png", contentType: "image/jpeg" }),
+      422,
+      "validation_failed",
+      /says it is a JPEG image, but its contents are a PNG image/,
+    );
   });
 
   it("when a text file is renamed .png, then it answers 422 saying it is text", async () => {
@@ -166,17 +180,38 @@ describe("POST /api/objects/:id/photos — refusals", () => {
   });
 
   it("when an SVG is sent, then it answers 422 saying it is an SVG drawing", async () => {
-    const err = await expectRefused(t, UPLOADS, () => upload(as.framer, obj.collector, { buffer: SVG, filename: "drawing.svg", contentType: "image/svg+xml" }), 422, "validation_failed", /SVG/);
+    const err = await expectRefused(
+      t,
+      UPLOADS,
+      () => upload(as.framer, obj.collector, { buffer: SVG, filename: "drawing.svg", contentType: "image/svg+xml" }),
+      422,
+      "validation_failed",
+      /SVG/,
+    );
     expect(err.fields?.file).toBe("This file is an SVG drawing. Reversa accepts JPEG, PNG, WebP and TIFF photographs.");
   });
 
   it("when an SVG is renamed .jpg, then it is still refused as an SVG", async () => {
-    await expectRefused(t, UPLOADS, () => upload(as.framer, obj.collector, { buffer: SVG, filename: "drawing.jpg" }), 422, "validation_failed", /says it is a JPEG image, but its contents are an SVG drawing/);
+    await expectRefused(
+      t,
+      UPLOADS,
+      () => upload(as.framer, obj.collector, { buffer: SVG, filename: "drawing.jpg" }),
+      422,
+      "validation_failed",
+      /says it is a JPEG image, but its contents are an SVG drawing/,
+    );
   });
 
   it("when a GIF is sent, then it answers 422 naming GIF", async () => {
     const gif = await plain(20, 20).gif().toBuffer();
-    await expectRefused(t, UPLOADS, () => upload(as.framer, obj.collector, { buffer: gif, filename: "anim.gif" }), 422, "validation_failed", /^This file is a GIF image\. Reversa accepts/);
+    await expectRefused(
+      t,
+      UPLOADS,
+      () => upload(as.framer, obj.collector, { buffer: gif, filename: "anim.gif" }),
+      422,
+      "validation_failed",
+      /^This file is a GIF image\. Reversa accepts/,
+    );
   });
 
   it("when a 0-byte file is sent, then it answers 422 saying it is empty", async () => {
@@ -193,13 +228,27 @@ describe("POST /api/objects/:id/photos — refusals", () => {
     const buffer = await bombPng(30_000, 30_000);
     expect(buffer.length).toBeLessThan(200_000);
     // The refusal quotes the header's size: decoding 900 megapixels (about 1 GB) is never tried.
-    const err = await expectRefused(t, UPLOADS, () => upload(as.framer, obj.collector, { buffer, filename: "bomb.png" }), 422, "validation_failed", /30,000 × 30,000 pixels \(900 megapixels\)/);
+    const err = await expectRefused(
+      t,
+      UPLOADS,
+      () => upload(as.framer, obj.collector, { buffer, filename: "bomb.png" }),
+      422,
+      "validation_failed",
+      /30,000 × 30,000 pixels \(900 megapixels\)/,
+    );
     expect(err.fields?.file).toMatch(/up to 100 megapixels/);
   });
 
   it("when a JPEG is cut off half-way, then it answers 422 saying it may be damaged", async () => {
     const whole = await noisy(600, 400).jpeg().toBuffer();
-    await expectRefused(t, UPLOADS, () => upload(as.framer, obj.collector, { buffer: whole.subarray(0, whole.length >> 1), filename: "cut.jpg" }), 422, "validation_failed", /damaged or incomplete/);
+    await expectRefused(
+      t,
+      UPLOADS,
+      () => upload(as.framer, obj.collector, { buffer: whole.subarray(0, whole.length >> 1), filename: "cut.jpg" }),
+      422,
+      "validation_failed",
+      /damaged or incomplete/,
+    );
   });
 
   it("when no file comes with the request, then it answers 422 on the file field", async () => {
@@ -231,7 +280,10 @@ describe("POST /api/objects/:id/photos — refusals", () => {
 
   it("when the report given is another object's, then it answers 422 on reportId and nothing is written", async () => {
     const reportId = randomUUID();
-    t.db.insert(conditionReports).values({ id: reportId, objectId: obj.institution, context: "arrival", reportDate: "2026-11-20", examinerName: "Test framer", rating: "good" }).run();
+    t.db
+      .insert(conditionReports)
+      .values({ id: reportId, objectId: obj.institution, context: "arrival", reportDate: "2026-11-20", examinerName: "Test framer", rating: "good" })
+      .run();
     const before = snapshot(t, UPLOADS);
     const res = await upload(as.framer, obj.collector, { buffer: await jpeg(), filename: "recto.jpg" }, { kind: "recto", reportId });
     expect(res.status).toBe(422);
@@ -264,7 +316,14 @@ describe("POST /api/objects/:id/photos — a small cap", () => {
 
   it("when an image over MAX_UPLOAD_MEGAPIXELS is sent, then it answers 422 naming the configured limit", async () => {
     const buffer = await jpeg(1000, 600);
-    await expectRefused(small, SMALL, () => upload(framer, objectId, { buffer, filename: "wide.jpg" }), 422, "validation_failed", /1,000 × 600 pixels \(0\.6 megapixels\); Reversa accepts photos of up to 0\.5 megapixels/);
+    await expectRefused(
+      small,
+      SMALL,
+      () => upload(framer, objectId, { buffer, filename: "wide.jpg" }),
+      422,
+      "validation_failed",
+      /1,000 × 600 pixels \(0\.6 megapixels\); Reversa accepts photos of up to 0\.5 megapixels/,
+    );
   });
 
   it("when a file just under both limits is sent, then it is accepted", async () => {
@@ -347,7 +406,16 @@ describe("POST /api/objects/:id/photos — accepted", () => {
 
   it.each([
     ["PNG", "image/png", "verso.png", () => pngBytes(), "image/jpeg"],
-    ["PNG with transparency", "image/png", "detail.png", () => sharp({ create: { width: 50, height: 50, channels: 4, background: { r: 10, g: 20, b: 30, alpha: 0.5 } } }).png().toBuffer(), "image/png"],
+    [
+      "PNG with transparency",
+      "image/png",
+      "detail.png",
+      () =>
+        sharp({ create: { width: 50, height: 50, channels: 4, background: { r: 10, g: 20, b: 30, alpha: 0.5 } } })
+          .png()
+          .toBuffer(),
+      "image/png",
+    ],
     ["WebP", "image/webp", "uv.webp", () => plain(50, 40).webp().toBuffer(), "image/jpeg"],
     ["TIFF", "image/tiff", "scan.tif", () => plain(50, 40).tiff().toBuffer(), "image/jpeg"],
   ])("when a %s is uploaded, then it is accepted and served as its web type", async (_what, mime, filename, make, served) => {
@@ -378,9 +446,17 @@ describe("POST /api/objects/:id/photos — accepted", () => {
   });
 
   it("when several photos are uploaded at once, then each gets its own answer and row", async () => {
-    const files = await Promise.all([1, 2, 3, 4].map((i) => noisy(400 + i * 10, 300).jpeg().toBuffer()));
+    const files = await Promise.all(
+      [1, 2, 3, 4].map((i) =>
+        noisy(400 + i * 10, 300)
+          .jpeg()
+          .toBuffer(),
+      ),
+    );
     const rowsBefore = photoCount(t);
-    const results = await Promise.all(files.map((buffer, i) => upload(as.framer, obj.institution, { buffer, filename: `p${i}.jpg` }, { kind: "detail", caption: `Detail ${i + 1}` })));
+    const results = await Promise.all(
+      files.map((buffer, i) => upload(as.framer, obj.institution, { buffer, filename: `p${i}.jpg` }, { kind: "detail", caption: `Detail ${i + 1}` })),
+    );
     expect(results.map((r) => r.status)).toEqual([201, 201, 201, 201]);
     expect(photoCount(t)).toBe(rowsBefore + 4);
     expect(tempFiles()).toEqual([]);
@@ -519,7 +595,10 @@ describe("who may upload, list, edit and fetch", () => {
 describe("photos of a draft condition report", () => {
   it("when a photo is taken for a draft report, then those who cannot see drafts do not see it either, until the report is signed", async () => {
     const reportId = randomUUID();
-    t.db.insert(conditionReports).values({ id: reportId, objectId: obj.collector, context: "arrival", reportDate: "2026-11-20", examinerName: "Test framer", rating: "good", status: "draft" }).run();
+    t.db
+      .insert(conditionReports)
+      .values({ id: reportId, objectId: obj.collector, context: "arrival", reportDate: "2026-11-20", examinerName: "Test framer", rating: "good", status: "draft" })
+      .run();
     const up = await upload(as.framer, obj.collector, { buffer: await jpeg(66, 44), filename: "draft.jpg" }, { kind: "detail", reportId });
     expect(up.status, JSON.stringify(up.body)).toBe(201);
     const photo = up.body as Photo;

@@ -68,7 +68,12 @@ describe("lengths past their bounds, and numbers that are not numbers", () => {
   });
 
   it("when a length is Infinity, NaN-like text or a huge inch value, then it is 422 naming the field, never 500", async () => {
-    for (const sheet of [{ width: "Infinity", height: 297 }, { width: "NaN", height: 297 }, { width: "1e999", height: 297 }, { width: "99999999999999999999 1/2", height: 297 }]) {
+    for (const sheet of [
+      { width: "Infinity", height: 297 },
+      { width: "NaN", height: 297 },
+      { width: "1e999", height: 297 },
+      { width: "99999999999999999999 1/2", height: 297 },
+    ]) {
       const res = await framer.post("/api/mount-plans/calculate").send({ ...A4, unit: "in", sheet });
       expect(res.status, JSON.stringify(sheet)).toBe(422);
       expect(Object.keys(expectErrorShape(res.body, "validation_failed").fields ?? {})[0]).toMatch(/^sheet/);
@@ -91,7 +96,9 @@ describe("lengths past their bounds, and numbers that are not numbers", () => {
 
   it("when the smallest board allowed is yielded from the largest sheet, then the answer is quick to build and the count exact", async () => {
     // 5 × 5 mm blanks on a 3,000 × 3,000 mm sheet: 360,000 blanks; the server counts them without listing each.
-    const res = await framer.post("/api/mount-plans/calculate").send({ ...A4, sheet: { width: 5, height: 5 }, window: { all: { mode: "float", reveal: 0 } }, borders: { all: 0 }, boardSheet: { width: 3000, height: 3000 } });
+    const res = await framer
+      .post("/api/mount-plans/calculate")
+      .send({ ...A4, sheet: { width: 5, height: 5 }, window: { all: { mode: "float", reveal: 0 } }, borders: { all: 0 }, boardSheet: { width: 3000, height: 3000 } });
     expect(res.status).toBe(200);
     expect(res.body.yield.perSheet).toBeGreaterThan(100_000);
   });

@@ -36,15 +36,31 @@ function pdfText(pdf: Buffer): string {
 const BASE: MountingDataInput = {
   plan: { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 6 } }, borders: { all: 60 } },
   boards: { window: { grade: "museum", buffered: true, ply: 4, patPassed: true }, backing: { grade: "museum", buffered: false, ply: 4 } },
-  attachment: { method: "t-hinge", tissue: "Kozo", adhesive: "wheat-starch-paste", hinges: [{ edge: "top", offsetMm: 40, widthMm: 20 }, { edge: "top", offsetMm: 150, widthMm: 20 }] },
+  attachment: {
+    method: "t-hinge",
+    tissue: "Kozo",
+    adhesive: "wheat-starch-paste",
+    hinges: [
+      { edge: "top", offsetMm: 40, widthMm: 20 },
+      { edge: "top", offsetMm: 150, widthMm: 20 },
+    ],
+  },
   glazing: { type: "float-glass", thicknessMm: 2 },
   undoNotes: "Release the hinges with a damp blotter.",
 };
 
 const CASES: [string, Parameters<typeof makeObject>[2], MountingDataInput][] = [
   ["a cyanotype photograph", { objectType: "photograph", photoProcess: "cyanotype" }, BASE],
-  ["a float on V-hinges", { objectType: "print" }, { ...BASE, plan: { ...BASE.plan, window: { all: { mode: "float", reveal: 12 } } }, attachment: { ...BASE.attachment, method: "v-hinge" } }],
-  ["a double mount of a pastel", { objectType: "pastel" }, { ...BASE, plan: { ...BASE.plan, doubleMount: { reveal: 4 } }, boards: { ...BASE.boards, top: { grade: "museum", buffered: true, ply: 4 } } }],
+  [
+    "a float on V-hinges",
+    { objectType: "print" },
+    { ...BASE, plan: { ...BASE.plan, window: { all: { mode: "float", reveal: 12 } } }, attachment: { ...BASE.attachment, method: "v-hinge" } },
+  ],
+  [
+    "a double mount of a pastel",
+    { objectType: "pastel" },
+    { ...BASE, plan: { ...BASE.plan, doubleMount: { reveal: 4 } }, boards: { ...BASE.boards, top: { grade: "museum", buffered: true, ply: 4 } } },
+  ],
 ];
 
 beforeAll(async () => {
@@ -63,7 +79,10 @@ async function surfaces(objectOver: Parameters<typeof makeObject>[2], data: Moun
   const record = (await framer.get(`/api/mountings/${draft.body.id}`)).body as MountingRecord;
   const input = recordPlanInput(MountingDataSchema.parse(data), record.current.catalogue);
   const calc = (await framer.post("/api/mount-plans/calculate").send(input)).body as MountPlan;
-  const dossier = await framer.post(`/api/objects/${objectId}/documents/dossier`).buffer(true).parse(binary as never);
+  const dossier = await framer
+    .post(`/api/objects/${objectId}/documents/dossier`)
+    .buffer(true)
+    .parse(binary as never);
   expect(dossier.status).toBe(200);
   const exported = (await framer.get(`/api/clients/${clientId}/exports/mountings.json`)).body as Record<string, string | number | null>[];
   const row = exported.find((r) => r["Mounting record id"] === draft.body.id)!;
@@ -81,7 +100,13 @@ function expectSame(s: Awaited<ReturnType<typeof surfaces>>) {
   }
   // The export: the same verdicts counted, each one not passed named with its reason.
   const count = (v: string) => s.record.checks.filter((c) => c.verdict === v).length;
-  const words = [["pass", "pass"], ["warn", "caution"], ["fail", "fail"]].filter(([v]) => count(v) > 0).map(([v, w]) => `${count(v)} ${w}`);
+  const words = [
+    ["pass", "pass"],
+    ["warn", "caution"],
+    ["fail", "fail"],
+  ]
+    .filter(([v]) => count(v) > 0)
+    .map(([v, w]) => `${count(v)} ${w}`);
   expect(s.row["Conservation checks"]).toBe(words.join(", "));
   for (const c of s.record.checks.filter((c) => c.verdict !== "pass")) expect(s.row["Checks not passed"], c.id).toContain(`${c.rule} (`);
   // Its figures are in mm on every studio, and the parts add up: border + window + border = outer.

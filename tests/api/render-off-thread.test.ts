@@ -17,7 +17,17 @@ afterAll(closeRenderPool);
 
 /** A document of `rows` lines, heavy enough to take a worker a while to lay out. */
 const heavy = (rows: number) =>
-  createElement(Document, null, createElement(Page, { size: "A4", style: { padding: 40, fontFamily: "Libre Franklin" } }, ...Array.from({ length: rows }, (_, i) => createElement(View, { key: i }, createElement(Text, { style: { fontSize: 9 } }, `Row ${i}: a line of a long schedule, wrapping onto its page`)))));
+  createElement(
+    Document,
+    null,
+    createElement(
+      Page,
+      { size: "A4", style: { padding: 40, fontFamily: "Libre Franklin" } },
+      ...Array.from({ length: rows }, (_, i) =>
+        createElement(View, { key: i }, createElement(Text, { style: { fontSize: 9 } }, `Row ${i}: a line of a long schedule, wrapping onto its page`)),
+      ),
+    ),
+  );
 
 describe("documents are laid out in worker threads", () => {
   it("when a document takes longer than its time limit, then the worker is stopped and it is refused with a clear 503", async () => {
@@ -51,7 +61,15 @@ describe("the server keeps answering while the heaviest document renders", () =>
     await seedDemo(h.db);
     clientId = makeClient(h.db, { kind: "institution", name: "Heavy collection trust" }).id;
     h.sqlite.transaction(() => {
-      for (let i = 0; i < 5000; i++) makeObject(h.db, clientId, { objectNumber: `HV-${String(i).padStart(5, "0")}`, title: `Harbour study ${i}`, valuationMinor: 1000 + i, valuationCurrency: "GBP", valuationDate: "2026-01-01", valuationBasis: "agreed" } as never);
+      for (let i = 0; i < 5000; i++)
+        makeObject(h.db, clientId, {
+          objectNumber: `HV-${String(i).padStart(5, "0")}`,
+          title: `Harbour study ${i}`,
+          valuationMinor: 1000 + i,
+          valuationCurrency: "GBP",
+          valuationDate: "2026-01-01",
+          valuationBasis: "agreed",
+        } as never);
     })();
     h.close();
     server = await startServer({ SEED_DEMO: "false", HISTORY_KEY: key }, dir);
@@ -64,7 +82,11 @@ describe("the server keeps answering while the heaviest document renders", () =>
   it("when a 5,000-object schedule is being made, then health checks and the register are answered before it is done", async () => {
     const cookie = await signInCookie(server.baseUrl, "admin@reversa.test", DEMO_PASSWORD);
     let done = false;
-    const schedule = fetch(`${server.baseUrl}/api/clients/${clientId}/documents/schedule`, { method: "POST", headers: { cookie, origin: server.baseUrl, "content-type": "application/json" }, body: "{}" }).then(async (r) => {
+    const schedule = fetch(`${server.baseUrl}/api/clients/${clientId}/documents/schedule`, {
+      method: "POST",
+      headers: { cookie, origin: server.baseUrl, "content-type": "application/json" },
+      body: "{}",
+    }).then(async (r) => {
       const body = Buffer.from(await r.arrayBuffer());
       done = true;
       return { status: r.status, body };
@@ -87,6 +109,8 @@ describe("the server keeps answering while the heaviest document renders", () =>
     // Laid out on the request thread, nothing else would be answered until it was done.
     expect(answeredWhileRendering.length).toBeGreaterThan(5);
     latencies.sort((a, b) => a - b);
-    console.info(`while the 5,000-object schedule rendered: ${latencies.length} health + register pairs, median ${latencies[Math.floor(latencies.length / 2)].toFixed(0)} ms, slowest ${latencies.at(-1)!.toFixed(0)} ms`);
+    console.info(
+      `while the 5,000-object schedule rendered: ${latencies.length} health + register pairs, median ${latencies[Math.floor(latencies.length / 2)].toFixed(0)} ms, slowest ${latencies.at(-1)!.toFixed(0)} ms`,
+    );
   }, 300_000);
 });

@@ -20,8 +20,20 @@ const post = (url: string, body: unknown) =>
 
 // Bounds: docs/trade-reference.md §10. The heaviest plans the bounds allow, and values past them.
 const A4 = { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } } };
-const HEAVIEST_PLAN = { ...A4, sheet: { width: 5, height: 5 }, window: { all: { mode: "float", reveal: 0 } }, borders: { all: 0 }, boardSheet: { width: 3000, height: 3000 }, kerf: 0 };
-const HEAVIEST_CUT = { unit: "mm", boardSheet: { width: 3000, height: 3000 }, kerf: 0, pieces: Array.from({ length: 4 }, (_, i) => ({ id: `p${i}`, width: 5 + i, height: 5, quantity: 500 })) };
+const HEAVIEST_PLAN = {
+  ...A4,
+  sheet: { width: 5, height: 5 },
+  window: { all: { mode: "float", reveal: 0 } },
+  borders: { all: 0 },
+  boardSheet: { width: 3000, height: 3000 },
+  kerf: 0,
+};
+const HEAVIEST_CUT = {
+  unit: "mm",
+  boardSheet: { width: 3000, height: 3000 },
+  kerf: 0,
+  pieces: Array.from({ length: 4 }, (_, i) => ({ id: `p${i}`, width: 5 + i, height: 5, quantity: 500 })),
+};
 const PAST_BOUNDS = [
   { ...A4, boardSheet: { width: 1e15, height: 1e15 } },
   { ...A4, unit: "in", sheet: { width: "99999999999999999999 1/2", height: 8 } },
@@ -51,7 +63,10 @@ describe("one request cannot stall or kill the server", () => {
       // Between rounds the server still answers its health check.
       expect((await fetch(`${server.baseUrl}/api/health`)).status).toBe(200);
     }
-    expect(statuses.filter((s) => s !== 200 && s !== 422), server.output()).toEqual([]);
+    expect(
+      statuses.filter((s) => s !== 200 && s !== 422),
+      server.output(),
+    ).toEqual([]);
     expect(statuses.filter((s) => s === 422).length).toBe(6 * (PAST_BOUNDS.length + 1));
     // Memory: what a flood leaves behind, not a speed. 150 MB is far above one heavy answer's size.
     const growth = server.rssMb() - before;

@@ -160,7 +160,9 @@ describe("DELETE /api/session", () => {
   it("when the cookies of a signed-out session are replayed, then they are no longer accepted", async () => {
     const res = await t.agent().post("/api/session").send({ email: framer.email, password: PASSWORD });
     // Every cookie the browser was given, as someone who copied them would send them back.
-    const cookie = setCookies(res).map((c) => c.split(";")[0]).join("; ");
+    const cookie = setCookies(res)
+      .map((c) => c.split(";")[0])
+      .join("; ");
     expect((await t.agent().get("/api/me").set("Cookie", cookie)).status).toBe(200);
     expect((await t.agent().delete("/api/session").set("Cookie", cookie)).status).toBe(204);
     expect((await t.agent().get("/api/me").set("Cookie", cookie)).status).toBe(401);

@@ -34,8 +34,7 @@ function imagesOnPage1(pdf: Buffer): number {
   return r.stdout.split("\n").filter((l) => /^\s*1\s+\d+\s+image\s/.test(l)).length;
 }
 
-const upload = (agent: Agent, bytes: Buffer, filename: string, contentType: string) =>
-  agent.put("/api/settings/logo").attach("file", bytes, { filename, contentType });
+const upload = (agent: Agent, bytes: Buffer, filename: string, contentType: string) => agent.put("/api/settings/logo").attach("file", bytes, { filename, contentType });
 
 beforeAll(async () => {
   await seedDemo(t.db);
@@ -77,7 +76,13 @@ describe("the studio's logo", () => {
     for (const [bytes, name, type] of [
       [svg, "logo.svg", "image/svg+xml"],
       [Buffer.from("just some text"), "logo.png", "image/png"],
-      [await sharp({ create: { width: 20, height: 20, channels: 3, background: "#fff" } }).webp().toBuffer(), "logo.webp", "image/webp"],
+      [
+        await sharp({ create: { width: 20, height: 20, channels: 3, background: "#fff" } })
+          .webp()
+          .toBuffer(),
+        "logo.webp",
+        "image/webp",
+      ],
     ] as const) {
       const res = await upload(as.admin, bytes, name, type);
       expect(res.status).toBe(422);
@@ -90,7 +95,9 @@ describe("the studio's logo", () => {
   });
 
   it("when the image is too large in pixels, then it answers 422", async () => {
-    const big = await sharp({ create: { width: 4001, height: 10, channels: 3, background: "#fff" } }).png().toBuffer();
+    const big = await sharp({ create: { width: 4001, height: 10, channels: 3, background: "#fff" } })
+      .png()
+      .toBuffer();
     const res = await upload(as.admin, big, "wide.png", "image/png");
     expect(res.status).toBe(422);
     expect(expectErrorShape(res.body, "validation_failed").fields?.file).toMatch(/4000/);
@@ -101,7 +108,10 @@ describe("the studio's logo", () => {
     expect(res.status, JSON.stringify(res.body)).toBe(200);
     expect(res.body.hasLogo).toBe(true);
     expect((await as.collector.get("/api/settings")).body.hasLogo).toBe(true);
-    const img = await as.framer.get("/api/settings/logo").buffer(true).parse(binary as never);
+    const img = await as.framer
+      .get("/api/settings/logo")
+      .buffer(true)
+      .parse(binary as never);
     expect(img.status).toBe(200);
     expect(img.headers["content-type"]).toMatch(/^image\/png/);
     const meta = await sharp(img.body as Buffer).metadata();
@@ -123,10 +133,15 @@ describe("the studio's logo", () => {
   });
 
   it("when the admin uploads a JPEG, then it replaces the logo", async () => {
-    const jpeg = await sharp({ create: { width: 300, height: 100, channels: 3, background: "#123456" } }).jpeg().toBuffer();
+    const jpeg = await sharp({ create: { width: 300, height: 100, channels: 3, background: "#123456" } })
+      .jpeg()
+      .toBuffer();
     const res = await upload(as.admin, jpeg, "logo.jpg", "image/jpeg");
     expect(res.status).toBe(200);
-    const img = await as.admin.get("/api/settings/logo").buffer(true).parse(binary as never);
+    const img = await as.admin
+      .get("/api/settings/logo")
+      .buffer(true)
+      .parse(binary as never);
     expect((await sharp(img.body as Buffer).metadata()).width).toBe(300);
   });
 

@@ -26,7 +26,9 @@ beforeAll(async () => {
 
 describe("clean after a crash", () => {
   it("when files are left that no row names, half-written files and a dead process's upload folder, then the sweep quarantines the first, removes the rest, and keeps every file a record uses", async () => {
-    const png = await sharp({ create: { width: 40, height: 30, channels: 3, background: { r: 200, g: 180, b: 150 } } }).png().toBuffer();
+    const png = await sharp({ create: { width: 40, height: 30, channels: 3, background: { r: 200, g: 180, b: 150 } } })
+      .png()
+      .toBuffer();
     const up = await framer.post(`/api/objects/${objectId}/photos`).field("kind", "recto").attach("file", png, { filename: "recto.png" });
     expect(up.status).toBe(201);
     const row = t.db.select().from(photos).get()!;

@@ -12,7 +12,9 @@ beforeAll(async () => {
 
 describe("the studio admin's accounts", () => {
   it("when the admin adds a collector of a private owner, then the person can sign in with that role and client", async () => {
-    const res = await admin.post("/api/users").send({ name: "Nell Quarry", email: "Nell@Example.test", role: "collector", clientId: studio.collectorClient.id, password: "lantern quince oxbow 41" });
+    const res = await admin
+      .post("/api/users")
+      .send({ name: "Nell Quarry", email: "Nell@Example.test", role: "collector", clientId: studio.collectorClient.id, password: "lantern quince oxbow 41" });
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({ name: "Nell Quarry", email: "nell@example.test", role: "collector", clientId: studio.collectorClient.id, clientName: "Ada Collector" });
     const nell = await signIn(t.agent(), "nell@example.test", "lantern quince oxbow 41");
@@ -29,7 +31,9 @@ describe("the studio admin's accounts", () => {
   it("when a registrar is given no institution, or a private owner, then it answers 422 naming clientId", async () => {
     const none = await admin.post("/api/users").send({ name: "Reg", email: "reg1@example.test", role: "registrar", password: "lantern quince oxbow 41" });
     expect(expectErrorShape(none.body, "validation_failed").fields?.clientId).toMatch(/institution/);
-    const wrong = await admin.post("/api/users").send({ name: "Reg", email: "reg2@example.test", role: "registrar", clientId: studio.collectorClient.id, password: "lantern quince oxbow 41" });
+    const wrong = await admin
+      .post("/api/users")
+      .send({ name: "Reg", email: "reg2@example.test", role: "registrar", clientId: studio.collectorClient.id, password: "lantern quince oxbow 41" });
     expect(wrong.status).toBe(422);
     expect(wrong.body.error.fields.clientId).toMatch(/institution/);
   });

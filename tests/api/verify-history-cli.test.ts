@@ -68,7 +68,9 @@ describe("npm run verify-history catches a database writer without the key", () 
   const restore = () => {
     sqlite().exec("DROP TRIGGER IF EXISTS events_no_update; DROP TRIGGER IF EXISTS events_no_delete;");
     sqlite().prepare("delete from events").run();
-    const ins = sqlite().prepare("insert into events (seq, object_id, type, at, actor_id, actor_name, summary, data, prev_hash, hash, occurred_on) values (@seq, @object_id, @type, @at, @actor_id, @actor_name, @summary, @data, @prev_hash, @hash, @occurred_on)");
+    const ins = sqlite().prepare(
+      "insert into events (seq, object_id, type, at, actor_id, actor_name, summary, data, prev_hash, hash, occurred_on) values (@seq, @object_id, @type, @at, @actor_id, @actor_name, @summary, @data, @prev_hash, @hash, @occurred_on)",
+    );
     for (const e of saved.events as Record<string, unknown>[]) ins.run(e);
     for (const h of saved.heads as { id: string; history_head: string | null }[]) sqlite().prepare("update objects set history_head = ? where id = ?").run(h.history_head, h.id);
   };
@@ -96,7 +98,17 @@ describe("npm run verify-history catches a database writer without the key", () 
     const rows = sqlite().prepare("select * from events where object_id = ? order by seq").all(objectIds[1]) as Record<string, unknown>[];
     let prev: string | null = null;
     for (const r of rows) {
-      const content = { objectId: r.object_id, type: r.type, at: r.at, actorId: r.actor_id, actorName: r.actor_name, summary: r.seq === rows[1].seq ? "Nothing happened." : r.summary, data: JSON.parse(String(r.data)), prevHash: prev, occurredOn: r.occurred_on ?? undefined };
+      const content = {
+        objectId: r.object_id,
+        type: r.type,
+        at: r.at,
+        actorId: r.actor_id,
+        actorName: r.actor_name,
+        summary: r.seq === rows[1].seq ? "Nothing happened." : r.summary,
+        data: JSON.parse(String(r.data)),
+        prevHash: prev,
+        occurredOn: r.occurred_on ?? undefined,
+      };
       const hash = plainEventHash(content as never);
       sqlite().prepare("update events set summary = ?, prev_hash = ?, hash = ? where seq = ?").run(content.summary, prev, hash, r.seq);
       prev = hash;
@@ -111,8 +123,12 @@ describe("npm run verify-history catches a database writer without the key", () 
   it("when the last events are deleted and the head moved back, then the checkpoints catch it", () => {
     sqlite().exec("DROP TRIGGER IF EXISTS events_no_delete");
     const rows = sqlite().prepare("select seq, hash from events where object_id = ? order by seq").all(objectIds[0]) as { seq: number; hash: string }[];
-    sqlite().prepare("delete from events where seq = ?").run(rows[rows.length - 1].seq);
-    sqlite().prepare("update objects set history_head = ? where id = ?").run(rows[rows.length - 2].hash, objectIds[0]);
+    sqlite()
+      .prepare("delete from events where seq = ?")
+      .run(rows[rows.length - 1].seq);
+    sqlite()
+      .prepare("update objects set history_head = ? where id = ?")
+      .run(rows[rows.length - 2].hash, objectIds[0]);
     const r = runCli();
     restore();
     expect(r.status).toBe(1);

@@ -27,7 +27,10 @@ describe("condition journeys", () => {
     await page.goto(`${baseUrl}/objects?q=2026-0009`);
     await page.getByRole("link", { name: "2026-0009" }).click();
     await page.getByText("Handling caution").first().waitFor();
-    await page.getByText(/nitrile gloves and a respirator/).first().waitFor();
+    await page
+      .getByText(/nitrile gloves and a respirator/)
+      .first()
+      .waitFor();
     expect(w.consoleErrors).toEqual([]);
     await page.close();
   });
@@ -37,7 +40,9 @@ describe("condition journeys", () => {
     await signIn(page, baseUrl, "framer@reversa.test");
     await page.goto(`${baseUrl}/objects?q=2026-0002`);
     await page.getByRole("link", { name: "2026-0002" }).click();
-    const jpeg = await sharp({ create: { width: 600, height: 800, channels: 3, background: { r: 230, g: 220, b: 200 } } }).jpeg().toBuffer();
+    const jpeg = await sharp({ create: { width: 600, height: 800, channels: 3, background: { r: 230, g: 220, b: 200 } } })
+      .jpeg()
+      .toBuffer();
     await page.locator('input[type="file"]').first().setInputFiles({ name: "pears-recto.jpg", mimeType: "image/jpeg", buffer: jpeg });
     await page.getByRole("button", { name: "Add the photo" }).click();
     await page.locator('img[src*="/thumb"]').first().waitFor();

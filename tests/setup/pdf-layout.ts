@@ -27,7 +27,13 @@ export function pdfFile(pdf: Buffer): string {
 }
 
 const num = (tag: string, name: string) => Number(new RegExp(`${name}="([0-9.]+)"`).exec(tag)![1]);
-const unescapeXml = (t: string) => t.replace(/&lt;/g, "<").replace(/&gt;/g, ">").replace(/&quot;/g, '"').replace(/&#39;/g, "'").replace(/&amp;/g, "&");
+const unescapeXml = (t: string) =>
+  t
+    .replace(/&lt;/g, "<")
+    .replace(/&gt;/g, ">")
+    .replace(/&quot;/g, '"')
+    .replace(/&#39;/g, "'")
+    .replace(/&amp;/g, "&");
 
 /** Pages, lines and words with their boxes (points, origin top left), from `pdftotext -bbox-layout`. */
 export function pdfPages(pdf: Buffer): PdfPage[] {

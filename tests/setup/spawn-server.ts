@@ -87,5 +87,8 @@ export async function startServer(env: Record<string, string> = {}, dir?: string
 export async function signInCookie(baseUrl: string, email: string, password: string): Promise<string> {
   const r = await fetch(`${baseUrl}/api/session`, { method: "POST", headers: { "content-type": "application/json", origin: baseUrl }, body: JSON.stringify({ email, password }) });
   if (r.status !== 200) throw new Error(`Sign-in as ${email} answered ${r.status}: ${await r.text()}`);
-  return r.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+  return r.headers
+    .getSetCookie()
+    .map((c) => c.split(";")[0])
+    .join("; ");
 }

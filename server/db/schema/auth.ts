@@ -9,7 +9,9 @@ export const user = sqliteTable("user", {
   email: text("email").notNull().unique(),
   emailVerified: integer("email_verified", { mode: "boolean" }).notNull().default(false),
   image: text("image"),
-  role: text("role", { enum: ["admin", "framer", "registrar", "collector"] }).notNull().default("framer"),
+  role: text("role", { enum: ["admin", "framer", "registrar", "collector"] })
+    .notNull()
+    .default("framer"),
   clientId: text("client_id").references(() => clients.id, { onDelete: "restrict" }),
   ...timestamps,
 });

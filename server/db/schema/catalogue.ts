@@ -92,9 +92,15 @@ export const studioSettings = sqliteTable("studio_settings", {
   studioAddress: text("studio_address"),
   /** Telephone and e-mail as the studio wants them printed on documents and back labels. */
   studioContact: text("studio_contact"),
-  unit: text("unit", { enum: ["mm", "in"] }).notNull().default("mm"),
-  vocabulary: text("vocabulary", { enum: ["mount", "mat"] }).notNull().default("mount"),
-  paperSize: text("paper_size", { enum: ["A4", "Letter"] }).notNull().default("A4"),
+  unit: text("unit", { enum: ["mm", "in"] })
+    .notNull()
+    .default("mm"),
+  vocabulary: text("vocabulary", { enum: ["mount", "mat"] })
+    .notNull()
+    .default("mount"),
+  paperSize: text("paper_size", { enum: ["A4", "Letter"] })
+    .notNull()
+    .default("A4"),
   currency: text("currency").notNull().default("GBP"),
   minOverlapMm: real("min_overlap_mm").notNull().default(5),
   rebateClearanceMm: real("rebate_clearance_mm").notNull().default(2),

@@ -12,7 +12,9 @@ export const conditionReports = sqliteTable(
     objectId: text("object_id")
       .notNull()
       .references(() => objects.id, { onDelete: "restrict" }),
-    status: text("status", { enum: ["draft", "signed"] }).notNull().default("draft"),
+    status: text("status", { enum: ["draft", "signed"] })
+      .notNull()
+      .default("draft"),
     context: text("context").notNull(),
     reportDate: text("report_date").notNull(),
     examinerId: text("examiner_id"),

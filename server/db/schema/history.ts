@@ -21,7 +21,11 @@ export const events = sqliteTable(
     /** The day the thing happened (mounted on, received on, valued on), as an ISO date; `at` is when it was entered. Null on events entered before this column. */
     occurredOn: text("occurred_on"),
   },
-  (t) => [index("events_object_idx").on(t.objectId, t.seq), index("events_type_idx").on(t.objectId, t.type, t.seq), index("events_occurred_idx").on(t.objectId, t.occurredOn, t.seq)],
+  (t) => [
+    index("events_object_idx").on(t.objectId, t.seq),
+    index("events_type_idx").on(t.objectId, t.type, t.seq),
+    index("events_occurred_idx").on(t.objectId, t.occurredOn, t.seq),
+  ],
 );
 
 // ── Custody: receipts when an object comes in or goes out ─────────────────

@@ -12,7 +12,9 @@ export const mountPlans = sqliteTable(
     objectId: text("object_id")
       .notNull()
       .references(() => objects.id, { onDelete: "restrict" }),
-    status: text("status", { enum: ["draft"] }).notNull().default("draft"),
+    status: text("status", { enum: ["draft"] })
+      .notNull()
+      .default("draft"),
     schemaVersion: integer("schema_version").notNull(),
     input: text("input", { mode: "json" }).$type<MountPlanInput>().notNull(),
     version: integer("version").notNull().default(1),
@@ -31,7 +33,9 @@ export const mountings = sqliteTable(
     objectId: text("object_id")
       .notNull()
       .references(() => objects.id, { onDelete: "restrict" }),
-    status: text("status", { enum: ["draft", "completed", "superseded", "removed"] }).notNull().default("draft"),
+    status: text("status", { enum: ["draft", "completed", "superseded", "removed"] })
+      .notNull()
+      .default("draft"),
     reason: text("reason").notNull(),
     mountedOn: text("mounted_on").notNull(),
     framerId: text("framer_id"),

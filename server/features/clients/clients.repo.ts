@@ -38,11 +38,16 @@ export function findClient(db: Db, id: string): ClientRecord | null {
 }
 
 export function insertClient(db: Db, data: ClientCreate, id: string = randomUUID()): ClientRecord {
-  db.insert(clients).values({ id, ...data }).run();
+  db.insert(clients)
+    .values({ id, ...data })
+    .run();
   return findClient(db, id)!;
 }
 
 export function updateClient(db: Db, id: string, data: ClientCreate): ClientRecord | null {
-  db.update(clients).set({ ...data, updatedAt: new Date() }).where(eq(clients.id, id)).run();
+  db.update(clients)
+    .set({ ...data, updatedAt: new Date() })
+    .where(eq(clients.id, id))
+    .run();
   return findClient(db, id);
 }

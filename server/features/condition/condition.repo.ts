@@ -29,13 +29,28 @@ export function revisionsOf(db: Db, reportId: string): RevisionRow[] {
 }
 
 export function revision(db: Db, reportId: string, n: number): RevisionRow | null {
-  return db.select().from(conditionRevisions).where(and(eq(conditionRevisions.reportId, reportId), eq(conditionRevisions.revision, n))).get() ?? null;
+  return (
+    db
+      .select()
+      .from(conditionRevisions)
+      .where(and(eq(conditionRevisions.reportId, reportId), eq(conditionRevisions.revision, n)))
+      .get() ?? null
+  );
 }
 
 /** Current revisions for many reports at once (the object page lists all of an object's reports). */
 export function currentRevisions(db: Db, rows: ReportRow[]): Map<string, RevisionRow> {
   if (rows.length === 0) return new Map();
-  const all = db.select().from(conditionRevisions).where(inArray(conditionRevisions.reportId, rows.map((r) => r.id))).all();
+  const all = db
+    .select()
+    .from(conditionRevisions)
+    .where(
+      inArray(
+        conditionRevisions.reportId,
+        rows.map((r) => r.id),
+      ),
+    )
+    .all();
   const want = new Map(rows.map((r) => [r.id, r.currentRevision]));
   return new Map(all.filter((r) => want.get(r.reportId) === r.revision).map((r) => [r.reportId, r]));
 }
@@ -43,7 +58,19 @@ export function currentRevisions(db: Db, rows: ReportRow[]): Map<string, Revisio
 export function insertDraft(db: Db, objectId: string, body: ConditionCreate, user: { id: string; name: string }): string {
   const id = randomUUID();
   db.insert(conditionReports)
-    .values({ id, objectId, status: "draft", context: body.context, reportDate: body.reportDate, examinerId: user.id, examinerName: user.name, mountingId: body.mountingId, currentRevision: 1, createdBy: user.id, ...filterCols(body.data) })
+    .values({
+      id,
+      objectId,
+      status: "draft",
+      context: body.context,
+      reportDate: body.reportDate,
+      examinerId: user.id,
+      examinerName: user.name,
+      mountingId: body.mountingId,
+      currentRevision: 1,
+      createdBy: user.id,
+      ...filterCols(body.data),
+    })
     .run();
   db.insert(conditionRevisions).values({ id: randomUUID(), reportId: id, revision: 1, data: body.data, createdBy: user.id, createdByName: user.name }).run();
   return id;
@@ -57,7 +84,10 @@ export function updateDraft(db: Db, row: ReportRow, version: number, body: Condi
     .where(and(eq(conditionReports.id, row.id), eq(conditionReports.version, version), eq(conditionReports.status, "draft")))
     .run();
   if (r.changes !== 1) return false;
-  db.update(conditionRevisions).set({ data: body.data, updatedAt: new Date() }).where(and(eq(conditionRevisions.reportId, row.id), eq(conditionRevisions.revision, 1))).run();
+  db.update(conditionRevisions)
+    .set({ data: body.data, updatedAt: new Date() })
+    .where(and(eq(conditionRevisions.reportId, row.id), eq(conditionRevisions.revision, 1)))
+    .run();
   return true;
 }
 
@@ -94,7 +124,11 @@ export function findMountingOf(db: Db, id: string): { id: string; objectId: stri
 /** Which of these photo ids are photos of the object. */
 export function photoIdsOfObject(db: Db, objectId: string, ids: string[]): Set<string> {
   if (ids.length === 0) return new Set();
-  const rows = db.select({ id: photos.id }).from(photos).where(and(eq(photos.objectId, objectId), inArray(photos.id, [...new Set(ids)]))).all();
+  const rows = db
+    .select({ id: photos.id })
+    .from(photos)
+    .where(and(eq(photos.objectId, objectId), inArray(photos.id, [...new Set(ids)])))
+    .all();
   return new Set(rows.map((r) => r.id));
 }
 
@@ -133,8 +167,15 @@ export function findTermByWords(db: Db, list: "paper" | "photograph", term: stri
 
 export function insertTerm(db: Db, t: { list: "paper" | "photograph"; term: string; caution: string | null; active: boolean }): string {
   const id = randomUUID();
-  const max = db.select({ n: sql<number>`coalesce(max(${conditionTerms.sortOrder}), 0)` }).from(conditionTerms).where(eq(conditionTerms.list, t.list)).get()?.n ?? 0;
-  db.insert(conditionTerms).values({ id, ...t, sortOrder: max + 1 }).run();
+  const max =
+    db
+      .select({ n: sql<number>`coalesce(max(${conditionTerms.sortOrder}), 0)` })
+      .from(conditionTerms)
+      .where(eq(conditionTerms.list, t.list))
+      .get()?.n ?? 0;
+  db.insert(conditionTerms)
+    .values({ id, ...t, sortOrder: max + 1 })
+    .run();
   return id;
 }
 

@@ -1,7 +1,14 @@
 import { Router } from "express";
 import type { Db } from "../../db/client.ts";
 import { IdParamSchema } from "../../../shared/schemas/common.ts";
-import { ConditionCompareQuerySchema, ConditionCorrectionSchema, ConditionCreateSchema, ConditionDraftUpdateSchema, ConditionListQuerySchema, ConditionSignSchema } from "../../../shared/schemas/condition.ts";
+import {
+  ConditionCompareQuerySchema,
+  ConditionCorrectionSchema,
+  ConditionCreateSchema,
+  ConditionDraftUpdateSchema,
+  ConditionListQuerySchema,
+  ConditionSignSchema,
+} from "../../../shared/schemas/condition.ts";
 import { currentUser } from "../../middleware/require-permission.ts";
 import { input, validate } from "../../middleware/validate.ts";
 import { createConditionService } from "./condition.service.ts";

@@ -43,7 +43,8 @@ const NOT_A_DAY = "That day is not in the calendar; use a date such as 2026-11-3
 /** One 422 naming every field at fault, in the one error shape. */
 function invalid(fields: Record<string, string>): AppError {
   const keys = Object.keys(fields);
-  const message = keys.length === 1 ? `Check ${keys[0]}: ${fields[keys[0]]}` : `Check the ${keys.length} highlighted fields: ${keys.slice(0, 4).join(", ")}${keys.length > 4 ? "…" : ""}.`;
+  const message =
+    keys.length === 1 ? `Check ${keys[0]}: ${fields[keys[0]]}` : `Check the ${keys.length} highlighted fields: ${keys.slice(0, 4).join(", ")}${keys.length > 4 ? "…" : ""}.`;
   return new AppError("validation_failed", message, fields);
 }
 
@@ -51,7 +52,11 @@ function invalid(fields: Record<string, string>): AppError {
 const listsFor = (objectType: string): ("paper" | "photograph")[] => (objectType === "photograph" ? ["paper", "photograph"] : ["paper"]);
 
 const distinct = <T>(xs: T[]) => [...new Set(xs)];
-const max = (...xs: (string | null | undefined)[]) => xs.filter((x): x is string => !!x).sort().pop() ?? null;
+const max = (...xs: (string | null | undefined)[]) =>
+  xs
+    .filter((x): x is string => !!x)
+    .sort()
+    .pop() ?? null;
 
 /** The missing signatures of a report about to be signed (or a signed report being corrected). */
 function signatureFields(context: string, data: ConditionData): Record<string, string> {
@@ -144,7 +149,12 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
    * and findings named from the vocabulary. A term already in the report may stay after it is retired, so
    * correcting an old report never forces its words to change. Returns the data with terms spelt as the list has them.
    */
-  function checkContent(user: SessionUser, o: ObjectRow, body: { reportDate?: string; mountingId?: string | null; data: ConditionData }, keep: ConditionData | null): ConditionData {
+  function checkContent(
+    user: SessionUser,
+    o: ObjectRow,
+    body: { reportDate?: string; mountingId?: string | null; data: ConditionData },
+    keep: ConditionData | null,
+  ): ConditionData {
     const fields: Record<string, string> = {};
     if (body.reportDate !== undefined && !isCalendarDate(body.reportDate)) fields.reportDate = NOT_A_DAY;
     if (body.mountingId) {
@@ -163,7 +173,7 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
     const kept = new Set((keep?.findings ?? []).map((f) => f.term.toLowerCase()));
     const findings = body.data.findings.map((f, i) => {
       const words = f.term.trim().toLowerCase();
-      const term = active.get(words) ?? (kept.has(words) ? terms.find((t) => t.term.toLowerCase() === words)?.term ?? f.term : null);
+      const term = active.get(words) ?? (kept.has(words) ? (terms.find((t) => t.term.toLowerCase() === words)?.term ?? f.term) : null);
       if (term === null) {
         const retired = terms.some((t) => t.term.toLowerCase() === words);
         fields[`data.findings.${i}.term`] = retired

@@ -20,13 +20,7 @@ const flat = (row: { r: typeof custodyReceipts.$inferSelect; objectNumber: strin
 // Receipts of one day are told apart by insertion order (rowid), which the (object_id, date) index carries.
 const rowid = sql`${custodyReceipts}.rowid`;
 
-export function insertReceipt(
-  db: Db,
-  objectId: string,
-  data: CustodyCreate,
-  direction: "in" | "out",
-  createdBy: string | null,
-): string {
+export function insertReceipt(db: Db, objectId: string, data: CustodyCreate, direction: "in" | "out", createdBy: string | null): string {
   const id = randomUUID();
   db.insert(custodyReceipts)
     .values({
@@ -49,12 +43,7 @@ export function insertReceipt(
 }
 
 export function findReceipt(db: Db, id: string): ReceiptRow | null {
-  const row = db
-    .select(receiptColumns)
-    .from(custodyReceipts)
-    .innerJoin(objects, eq(objects.id, custodyReceipts.objectId))
-    .where(eq(custodyReceipts.id, id))
-    .get();
+  const row = db.select(receiptColumns).from(custodyReceipts).innerJoin(objects, eq(objects.id, custodyReceipts.objectId)).where(eq(custodyReceipts.id, id)).get();
   return row ? flat(row) : null;
 }
 
@@ -75,7 +64,13 @@ export function latestReceipt(db: Db, objectId: string): { date: string; directi
 export function moveObject(db: Db, id: string, version: number, change: { status: string; location?: string | null }): boolean {
   const set: Partial<typeof objects.$inferInsert> = { status: change.status, version: version + 1, updatedAt: new Date() };
   if (change.location) set.location = change.location;
-  return db.update(objects).set(set).where(and(eq(objects.id, id), eq(objects.version, version))).run().changes === 1;
+  return (
+    db
+      .update(objects)
+      .set(set)
+      .where(and(eq(objects.id, id), eq(objects.version, version)))
+      .run().changes === 1
+  );
 }
 
 /** One object's receipts, newest first. */

@@ -2,7 +2,15 @@ import { format, parseISO } from "date-fns";
 import { inTransaction } from "../../db/client.ts";
 import type { Db } from "../../db/client.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
-import { CUSTODY_KIND_EFFECT, CUSTODY_KIND_LABELS, type CustodyCreate, type CustodyReceipt, type InStudioItem, type InStudioQuery, type ReceiptListQuery } from "../../../shared/schemas/custody.ts";
+import {
+  CUSTODY_KIND_EFFECT,
+  CUSTODY_KIND_LABELS,
+  type CustodyCreate,
+  type CustodyReceipt,
+  type InStudioItem,
+  type InStudioQuery,
+  type ReceiptListQuery,
+} from "../../../shared/schemas/custody.ts";
 import { isCalendarDate } from "../../../shared/domain/dates.ts";
 export { InStudioQuerySchema, ReceiptListQuerySchema, type InStudioItem } from "../../../shared/schemas/custody.ts";
 import { OBJECT_STATUS_LABELS, type ObjectStatus } from "../../../shared/schemas/objects.ts";
@@ -13,7 +21,6 @@ import { assertCan } from "../../middleware/require-permission.ts";
 import { findObject, type ObjectRow } from "../objects/objects.repo.ts";
 import { appendEvent, type Actor } from "../history/history.chain.ts";
 import * as repo from "./custody.repo.ts";
-
 
 const utcDay = (s: string) => {
   const [y, m, d] = s.split("-").map(Number);

@@ -22,11 +22,8 @@ import { mountingDetail, summaryOf } from "./workshop-sheet.tsx";
 import { Caution, ComparisonTag, KV, RatingTag, Table, para } from "../../lib/pdf/blocks.tsx";
 import { FindingsTable, type LoadedPhoto, PhotoGrid, loadPhoto, valuationLine } from "./record-blocks.tsx";
 
-
 /** The sentence every condition document carries (docs/trade-reference.md §12). */
 export const NOT_TREATMENT = "Condition notes are observations, not conservation treatment; refer treatment to a qualified conservator.";
-
-
 
 // ── The condition report for an insurer ───────────────────────────────────────
 
@@ -70,7 +67,11 @@ export async function issueConditionReport(db: Db, config: Pick<Config, "uploads
     .where(and(eq(custodyReceipts.objectId, object.id), lte(custodyReceipts.date, report.reportDate), isNotNull(custodyReceipts.location)))
     .orderBy(desc(custodyReceipts.date), desc(custodyReceipts.createdAt))
     .get();
-  const locationThen = custodyThen?.location ? `${custodyThen.location} (custody record of ${custodyThen.date})` : object.location ? `${object.location} (as recorded now; no custody record gives the place on that day)` : null;
+  const locationThen = custodyThen?.location
+    ? `${custodyThen.location} (custody record of ${custodyThen.date})`
+    : object.location
+      ? `${object.location} (as recorded now; no custody record gives the place on that day)`
+      : null;
 
   return createDocumentsService(db, clock, config.uploadsDir).issue({
     kind: "condition-report",
@@ -84,7 +85,9 @@ export async function issueConditionReport(db: Db, config: Pick<Config, "uploads
       <DocShell meta={meta}>
         <Text style={s.h1}>{object.title}</Text>
         <Text style={[s.small, { marginBottom: 8 }]}>
-          {[object.objectNumber, object.maker, object.dateMade, formatSize(object.sheetWidthMm, object.sheetHeightMm, settings.unit, { denominator: 16 })].filter(Boolean).join(" · ")}
+          {[object.objectNumber, object.maker, object.dateMade, formatSize(object.sheetWidthMm, object.sheetHeightMm, settings.unit, { denominator: 16 })]
+            .filter(Boolean)
+            .join(" · ")}
         </Text>
 
         <Text style={s.h2}>Report</Text>
@@ -126,13 +129,19 @@ export async function issueConditionReport(db: Db, config: Pick<Config, "uploads
         {compared && prev ? (
           <>
             <Text style={para}>
-              Previous signed report: {prev.reportDate}, {CONDITION_CONTEXT_LABELS[prev.context].toLowerCase()}, examined by {prev.examinerName}; rated {RATING_LABELS[prev.rating].toLowerCase()}, now {RATING_LABELS[report.rating].toLowerCase()}.
+              Previous signed report: {prev.reportDate}, {CONDITION_CONTEXT_LABELS[prev.context].toLowerCase()}, examined by {prev.examinerName}; rated{" "}
+              {RATING_LABELS[prev.rating].toLowerCase()}, now {RATING_LABELS[report.rating].toLowerCase()}.
             </Text>
             {compared.length === 0 ? (
               <Text style={para}>Neither report records a finding.</Text>
             ) : (
               <Table
-                cols={[{ label: "Finding", flex: 1.3 }, { label: "Status", width: 80 }, { label: "Before", flex: 1 }, { label: "Now", flex: 1 }]}
+                cols={[
+                  { label: "Finding", flex: 1.3 },
+                  { label: "Status", width: 80 },
+                  { label: "Before", flex: 1 },
+                  { label: "Now", flex: 1 },
+                ]}
                 rows={compared.map((c) => [
                   (c.after ?? c.before)!.term,
                   <ComparisonTag key="status" status={c.status} />,
@@ -159,23 +168,18 @@ export async function issueConditionReport(db: Db, config: Pick<Config, "uploads
 
         {/* The signatures keep their heading and the closing note with them: one block that never splits. */}
         <View wrap={false}>
-        <Text style={s.h2}>Signatures</Text>
-        <View style={{ flexDirection: "row", gap: 16 }}>
-          {[
-            { label: "Examiner", v: sig.examiner },
-            ...(sig.otherParty ? [{ label: "Other party", v: sig.otherParty }] : []),
-          ].map((x) => (
-            <View key={x.label} style={{ flex: 1, borderTopWidth: 0.75, borderTopColor: INK, paddingTop: 4, marginTop: 14 }}>
-              <Text style={s.small}>{x.label}</Text>
-              <Text style={{ fontWeight: 600 }}>{x.v?.name ?? "—"}</Text>
-              <Text style={s.small}>
-                {[x.v?.role, x.v?.date && `signed ${x.v.date}`].filter(Boolean).join(" · ")}
-              </Text>
-            </View>
-          ))}
-        </View>
+          <Text style={s.h2}>Signatures</Text>
+          <View style={{ flexDirection: "row", gap: 16 }}>
+            {[{ label: "Examiner", v: sig.examiner }, ...(sig.otherParty ? [{ label: "Other party", v: sig.otherParty }] : [])].map((x) => (
+              <View key={x.label} style={{ flex: 1, borderTopWidth: 0.75, borderTopColor: INK, paddingTop: 4, marginTop: 14 }}>
+                <Text style={s.small}>{x.label}</Text>
+                <Text style={{ fontWeight: 600 }}>{x.v?.name ?? "—"}</Text>
+                <Text style={s.small}>{[x.v?.role, x.v?.date && `signed ${x.v.date}`].filter(Boolean).join(" · ")}</Text>
+              </View>
+            ))}
+          </View>
 
-        <Text style={[para, { marginTop: 14, color: GRAPHITE }]}>{NOT_TREATMENT}</Text>
+          <Text style={[para, { marginTop: 14, color: GRAPHITE }]}>{NOT_TREATMENT}</Text>
         </View>
       </DocShell>
     ),

@@ -122,7 +122,8 @@ export function CustodyReceiptDocument({ meta, data }: { meta: DocMeta; data: Cu
         </View>
       ))}
       <Text style={[P, { color: GRAPHITE }]}>
-        Handle the object with clean, dry hands or nitrile gloves, keep it flat or upright as packed, and do not open the frame or the package. The condition above is an observation on hand-over, not a treatment: refer any treatment to a qualified conservator.
+        Handle the object with clean, dry hands or nitrile gloves, keep it flat or upright as packed, and do not open the frame or the package. The condition above is an
+        observation on hand-over, not a treatment: refer any treatment to a qualified conservator.
       </Text>
 
       <Text style={s.h2}>Signatures</Text>
@@ -152,7 +153,13 @@ export async function issueCustodyReceipt(db: Db, clock: () => Date, uploadsDir:
   const glazingType = detail?.data.glazing.type ?? null;
   const data = {
     receipt,
-    object: { objectNumber: object.objectNumber, title: object.title, maker: object.maker, dimensions: formatSize(object.sheetWidthMm, object.sheetHeightMm, getSettings(db).unit), clientName: object.clientName },
+    object: {
+      objectNumber: object.objectNumber,
+      title: object.title,
+      maker: object.maker,
+      dimensions: formatSize(object.sheetWidthMm, object.sheetHeightMm, getSettings(db).unit),
+      clientName: object.clientName,
+    },
     glazing: glazingType ? (GLAZING_TYPE_LABELS[glazingType] ?? glazingType) : null,
     glass: g ? g.glazing.material === "glass" : !!glazingType && glazingType.includes("glass"),
     weightKg: g?.package.weightKg ?? null,

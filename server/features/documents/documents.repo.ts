@@ -7,14 +7,23 @@ import type { DocumentKind, IssuedDocument } from "../../../shared/schemas/docum
 export type IssuedInsert = Omit<typeof issuedDocuments.$inferInsert, "id">;
 
 export function insertIssuedDocument(db: Db, row: IssuedInsert): void {
-  db.insert(issuedDocuments).values({ id: randomUUID(), ...row }).run();
+  db.insert(issuedDocuments)
+    .values({ id: randomUUID(), ...row })
+    .run();
 }
 
 /** An issued document by its (normalised) code, with its object's number. */
 export function findIssuedByCode(db: Db, code: string) {
   return (
     db
-      .select({ code: issuedDocuments.code, kind: issuedDocuments.kind, issuedAt: issuedDocuments.issuedAt, objectNumber: objects.objectNumber, sha256: issuedDocuments.sha256, pages: issuedDocuments.pages })
+      .select({
+        code: issuedDocuments.code,
+        kind: issuedDocuments.kind,
+        issuedAt: issuedDocuments.issuedAt,
+        objectNumber: objects.objectNumber,
+        sha256: issuedDocuments.sha256,
+        pages: issuedDocuments.pages,
+      })
       .from(issuedDocuments)
       .leftJoin(objects, eq(objects.id, issuedDocuments.objectId))
       .where(eq(issuedDocuments.code, code))
@@ -34,5 +43,15 @@ export function listIssued(db: Db, filter: { objectId?: string; clientId?: strin
     .orderBy(desc(issuedDocuments.issuedAt))
     .limit(500)
     .all()
-    .map((r) => ({ id: r.id, code: r.code, kind: r.kind as DocumentKind, title: r.title, objectId: r.objectId, clientId: r.clientId, paperSize: r.paperSize, issuedAt: r.issuedAt.toISOString(), issuedByName: r.issuedByName }));
+    .map((r) => ({
+      id: r.id,
+      code: r.code,
+      kind: r.kind as DocumentKind,
+      title: r.title,
+      objectId: r.objectId,
+      clientId: r.clientId,
+      paperSize: r.paperSize,
+      issuedAt: r.issuedAt.toISOString(),
+      issuedByName: r.issuedByName,
+    }));
 }

@@ -13,7 +13,6 @@ import type { DocMeta } from "../../lib/pdf/layout.tsx";
 import { getLogo, getSettings } from "../settings/settings.repo.ts";
 import { appendEvent } from "../history/history.chain.ts";
 
-
 export type IssueRequest = {
   kind: DocumentKind;
   title: string;
@@ -55,9 +54,28 @@ export function createDocumentsService(db: Db, clock: () => Date = () => new Dat
       // The fingerprint the public check shows: the file's SHA-256 and its page count (counted in the worker).
       const sha256 = createHash("sha256").update(pdf).digest("hex");
       inTransaction(db, (tx) => {
-        insertIssuedDocument(tx, { code, kind: req.kind, title: req.title, objectId: req.objectId ?? null, clientId: req.clientId ?? null, paperSize: settings.paperSize, issuedAt, issuedBy: req.user.id, issuedByName: req.user.name, sha256, pages });
+        insertIssuedDocument(tx, {
+          code,
+          kind: req.kind,
+          title: req.title,
+          objectId: req.objectId ?? null,
+          clientId: req.clientId ?? null,
+          paperSize: settings.paperSize,
+          issuedAt,
+          issuedBy: req.user.id,
+          issuedByName: req.user.name,
+          sha256,
+          pages,
+        });
         if (req.objectId && req.inHistory !== false) {
-          appendEvent(tx, { objectId: req.objectId, type: "document-issued", actor: req.user, summary: `${DOCUMENT_KIND_LABELS[req.kind]} issued, verification code ${code}.`, data: { code, kind: req.kind }, at: issuedAt });
+          appendEvent(tx, {
+            objectId: req.objectId,
+            type: "document-issued",
+            actor: req.user,
+            summary: `${DOCUMENT_KIND_LABELS[req.kind]} issued, verification code ${code}.`,
+            data: { code, kind: req.kind },
+            at: issuedAt,
+          });
         }
       });
       const safe = (req.objectNumber ?? req.kind).replace(/[^A-Za-z0-9-]+/g, "-");
@@ -70,7 +88,16 @@ export function createDocumentsService(db: Db, clock: () => Date = () => new Dat
       const row = findIssuedByCode(db, norm);
       if (!row) return { valid: false, code: norm };
       const kind = row.kind as DocumentKind;
-      return { valid: true, code: row.code, kind, kindLabel: DOCUMENT_KIND_LABELS[kind], objectNumber: row.objectNumber ?? null, issuedAt: row.issuedAt.toISOString(), sha256: row.sha256, pages: row.pages };
+      return {
+        valid: true,
+        code: row.code,
+        kind,
+        kindLabel: DOCUMENT_KIND_LABELS[kind],
+        objectNumber: row.objectNumber ?? null,
+        issuedAt: row.issuedAt.toISOString(),
+        sha256: row.sha256,
+        pages: row.pages,
+      };
     },
 
     list(filter: { objectId?: string; clientId?: string } = {}): IssuedDocument[] {

@@ -39,12 +39,19 @@ import { FindingsTable, loadPhoto, PhotoGrid, valuationLine, type LoadedPhoto } 
 import { NOT_TREATMENT } from "./condition-pdf.tsx";
 
 /** Said before the framer's undo notes: the owner keeps the record, the bench does the work. */
-export const UNDO_IS_BENCH_WORK = "For the framer or conservator who will take this mount apart: undoing it is bench work, not something for the owner to try at home. Ask the studio, or a qualified conservator, to do it.";
+export const UNDO_IS_BENCH_WORK =
+  "For the framer or conservator who will take this mount apart: undoing it is bench work, not something for the owner to try at home. Ask the studio, or a qualified conservator, to do it.";
 
 /** The report's recommendations with their labels, the referral to a conservator last, leaving out the empty ones. */
 function recommendationRows(d: ConditionReport["current"]["data"]): [string, string][] {
   const r = d.recommendations;
-  const rows: [string, string | null][] = [["Display", r.display], ["Handling", r.handling], ["Environment", r.environment], ["Light", d.lightNotes], ["Referral to a conservator", r.referral]];
+  const rows: [string, string | null][] = [
+    ["Display", r.display],
+    ["Handling", r.handling],
+    ["Environment", r.environment],
+    ["Light", d.lightNotes],
+    ["Referral to a conservator", r.referral],
+  ];
   return rows.filter((x): x is [string, string] => !!x[1]);
 }
 
@@ -58,7 +65,10 @@ function orNothing<T>(f: () => T, fallback: T): T {
   }
 }
 
-const boardLine = (b: Board) => [BOARD_GRADE_LABELS[b.grade], `${b.ply}-ply`, b.buffered ? "buffered" : "unbuffered", b.colour, b.maker, b.batch && `batch ${b.batch}`, b.patPassed ? "PAT passed" : null].filter(Boolean).join(" · ");
+const boardLine = (b: Board) =>
+  [BOARD_GRADE_LABELS[b.grade], `${b.ply}-ply`, b.buffered ? "buffered" : "unbuffered", b.colour, b.maker, b.batch && `batch ${b.batch}`, b.patPassed ? "PAT passed" : null]
+    .filter(Boolean)
+    .join(" · ");
 
 type PlanView = { plan: MountPlan; geometry: PlanGeometry; model: DrawingModel; data: MountingData | null };
 
@@ -127,65 +137,124 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
             It comes first, under the title, where it always fits: after a long catalogue it would jump to
             the next page and leave half a page empty. The catalogue's rows wrap from page to page. */}
         <View wrap={false}>
-        <Text style={s.h2}>
-          {current ? `Current ${w.mount}, drawn to scale` : draft ? `Planned ${w.mount} (draft plan, not yet mounted), drawn to scale` : `${w.Mount}`}
-        </Text>
-        {view ? (
-          <View style={{ flexDirection: "row", gap: 14 }}>
-            <View style={{ width: drawingWidth }}>
-              <PdfPlanDrawing model={view.model} width={drawingWidth} />
-              <Text style={[s.small, { marginTop: 3 }]}>{`Front view; dimensions in ${unit === "in" ? "inches" : "mm"}${d?.attachment.hinges.length ? "; hinges drawn in yellow, positions as listed" : ""}.`}</Text>
-            </View>
-            <View style={{ flex: 1 }}>
-              <KV labelWidth={84} label="Sheet">{view.plan.display.sheet}</KV>
-              <KV labelWidth={84} label="Window (aperture)">{view.plan.display.aperture}</KV>
-              <KV labelWidth={84} label="Overlap L · T · R · B">{SIDES.map((x) => view.plan.display[`overlap.${x}`]).join(" · ")}</KV>
-              <KV labelWidth={84} label={`Borders L · T · R · B`}>{SIDES.map((x) => view.plan.display[`borders.${x}`]).join(" · ")}</KV>
-              <KV labelWidth={84} label="Outer = glazing = backing">{view.plan.display.outer}</KV>
-              <KV labelWidth={84} label={w.Rebate}>{view.plan.display.rebate}</KV>
-              {view.plan.display.topWindow ? <KV labelWidth={84} label="Top window">{view.plan.display.topWindow}</KV> : null}
-              {d && d.attachment.hinges.length > 0 ? (
-                <KV labelWidth={84} label="Hinges">
-                  <View>
-                    {d.attachment.hinges.map((h, i) => (
-                      <Text key={i}>{`${i + 1}. ${h.edge} edge, ${len(h.offsetMm)} from the corner, ${len(h.widthMm)} wide`}</Text>
-                    ))}
-                  </View>
+          <Text style={s.h2}>{current ? `Current ${w.mount}, drawn to scale` : draft ? `Planned ${w.mount} (draft plan, not yet mounted), drawn to scale` : `${w.Mount}`}</Text>
+          {view ? (
+            <View style={{ flexDirection: "row", gap: 14 }}>
+              <View style={{ width: drawingWidth }}>
+                <PdfPlanDrawing model={view.model} width={drawingWidth} />
+                <Text
+                  style={[s.small, { marginTop: 3 }]}
+                >{`Front view; dimensions in ${unit === "in" ? "inches" : "mm"}${d?.attachment.hinges.length ? "; hinges drawn in yellow, positions as listed" : ""}.`}</Text>
+              </View>
+              <View style={{ flex: 1 }}>
+                <KV labelWidth={84} label="Sheet">
+                  {view.plan.display.sheet}
                 </KV>
-              ) : null}
-              {current ? <KV labelWidth={84} label="Mounted">{`${current.mountedOn}${current.framerName ? ` by ${current.framerName}` : ""}`}</KV> : null}
+                <KV labelWidth={84} label="Window (aperture)">
+                  {view.plan.display.aperture}
+                </KV>
+                <KV labelWidth={84} label="Overlap L · T · R · B">
+                  {SIDES.map((x) => view.plan.display[`overlap.${x}`]).join(" · ")}
+                </KV>
+                <KV labelWidth={84} label={`Borders L · T · R · B`}>
+                  {SIDES.map((x) => view.plan.display[`borders.${x}`]).join(" · ")}
+                </KV>
+                <KV labelWidth={84} label="Outer = glazing = backing">
+                  {view.plan.display.outer}
+                </KV>
+                <KV labelWidth={84} label={w.Rebate}>
+                  {view.plan.display.rebate}
+                </KV>
+                {view.plan.display.topWindow ? (
+                  <KV labelWidth={84} label="Top window">
+                    {view.plan.display.topWindow}
+                  </KV>
+                ) : null}
+                {d && d.attachment.hinges.length > 0 ? (
+                  <KV labelWidth={84} label="Hinges">
+                    <View>
+                      {d.attachment.hinges.map((h, i) => (
+                        <Text key={i}>{`${i + 1}. ${h.edge} edge, ${len(h.offsetMm)} from the corner, ${len(h.widthMm)} wide`}</Text>
+                      ))}
+                    </View>
+                  </KV>
+                ) : null}
+                {current ? <KV labelWidth={84} label="Mounted">{`${current.mountedOn}${current.framerName ? ` by ${current.framerName}` : ""}`}</KV> : null}
+              </View>
             </View>
-          </View>
-        ) : (
-          <Text style={para}>No {w.mount} has been recorded or planned for this object yet.</Text>
-        )}
+          ) : (
+            <Text style={para}>No {w.mount} has been recorded or planned for this object yet.</Text>
+          )}
         </View>
 
         <Text style={s.h2}>Catalogue</Text>
         <View style={{ flexDirection: "row", gap: 16 }}>
           <View style={{ flex: 1 }}>
-            <KV labelWidth={88} label="Object number">{object.objectNumber}</KV>
-            <KV labelWidth={88} label="Title">{object.title}</KV>
-            <KV labelWidth={88} label="Maker">{object.maker}</KV>
-            <KV labelWidth={88} label="Date made">{object.dateMade}</KV>
-            <KV labelWidth={88} label="Object type">{OBJECT_TYPE_LABELS[object.objectType]}</KV>
-            <KV labelWidth={88} label="Process">{object.photoProcess ? PHOTO_PROCESS_LABELS[object.photoProcess] : null}</KV>
-            <KV labelWidth={88} label="Medium">{object.medium}</KV>
-            <KV labelWidth={88} label="Support">{object.support}</KV>
-            <KV labelWidth={88} label="Edition">{object.edition}</KV>
-            <KV labelWidth={88} label="Inscriptions">{object.inscriptions}</KV>
+            <KV labelWidth={88} label="Object number">
+              {object.objectNumber}
+            </KV>
+            <KV labelWidth={88} label="Title">
+              {object.title}
+            </KV>
+            <KV labelWidth={88} label="Maker">
+              {object.maker}
+            </KV>
+            <KV labelWidth={88} label="Date made">
+              {object.dateMade}
+            </KV>
+            <KV labelWidth={88} label="Object type">
+              {OBJECT_TYPE_LABELS[object.objectType]}
+            </KV>
+            <KV labelWidth={88} label="Process">
+              {object.photoProcess ? PHOTO_PROCESS_LABELS[object.photoProcess] : null}
+            </KV>
+            <KV labelWidth={88} label="Medium">
+              {object.medium}
+            </KV>
+            <KV labelWidth={88} label="Support">
+              {object.support}
+            </KV>
+            <KV labelWidth={88} label="Edition">
+              {object.edition}
+            </KV>
+            <KV labelWidth={88} label="Inscriptions">
+              {object.inscriptions}
+            </KV>
           </View>
           <View style={{ flex: 1 }}>
-            <KV labelWidth={88} label="Sheet (W × H)">{size({ width: object.sheetWidthMm, height: object.sheetHeightMm })}</KV>
-            <KV labelWidth={88} label="Image borders">
-              {object.borderLeftMm !== null || object.borderTopMm !== null ? (["L", "T", "R", "B"] as const).map((k, i) => { const v = [object.borderLeftMm, object.borderTopMm, object.borderRightMm, object.borderBottomMm][i]; return `${k} ${v === null ? "—" : len(v)}`; }).join(" · ") : null}
+            <KV labelWidth={88} label="Sheet (W × H)">
+              {size({ width: object.sheetWidthMm, height: object.sheetHeightMm })}
             </KV>
-            <KV labelWidth={88} label="Thickness">{object.thicknessNotes}</KV>
-            <KV labelWidth={88} label="Sensitivities">{object.sensitivities.length ? object.sensitivities.map((x) => SENSITIVITY_LABELS[x]).join(", ") : null}</KV>
-            <KV labelWidth={88} label="Owner">{object.clientName}</KV>
-            <KV labelWidth={88} label="Status">{OBJECT_STATUS_LABELS[object.status]}</KV>
-            <KV labelWidth={88} label="Location">{object.location}</KV>
-            {value ? <KV labelWidth={88} label="Insured value">{value}</KV> : null}
+            <KV labelWidth={88} label="Image borders">
+              {object.borderLeftMm !== null || object.borderTopMm !== null
+                ? (["L", "T", "R", "B"] as const)
+                    .map((k, i) => {
+                      const v = [object.borderLeftMm, object.borderTopMm, object.borderRightMm, object.borderBottomMm][i];
+                      return `${k} ${v === null ? "—" : len(v)}`;
+                    })
+                    .join(" · ")
+                : null}
+            </KV>
+            <KV labelWidth={88} label="Thickness">
+              {object.thicknessNotes}
+            </KV>
+            <KV labelWidth={88} label="Sensitivities">
+              {object.sensitivities.length ? object.sensitivities.map((x) => SENSITIVITY_LABELS[x]).join(", ") : null}
+            </KV>
+            <KV labelWidth={88} label="Owner">
+              {object.clientName}
+            </KV>
+            <KV labelWidth={88} label="Status">
+              {OBJECT_STATUS_LABELS[object.status]}
+            </KV>
+            <KV labelWidth={88} label="Location">
+              {object.location}
+            </KV>
+            {value ? (
+              <KV labelWidth={88} label="Insured value">
+                {value}
+              </KV>
+            ) : null}
           </View>
         </View>
 
@@ -197,14 +266,30 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
             <KV label="Backing board">{boardLine(d.boards.backing)}</KV>
             <KV label="Glazing">{[GLAZING_TYPE_LABELS[d.glazing.type], d.glazing.thicknessMm && `${len(d.glazing.thicknessMm)}`].filter(Boolean).join(" · ")}</KV>
             <KV label="Spacer">{[d.spacer?.type, d.spacer?.depthMm && `${len(d.spacer.depthMm)} deep`].filter(Boolean).join(" · ")}</KV>
-            <KV label="Frame">{[d.frame?.moulding, d.frame?.finish, d.frame?.faceWidthMm && `${len(d.frame.faceWidthMm)} face`, d.frame?.rebateDepthMm && `${len(d.frame.rebateDepthMm)} ${w.rebate} depth`].filter(Boolean).join(" · ")}</KV>
+            <KV label="Frame">
+              {[
+                d.frame?.moulding,
+                d.frame?.finish,
+                d.frame?.faceWidthMm && `${len(d.frame.faceWidthMm)} face`,
+                d.frame?.rebateDepthMm && `${len(d.frame.rebateDepthMm)} ${w.rebate} depth`,
+              ]
+                .filter(Boolean)
+                .join(" · ")}
+            </KV>
             <KV label="Backing">{d.backing ? [BACKING_TYPE_LABELS[d.backing.type], d.backing.notes].filter(Boolean).join(" · ") : null}</KV>
             <KV label="Sealing">{d.sealing ? [SEALING_TYPE_LABELS[d.sealing.type], d.sealing.notes].filter(Boolean).join(" · ") : null}</KV>
             <KV label="Hanging">{[d.hanging?.hardware, d.hanging?.wire, d.hanging?.notes].filter(Boolean).join(" · ")}</KV>
 
             <Text style={s.h2}>Attachment</Text>
             <KV label="Method">
-              {[ATTACHMENT_METHOD_LABELS[d.attachment.method], d.attachment.tissue, d.attachment.tissueWeightGsm && `${d.attachment.tissueWeightGsm} g/m²`, d.attachment.adhesive && ADHESIVE_LABELS[d.attachment.adhesive]].filter(Boolean).join(" · ")}
+              {[
+                ATTACHMENT_METHOD_LABELS[d.attachment.method],
+                d.attachment.tissue,
+                d.attachment.tissueWeightGsm && `${d.attachment.tissueWeightGsm} g/m²`,
+                d.attachment.adhesive && ADHESIVE_LABELS[d.attachment.adhesive],
+              ]
+                .filter(Boolean)
+                .join(" · ")}
             </KV>
             <KV label="Notes">{d.notes}</KV>
             <View style={{ borderLeftWidth: 2, borderLeftColor: ACCENT, paddingLeft: 8, paddingVertical: 4, marginTop: 6 }} wrap={false}>
@@ -223,7 +308,11 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
               <VerdictTag verdict={view.plan.level} />
             </View>
             <Table
-              cols={[{ label: "Check", flex: 1.4 }, { label: "Verdict", width: 62 }, { label: "Reason", flex: 3 }]}
+              cols={[
+                { label: "Check", flex: 1.4 },
+                { label: "Verdict", width: 62 },
+                { label: "Reason", flex: 3 },
+              ]}
               rows={view.plan.checks.map((c) => [c.rule, <VerdictTag key="verdict" verdict={c.verdict} />, c.reason])}
             />
           </>
@@ -260,7 +349,21 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
         )}
         {photos.length > 0 ? (
           <View style={{ marginTop: 8 }}>
-            <PhotoGrid photos={photos} data={latest?.current.data ?? { overallRating: "good", summary: "", findings: [], recommendations: { display: null, handling: null, environment: null, referral: null }, lightNotes: null, photoIds: [], signatures: {} }} columnWidth={250} />
+            <PhotoGrid
+              photos={photos}
+              data={
+                latest?.current.data ?? {
+                  overallRating: "good",
+                  summary: "",
+                  findings: [],
+                  recommendations: { display: null, handling: null, environment: null, referral: null },
+                  lightNotes: null,
+                  photoIds: [],
+                  signatures: {},
+                }
+              }
+              columnWidth={250}
+            />
           </View>
         ) : null}
 
@@ -269,10 +372,22 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
           <Text style={para}>No mounting has been recorded.</Text>
         ) : (
           <Table
-            cols={[{ label: "Date", width: 58 }, { label: "Status", width: 58 }, { label: "Reason", width: 80 }, { label: "Framer", width: 72 }, { label: "Summary", flex: 1 }]}
+            cols={[
+              { label: "Date", width: 58 },
+              { label: "Status", width: 58 },
+              { label: "Reason", width: 80 },
+              { label: "Framer", width: 72 },
+              { label: "Summary", flex: 1 },
+            ]}
             rows={mountings.map((m) => {
               const ended = m.endedOn ? ` Ended ${m.endedOn}${m.endReason ? `: ${m.endReason}` : ""}` : "";
-              return [m.mountedOn, MOUNTING_STATUS_LABELS[m.status], MOUNTING_REASON_LABELS[m.reason], m.framerName ?? "—", `${mountSummary(m.current.data, m.current.plan)}.${ended}`];
+              return [
+                m.mountedOn,
+                MOUNTING_STATUS_LABELS[m.status],
+                MOUNTING_REASON_LABELS[m.reason],
+                m.framerName ?? "—",
+                `${mountSummary(m.current.data, m.current.plan)}.${ended}`,
+              ];
             })}
           />
         )}

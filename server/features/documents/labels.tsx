@@ -128,7 +128,8 @@ export function LabelSheetDocument({ meta, labels, address }: { meta: DocMeta; l
       {pages.map((p, pi) => (
         <Page key={pi} size={meta.paperSize === "Letter" ? "LETTER" : "A4"} style={{ fontFamily: "Libre Franklin", color: INK }}>
           <Text style={{ position: "absolute", top: Math.max(14, g.top - 10), left: g.left, right: g.left, fontSize: 6.5, color: GRAPHITE }}>
-            {meta.studioName} · Sheet of back labels, each 100 × 70 mm · verification code {meta.code} · page {pi + 1} of {pages.length} · issued {format(meta.issuedAt, "d MMM yyyy")} · Produced by Reversa
+            {meta.studioName} · Sheet of back labels, each 100 × 70 mm · verification code {meta.code} · page {pi + 1} of {pages.length} · issued{" "}
+            {format(meta.issuedAt, "d MMM yyyy")} · Produced by Reversa
           </Text>
           {p.map((l, i) => (
             <View key={l.objectId} style={{ position: "absolute", left: g.left + (i % g.cols) * g.w, top: g.top + Math.floor(i / g.cols) * g.h, width: g.w, height: g.h }}>
@@ -137,10 +138,34 @@ export function LabelSheetDocument({ meta, labels, address }: { meta: DocMeta; l
           ))}
           {/* Cut lines on the cells' edges, drawn over the labels so every label keeps its full size. */}
           {Array.from({ length: g.cols + 1 }, (_, c) => (
-            <View key={`c${c}`} style={{ position: "absolute", left: g.left + c * g.w - 0.2, top: g.top, width: 0, height: g.rows * g.h, borderLeftWidth: 0.5, borderLeftColor: CUT_LINE, borderStyle: "dashed" }} />
+            <View
+              key={`c${c}`}
+              style={{
+                position: "absolute",
+                left: g.left + c * g.w - 0.2,
+                top: g.top,
+                width: 0,
+                height: g.rows * g.h,
+                borderLeftWidth: 0.5,
+                borderLeftColor: CUT_LINE,
+                borderStyle: "dashed",
+              }}
+            />
           ))}
           {Array.from({ length: g.rows + 1 }, (_, r) => (
-            <View key={`r${r}`} style={{ position: "absolute", top: g.top + r * g.h - 0.2, left: g.left, height: 0, width: g.cols * g.w, borderTopWidth: 0.5, borderTopColor: CUT_LINE, borderStyle: "dashed" }} />
+            <View
+              key={`r${r}`}
+              style={{
+                position: "absolute",
+                top: g.top + r * g.h - 0.2,
+                left: g.left,
+                height: 0,
+                width: g.cols * g.w,
+                borderTopWidth: 0.5,
+                borderTopColor: CUT_LINE,
+                borderStyle: "dashed",
+              }}
+            />
           ))}
         </Page>
       ))}

@@ -38,7 +38,22 @@ export function MarkedPhoto({ photo, markers, width, maxHeight }: { photo: Loade
     <View style={{ position: "relative", width: w, height: h, borderWidth: 0.5, borderColor: STONE }}>
       <Image src={{ data: photo.data, format: photo.format }} style={{ width: w, height: h }} />
       {markers.map((m) => (
-        <View key={m.n} style={{ position: "absolute", left: m.x * w - d / 2, top: m.y * h - d / 2, width: d, height: d, borderRadius: d / 2, backgroundColor: ACCENT, borderWidth: 1.2, borderColor: "#ffffff", justifyContent: "center", alignItems: "center" }}>
+        <View
+          key={m.n}
+          style={{
+            position: "absolute",
+            left: m.x * w - d / 2,
+            top: m.y * h - d / 2,
+            width: d,
+            height: d,
+            borderRadius: d / 2,
+            backgroundColor: ACCENT,
+            borderWidth: 1.2,
+            borderColor: "#ffffff",
+            justifyContent: "center",
+            alignItems: "center",
+          }}
+        >
           <Text style={{ color: "#ffffff", fontSize: 7, fontWeight: 700, textAlign: "center" }}>{String(m.n)}</Text>
         </View>
       ))}
@@ -57,8 +72,22 @@ export function FindingsTable({ data, photoNumber }: { data: ConditionData; phot
   if (data.findings.length === 0) return <Text style={para}>No findings were recorded.</Text>;
   return (
     <Table
-      cols={[{ label: "No.", width: 24 }, { label: "Finding", flex: 1.2 }, { label: "Where", flex: 1.2 }, { label: "Extent", flex: 1 }, { label: "Severity", width: 60 }, { label: "Notes", flex: 2 }]}
-      rows={data.findings.map((f, i) => [String(i + 1), f.term + (f.resolved ? " (resolved)" : ""), whereWords(f, photoNumber), f.extent ?? "", SEVERITY_LABELS[f.severity], f.notes ?? ""])}
+      cols={[
+        { label: "No.", width: 24 },
+        { label: "Finding", flex: 1.2 },
+        { label: "Where", flex: 1.2 },
+        { label: "Extent", flex: 1 },
+        { label: "Severity", width: 60 },
+        { label: "Notes", flex: 2 },
+      ]}
+      rows={data.findings.map((f, i) => [
+        String(i + 1),
+        f.term + (f.resolved ? " (resolved)" : ""),
+        whereWords(f, photoNumber),
+        f.extent ?? "",
+        SEVERITY_LABELS[f.severity],
+        f.notes ?? "",
+      ])}
     />
   );
 }
@@ -68,7 +97,9 @@ export function PhotoGrid({ photos, data, columnWidth }: { photos: LoadedPhoto[]
   return (
     <View style={{ flexDirection: "row", flexWrap: "wrap", justifyContent: "space-between" }}>
       {photos.map((p, i) => {
-        const markers = data.findings.flatMap((f, fi) => (f.location.kind === "marker" && f.location.photoId === p.row.id ? [{ n: fi + 1, x: f.location.x, y: f.location.y }] : []));
+        const markers = data.findings.flatMap((f, fi) =>
+          f.location.kind === "marker" && f.location.photoId === p.row.id ? [{ n: fi + 1, x: f.location.x, y: f.location.y }] : [],
+        );
         return (
           <View key={p.row.id} style={{ width: columnWidth, marginBottom: 10 }} wrap={false}>
             <MarkedPhoto photo={p} markers={markers} width={columnWidth} maxHeight={260} />

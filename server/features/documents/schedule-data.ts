@@ -155,14 +155,24 @@ export function loadSchedule(db: Db, clientId: string | null, filter: ScheduleFi
   if (filter.objectIds) {
     const wanted = [...new Set(filter.objectIds)];
     raw = [];
-    for (let i = 0; i < wanted.length; i += CHUNK) raw.push(...base().where(and(...where, inArray(objects.id, wanted.slice(i, i + CHUNK)))).all());
+    for (let i = 0; i < wanted.length; i += CHUNK)
+      raw.push(
+        ...base()
+          .where(and(...where, inArray(objects.id, wanted.slice(i, i + CHUNK))))
+          .all(),
+      );
     // One id that is not this client's (or does not exist) answers as not found, like any other record.
     if (raw.length !== wanted.length) return null;
   } else {
-    raw = base().where(and(...where)).all();
+    raw = base()
+      .where(and(...where))
+      .all();
   }
   raw.sort((a, b) => (a.objectNumber < b.objectNumber ? -1 : a.objectNumber > b.objectNumber ? 1 : 0));
-  const cond = latestSigned(db, raw.map((r) => r.id));
+  const cond = latestSigned(
+    db,
+    raw.map((r) => r.id),
+  );
   const rows: ScheduleRow[] = raw.map((r) => {
     const c = cond.get(r.id);
     return {

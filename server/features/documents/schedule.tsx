@@ -220,7 +220,9 @@ function Totals({ data }: { data: ScheduleData }) {
         ) : null}
       </View>
       <Text style={[s.small, { marginTop: 14, fontSize: 7.5, lineHeight: 1.4 }]} wrap={false}>
-        Values are as recorded in Reversa on the date above, in each valuation's own currency, with the basis and date each was given; currencies are never converted or added together. Values more than {VALUATION_REVIEW_YEARS} years old are marked. Sizes are width × height: the sheet, then the frame's outside where a frame is recorded, or the mount's outer size. Condition dates are those of the latest signed condition report. This schedule is confidential to the owner and the studio.
+        Values are as recorded in Reversa on the date above, in each valuation's own currency, with the basis and date each was given; currencies are never converted or added
+        together. Values more than {VALUATION_REVIEW_YEARS} years old are marked. Sizes are width × height: the sheet, then the frame's outside where a frame is recorded, or the
+        mount's outer size. Condition dates are those of the latest signed condition report. This schedule is confidential to the owner and the studio.
       </Text>
     </>
   );

@@ -28,7 +28,8 @@ export function labelAddressProblem(address: { publicUrl: string; publicUrlGiven
     }
   })();
   const loopback = host === "localhost" || host.endsWith(".localhost") || /^127\./.test(host) || host === "[::1]" || host === "::1" || host === "0.0.0.0";
-  if (!address.publicUrlGiven) return `Reversa does not know the address people open it at, so the QR code would point at ${address.publicUrl}, this machine only. Set PUBLIC_URL (for example https://records.your-studio.example) and restart.`;
+  if (!address.publicUrlGiven)
+    return `Reversa does not know the address people open it at, so the QR code would point at ${address.publicUrl}, this machine only. Set PUBLIC_URL (for example https://records.your-studio.example) and restart.`;
   if (loopback) return `PUBLIC_URL is ${address.publicUrl}, an address that opens only on this machine. Set it to the address people open Reversa at and restart.`;
   return null;
 }
@@ -89,7 +90,10 @@ export function selectionDocumentsRoutes(db: Db, clock: () => Date, address: { p
     const one = items.length === 1 ? items[0] : null;
     const doc = await docs.issue({
       kind: "workshop-sheet",
-      title: `Workshop sheet — ${items.map((i) => i.objectNumber).join(", ").slice(0, 200)}`,
+      title: `Workshop sheet — ${items
+        .map((i) => i.objectNumber)
+        .join(", ")
+        .slice(0, 200)}`,
       user,
       objectId: one?.detail.row.objectId ?? null,
       objectNumber: one?.objectNumber ?? null,
@@ -152,7 +156,8 @@ export function selectionDocumentsRoutes(db: Db, clock: () => Date, address: { p
     if (objectIds) ids = [...new Set(objectIds)];
     else {
       ids = objectIdsMatching(db, filter, LABEL_SHEET_MAX + 1);
-      if (ids.length > LABEL_SHEET_MAX) throw new AppError("validation_failed", `At most ${LABEL_SHEET_MAX} labels at once: these filters match more. Narrow them (an owner, a status) and print in parts.`);
+      if (ids.length > LABEL_SHEET_MAX)
+        throw new AppError("validation_failed", `At most ${LABEL_SHEET_MAX} labels at once: these filters match more. Narrow them (an owner, a status) and print in parts.`);
     }
     const labels: LabelData[] = [];
     for (const id of ids) labels.push(await labelFor(id).catch(() => Promise.reject(notFound("One of those objects"))));

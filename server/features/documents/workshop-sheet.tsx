@@ -145,12 +145,20 @@ function MountingBlock({ it, unit }: { it: WorkshopItem; unit: Unit }) {
           </View>
         </View>
       ) : (
-        <Text style={[cell, { color: "#9a2b2b" }]}>The plan of this record cannot be computed: {Object.values((result as { fields: Record<string, string> }).fields).join(" ")}</Text>
+        <Text style={[cell, { color: "#9a2b2b" }]}>
+          The plan of this record cannot be computed: {Object.values((result as { fields: Record<string, string> }).fields).join(" ")}
+        </Text>
       )}
       {result.ok && result.plan.level === "fail" ? (
         <View style={{ flexDirection: "row", marginTop: 2 }}>
           <Mark verdict="fail" />
-          <Text style={[cell, { color: "#9a2b2b", marginLeft: 3, flex: 1 }]}>Fails a conservation check: {result.plan.checks.filter((c) => c.verdict === "fail").map((c) => c.reason).join(" ")}</Text>
+          <Text style={[cell, { color: "#9a2b2b", marginLeft: 3, flex: 1 }]}>
+            Fails a conservation check:{" "}
+            {result.plan.checks
+              .filter((c) => c.verdict === "fail")
+              .map((c) => c.reason)
+              .join(" ")}
+          </Text>
         </View>
       ) : null}
     </View>
@@ -172,7 +180,14 @@ function SheetDiagram({ sheet, placements }: { sheet: { width: number; height: n
         // The number is as large as the piece allows, from 5 to 9 pt.
         const size = Math.max(5, Math.min(9, Math.min(p.width, p.height) / k / 2.2)) * k;
         return (
-          <SvgText key={`n${i}`} x={p.x + p.width / 2} y={p.y + p.height / 2 + size * 0.35} textAnchor="middle" fill={INK} style={{ fontSize: size, fontFamily: "Libre Franklin", fontWeight: 700 }}>
+          <SvgText
+            key={`n${i}`}
+            x={p.x + p.width / 2}
+            y={p.y + p.height / 2 + size * 0.35}
+            textAnchor="middle"
+            fill={INK}
+            style={{ fontSize: size, fontFamily: "Libre Franklin", fontWeight: 700 }}
+          >
             {String(i + 1)}
           </SvgText>
         );
@@ -195,7 +210,8 @@ export function WorkshopSheetDocument({ meta, data }: { meta: DocMeta; data: Wor
       <View style={s.caution} wrap={false}>
         <Text style={{ fontWeight: 700, marginBottom: 2 }}>Caution · blades{data.glass ? " and glass" : ""} cut</Text>
         <Text style={{ fontSize: 9, lineHeight: 1.35 }}>
-          Wear cut-resistant gloves and eye protection when cutting board{data.glass ? " and glass" : ""}. Change mount-cutter blades with the blade guard on, and put used blades{data.glass ? " and glass offcuts" : ""} in a sharps container, never in the general bin.
+          Wear cut-resistant gloves and eye protection when cutting board{data.glass ? " and glass" : ""}. Change mount-cutter blades with the blade guard on, and put used blades
+          {data.glass ? " and glass offcuts" : ""} in a sharps container, never in the general bin.
           {data.heavy ? " A frame here is heavy: lift it with two people and never by the top rail." : ""}
         </Text>
       </View>

@@ -16,7 +16,8 @@ export async function gatherInWorker(db: Db, task: Omit<GatherTask, "databaseFil
     return (await p.run({ ...task, databaseFile: db.$client.name } satisfies GatherTask, { signal: AbortSignal.timeout(EXPORT_TIMEOUT_MS) })) as Gathered;
   } catch (e) {
     const name = (e as Error)?.name;
-    if (name === "AbortError" || name === "TimeoutError") throw new AppError("unavailable", "This export took too long to prepare and was stopped. Try again later, or export one dataset at a time.");
+    if (name === "AbortError" || name === "TimeoutError")
+      throw new AppError("unavailable", "This export took too long to prepare and was stopped. Try again later, or export one dataset at a time.");
     throw e;
   }
 }

@@ -8,7 +8,15 @@ import { can } from "../../../shared/permissions.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
 import type { ClientRecord } from "../../../shared/schemas/clients.ts";
 import { OBJECT_STATUS_LABELS, OBJECT_TYPE_LABELS, PHOTO_PROCESS_LABELS, SENSITIVITY_LABELS, VALUATION_BASIS_LABELS } from "../../../shared/schemas/objects.ts";
-import { ADHESIVE_LABELS, ATTACHMENT_METHOD_LABELS, BOARD_GRADE_LABELS, GLAZING_TYPE_LABELS, MOUNTING_REASON_LABELS, MOUNTING_STATUS_LABELS, type MountingData } from "../../../shared/schemas/mountings.ts";
+import {
+  ADHESIVE_LABELS,
+  ATTACHMENT_METHOD_LABELS,
+  BOARD_GRADE_LABELS,
+  GLAZING_TYPE_LABELS,
+  MOUNTING_REASON_LABELS,
+  MOUNTING_STATUS_LABELS,
+  type MountingData,
+} from "../../../shared/schemas/mountings.ts";
 import { CONDITION_CONTEXT_LABELS, RATING_LABELS, SEVERITY_LABELS, type ConditionData } from "../../../shared/schemas/condition.ts";
 import { CUSTODY_KIND_LABELS } from "../../../shared/schemas/custody.ts";
 import { AppError } from "../../lib/errors.ts";
@@ -24,7 +32,12 @@ export function clientObjects(db: Db, clientId: string, f: ExportFilters): Objec
   const where: SQL[] = [eq(objects.clientId, clientId)];
   if (f.status) where.push(eq(objects.status, f.status));
   if (f.objectType) where.push(eq(objects.objectType, f.objectType));
-  return db.select().from(objects).where(and(...where)).orderBy(asc(objects.objectNumber)).all();
+  return db
+    .select()
+    .from(objects)
+    .where(and(...where))
+    .orderBy(asc(objects.objectNumber))
+    .all();
 }
 
 function valuationCells(o: ObjectRow): Row {
@@ -151,7 +164,18 @@ function planCells(d: MountingData, o: ObjectRow, settings: PlanSettings): Row {
 }
 
 const EMPTY_PLAN_CELLS: Row = Object.fromEntries(
-  ["Sheet width (mm)", "Sheet height (mm)", "Window width (mm)", "Window height (mm)", "Border top (mm)", "Border bottom (mm)", "Border left (mm)", "Border right (mm)", "Outer width (mm)", "Outer height (mm)"].map((k) => [k, null]),
+  [
+    "Sheet width (mm)",
+    "Sheet height (mm)",
+    "Window width (mm)",
+    "Window height (mm)",
+    "Border top (mm)",
+    "Border bottom (mm)",
+    "Border left (mm)",
+    "Border right (mm)",
+    "Outer width (mm)",
+    "Outer height (mm)",
+  ].map((k) => [k, null]),
 );
 
 function conditionRows(db: Db, user: SessionUser, objs: ObjectRow[]): Row[] {
@@ -212,7 +236,14 @@ function custodyRows(db: Db, objs: ObjectRow[]): Row[] {
   const rows: (typeof custodyReceipts.$inferSelect)[] = [];
   const ids = [...byId.keys()];
   for (let i = 0; i < ids.length; i += 500) {
-    rows.push(...db.select().from(custodyReceipts).where(inArray(custodyReceipts.objectId, ids.slice(i, i + 500))).orderBy(asc(custodyReceipts.date), asc(custodyReceipts.createdAt)).all());
+    rows.push(
+      ...db
+        .select()
+        .from(custodyReceipts)
+        .where(inArray(custodyReceipts.objectId, ids.slice(i, i + 500)))
+        .orderBy(asc(custodyReceipts.date), asc(custodyReceipts.createdAt))
+        .all(),
+    );
   }
   rows.sort((a, b) => cmp(byId.get(a.objectId)!.objectNumber, byId.get(b.objectId)!.objectNumber) || cmp(a.date, b.date));
   return rows.map((c) => {
@@ -247,7 +278,8 @@ export type Table = { dataset: Dataset; columns: string[]; rows: Row[] };
 
 /** The valuations dataset needs "valuation:read" as well as the right to read the client. */
 export function assertMayExport(user: SessionUser, client: ClientRecord, dataset: Dataset): void {
-  if (dataset === "valuations" && !can(user, "valuation:read", { clientId: client.id })) throw new AppError("forbidden", "Valuations are confidential; your role does not allow exporting them.");
+  if (dataset === "valuations" && !can(user, "valuation:read", { clientId: client.id }))
+    throw new AppError("forbidden", "Valuations are confidential; your role does not allow exporting them.");
 }
 
 /**

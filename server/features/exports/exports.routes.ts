@@ -22,7 +22,14 @@ function exportableClient(db: Db, user: SessionUser, id: string): ClientRecord {
 }
 
 const day = (d: Date) => d.toISOString().slice(0, 10);
-const fileSlug = (s: string) => s.normalize("NFKD").replace(/[^\w\s-]/g, "").trim().replace(/\s+/g, "-").toLowerCase().slice(0, 60) || "client";
+const fileSlug = (s: string) =>
+  s
+    .normalize("NFKD")
+    .replace(/[^\w\s-]/g, "")
+    .trim()
+    .replace(/\s+/g, "-")
+    .toLowerCase()
+    .slice(0, 60) || "client";
 
 function attachment(res: Response, type: string, filename: string) {
   res.setHeader("Content-Type", type);

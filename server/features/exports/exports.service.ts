@@ -53,7 +53,14 @@ const EVENTS_PER_TRANSACTION = 200;
 // Control characters (U+0000–U+001F) are not allowed in ZIP entry names on most systems.
 // biome-ignore lint/suspicious/noControlCharactersInRegex: matching control characters is the point
 const safeSegment = (s: string) => s.replace(/[\\/:*?"<>|\u0000-\u001f]/g, "_").replace(/^\.+/, "_") || "_";
-const slug = (s: string, fallback = "client") => s.normalize("NFKD").replace(/[^\w\s-]/g, "").trim().replace(/\s+/g, "-").toLowerCase().slice(0, 60) || fallback;
+const slug = (s: string, fallback = "client") =>
+  s
+    .normalize("NFKD")
+    .replace(/[^\w\s-]/g, "")
+    .trim()
+    .replace(/\s+/g, "-")
+    .toLowerCase()
+    .slice(0, 60) || fallback;
 
 /** One line of the archive's manifest. */
 export type ManifestEntry = { file: string; kind: string; objectNumber: string | null; caption: string | null; bytes: number; sha256: string };
@@ -112,7 +119,7 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
     const objs = gathered.objects;
     const byId = new Map(objs.map((o) => [o.id, o]));
     const ids = [...byId.keys()];
-    const inChunks = <T,>(read: (part: string[]) => T[]): T[] => {
+    const inChunks = <T>(read: (part: string[]) => T[]): T[] => {
       const out: T[] = [];
       for (let i = 0; i < ids.length; i += 500) out.push(...read(ids.slice(i, i + 500)));
       return out;
@@ -122,18 +129,47 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
     // full-size copy with its metadata stripped.
     const withDrafts = can(user, "condition:read", { clientId: client.id, draft: true });
     const draftReports = new Set(
-      inChunks((part) => db.select({ id: conditionReports.id }).from(conditionReports).where(and(inArray(conditionReports.objectId, part), eq(conditionReports.status, "draft"))).all()).map((r) => r.id),
+      inChunks((part) =>
+        db
+          .select({ id: conditionReports.id })
+          .from(conditionReports)
+          .where(and(inArray(conditionReports.objectId, part), eq(conditionReports.status, "draft")))
+          .all(),
+      ).map((r) => r.id),
     );
     const originals = job.originals && isStudio(user);
     const photoRows = inChunks((part) =>
-      db.select({ id: photos.id, objectId: photos.objectId, originalKey: photos.originalKey, fullKey: photos.fullKey, reportId: photos.reportId, kind: photos.kind, caption: photos.caption }).from(photos).where(inArray(photos.objectId, part)).orderBy(asc(photos.createdAt), asc(photos.id)).all(),
+      db
+        .select({
+          id: photos.id,
+          objectId: photos.objectId,
+          originalKey: photos.originalKey,
+          fullKey: photos.fullKey,
+          reportId: photos.reportId,
+          kind: photos.kind,
+          caption: photos.caption,
+        })
+        .from(photos)
+        .where(inArray(photos.objectId, part))
+        .orderBy(asc(photos.createdAt), asc(photos.id))
+        .all(),
     ).filter((p) => withDrafts || !p.reportId || !draftReports.has(p.reportId));
     // Signed reports only: a draft can still change, and a document is issued only for a signed report.
     const reportRows = inChunks((part) =>
-      db.select({ id: conditionReports.id, objectId: conditionReports.objectId, date: conditionReports.reportDate }).from(conditionReports).where(and(inArray(conditionReports.objectId, part), eq(conditionReports.status, "signed"))).orderBy(asc(conditionReports.reportDate), asc(conditionReports.id)).all(),
+      db
+        .select({ id: conditionReports.id, objectId: conditionReports.objectId, date: conditionReports.reportDate })
+        .from(conditionReports)
+        .where(and(inArray(conditionReports.objectId, part), eq(conditionReports.status, "signed")))
+        .orderBy(asc(conditionReports.reportDate), asc(conditionReports.id))
+        .all(),
     );
     const receiptRows = inChunks((part) =>
-      db.select({ id: custodyReceipts.id, objectId: custodyReceipts.objectId, date: custodyReceipts.date, kind: custodyReceipts.kind }).from(custodyReceipts).where(inArray(custodyReceipts.objectId, part)).orderBy(asc(custodyReceipts.date), asc(custodyReceipts.createdAt)).all(),
+      db
+        .select({ id: custodyReceipts.id, objectId: custodyReceipts.objectId, date: custodyReceipts.date, kind: custodyReceipts.kind })
+        .from(custodyReceipts)
+        .where(inArray(custodyReceipts.objectId, part))
+        .orderBy(asc(custodyReceipts.date), asc(custodyReceipts.createdAt))
+        .all(),
     );
 
     // Photos named so a person can tell them apart: object number, its order on the object, kind and caption.
@@ -157,7 +193,12 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
       }
       const number = safeSegment(byId.get(p.objectId)!.objectNumber);
       const ext = path.extname(key).slice(1) || "bin";
-      const words = [label(PHOTO_KIND_LABELS, p.kind), p.caption].filter(Boolean).map((w) => slug(w!, "")).filter(Boolean).join("-").slice(0, 60);
+      const words = [label(PHOTO_KIND_LABELS, p.kind), p.caption]
+        .filter(Boolean)
+        .map((w) => slug(w!, ""))
+        .filter(Boolean)
+        .join("-")
+        .slice(0, 60);
       files.push({ file, name: `photos/${number}/${number}-${String(n).padStart(2, "0")}${words ? `-${words}` : ""}.${ext}`, objectId: p.objectId, caption: p.caption });
     }
 
@@ -198,7 +239,14 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
         bytes += (chunk as Buffer).length;
       }
       archive.file(f.file, { name: f.name });
-      manifest.push({ file: f.name, kind: originals ? "photo (original file, with its metadata)" : "photo (full size, metadata removed)", objectNumber: byId.get(f.objectId)!.objectNumber, caption: f.caption, bytes, sha256: hash.digest("hex") });
+      manifest.push({
+        file: f.name,
+        kind: originals ? "photo (original file, with its metadata)" : "photo (full size, metadata removed)",
+        objectNumber: byId.get(f.objectId)!.objectNumber,
+        caption: f.caption,
+        bytes,
+        sha256: hash.digest("hex"),
+      });
     }
 
     // Documents rendered by the documents feature, each an issued document with its own verification code.
@@ -219,7 +267,9 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
     const quiet = { inHistory: false };
     for (const o of objs) {
       const n = safeSegment(o.objectNumber);
-      await issue(o.id, `the dossier of ${o.objectNumber}`, `dossiers/${n}.pdf`, "object dossier", `Object dossier of ${o.objectNumber}`, () => issueDossier(db, config, clock, user, o.id, quiet));
+      await issue(o.id, `the dossier of ${o.objectNumber}`, `dossiers/${n}.pdf`, "object dossier", `Object dossier of ${o.objectNumber}`, () =>
+        issueDossier(db, config, clock, user, o.id, quiet),
+      );
     }
     const seq = (m: Map<string, number>, key: string) => {
       const v = (m.get(key) ?? 0) + 1;
@@ -230,18 +280,25 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
     for (const r of reportRows) {
       const n = safeSegment(byId.get(r.objectId)!.objectNumber);
       const file = `condition-reports/${n}-${r.date}${seq(reportSeq, `${n}-${r.date}`)}.pdf`;
-      await issue(r.objectId, `the condition report of ${byId.get(r.objectId)!.objectNumber} of ${r.date}`, file, "condition report", `Condition report of ${r.date}`, () => issueConditionReport(db, config, clock, user, r.id, quiet));
+      await issue(r.objectId, `the condition report of ${byId.get(r.objectId)!.objectNumber} of ${r.date}`, file, "condition report", `Condition report of ${r.date}`, () =>
+        issueConditionReport(db, config, clock, user, r.id, quiet),
+      );
     }
     const receiptSeq = new Map<string, number>();
     for (const c of receiptRows) {
       const n = safeSegment(byId.get(c.objectId)!.objectNumber);
       const file = `custody-receipts/${n}-${c.date}-${c.kind}${seq(receiptSeq, `${n}-${c.date}-${c.kind}`)}.pdf`;
       const what = label(CUSTODY_KIND_LABELS, c.kind) ?? c.kind;
-      await issue(c.objectId, `the custody receipt of ${byId.get(c.objectId)!.objectNumber} of ${c.date}`, file, "custody receipt", `Custody receipt: ${what}, ${c.date}`, () => issueCustodyReceipt(db, clock, config.uploadsDir, user, c.id, quiet));
+      await issue(c.objectId, `the custody receipt of ${byId.get(c.objectId)!.objectNumber} of ${c.date}`, file, "custody receipt", `Custody receipt: ${what}, ${c.date}`, () =>
+        issueCustodyReceipt(db, clock, config.uploadsDir, user, c.id, quiet),
+      );
     }
 
     // The manifest lists every other file; it cannot hold its own hash.
-    const manifestTable = { columns: [...MANIFEST_COLUMNS], rows: manifest.map((m) => ({ File: m.file, Kind: m.kind, "Object number": m.objectNumber, Caption: m.caption, Bytes: m.bytes, "SHA-256": m.sha256 })) };
+    const manifestTable = {
+      columns: [...MANIFEST_COLUMNS],
+      rows: manifest.map((m) => ({ File: m.file, Kind: m.kind, "Object number": m.objectNumber, Caption: m.caption, Bytes: m.bytes, "SHA-256": m.sha256 })),
+    };
     archive.append(toCsv(manifestTable), { name: "manifest.csv" });
     archive.append(JSON.stringify(manifest, null, 2), { name: "manifest.json" });
     await archive.finalize();
@@ -292,10 +349,16 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
 
   return {
     startArchive(user: SessionUser, client: ClientRecord, opts: { originals?: boolean } = {}): string {
-      if (opts.originals && !isStudio(user)) throw forbidden("Original photo files, with their camera and place metadata, go only to studio staff. Leave out originals to get the full-size copies.");
+      if (opts.originals && !isStudio(user))
+        throw forbidden("Original photo files, with their camera and place metadata, go only to studio staff. Leave out originals to get the full-size copies.");
       // One archive at a time per client: a second would only compete with the first for the same files.
-      const busy = db.select({ id: exportJobs.id }).from(exportJobs).where(and(eq(exportJobs.clientId, client.id), eq(exportJobs.state, "running"))).get();
-      if (busy) throw conflict(`An archive of ${client.name}'s records is being built already. Wait for it to finish (it is kept for an hour), then start another if you need one.`);
+      const busy = db
+        .select({ id: exportJobs.id })
+        .from(exportJobs)
+        .where(and(eq(exportJobs.clientId, client.id), eq(exportJobs.state, "running")))
+        .get();
+      if (busy)
+        throw conflict(`An archive of ${client.name}'s records is being built already. Wait for it to finish (it is kept for an hour), then start another if you need one.`);
       const id = randomUUID();
       const dir = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-export-"));
       const job: Job = {
@@ -313,7 +376,21 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
         // Removes the job and its file after an hour; unref'd so it never holds the process open.
         timer: setTimeout(() => void expire({ id, dir }), JOB_TTL_MS).unref(),
       };
-      db.insert(exportJobs).values({ id, ownerId: user.id, clientId: client.id, state: "running", progress: 0, message: job.message, originals: job.originals, dir, file: job.file, filename: job.filename, createdAtMs: job.createdAt }).run();
+      db.insert(exportJobs)
+        .values({
+          id,
+          ownerId: user.id,
+          clientId: client.id,
+          state: "running",
+          progress: 0,
+          message: job.message,
+          originals: job.originals,
+          dir,
+          file: job.file,
+          filename: job.filename,
+          createdAtMs: job.createdAt,
+        })
+        .run();
       building.set(id, job);
       setImmediate(() => {
         run(job, user, client).catch(async (err: unknown) => {

@@ -18,7 +18,17 @@ export function canonicalJson(value: unknown): string {
 }
 
 /** `occurredOn` joins the hash only when present, so events written before it existed still verify. */
-type HashedContent = { objectId: string; type: string; at: number; actorId: string | null; actorName: string; summary: string; data: Record<string, unknown>; prevHash: string | null; occurredOn?: string };
+type HashedContent = {
+  objectId: string;
+  type: string;
+  at: number;
+  actorId: string | null;
+  actorName: string;
+  summary: string;
+  data: Record<string, unknown>;
+  prevHash: string | null;
+  occurredOn?: string;
+};
 
 /**
  * The event's hash: HMAC-SHA256, keyed with the history key, over its content and the previous event's
@@ -58,7 +68,9 @@ function keyringOf(db: Db): Keyring {
 }
 
 export function checkpointMac(c: Omit<Checkpoint, "mac">, key: Buffer): string {
-  return createHmac("sha256", key).update(canonicalJson({ objectId: c.objectId, seq: c.seq, head: c.head, at: c.at })).digest("hex");
+  return createHmac("sha256", key)
+    .update(canonicalJson({ objectId: c.objectId, seq: c.seq, head: c.head, at: c.at }))
+    .digest("hex");
 }
 
 /**
@@ -86,7 +98,10 @@ export type Actor = { id: string | null; name: string };
  * Appends an event to an object's history, chained to the object's previous event.
  * Call it inside the transaction that makes the change, so the change and its record land together.
  */
-export function appendEvent(db: Db, e: { objectId: string; type: EventType; actor: Actor; summary: string; data?: Record<string, unknown>; at?: Date; occurredOn?: string }): HistoryEvent {
+export function appendEvent(
+  db: Db,
+  e: { objectId: string; type: EventType; actor: Actor; summary: string; data?: Record<string, unknown>; at?: Date; occurredOn?: string },
+): HistoryEvent {
   const prev = db.select({ hash: events.hash }).from(events).where(eq(events.objectId, e.objectId)).orderBy(desc(events.seq)).limit(1).get();
   const content: HashedContent = {
     objectId: e.objectId,
@@ -113,11 +128,31 @@ export function appendEvent(db: Db, e: { objectId: string; type: EventType; acto
     ring.scheduled = true;
     queueMicrotask(() => flushCheckpoints(db, ring));
   }
-  return { seq: row.seq, objectId: e.objectId, type: e.type, at: new Date(content.at).toISOString(), occurredOn: content.occurredOn!, actorName: e.actor.name, summary: e.summary, data: content.data, hash };
+  return {
+    seq: row.seq,
+    objectId: e.objectId,
+    type: e.type,
+    at: new Date(content.at).toISOString(),
+    occurredOn: content.occurredOn!,
+    actorName: e.actor.name,
+    summary: e.summary,
+    data: content.data,
+    hash,
+  };
 }
 
 type EventRow = typeof events.$inferSelect;
-const contentOf = (r: EventRow): HashedContent => ({ objectId: r.objectId, type: r.type, at: r.at.getTime(), actorId: r.actorId, actorName: r.actorName, summary: r.summary, data: r.data, prevHash: r.prevHash, occurredOn: r.occurredOn ?? undefined });
+const contentOf = (r: EventRow): HashedContent => ({
+  objectId: r.objectId,
+  type: r.type,
+  at: r.at.getTime(),
+  actorId: r.actorId,
+  actorName: r.actorName,
+  summary: r.summary,
+  data: r.data,
+  prevHash: r.prevHash,
+  occurredOn: r.occurredOn ?? undefined,
+});
 const toEvent = (r: EventRow): HistoryEvent => ({
   seq: r.seq,
   objectId: r.objectId,
@@ -174,10 +209,20 @@ export function verifyChains(db: Db, objectId?: string, keyOverride?: Buffer): C
     for (const r of rows) {
       const expectedPrev = last.get(r.objectId) ?? null;
       if (r.prevHash !== expectedPrev) {
-        return { ok: false, checked, brokenAt: { seq: r.seq, objectId: r.objectId, reason: expectedPrev === null ? "it claims an earlier event that is not there" : "its link to the event before it does not match (an event was removed, added or reordered)" } };
+        return {
+          ok: false,
+          checked,
+          brokenAt: {
+            seq: r.seq,
+            objectId: r.objectId,
+            reason:
+              expectedPrev === null ? "it claims an earlier event that is not there" : "its link to the event before it does not match (an event was removed, added or reordered)",
+          },
+        };
       }
       const recomputed = eventHash(contentOf(r), key);
-      if (recomputed !== r.hash) return { ok: false, checked, brokenAt: { seq: r.seq, objectId: r.objectId, reason: "its content no longer matches its hash (it was changed after it was written)" } };
+      if (recomputed !== r.hash)
+        return { ok: false, checked, brokenAt: { seq: r.seq, objectId: r.objectId, reason: "its content no longer matches its hash (it was changed after it was written)" } };
       last.set(r.objectId, r.hash);
       checked++;
     }
@@ -190,7 +235,11 @@ export function verifyChains(db: Db, objectId?: string, keyOverride?: Buffer): C
   for (const h of heads) {
     if ((last.get(h.id) ?? null) !== (h.head ?? null)) {
       const lastSeq = db.select({ seq: events.seq }).from(events).where(eq(events.objectId, h.id)).orderBy(desc(events.seq)).limit(1).get()?.seq ?? 0;
-      return { ok: false, checked, brokenAt: { seq: lastSeq, objectId: h.id, reason: "the object's history ends before its recorded newest event (events were removed from the end)" } };
+      return {
+        ok: false,
+        checked,
+        brokenAt: { seq: lastSeq, objectId: h.id, reason: "the object's history ends before its recorded newest event (events were removed from the end)" },
+      };
     }
   }
   return { ok: true, checked };
@@ -219,14 +268,20 @@ export function verifyCheckpoints(db: Db, file: string, key: Buffer): { ok: true
     }
     const want = Buffer.from(checkpointMac(c, key), "hex");
     const got = Buffer.from(String(c.mac ?? ""), "hex");
-    if (got.length !== want.length || !timingSafeEqual(got, want)) return { ok: false, line: i + 1, objectId: c.objectId ?? null, reason: "a checkpoint's signature does not match (it was forged or edited)" };
+    if (got.length !== want.length || !timingSafeEqual(got, want))
+      return { ok: false, line: i + 1, objectId: c.objectId ?? null, reason: "a checkpoint's signature does not match (it was forged or edited)" };
     const prev = latest.get(c.objectId);
     if (!prev || c.seq >= prev.c.seq) latest.set(c.objectId, { c, line: i + 1 });
   }
   for (const { c, line } of latest.values()) {
     const row = db.select({ hash: events.hash, objectId: events.objectId }).from(events).where(eq(events.seq, c.seq)).get();
     if (!row || row.objectId !== c.objectId || row.hash !== c.head) {
-      return { ok: false, line, objectId: c.objectId, reason: `event ${c.seq}, checkpointed as this object's head, is no longer in its history (events were removed, or the history was wiped or rewritten)` };
+      return {
+        ok: false,
+        line,
+        objectId: c.objectId,
+        reason: `event ${c.seq}, checkpointed as this object's head, is no longer in its history (events were removed, or the history was wiped or rewritten)`,
+      };
     }
   }
   return { ok: true, checked: latest.size };

@@ -96,7 +96,13 @@ export function createMountPlansService(db: Db) {
       assertCan(user, "plan:write", { clientId: o.clientId }, { what: "That object" });
       const plan = draftOf(body.input, o, "input.");
       const logSaved = (tx: DbT, planId: string) =>
-        appendEvent(tx, { objectId, type: "plan-saved", actor: user, summary: `Draft plan saved: window ${plan.display.aperture}, outer ${plan.display.outer}.`, data: { planId } });
+        appendEvent(tx, {
+          objectId,
+          type: "plan-saved",
+          actor: user,
+          summary: `Draft plan saved: window ${plan.display.aperture}, outer ${plan.display.outer}.`,
+          data: { planId },
+        });
       const existing = repo.findDraft(db, objectId);
       if (!existing) {
         const row = inTransaction(db, (tx) => {

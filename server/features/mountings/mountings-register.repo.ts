@@ -51,7 +51,12 @@ export function listMountings(db: Db, q: MountingListQuery): { items: MountingLi
     const found = db
       .select({ mountingId: mountingBatches.mountingId, revision: mountingBatches.revision, role: mountingBatches.role, batch: mountingBatches.batch })
       .from(mountingBatches)
-      .where(inArray(mountingBatches.mountingId, rows.map((r) => r.id)))
+      .where(
+        inArray(
+          mountingBatches.mountingId,
+          rows.map((r) => r.id),
+        ),
+      )
       .all();
     const current = new Map(rows.map((r) => [r.id, r.currentRevision]));
     for (const b of found) {
@@ -71,10 +76,5 @@ export function listMountings(db: Db, q: MountingListQuery): { items: MountingLi
 
 /** The people who have made mounting records, for the framer filter (names as their accounts have them now). */
 export function listFramers(db: Db): { id: string; name: string }[] {
-  return db
-    .select({ id: user.id, name: user.name })
-    .from(user)
-    .where(sql`exists (select 1 from ${mountings} where ${mountings.framerId} = ${user.id})`)
-    .orderBy(user.name)
-    .all();
+  return db.select({ id: user.id, name: user.name }).from(user).where(sql`exists (select 1 from ${mountings} where ${mountings.framerId} = ${user.id})`).orderBy(user.name).all();
 }

@@ -25,13 +25,28 @@ export function revisionsOf(db: Db, mountingId: string): RevisionRow[] {
 }
 
 export function revision(db: Db, mountingId: string, n: number): RevisionRow | null {
-  return db.select().from(mountingRevisions).where(and(eq(mountingRevisions.mountingId, mountingId), eq(mountingRevisions.revision, n))).get() ?? null;
+  return (
+    db
+      .select()
+      .from(mountingRevisions)
+      .where(and(eq(mountingRevisions.mountingId, mountingId), eq(mountingRevisions.revision, n)))
+      .get() ?? null
+  );
 }
 
 /** Revisions for many records at once (the object page lists all of an object's records). */
 export function currentRevisions(db: Db, rows: MountingRow[]): Map<string, RevisionRow> {
   if (rows.length === 0) return new Map();
-  const all = db.select().from(mountingRevisions).where(inArray(mountingRevisions.mountingId, rows.map((r) => r.id))).all();
+  const all = db
+    .select()
+    .from(mountingRevisions)
+    .where(
+      inArray(
+        mountingRevisions.mountingId,
+        rows.map((r) => r.id),
+      ),
+    )
+    .all();
   const want = new Map(rows.map((r) => [r.id, r.currentRevision]));
   return new Map(all.filter((r) => want.get(r.mountingId) === r.revision).map((r) => [r.mountingId, r]));
 }
@@ -43,7 +58,18 @@ function writeBatches(db: Db, mountingId: string, rev: number, data: MountingDat
 export function insertDraft(db: Db, objectId: string, body: MountingCreate, user: { id: string; name: string }): string {
   const id = randomUUID();
   db.insert(mountings)
-    .values({ id, objectId, status: "draft", reason: body.reason, mountedOn: body.mountedOn, framerId: user.id, framerName: user.name, currentRevision: 1, createdBy: user.id, ...filterCols(body.data) })
+    .values({
+      id,
+      objectId,
+      status: "draft",
+      reason: body.reason,
+      mountedOn: body.mountedOn,
+      framerId: user.id,
+      framerName: user.name,
+      currentRevision: 1,
+      createdBy: user.id,
+      ...filterCols(body.data),
+    })
     .run();
   db.insert(mountingRevisions).values({ id: randomUUID(), mountingId: id, revision: 1, data: body.data, createdBy: user.id, createdByName: user.name }).run();
   writeBatches(db, id, 1, body.data);
@@ -58,7 +84,10 @@ export function updateDraft(db: Db, row: MountingRow, version: number, body: Mou
     .where(and(eq(mountings.id, row.id), eq(mountings.version, version), eq(mountings.status, "draft")))
     .run();
   if (r.changes !== 1) return false;
-  db.update(mountingRevisions).set({ data: body.data, updatedAt: new Date() }).where(and(eq(mountingRevisions.mountingId, row.id), eq(mountingRevisions.revision, 1))).run();
+  db.update(mountingRevisions)
+    .set({ data: body.data, updatedAt: new Date() })
+    .where(and(eq(mountingRevisions.mountingId, row.id), eq(mountingRevisions.revision, 1)))
+    .run();
   db.delete(mountingBatches).where(eq(mountingBatches.mountingId, row.id)).run();
   writeBatches(db, row.id, 1, body.data);
   return true;
@@ -86,13 +115,25 @@ export function addRevision(db: Db, row: MountingRow, version: number, data: Mou
  * that had not ended by then. Drafts were never built, so they never count.
  */
 export function mountingInPlaceOn(db: Db, objectId: string, date: string): MountingRow | null {
-  const rows = db.select().from(mountings).where(and(eq(mountings.objectId, objectId), ne(mountings.status, "draft"))).all();
-  return rows.filter((m) => m.mountedOn <= date && (!m.endedOn || m.endedOn > date)).sort((a, b) => (a.mountedOn < b.mountedOn ? 1 : a.mountedOn > b.mountedOn ? -1 : 0))[0] ?? null;
+  const rows = db
+    .select()
+    .from(mountings)
+    .where(and(eq(mountings.objectId, objectId), ne(mountings.status, "draft")))
+    .all();
+  return (
+    rows.filter((m) => m.mountedOn <= date && (!m.endedOn || m.endedOn > date)).sort((a, b) => (a.mountedOn < b.mountedOn ? 1 : a.mountedOn > b.mountedOn ? -1 : 0))[0] ?? null
+  );
 }
 
 /** The object's current completed mounting other than `exceptId`, if any. */
 export function currentCompleted(db: Db, objectId: string, exceptId: string): MountingRow | null {
-  return db.select().from(mountings).where(and(eq(mountings.objectId, objectId), eq(mountings.status, "completed"), ne(mountings.id, exceptId))).get() ?? null;
+  return (
+    db
+      .select()
+      .from(mountings)
+      .where(and(eq(mountings.objectId, objectId), eq(mountings.status, "completed"), ne(mountings.id, exceptId)))
+      .get() ?? null
+  );
 }
 
 /** Keeps the object's register columns in step with its current mounting. */

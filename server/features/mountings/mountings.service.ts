@@ -65,7 +65,15 @@ export function createMountingsService(db: Db) {
 
   function toRevision(r: repo.RevisionRow, o: ObjectRow): MountingRevision {
     const data = MountingDataSchema.parse(r.data);
-    return { revision: r.revision, data, correctionReason: r.correctionReason, createdAt: r.createdAt.toISOString(), createdByName: r.createdByName, plan: planFor(data, o), catalogue: catalogueOf(o) };
+    return {
+      revision: r.revision,
+      data,
+      correctionReason: r.correctionReason,
+      createdAt: r.createdAt.toISOString(),
+      createdByName: r.createdByName,
+      plan: planFor(data, o),
+      catalogue: catalogueOf(o),
+    };
   }
 
   function toRecord(row: repo.MountingRow, o: ObjectRow, rev?: repo.RevisionRow): MountingRecord {
@@ -164,7 +172,17 @@ export function createMountingsService(db: Db) {
         // A mounting dated before the current one is an earlier mounting recorded afterwards: it goes into
         // the history as already superseded, and the current mount stays as it is.
         if (previous && row.mountedOn < previous.mountedOn) {
-          if (!repo.setStatus(d, row, version, { status: "superseded", supersededById: previous.id, completedAt: new Date(), completedBy: user.id, endedOn: previous.mountedOn, endReason: `Superseded by the mounting of ${previous.mountedOn}.` })) return false;
+          if (
+            !repo.setStatus(d, row, version, {
+              status: "superseded",
+              supersededById: previous.id,
+              completedAt: new Date(),
+              completedBy: user.id,
+              endedOn: previous.mountedOn,
+              endReason: `Superseded by the mounting of ${previous.mountedOn}.`,
+            })
+          )
+            return false;
           appendEvent(d, {
             objectId: row.objectId,
             type: "mounted",
@@ -176,7 +194,13 @@ export function createMountingsService(db: Db) {
           return true;
         }
         if (!repo.setStatus(d, row, version, { status: "completed", completedAt: new Date(), completedBy: user.id })) return false;
-        if (previous) repo.setStatus(d, previous, previous.version, { status: "superseded", supersededById: row.id, endedOn: row.mountedOn, endReason: `Superseded by the ${MOUNTING_REASON_LABELS[row.reason as keyof typeof MOUNTING_REASON_LABELS].toLowerCase()} of ${row.mountedOn}.` });
+        if (previous)
+          repo.setStatus(d, previous, previous.version, {
+            status: "superseded",
+            supersededById: row.id,
+            endedOn: row.mountedOn,
+            endReason: `Superseded by the ${MOUNTING_REASON_LABELS[row.reason as keyof typeof MOUNTING_REASON_LABELS].toLowerCase()} of ${row.mountedOn}.`,
+          });
         repo.setObjectCurrentMount(d, row.objectId, { id: row.id, data, mountedOn: row.mountedOn });
         const summary = mountSummary(data, plan);
         const reason = MOUNTING_REASON_LABELS[row.reason as keyof typeof MOUNTING_REASON_LABELS].toLowerCase();
@@ -226,7 +250,14 @@ export function createMountingsService(db: Db) {
       const ok = inTransaction(db, (d) => {
         if (!repo.setStatus(d, row, body.version, { status: "removed", endedOn: body.endedOn, endReason: body.endReason })) return false;
         repo.setObjectCurrentMount(d, row.objectId, null);
-        appendEvent(d, { objectId: row.objectId, type: "mounting-removed", actor: user, occurredOn: body.endedOn, summary: `Taken out of the mount of ${row.mountedOn}: ${body.endReason}`, data: { mountingId: row.id } });
+        appendEvent(d, {
+          objectId: row.objectId,
+          type: "mounting-removed",
+          actor: user,
+          occurredOn: body.endedOn,
+          summary: `Taken out of the mount of ${row.mountedOn}: ${body.endReason}`,
+          data: { mountingId: row.id },
+        });
         return true;
       });
       if (!ok) throw conflict(STALE);

@@ -85,7 +85,12 @@ export function listObjects(db: Db, query: ObjectListQuery, scopeClientId: strin
       .limit(limit)
       .offset(offset)
       .all();
-  const count = (extra?: SQL) => db.select({ n: sql<number>`count(*)` }).from(objects).where(extra ? and(cond, extra) : cond).get()?.n ?? 0;
+  const count = (extra?: SQL) =>
+    db
+      .select({ n: sql<number>`count(*)` })
+      .from(objects)
+      .where(extra ? and(cond, extra) : cond)
+      .get()?.n ?? 0;
   const offset = (query.page - 1) * query.pageSize;
   let items: ReturnType<typeof page>;
   if (NULLS_LAST_SORTS.has(query.sort)) {
@@ -109,16 +114,17 @@ export function listObjects(db: Db, query: ObjectListQuery, scopeClientId: strin
 /** The ids of the objects a register filter matches, at most `limit` of them. */
 export function objectIdsMatching(db: Db, filter: ObjectFilter, limit: number): string[] {
   const where = objectFilterWhere(filter, null);
-  return db.select({ id: objects.id }).from(objects).where(where.length ? and(...where) : undefined).limit(limit).all().map((o) => o.id);
+  return db
+    .select({ id: objects.id })
+    .from(objects)
+    .where(where.length ? and(...where) : undefined)
+    .limit(limit)
+    .all()
+    .map((o) => o.id);
 }
 
 export function findObject(db: Db, id: string): ObjectRow | null {
-  const row = db
-    .select({ o: objects, clientName: clients.name })
-    .from(objects)
-    .innerJoin(clients, eq(clients.id, objects.clientId))
-    .where(eq(objects.id, id))
-    .get();
+  const row = db.select({ o: objects, clientName: clients.name }).from(objects).innerJoin(clients, eq(clients.id, objects.clientId)).where(eq(objects.id, id)).get();
   return row ? { ...row.o, clientName: row.clientName } : null;
 }
 

@@ -98,7 +98,14 @@ export function createObjectsService(db: Db) {
           const id = repo.insertObject(tx, data, user.id);
           appendEvent(tx, { objectId: id, type: "created", actor: user, summary: `Recorded as ${data.objectNumber}, “${data.title}”.`, data: { objectNumber: data.objectNumber } });
           if (data.valuationMinor !== null) {
-            appendEvent(tx, { objectId: id, type: "valued", actor: user, summary: "Insured value recorded.", data: { valuation: true }, occurredOn: data.valuationDate ?? undefined });
+            appendEvent(tx, {
+              objectId: id,
+              type: "valued",
+              actor: user,
+              summary: "Insured value recorded.",
+              data: { valuation: true },
+              occurredOn: data.valuationDate ?? undefined,
+            });
           }
           return id;
         });
@@ -155,9 +162,7 @@ export function createObjectsService(db: Db) {
         return true;
       });
       if (!ok) {
-        throw conflict(
-          "Someone else saved this object while you were editing it. Your changes are still in the form: reload the record in another tab, compare, then save again.",
-        );
+        throw conflict("Someone else saved this object while you were editing it. Your changes are still in the form: reload the record in another tab, compare, then save again.");
       }
       return toRecord(repo.findObject(db, id)!, user);
     },

@@ -36,7 +36,13 @@ export function listForObject(db: Db, objectId: string, reportId?: string): Phot
 }
 
 export function updatePhoto(db: Db, id: string, data: { kind: string; caption: string | null }): boolean {
-  return db.update(photos).set({ ...data, updatedAt: new Date() }).where(eq(photos.id, id)).run().changes === 1;
+  return (
+    db
+      .update(photos)
+      .set({ ...data, updatedAt: new Date() })
+      .where(eq(photos.id, id))
+      .run().changes === 1
+  );
 }
 
 /** True when any photo row names this storage key (files are shared by content, so one may serve two rows). */
@@ -52,10 +58,7 @@ export function keyInUse(db: Db, key: string): boolean {
 
 export function findReport(db: Db, id: string): { id: string; objectId: string; status: string } | null {
   return (
-    db
-      .select({ id: conditionReports.id, objectId: conditionReports.objectId, status: conditionReports.status })
-      .from(conditionReports)
-      .where(eq(conditionReports.id, id))
-      .get() ?? null
+    db.select({ id: conditionReports.id, objectId: conditionReports.objectId, status: conditionReports.status }).from(conditionReports).where(eq(conditionReports.id, id)).get() ??
+    null
   );
 }

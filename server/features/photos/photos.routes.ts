@@ -16,7 +16,6 @@ import { input, validate } from "../../middleware/validate.ts";
 import { createPhotosService } from "./photos.service.ts";
 import { fileProblem, tooLarge } from "./photos.inspect.ts";
 
-
 // Uploads arrive in a private folder of the system's temporary space (made once per process, mode 0700),
 // never under uploads/: only the storage module writes there, and only after a file has passed every check.
 let tempDir: string | null = null;
@@ -50,8 +49,7 @@ export function photoRoutes(db: Db, config: Pick<Config, "uploadsDir" | "maxUplo
       if (!err) return next();
       if (err instanceof multer.MulterError) {
         if (err.code === "LIMIT_FILE_SIZE") return next(tooLarge(config.maxUploadMb));
-        if (err.code === "LIMIT_FILE_COUNT" || err.code === "LIMIT_UNEXPECTED_FILE")
-          return next(fileProblem("Send one photo per request, in the form field “file”."));
+        if (err.code === "LIMIT_FILE_COUNT" || err.code === "LIMIT_UNEXPECTED_FILE") return next(fileProblem("Send one photo per request, in the form field “file”."));
         return next(new AppError("validation_failed", "The upload form has too many or too long fields. Send the photo with its kind, caption and report only."));
       }
       // busboy: a body cut off or not multipart as it claims.

@@ -84,7 +84,8 @@ export function createPhotosService(db: Db, storage: Storage, limits: PhotoLimit
         }
       }
       if (!file) throw fileProblem("Choose a photo to upload: no file came with the request.");
-      if (file.size === 0) throw fileProblem("This file is empty (0 bytes), so there is no photo in it. Choose the file again; if it is still empty, export it again from the camera or scanner.");
+      if (file.size === 0)
+        throw fileProblem("This file is empty (0 bytes), so there is no photo in it. Choose the file again; if it is still empty, export it again from the camera or scanner.");
       if (file.size > maxBytes) throw tooLarge(limits.maxUploadMb);
 
       const info = await inspectUpload(file.path, { originalName: file.originalname, mimetype: file.mimetype }, limits);
@@ -134,7 +135,12 @@ export function createPhotosService(db: Db, storage: Storage, limits: PhotoLimit
 
     listForObject(user: SessionUser, objectId: string, reportId?: string): { items: Photo[] } {
       const o = loadObject(user, objectId, "object:read");
-      return { items: repo.listForObject(db, objectId, reportId).filter((p) => seesPhoto(user, { reportId: p.reportId, clientId: o.clientId })).map(toPhoto) };
+      return {
+        items: repo
+          .listForObject(db, objectId, reportId)
+          .filter((p) => seesPhoto(user, { reportId: p.reportId, clientId: o.clientId }))
+          .map(toPhoto),
+      };
     },
 
     get(user: SessionUser, id: string): Photo {

@@ -4,7 +4,14 @@ import type { PhotoVersion } from "../../../shared/schemas/photos.ts";
 import { AppError } from "../../lib/errors.ts";
 import { type PhotoLimits, type UploadInfo, VERSION_MAX_SIDE, fileProblem } from "./photos.inspect.ts";
 
-export type RenderedVersions = { ext: "jpg" | "png"; mime: "image/jpeg" | "image/png"; /** The file written at `fullTo`. */ fullFile: string; full: { bytes: number }; web: Buffer; thumb: Buffer };
+export type RenderedVersions = {
+  ext: "jpg" | "png";
+  mime: "image/jpeg" | "image/png" /** The file written at `fullTo`. */;
+  fullFile: string;
+  full: { bytes: number };
+  web: Buffer;
+  thumb: Buffer;
+};
 
 /**
  * Makes the served versions from the original, one pipeline after another, read from the file:

@@ -17,8 +17,7 @@ export const logoProblem = (message: string) => new AppError("validation_failed"
 /** Checks an uploaded logo from its bytes and re-encodes it as a small PNG without metadata. */
 export async function prepareLogo(bytes: Buffer): Promise<Buffer> {
   const type = await fileTypeFromBuffer(bytes);
-  if (!type || (type.mime !== "image/png" && type.mime !== "image/jpeg"))
-    throw logoProblem("The logo must be a PNG or JPEG image. Other files, SVG included, are not accepted.");
+  if (!type || (type.mime !== "image/png" && type.mime !== "image/jpeg")) throw logoProblem("The logo must be a PNG or JPEG image. Other files, SVG included, are not accepted.");
   let meta: Awaited<ReturnType<ReturnType<typeof sharp>["metadata"]>>;
   try {
     meta = await sharp(bytes).metadata();

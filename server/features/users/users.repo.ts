@@ -13,7 +13,9 @@ export async function insertUser(db: Db, u: { email: string; name: string; role:
   const hash = await hashUserPassword(u.password);
   try {
     db.transaction((tx) => {
-      tx.insert(user).values({ id, email: u.email.toLowerCase(), name: u.name, role: u.role, clientId: u.clientId ?? null, emailVerified: true }).run();
+      tx.insert(user)
+        .values({ id, email: u.email.toLowerCase(), name: u.name, role: u.role, clientId: u.clientId ?? null, emailVerified: true })
+        .run();
       tx.insert(account).values({ id: randomUUID(), accountId: id, providerId: "credential", userId: id, password: hash }).run();
     });
   } catch (err) {

@@ -18,7 +18,6 @@ export const COMPARISON_WORDS: Record<ComparisonStatus, string> = {
   "no-longer-seen": "No longer seen",
 };
 
-
 // ── Pieces shared with the dossier ───────────────────────────────────────────
 
 export const t = {
@@ -55,7 +54,13 @@ export function KV({ label, children, labelWidth = 130 }: { label: string; child
   return (
     <View style={{ flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: STONE, paddingVertical: 2.5 }} wrap={false}>
       <Text style={{ width: labelWidth, color: GRAPHITE, paddingRight: 6 }}>{label}</Text>
-      {typeof children === "string" ? <Lines text={children} style={{ flex: 1 }} /> : typeof children === "number" ? <Text style={{ flex: 1 }}>{children}</Text> : <View style={{ flex: 1 }}>{children}</View>}
+      {typeof children === "string" ? (
+        <Lines text={children} style={{ flex: 1 }} />
+      ) : typeof children === "number" ? (
+        <Text style={{ flex: 1 }}>{children}</Text>
+      ) : (
+        <View style={{ flex: 1 }}>{children}</View>
+      )}
     </View>
   );
 }
@@ -68,30 +73,30 @@ export function Table({ cols, rows }: { cols: { label: string; width?: number; f
       {/* A table never starts in the last lines of a page: its header and first rows go over together. */}
       <View minPresenceAhead={48} />
       <View style={t.table}>
-      <View style={t.th} fixed wrap={false}>
-        {cols.map((c, i) => (
-          <Text key={i} style={style(i)}>
-            {c.label}
-          </Text>
-        ))}
-      </View>
-      {rows.map((r, ri) => (
-        <View key={ri} style={t.tr} wrap={false}>
-          {r.map((cell, ci) =>
-            typeof cell === "string" ? (
-              <Lines key={ci} text={cell} style={style(ci)} />
-            ) : typeof cell === "number" || cell === null || cell === undefined ? (
-              <Text key={ci} style={style(ci)}>
-                {cell === null || cell === undefined ? " " : String(cell)}
-              </Text>
-            ) : (
-              <View key={ci} style={style(ci)}>
-                {cell}
-              </View>
-            ),
-          )}
+        <View style={t.th} fixed wrap={false}>
+          {cols.map((c, i) => (
+            <Text key={i} style={style(i)}>
+              {c.label}
+            </Text>
+          ))}
         </View>
-      ))}
+        {rows.map((r, ri) => (
+          <View key={ri} style={t.tr} wrap={false}>
+            {r.map((cell, ci) =>
+              typeof cell === "string" ? (
+                <Lines key={ci} text={cell} style={style(ci)} />
+              ) : typeof cell === "number" || cell === null || cell === undefined ? (
+                <Text key={ci} style={style(ci)}>
+                  {cell === null || cell === undefined ? " " : String(cell)}
+                </Text>
+              ) : (
+                <View key={ci} style={style(ci)}>
+                  {cell}
+                </View>
+              ),
+            )}
+          </View>
+        ))}
       </View>
     </>
   );
@@ -144,7 +149,6 @@ export function RatingTag({ rating }: { rating: Rating }) {
     </View>
   );
 }
-
 
 export function Caution({ children }: { children: ReactNode }) {
   return (

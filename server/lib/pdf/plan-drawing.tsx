@@ -15,7 +15,9 @@ export function PdfPlanDrawing({ model, width }: { model: DrawingModel; width: n
     <Svg width={width} height={height} viewBox={`${x} ${y} ${w} ${h}`}>
       {model.shapes.map((sh, i) => {
         const st = PRINT_STYLE[sh.role];
-        const stroke = st.stroke ? { stroke: st.stroke, strokeWidth: (st.width ?? LINE.fine * PRINT_LINE_SCALE) * k, ...(st.dash ? { strokeDasharray: scaledDash(st.dash, k) } : {}) } : {};
+        const stroke = st.stroke
+          ? { stroke: st.stroke, strokeWidth: (st.width ?? LINE.fine * PRINT_LINE_SCALE) * k, ...(st.dash ? { strokeDasharray: scaledDash(st.dash, k) } : {}) }
+          : {};
         if (sh.kind === "rect") return <Rect key={i} {...drawnRect(sh)} fill={st.fill ?? "none"} fillOpacity={st.opacity} {...stroke} />;
         if (sh.kind === "path") return <Path key={i} d={sh.d} fill={st.fill ?? "none"} fillRule="evenodd" {...stroke} />;
         if (sh.kind === "line")

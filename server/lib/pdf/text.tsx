@@ -69,7 +69,8 @@ export function fontSafe(text: string): string {
     }
     const compat = ch.normalize("NFKC");
     if (compat !== ch && [...compat].every((c) => has(c.codePointAt(0)!))) out += compat;
-    else if (/\p{Mn}/u.test(ch)) continue; // a combining mark the font lacks: the letter stands alone
+    else if (/\p{Mn}/u.test(ch))
+      continue; // a combining mark the font lacks: the letter stands alone
     else out += "?";
   }
   return out;

@@ -12,7 +12,18 @@ export const FAIL = "#9a2b2b";
 
 export const s = StyleSheet.create({
   page: { fontFamily: "Libre Franklin", fontSize: 9, color: INK, paddingTop: 86, paddingBottom: 54, paddingHorizontal: 40 },
-  header: { position: "absolute", top: 24, left: 40, right: 40, flexDirection: "row", justifyContent: "space-between", alignItems: "flex-start", borderBottomWidth: 1, borderBottomColor: ACCENT, paddingBottom: 8 },
+  header: {
+    position: "absolute",
+    top: 24,
+    left: 40,
+    right: 40,
+    flexDirection: "row",
+    justifyContent: "space-between",
+    alignItems: "flex-start",
+    borderBottomWidth: 1,
+    borderBottomColor: ACCENT,
+    paddingBottom: 8,
+  },
   studio: { fontSize: 11, fontWeight: 700 },
   small: { fontSize: 7.5, color: GRAPHITE },
   kind: { fontSize: 13, fontWeight: 700, color: ACCENT, textAlign: "right" },

@@ -36,7 +36,10 @@ const SOURCES = {
  */
 export const HINGE_EDGE_MM_PER_HINGE = 350;
 export const HINGE_GRAMS_PER_HINGE = 40;
-export function hingesWanted(sheetMm: { width: number; height: number }, paperWeightGsm?: number | null): { count: number; byWidth: number; byWeight: number; grams: number | null } {
+export function hingesWanted(
+  sheetMm: { width: number; height: number },
+  paperWeightGsm?: number | null,
+): { count: number; byWidth: number; byWeight: number; grams: number | null } {
   const byWidth = Math.max(2, Math.ceil(sheetMm.width / HINGE_EDGE_MM_PER_HINGE - 1e-9));
   const grams = paperWeightGsm ? (sheetMm.width / 1000) * (sheetMm.height / 1000) * paperWeightGsm : null;
   const byWeight = grams !== null ? Math.ceil(grams / HINGE_GRAMS_PER_HINGE - 1e-9) : 0;
@@ -111,7 +114,13 @@ export function conservationChecks(g: PlanGeometry, input: MountPlanParsed, f: F
     v3 = "warn";
     r3 = "Board grade not chosen yet: boards that touch the object must be museum or conservation grade.";
   }
-  checks.push({ id: "archival-boards", rule: "Boards touching the object are museum or conservation grade; no foam board, kraft paper or pressure-sensitive tape", verdict: v3, reason: r3, source: SOURCES.nedcc });
+  checks.push({
+    id: "archival-boards",
+    rule: "Boards touching the object are museum or conservation grade; no foam board, kraft paper or pressure-sensitive tape",
+    verdict: v3,
+    reason: r3,
+    source: SOURCES.nedcc,
+  });
 
   // 4. Photographs
   if (obj.objectType === "photograph") {
@@ -162,7 +171,13 @@ export function conservationChecks(g: PlanGeometry, input: MountPlanParsed, f: F
     }
     checks.push({ id: "friable-glazing", rule: "Friable media: glass rather than acrylic, with deeper spacing", verdict: v, reason: r, source: SOURCES.friable });
   } else {
-    checks.push({ id: "friable-glazing", rule: "Friable media: glass rather than acrylic, with deeper spacing", verdict: "pass", reason: "No friable media recorded: this rule does not apply.", source: SOURCES.friable });
+    checks.push({
+      id: "friable-glazing",
+      rule: "Friable media: glass rather than acrylic, with deeper spacing",
+      verdict: "pass",
+      reason: "No friable media recorded: this rule does not apply.",
+      source: SOURCES.friable,
+    });
   }
 
   // 6. Reversible attachment
@@ -202,10 +217,14 @@ export function conservationChecks(g: PlanGeometry, input: MountPlanParsed, f: F
   } else if (HINGES.includes(m.attachment)) {
     if (m.attachment === "t-hinge" && floatingHingeEdges.length) {
       v7 = "fail";
-      r7.push(`The sheet floats on the ${list(floatingHingeEdges.map((s) => SIDE_WORD[s]))}, where the T-hinges sit: the window does not cover them there. Use V-hinges or pass-through hinges for a float.`);
+      r7.push(
+        `The sheet floats on the ${list(floatingHingeEdges.map((s) => SIDE_WORD[s]))}, where the T-hinges sit: the window does not cover them there. Use V-hinges or pass-through hinges for a float.`,
+      );
     } else if (m.attachment === "pendant-hinge" && floatingHingeEdges.length) {
       v7 = "warn";
-      r7.push(`The sheet floats on the ${list(floatingHingeEdges.map((s) => SIDE_WORD[s]))}: pendant hinges would show above the sheet. V-hinges (folded) or pass-through hinges hide behind it.`);
+      r7.push(
+        `The sheet floats on the ${list(floatingHingeEdges.map((s) => SIDE_WORD[s]))}: pendant hinges would show above the sheet. V-hinges (folded) or pass-through hinges hide behind it.`,
+      );
     }
     if (m.hingeEdge && m.hingeEdge !== "top") {
       v7 = worstVerdict([v7, "warn"]);
@@ -231,11 +250,19 @@ export function conservationChecks(g: PlanGeometry, input: MountPlanParsed, f: F
     }
   } else if (floatSides.length && !FLOAT_METHODS.includes(m.attachment)) {
     v7 = "warn";
-    r7.push(`The sheet floats on the ${list(floatSides.map((s) => SIDE_WORD[s]))}; ${m.attachment.replace(/-/g, " ")} may show. Edge strips, V-hinges or pass-through hinges suit a float.`);
+    r7.push(
+      `The sheet floats on the ${list(floatSides.map((s) => SIDE_WORD[s]))}; ${m.attachment.replace(/-/g, " ")} may show. Edge strips, V-hinges or pass-through hinges suit a float.`,
+    );
   } else {
     r7.push("No hinges: the object is held without adhesive.");
   }
-  checks.push({ id: "hinge-placement", rule: "Hinges on the top edge; T-hinges where the window covers that edge, float hinges where it floats; more hinges as size and weight grow", verdict: v7, reason: r7.join(" "), source: SOURCES.hinges });
+  checks.push({
+    id: "hinge-placement",
+    rule: "Hinges on the top edge; T-hinges where the window covers that edge, float hinges where it floats; more hinges as size and weight grow",
+    verdict: v7,
+    reason: r7.join(" "),
+    source: SOURCES.hinges,
+  });
 
   // 8. UV-filtering glazing for every object the light guidance treats as very sensitive (shared/domain/light.ts).
   const light = lightClass(obj);

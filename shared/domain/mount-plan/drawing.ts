@@ -77,14 +77,16 @@ export function planDrawing(g: PlanGeometry, hinges: HingeMark[] = []): DrawingM
     const t = Math.abs(o);
     let r: { x: number; y: number; width: number; height: number };
     if (s === "left") r = o > 0 ? { x: wx - t, y: wy, width: t, height: aperture.height } : { x: wx, y: wy, width: t, height: aperture.height };
-    else if (s === "right") r = o > 0 ? { x: wx + aperture.width, y: wy, width: t, height: aperture.height } : { x: wx + aperture.width - t, y: wy, width: t, height: aperture.height };
+    else if (s === "right")
+      r = o > 0 ? { x: wx + aperture.width, y: wy, width: t, height: aperture.height } : { x: wx + aperture.width - t, y: wy, width: t, height: aperture.height };
     else if (s === "top") r = o > 0 ? { x: wx, y: wy - t, width: aperture.width, height: t } : { x: wx, y: wy, width: aperture.width, height: t };
     else r = o > 0 ? { x: wx, y: wy + aperture.height, width: aperture.width, height: t } : { x: wx, y: wy + aperture.height - t, width: aperture.width, height: t };
     shapes.push({ kind: "rect", role, side: s, ...r });
     const text = o < 0 ? `reveal ${shown(-fig.overlap[s])}` : `overlap ${shown(fig.overlap[s])}`;
     const inset = font * 0.9;
     if (s === "left") shapes.push({ kind: "text", role: "band-label", x: wx + inset, y: wy + aperture.height / 2, text, anchor: "middle", rotate: -90, size: font * 0.8 });
-    else if (s === "right") shapes.push({ kind: "text", role: "band-label", x: wx + aperture.width - inset, y: wy + aperture.height / 2, text, anchor: "middle", rotate: 90, size: font * 0.8 });
+    else if (s === "right")
+      shapes.push({ kind: "text", role: "band-label", x: wx + aperture.width - inset, y: wy + aperture.height / 2, text, anchor: "middle", rotate: 90, size: font * 0.8 });
     else if (s === "top") shapes.push({ kind: "text", role: "band-label", x: wx + aperture.width / 2, y: wy + inset * 1.3, text, anchor: "middle", size: font * 0.8 });
     else shapes.push({ kind: "text", role: "band-label", x: wx + aperture.width / 2, y: wy + aperture.height - inset * 0.6, text, anchor: "middle", size: font * 0.8 });
   }
@@ -100,9 +102,26 @@ export function planDrawing(g: PlanGeometry, hinges: HingeMark[] = []): DrawingM
 
   // Border widths, written in each border.
   shapes.push({ kind: "text", role: "border-label", x: outer.width / 2, y: borders.top / 2 + font * 0.35, text: shown(fig.borders.top), anchor: "middle", size: font });
-  shapes.push({ kind: "text", role: "border-label", x: outer.width / 2, y: outer.height - borders.bottom / 2 + font * 0.35, text: shown(fig.borders.bottom), anchor: "middle", size: font });
+  shapes.push({
+    kind: "text",
+    role: "border-label",
+    x: outer.width / 2,
+    y: outer.height - borders.bottom / 2 + font * 0.35,
+    text: shown(fig.borders.bottom),
+    anchor: "middle",
+    size: font,
+  });
   shapes.push({ kind: "text", role: "border-label", x: borders.left / 2, y: outer.height / 2, text: shown(fig.borders.left), anchor: "middle", rotate: -90, size: font });
-  shapes.push({ kind: "text", role: "border-label", x: outer.width - borders.right / 2, y: outer.height / 2, text: shown(fig.borders.right), anchor: "middle", rotate: 90, size: font });
+  shapes.push({
+    kind: "text",
+    role: "border-label",
+    x: outer.width - borders.right / 2,
+    y: outer.height / 2,
+    text: shown(fig.borders.right),
+    anchor: "middle",
+    rotate: 90,
+    size: font,
+  });
 
   // Dimension lines outside the drawing: outer size above and left, window below and right.
   const top = -gap;
@@ -120,7 +139,16 @@ export function planDrawing(g: PlanGeometry, hinges: HingeMark[] = []): DrawingM
   shapes.push({ kind: "line", role: "dim-line", x1: right, y1: wy, x2: right, y2: wy + aperture.height, arrows: true });
   shapes.push({ kind: "line", role: "dim-line", x1: outer.width + font * 0.3, y1: wy, x2: right + font * 0.3, y2: wy });
   shapes.push({ kind: "line", role: "dim-line", x1: outer.width + font * 0.3, y1: wy + aperture.height, x2: right + font * 0.3, y2: wy + aperture.height });
-  shapes.push({ kind: "text", role: "dim-label", x: right + font * 1.15, y: wy + aperture.height / 2, text: `window ${shown(fig.aperture.height)}`, anchor: "middle", rotate: 90, size: font });
+  shapes.push({
+    kind: "text",
+    role: "dim-label",
+    x: right + font * 1.15,
+    y: wy + aperture.height / 2,
+    text: `window ${shown(fig.aperture.height)}`,
+    anchor: "middle",
+    rotate: 90,
+    size: font,
+  });
 
   // Everything drawn, including a sheet that floats past the board, fits in the view box.
   const minX = Math.min(0, sx) - gap - font * 2;

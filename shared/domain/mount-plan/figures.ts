@@ -152,8 +152,28 @@ export function shownFigures(g: Omit<PlanGeometry, "figures">, unit: Unit, asked
   const same = unit === g.unit;
   const coarse = same ? f : unit === "in" ? MM_PER_INCH / 16 : 0.1;
   const c: FigureGrid = { g, askedReveal, f, same, coarse, minShown: roundTo(g.minOverlapMm, f, "up") };
-  const x = axisFigures(c, { sheet: g.sheet.width, aperture: g.aperture.width, oA: g.overlap.left, oB: g.overlap.right, bA: g.borders.left, bB: g.borders.right, outer: g.outer.width, sideA: "left", sideB: "right" });
-  const y = axisFigures(c, { sheet: g.sheet.height, aperture: g.aperture.height, oA: g.overlap.top, oB: g.overlap.bottom, bA: g.borders.top, bB: g.borders.bottom, outer: g.outer.height, sideA: "top", sideB: "bottom" });
+  const x = axisFigures(c, {
+    sheet: g.sheet.width,
+    aperture: g.aperture.width,
+    oA: g.overlap.left,
+    oB: g.overlap.right,
+    bA: g.borders.left,
+    bB: g.borders.right,
+    outer: g.outer.width,
+    sideA: "left",
+    sideB: "right",
+  });
+  const y = axisFigures(c, {
+    sheet: g.sheet.height,
+    aperture: g.aperture.height,
+    oA: g.overlap.top,
+    oB: g.overlap.bottom,
+    bA: g.borders.top,
+    bB: g.borders.bottom,
+    outer: g.outer.height,
+    sideA: "top",
+    sideB: "bottom",
+  });
   const reveal = g.doubleReveal !== null ? roundTo(g.doubleReveal, f, "nearest") : null;
   const rebate = {
     width: Math.max(x.T, same ? roundTo(g.rebate.width, f, "nearest") : roundTo(g.rebate.width, coarse, "up")),

@@ -31,8 +31,7 @@ export function Component() {
         }
       />
       <Notice tone="warn" title="At the bench">
-        Glass and mount-cutter blades cut: wear gloves and eye protection, and put used blades in a sharps container. Lift heavy frames with two people,
-        never by the top rail.
+        Glass and mount-cutter blades cut: wear gloves and eye protection, and put used blades in a sharps container. Lift heavy frames with two people, never by the top rail.
       </Notice>
       <Card title={`In the studio now${inStudio.data ? ` · ${inStudio.data.total}` : ""}`}>
         <QueryView

@@ -33,9 +33,19 @@ function ClientForm({ initial }: { initial?: ClientRecord }) {
   });
   return (
     <form onSubmit={submit} noValidate className="grid max-w-3xl gap-4 rounded-card bg-paper-sheet p-5 shadow-card md:grid-cols-2">
-      {server.error && <div className="col-span-full"><Notice tone="fail" title="Not saved">{server.error.message}</Notice></div>}
+      {server.error && (
+        <div className="col-span-full">
+          <Notice tone="fail" title="Not saved">
+            {server.error.message}
+          </Notice>
+        </div>
+      )}
       <SelectField label="Kind" error={e.kind?.message} {...form.register("kind")}>
-        {CLIENT_KINDS.map((k) => <option key={k} value={k}>{CLIENT_KIND_LABELS[k]}</option>)}
+        {CLIENT_KINDS.map((k) => (
+          <option key={k} value={k}>
+            {CLIENT_KIND_LABELS[k]}
+          </option>
+        ))}
       </SelectField>
       <TextField label="Name" error={e.name?.message} {...form.register("name")} />
       <TextField label="Contact person" error={e.contactName?.message} {...form.register("contactName")} />
@@ -44,8 +54,12 @@ function ClientForm({ initial }: { initial?: ClientRecord }) {
       <TextAreaField label="Address" error={e.address?.message} {...form.register("address")} />
       <TextAreaField label="Notes" wrapClassName="col-span-full" error={e.notes?.message} {...form.register("notes")} />
       <div className="col-span-full flex gap-3">
-        <Button type="submit" disabled={form.formState.isSubmitting}>{initial ? "Save changes" : "Save client"}</Button>
-        <Button variant="secondary" onClick={() => navigate(-1)}>Cancel</Button>
+        <Button type="submit" disabled={form.formState.isSubmitting}>
+          {initial ? "Save changes" : "Save client"}
+        </Button>
+        <Button variant="secondary" onClick={() => navigate(-1)}>
+          Cancel
+        </Button>
       </div>
     </form>
   );
@@ -55,7 +69,12 @@ export function Component() {
   const { id } = useParams();
   const { data: user } = useMe();
   const client = useClient(id ?? "");
-  if (!can(user, "client:write")) return <Notice tone="warn" title="Not available">Only studio staff edit clients.</Notice>;
+  if (!can(user, "client:write"))
+    return (
+      <Notice tone="warn" title="Not available">
+        Only studio staff edit clients.
+      </Notice>
+    );
   if (id && client.isPending) return <SkeletonRows />;
   if (id && client.isError) return <Notice tone="fail">{client.error.message}</Notice>;
   return (

@@ -18,7 +18,12 @@ export function Component() {
   const client = useClient(id);
   const objects = useObjects({ clientId: id, pageSize: 100 });
   if (client.isPending) return <SkeletonRows />;
-  if (client.isError) return <Notice tone="fail" title="Client not found">{client.error.message}</Notice>;
+  if (client.isError)
+    return (
+      <Notice tone="fail" title="Client not found">
+        {client.error.message}
+      </Notice>
+    );
   const c = client.data;
   return (
     <div className="space-y-6">
@@ -30,13 +35,23 @@ export function Component() {
         {can(user, "client:write") && (
           <div className="flex gap-2">
             <ButtonLink to={`/objects/new?client=${c.id}`}>New object for this client</ButtonLink>
-            <ButtonLink to={`/clients/${c.id}/edit`} variant="secondary">Edit client</ButtonLink>
+            <ButtonLink to={`/clients/${c.id}/edit`} variant="secondary">
+              Edit client
+            </ButtonLink>
           </div>
         )}
       </header>
       <Card title="Contact">
         <dl className="grid gap-x-8 gap-y-2 text-sm md:grid-cols-2">
-          {([["Contact", c.contactName], ["E-mail", c.email], ["Phone", c.phone], ["Address", c.address], ["Notes", c.notes]] as const).map(([k, v]) => (
+          {(
+            [
+              ["Contact", c.contactName],
+              ["E-mail", c.email],
+              ["Phone", c.phone],
+              ["Address", c.address],
+              ["Notes", c.notes],
+            ] as const
+          ).map(([k, v]) => (
             <div key={k} className="grid grid-cols-[6rem_1fr] gap-2">
               <dt className="text-graphite">{k}</dt>
               <dd className="whitespace-pre-line">{v ?? "—"}</dd>
@@ -61,7 +76,11 @@ export function Component() {
           <div className="-mx-5 -my-4">
             <ObjectsTable items={objects.data.items} unit={unit} showOwner={false} />
             {objects.data.total > objects.data.items.length && (
-              <p className="px-5 py-3 text-sm"><Link className="text-accent underline" to={`/objects?client=${c.id}`}>See all {objects.data.total} in the register</Link></p>
+              <p className="px-5 py-3 text-sm">
+                <Link className="text-accent underline" to={`/objects?client=${c.id}`}>
+                  See all {objects.data.total} in the register
+                </Link>
+              </p>
             )}
           </div>
         )}

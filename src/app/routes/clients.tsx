@@ -9,7 +9,16 @@ import { ListSection, PageHeader } from "@/components/ui/list-page.tsx";
 import { EmptyState } from "@/components/ui/feedback.tsx";
 
 const COLUMNS: Column<ClientRecord>[] = [
-  { key: "name", header: "Name", td: "font-semibold", cell: (c) => <Link to={`/clients/${c.id}`} className="text-accent hover:underline">{c.name}</Link> },
+  {
+    key: "name",
+    header: "Name",
+    td: "font-semibold",
+    cell: (c) => (
+      <Link to={`/clients/${c.id}`} className="text-accent hover:underline">
+        {c.name}
+      </Link>
+    ),
+  },
   { key: "kind", header: "Kind", td: "text-ink-soft", cell: (c) => CLIENT_KIND_LABELS[c.kind] },
   { key: "contact", header: "Contact", td: "text-ink-soft", cell: (c) => [c.contactName, c.email].filter(Boolean).join(" · ") || "—" },
   { key: "objects", header: "Objects", align: "right", td: "num", cell: (c) => c.objectCount },
@@ -35,7 +44,17 @@ export function Component() {
           </EmptyState>
         }
       >
-        {(data) => <DataTable columns={COLUMNS} rows={data} rowKey={(c) => c.id} head="plain" padX="px-4" tableClassName="w-full text-sm" rowClassName="border-b border-stone-light last:border-0" />}
+        {(data) => (
+          <DataTable
+            columns={COLUMNS}
+            rows={data}
+            rowKey={(c) => c.id}
+            head="plain"
+            padX="px-4"
+            tableClassName="w-full text-sm"
+            rowClassName="border-b border-stone-light last:border-0"
+          />
+        )}
       </ListSection>
     </div>
   );

@@ -31,16 +31,33 @@ export function Component() {
   const correct = useCorrectReport(params.id ?? "");
 
   if (object.isPending || terms.isPending || reports.isPending || photos.isPending || mountings.isPending || (mode !== "new" && existing.isPending)) return <SkeletonRows />;
-  if (object.isError) return <Notice tone="fail" title="Object not found">{object.error.message}</Notice>;
+  if (object.isError)
+    return (
+      <Notice tone="fail" title="Object not found">
+        {object.error.message}
+      </Notice>
+    );
   const o = object.data;
-  if (!can(user, "condition:write", { clientId: o.clientId })) return <Notice tone="warn" title="Read only">Your role cannot write condition reports for this object.</Notice>;
+  if (!can(user, "condition:write", { clientId: o.clientId }))
+    return (
+      <Notice tone="warn" title="Read only">
+        Your role cannot write condition reports for this object.
+      </Notice>
+    );
   const previous = (reports.data ?? []).find((r) => r.status === "signed" && r.id !== params.id)?.current.data ?? null;
 
   return (
     <div className="space-y-5">
       <header>
-        <p className="text-sm font-semibold text-accent num"><Link to={`/objects/${o.id}`} className="hover:underline">{o.objectNumber}</Link> · {o.title}</p>
-        <h1 className="text-2xl font-bold tracking-tight">{mode === "correct" ? "Correct the condition report" : mode === "draft" ? "Condition report (draft)" : "New condition report"}</h1>
+        <p className="text-sm font-semibold text-accent num">
+          <Link to={`/objects/${o.id}`} className="hover:underline">
+            {o.objectNumber}
+          </Link>{" "}
+          · {o.title}
+        </p>
+        <h1 className="text-2xl font-bold tracking-tight">
+          {mode === "correct" ? "Correct the condition report" : mode === "draft" ? "Condition report (draft)" : "New condition report"}
+        </h1>
         <p className="text-sm text-graphite">Record what you see, where, and how severe; the report is an observation, not a treatment.</p>
       </header>
       <ReportForm
@@ -48,11 +65,17 @@ export function Component() {
         objectType={o.objectType}
         photos={photos.data ?? []}
         terms={terms.data ?? []}
-        mountings={(mountings.data ?? []).filter((m) => m.status !== "draft").map((m) => ({ id: m.id, label: `${MOUNTING_REASON_LABELS[m.reason]} of ${formatDate(m.mountedOn)}` }))}
+        mountings={(mountings.data ?? [])
+          .filter((m) => m.status !== "draft")
+          .map((m) => ({ id: m.id, label: `${MOUNTING_REASON_LABELS[m.reason]} of ${formatDate(m.mountedOn)}` }))}
         examinerName={user?.name ?? ""}
         lightNotes={lightGuidance(o.sensitivities, o.objectType, o.photoProcess)}
         previous={mode === "new" ? previous : null}
-        initial={existing.data ? { context: existing.data.context, reportDate: existing.data.reportDate, mountingId: existing.data.mountingId, data: existing.data.current.data } : undefined}
+        initial={
+          existing.data
+            ? { context: existing.data.context, reportDate: existing.data.reportDate, mountingId: existing.data.mountingId, data: existing.data.current.data }
+            : undefined
+        }
         onCancel={() => navigate(-1)}
         onSubmit={async (v) => {
           const body = { context: v.context, reportDate: v.reportDate, mountingId: v.mountingId, data: v.data };

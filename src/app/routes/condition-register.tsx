@@ -23,8 +23,28 @@ const DATE_INPUT = "rounded-card border border-stone bg-paper-sheet px-2 py-1.5"
 
 const link = "text-accent hover:underline";
 const COLUMNS: Column<ConditionRegisterItem>[] = [
-  { key: "date", header: "Date", th: "whitespace-nowrap", td: "whitespace-nowrap num", cell: (r) => <Link className={link} to={`/condition/${r.id}`}>{formatDate(r.reportDate)}</Link> },
-  { key: "number", header: "Object number", th: "whitespace-nowrap", td: "whitespace-nowrap font-semibold num", cell: (r) => <Link className={link} to={`/objects/${r.objectId}`}>{r.objectNumber}</Link> },
+  {
+    key: "date",
+    header: "Date",
+    th: "whitespace-nowrap",
+    td: "whitespace-nowrap num",
+    cell: (r) => (
+      <Link className={link} to={`/condition/${r.id}`}>
+        {formatDate(r.reportDate)}
+      </Link>
+    ),
+  },
+  {
+    key: "number",
+    header: "Object number",
+    th: "whitespace-nowrap",
+    td: "whitespace-nowrap font-semibold num",
+    cell: (r) => (
+      <Link className={link} to={`/objects/${r.objectId}`}>
+        {r.objectNumber}
+      </Link>
+    ),
+  },
   { key: "title", header: "Title", th: "whitespace-nowrap", cell: (r) => r.objectTitle },
   { key: "context", header: "Context", th: "whitespace-nowrap", td: "text-ink-soft", cell: (r) => CONDITION_CONTEXT_LABELS[r.context] },
   { key: "rating", header: "Rating", th: "whitespace-nowrap", cell: (r) => <RatingBadge rating={r.rating} /> },
@@ -51,18 +71,28 @@ export function Component() {
         <EnumFilter label="Context" any="Any context" values={CONDITION_CONTEXTS} labels={CONDITION_CONTEXT_LABELS} value={context} onChange={(v) => set({ context: v })} />
         <FilterSelect aria-label="Examiner" value={examinerId ?? ""} onChange={(e) => set({ examinerId: e.target.value || undefined })}>
           <option value="">Any examiner</option>
-          {q.data?.examiners.map((x) => <option key={x.id} value={x.id}>{x.name}</option>)}
+          {q.data?.examiners.map((x) => (
+            <option key={x.id} value={x.id}>
+              {x.name}
+            </option>
+          ))}
         </FilterSelect>
         <DateFilter label="From " ariaLabel="From" wrapClassName="flex items-center gap-1" inputClassName={DATE_INPUT} value={from} onChange={(v) => set({ from: v })} />
         <DateFilter label="to " ariaLabel="To" wrapClassName="flex items-center gap-1" inputClassName={DATE_INPUT} value={to} onChange={(v) => set({ to: v })} />
-        <label className="flex items-center gap-2"><input type="checkbox" checked={unresolved === "true"} onChange={(e) => set({ unresolved: e.target.checked ? "true" : undefined })} /> Unresolved findings</label>
-        <label className="flex items-center gap-2"><input type="checkbox" checked={!!due} onChange={(e) => set({ due: e.target.checked ? "1" : undefined })} /> Check due</label>
+        <label className="flex items-center gap-2">
+          <input type="checkbox" checked={unresolved === "true"} onChange={(e) => set({ unresolved: e.target.checked ? "true" : undefined })} /> Unresolved findings
+        </label>
+        <label className="flex items-center gap-2">
+          <input type="checkbox" checked={!!due} onChange={(e) => set({ due: e.target.checked ? "1" : undefined })} /> Check due
+        </label>
       </div>
       <ListSection
         label="Condition reports"
         query={q}
         isEmpty={(d) => d.items.length === 0}
-        empty={<EmptyState title="No condition reports match">Reports are written from an object's page, on arrival, before and after mounting, and at every hand-over.</EmptyState>}
+        empty={
+          <EmptyState title="No condition reports match">Reports are written from an object's page, on arrival, before and after mounting, and at every hand-over.</EmptyState>
+        }
       >
         {(data) => (
           <>

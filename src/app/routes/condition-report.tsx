@@ -14,7 +14,6 @@ import { DocumentButton } from "@/features/documents/components/document-button.
 import { formatDate, formatDateTime } from "@/lib/format.ts";
 import { RevisionsList } from "@/components/revisions-list.tsx";
 
-
 export function Component() {
   const { id = "" } = useParams();
   const { data: user } = useMe();
@@ -26,17 +25,29 @@ export function Component() {
   const [shown, setShown] = useState<number | null>(null);
 
   if (r.isPending) return <SkeletonRows />;
-  if (r.isError) return <Notice tone="fail" title="Condition report not found">{r.error.message}</Notice>;
+  if (r.isError)
+    return (
+      <Notice tone="fail" title="Condition report not found">
+        {r.error.message}
+      </Notice>
+    );
   const rep = r.data;
   const writable = !!object.data && can(user, "condition:write", { clientId: object.data.clientId });
-  const revision = shown !== null ? revisions.data?.find((x) => x.revision === shown) ?? rep.current : rep.current;
+  const revision = shown !== null ? (revisions.data?.find((x) => x.revision === shown) ?? rep.current) : rep.current;
 
   return (
     <div className="space-y-5">
       <header className="flex flex-wrap items-end justify-between gap-3">
         <div>
-          <p className="text-sm font-semibold text-accent num"><Link to={`/objects/${rep.objectId}`} className="hover:underline">{rep.objectNumber}</Link> · {rep.objectTitle}</p>
-          <h1 className="text-2xl font-bold tracking-tight">Condition {CONDITION_CONTEXT_LABELS[rep.context].toLowerCase()} · {formatDate(rep.reportDate)}</h1>
+          <p className="text-sm font-semibold text-accent num">
+            <Link to={`/objects/${rep.objectId}`} className="hover:underline">
+              {rep.objectNumber}
+            </Link>{" "}
+            · {rep.objectTitle}
+          </p>
+          <h1 className="text-2xl font-bold tracking-tight">
+            Condition {CONDITION_CONTEXT_LABELS[rep.context].toLowerCase()} · {formatDate(rep.reportDate)}
+          </h1>
           <p className="mt-1 flex flex-wrap items-center gap-2 text-sm text-graphite">
             <Badge tone={rep.status === "signed" ? "accent" : "warn"}>{rep.status === "signed" ? "Signed" : "Draft"}</Badge>
             <RatingBadge rating={rep.rating} />
@@ -46,17 +57,35 @@ export function Component() {
           </p>
         </div>
         <div className="flex flex-wrap items-start gap-2">
-          {rep.status === "signed" && <DocumentButton url={`/api/condition/${rep.id}/document`} label="Report for the insurer (PDF)" fallbackName={`condition-${rep.objectNumber}.pdf`} />}
-        {writable && (
-          <div className="flex flex-wrap gap-2">
-            {rep.status === "draft" && <ButtonLink to={`/condition/${rep.id}/edit`} variant="secondary">Edit draft</ButtonLink>}
-            {rep.status === "draft" && <Button onClick={() => sign.mutate(rep.version)} disabled={sign.isPending}>Sign and lock</Button>}
-            {rep.status === "signed" && <ButtonLink to={`/condition/${rep.id}/correct`} variant="secondary">Correct the report</ButtonLink>}
-          </div>
-        )}
+          {rep.status === "signed" && (
+            <DocumentButton url={`/api/condition/${rep.id}/document`} label="Report for the insurer (PDF)" fallbackName={`condition-${rep.objectNumber}.pdf`} />
+          )}
+          {writable && (
+            <div className="flex flex-wrap gap-2">
+              {rep.status === "draft" && (
+                <ButtonLink to={`/condition/${rep.id}/edit`} variant="secondary">
+                  Edit draft
+                </ButtonLink>
+              )}
+              {rep.status === "draft" && (
+                <Button onClick={() => sign.mutate(rep.version)} disabled={sign.isPending}>
+                  Sign and lock
+                </Button>
+              )}
+              {rep.status === "signed" && (
+                <ButtonLink to={`/condition/${rep.id}/correct`} variant="secondary">
+                  Correct the report
+                </ButtonLink>
+              )}
+            </div>
+          )}
         </div>
       </header>
-      {sign.error && <Notice tone="fail" title="Not signed">{sign.error.message}</Notice>}
+      {sign.error && (
+        <Notice tone="fail" title="Not signed">
+          {sign.error.message}
+        </Notice>
+      )}
       {revisions.data && <RevisionsList revisions={revisions.data} shown={revision.revision} onShow={setShown} />}
       <ReportView data={revision.data} photos={photos.data ?? []} cautions={rep.cautions} />
     </div>

@@ -96,8 +96,8 @@ export function Component() {
             isEmpty={(d) => d.items.length === 0}
             empty={
               <EmptyState title="Nothing in the studio" action={<ButtonLink to="/objects">Find the object in the register</ButtonLink>}>
-                Every object the studio holds is listed here, the longest-held first, with who brought it in and its condition on arrival. When a work comes in,
-                open it in the register and record its receipt.
+                Every object the studio holds is listed here, the longest-held first, with who brought it in and its condition on arrival. When a work comes in, open it in the
+                register and record its receipt.
               </EmptyState>
             }
           >
@@ -116,7 +116,13 @@ export function Component() {
           <fieldset aria-label="Filter receipts" className="flex flex-wrap items-end gap-3">
             <EnumFilter label="In or out" any="In and out" values={DIRECTIONS} labels={DIRECTION_LABELS} value={direction} onChange={(v) => update({ direction: v })} />
             <EnumFilter label="Kind of hand-over" any="Any hand-over" values={CUSTODY_KINDS} labels={CUSTODY_KIND_LABELS} value={kind} onChange={(v) => update({ kind: v })} />
-            <DateFilter label="From" wrapClassName="flex items-center gap-2 text-sm text-ink-soft" inputClassName={DateFilter.roomy} value={from} onChange={(v) => update({ from: v })} />
+            <DateFilter
+              label="From"
+              wrapClassName="flex items-center gap-2 text-sm text-ink-soft"
+              inputClassName={DateFilter.roomy}
+              value={from}
+              onChange={(v) => update({ from: v })}
+            />
             <DateFilter label="to" wrapClassName="flex items-center gap-2 text-sm text-ink-soft" inputClassName={DateFilter.roomy} value={to} onChange={(v) => update({ to: v })} />
             <ClearFilters shown={filtered} className="py-2" onClear={() => update({ direction: undefined, kind: undefined, from: undefined, to: undefined })} />
           </fieldset>
@@ -130,8 +136,8 @@ export function Component() {
                 <EmptyState title="No receipt matches">Widen the dates, or clear the filters.</EmptyState>
               ) : (
                 <EmptyState title="No receipts yet">
-                  Every hand-over into or out of the studio is listed here, newest first: intakes and returns to owners, loans, and visits to conservators. Receipts
-                  are written from each object's page.
+                  Every hand-over into or out of the studio is listed here, newest first: intakes and returns to owners, loans, and visits to conservators. Receipts are written
+                  from each object's page.
                 </EmptyState>
               )
             }

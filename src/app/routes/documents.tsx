@@ -12,7 +12,11 @@ export function Component() {
         gap="gap-3"
         title="Documents"
         intro="Every PDF the studio has issued, with its verification code. Dossiers and labels are made from an object's page; schedules and exports from a client's page."
-        actions={<ButtonLink to="/verify" variant="secondary">Check a code</ButtonLink>}
+        actions={
+          <ButtonLink to="/verify" variant="secondary">
+            Check a code
+          </ButtonLink>
+        }
       />
       <section className="rounded-card bg-paper-sheet p-4 shadow-card">
         {docs.isPending ? <SkeletonRows /> : docs.isError ? <Notice tone="fail">{docs.error.message}</Notice> : <DocumentsList items={docs.data} showObject />}

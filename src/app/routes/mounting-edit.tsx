@@ -30,9 +30,19 @@ export function Component() {
   const correct = useCorrectMounting(mountingId);
 
   if (!settings || object.isPending || (mode !== "new" && existing.isPending) || draftPlan.isPending || mountings.isPending) return <SkeletonRows />;
-  if (object.isError) return <Notice tone="fail" title="Object not found">{object.error.message}</Notice>;
+  if (object.isError)
+    return (
+      <Notice tone="fail" title="Object not found">
+        {object.error.message}
+      </Notice>
+    );
   const o = object.data;
-  if (!can(user, "mounting:write", { clientId: o.clientId })) return <Notice tone="warn" title="Read only">Only studio staff record mountings.</Notice>;
+  if (!can(user, "mounting:write", { clientId: o.clientId }))
+    return (
+      <Notice tone="warn" title="Read only">
+        Only studio staff record mountings.
+      </Notice>
+    );
 
   // The plan comes from the planner's saved draft (or the record being edited): it is never retyped here.
   const current = mountings.data?.find((m) => m.status === "completed");
@@ -41,7 +51,9 @@ export function Component() {
     return (
       <div className="max-w-xl space-y-4">
         <h1 className="text-2xl font-bold tracking-tight">Record a mounting</h1>
-        <Notice tone="info" title="Plan the mount first">The mounting record uses the object's mount plan. Plan the window, borders and glazing, save the draft, then come back here.</Notice>
+        <Notice tone="info" title="Plan the mount first">
+          The mounting record uses the object's mount plan. Plan the window, borders and glazing, save the draft, then come back here.
+        </Notice>
         <ButtonLink to={`/objects/${o.id}/plan`}>Open the planner</ButtonLink>
       </div>
     );
@@ -56,16 +68,28 @@ export function Component() {
   return (
     <div className="space-y-5">
       <header>
-        <p className="text-sm font-semibold text-accent num"><Link to={`/objects/${o.id}`} className="hover:underline">{o.objectNumber}</Link> · {o.title}</p>
-        <h1 className="text-2xl font-bold tracking-tight">{mode === "correct" ? "Correct the mounting record" : mode === "draft" ? "Mounting record (draft)" : current ? "Record a reframing" : "Record a mounting"}</h1>
+        <p className="text-sm font-semibold text-accent num">
+          <Link to={`/objects/${o.id}`} className="hover:underline">
+            {o.objectNumber}
+          </Link>{" "}
+          · {o.title}
+        </p>
+        <h1 className="text-2xl font-bold tracking-tight">
+          {mode === "correct" ? "Correct the mounting record" : mode === "draft" ? "Mounting record (draft)" : current ? "Record a reframing" : "Record a mounting"}
+        </h1>
         {mode === "new" && (
           <p className="text-sm text-graphite">
-            The plan is the one saved {draftPlan.data ? "in the planner" : "with the current mounting"}; <Link className="text-accent underline" to={`/objects/${o.id}/plan`}>change it in the planner</Link>.
-            {current ? " The boards and attachment start from the current mounting." : ""}
+            The plan is the one saved {draftPlan.data ? "in the planner" : "with the current mounting"};{" "}
+            <Link className="text-accent underline" to={`/objects/${o.id}/plan`}>
+              change it in the planner
+            </Link>
+            .{current ? " The boards and attachment start from the current mounting." : ""}
           </p>
         )}
       </header>
-      <Notice tone="warn" title="At the bench">Glass and blades cut: gloves and eye protection, and used blades into a sharps container. Lift heavy frames with two people, never by the top rail.</Notice>
+      <Notice tone="warn" title="At the bench">
+        Glass and blades cut: gloves and eye protection, and used blades into a sharps container. Lift heavy frames with two people, never by the top rail.
+      </Notice>
       <MountingForm
         mode={mode}
         planInput={planInput}

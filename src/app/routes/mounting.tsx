@@ -11,7 +11,7 @@ import { MountingView } from "@/features/mountings/components/mounting-view.tsx"
 import { Badge, Card, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { Button, ButtonLink } from "@/components/ui/button.tsx";
 import { TextField } from "@/components/ui/field.tsx";
-import { formatDate, } from "@/lib/format.ts";
+import { formatDate } from "@/lib/format.ts";
 import { RevisionsList } from "@/components/revisions-list.tsx";
 import { ApiError } from "@/lib/api-client.ts";
 
@@ -30,49 +30,105 @@ export function Component() {
   const [endedOn, setEndedOn] = useState(studioToday);
 
   if (m.isPending || !settings) return <SkeletonRows />;
-  if (m.isError) return <Notice tone="fail" title="Mounting record not found">{m.error.message}</Notice>;
+  if (m.isError)
+    return (
+      <Notice tone="fail" title="Mounting record not found">
+        {m.error.message}
+      </Notice>
+    );
   const rec = m.data;
   const writable = !!object.data && can(user, "mounting:write", { clientId: object.data.clientId });
   const revs = revisions.data;
-  const showing = shown !== null && revs ? revs.find((r) => r.revision === shown) ?? rec.current : rec.current;
+  const showing = shown !== null && revs ? (revs.find((r) => r.revision === shown) ?? rec.current) : rec.current;
   const error = complete.error ?? remove.error;
 
   return (
     <div className="space-y-5">
       <header className="flex flex-wrap items-end justify-between gap-3">
         <div>
-          <p className="text-sm font-semibold text-accent num"><Link to={`/objects/${rec.objectId}`} className="hover:underline">{rec.objectNumber}</Link> · {rec.objectTitle}</p>
-          <h1 className="text-2xl font-bold tracking-tight">{MOUNTING_REASON_LABELS[rec.reason]} · {formatDate(rec.mountedOn)}</h1>
+          <p className="text-sm font-semibold text-accent num">
+            <Link to={`/objects/${rec.objectId}`} className="hover:underline">
+              {rec.objectNumber}
+            </Link>{" "}
+            · {rec.objectTitle}
+          </p>
+          <h1 className="text-2xl font-bold tracking-tight">
+            {MOUNTING_REASON_LABELS[rec.reason]} · {formatDate(rec.mountedOn)}
+          </h1>
           <p className="mt-1 flex flex-wrap items-center gap-2 text-sm text-graphite">
             <Badge tone={rec.status === "completed" ? "accent" : rec.status === "draft" ? "warn" : "neutral"}>{MOUNTING_STATUS_LABELS[rec.status]}</Badge>
             <span>by {rec.framerName}</span>
             {rec.currentRevision > 1 && <span>· revision {rec.currentRevision}</span>}
-            {rec.supersededById && <Link className="text-accent underline" to={`/mountings/${rec.supersededById}`}>· superseded by a later mounting</Link>}
-            {rec.endedOn && <span>· ended {formatDate(rec.endedOn)}{rec.endReason ? `: ${rec.endReason}` : ""}</span>}
+            {rec.supersededById && (
+              <Link className="text-accent underline" to={`/mountings/${rec.supersededById}`}>
+                · superseded by a later mounting
+              </Link>
+            )}
+            {rec.endedOn && (
+              <span>
+                · ended {formatDate(rec.endedOn)}
+                {rec.endReason ? `: ${rec.endReason}` : ""}
+              </span>
+            )}
           </p>
         </div>
         {writable && (
           <div className="flex flex-wrap gap-2">
-            {rec.status === "draft" && <ButtonLink to={`/mountings/${rec.id}/edit`} variant="secondary">Edit draft</ButtonLink>}
-            {rec.status === "draft" && <Button onClick={() => complete.mutate(rec.version)} disabled={complete.isPending}>Complete and lock</Button>}
-            {rec.status !== "draft" && <ButtonLink to={`/mountings/${rec.id}/correct`} variant="secondary">Correct the record</ButtonLink>}
-            {rec.status === "completed" && <Button variant="secondary" onClick={() => setRemoving(true)}>Taken out of mount…</Button>}
+            {rec.status === "draft" && (
+              <ButtonLink to={`/mountings/${rec.id}/edit`} variant="secondary">
+                Edit draft
+              </ButtonLink>
+            )}
+            {rec.status === "draft" && (
+              <Button onClick={() => complete.mutate(rec.version)} disabled={complete.isPending}>
+                Complete and lock
+              </Button>
+            )}
+            {rec.status !== "draft" && (
+              <ButtonLink to={`/mountings/${rec.id}/correct`} variant="secondary">
+                Correct the record
+              </ButtonLink>
+            )}
+            {rec.status === "completed" && (
+              <Button variant="secondary" onClick={() => setRemoving(true)}>
+                Taken out of mount…
+              </Button>
+            )}
           </div>
         )}
       </header>
-      {error && <Notice tone="fail" title="Not done">{error.message}</Notice>}
-      {rec.status === "draft" && <Notice tone="warn" title="Draft">This record is a draft. Completing it locks it and makes it the object's current mount{writable ? "; any earlier mounting becomes superseded" : ""}.</Notice>}
+      {error && (
+        <Notice tone="fail" title="Not done">
+          {error.message}
+        </Notice>
+      )}
+      {rec.status === "draft" && (
+        <Notice tone="warn" title="Draft">
+          This record is a draft. Completing it locks it and makes it the object's current mount{writable ? "; any earlier mounting becomes superseded" : ""}.
+        </Notice>
+      )}
       {removing && (
         <Card title="Taken out of this mount">
           <div className="grid gap-3 md:grid-cols-[10rem_1fr_auto] md:items-end">
             <TextField label="Date" type="date" value={endedOn} onChange={(e) => setEndedOn(e.target.value)} />
-            <TextField label="Why" value={endReason} onChange={(e) => setEndReason(e.target.value)} error={remove.error instanceof ApiError ? remove.error.fields.endReason : undefined} />
-            <Button onClick={() => remove.mutate({ version: rec.version, endedOn, endReason }, { onSuccess: () => setRemoving(false) })} disabled={remove.isPending}>Save</Button>
+            <TextField
+              label="Why"
+              value={endReason}
+              onChange={(e) => setEndReason(e.target.value)}
+              error={remove.error instanceof ApiError ? remove.error.fields.endReason : undefined}
+            />
+            <Button onClick={() => remove.mutate({ version: rec.version, endedOn, endReason }, { onSuccess: () => setRemoving(false) })} disabled={remove.isPending}>
+              Save
+            </Button>
           </div>
         </Card>
       )}
       {revs && <RevisionsList revisions={revs} shown={showing.revision} onShow={setShown} />}
-      {showing.revision !== rec.currentRevision && <Notice tone="info" title={`Showing revision ${showing.revision}`}>This is an earlier revision, kept as it was. The current one is revision {rec.currentRevision}.</Notice>}
+      {showing.revision !== rec.currentRevision && (
+        <Notice tone="info" title={`Showing revision ${showing.revision}`}>
+          This is an earlier revision, kept as it was. The current one is revision {rec.currentRevision}.
+        </Notice>
+      )}
       <MountingView revision={showing} settings={settings} />
     </div>
   );

@@ -38,7 +38,15 @@ function Batches({ m, searched }: { m: MountingListItem; searched?: string }) {
   const earlier = !!searched && !m.batches.some((b) => b.toLowerCase() === searched.toLowerCase());
   return (
     <>
-      {m.batches.length === 0 ? <span className="text-graphite">—</span> : m.batches.map((b) => <span key={b} className="block num">{b}</span>)}
+      {m.batches.length === 0 ? (
+        <span className="text-graphite">—</span>
+      ) : (
+        m.batches.map((b) => (
+          <span key={b} className="block num">
+            {b}
+          </span>
+        ))
+      )}
       {earlier && <span className="mt-0.5 block text-xs text-graphite">{searched} in an earlier revision</span>}
     </>
   );
@@ -161,8 +169,7 @@ export function Component() {
             <EmptyState title="No mounting matches">Widen the dates, or clear the filters.</EmptyState>
           ) : (
             <EmptyState title="No mountings yet" action={<ButtonLink to="/objects">Open the register</ButtonLink>}>
-              Every mounting, reframing and correction recorded on an object's page is listed here, with its materials and their batch numbers. Start from
-              an object.
+              Every mounting, reframing and correction recorded on an object's page is listed here, with its materials and their batch numbers. Start from an object.
             </EmptyState>
           )
         }

@@ -16,10 +16,20 @@ export function Component() {
   const update = useUpdateObject(id);
   const navigate = useNavigate();
 
-  if (object.isError) return <Notice tone="fail" title="Object not found">{object.error.message}</Notice>;
+  if (object.isError)
+    return (
+      <Notice tone="fail" title="Object not found">
+        {object.error.message}
+      </Notice>
+    );
   if (!settings || object.isPending || clients.isPending) return <SkeletonRows />;
   const o = object.data;
-  if (!can(user, "object:update", { clientId: o.clientId })) return <Notice tone="warn" title="Read only">Your role cannot edit this record.</Notice>;
+  if (!can(user, "object:update", { clientId: o.clientId }))
+    return (
+      <Notice tone="warn" title="Read only">
+        Your role cannot edit this record.
+      </Notice>
+    );
 
   return (
     <div className="max-w-4xl space-y-5">

@@ -17,7 +17,12 @@ export function Component() {
   const navigate = useNavigate();
   const [params] = useSearchParams();
 
-  if (!allowed) return <Notice tone="warn" title="Not available">Only studio staff record new objects.</Notice>;
+  if (!allowed)
+    return (
+      <Notice tone="warn" title="Not available">
+        Only studio staff record new objects.
+      </Notice>
+    );
   if (!settings || clients.isPending || next.isPending) return <SkeletonRows />;
 
   const defaults = toFormValues({ objectNumber: next.data?.objectNumber, clientId: params.get("client") ?? undefined }, unit, { currency: settings.currency });

@@ -20,7 +20,12 @@ function fromObject(o: ObjectRecord, base: PlannerValues): PlannerValues {
   const b = [o.borderLeftMm, o.borderTopMm, o.borderRightMm, o.borderBottomMm];
   if (b.some((x) => x !== null)) {
     v.hasImageBorders = true;
-    v.ib = { left: lengthInputValue(o.borderLeftMm ?? 0, u), top: lengthInputValue(o.borderTopMm ?? 0, u), right: lengthInputValue(o.borderRightMm ?? 0, u), bottom: lengthInputValue(o.borderBottomMm ?? 0, u) };
+    v.ib = {
+      left: lengthInputValue(o.borderLeftMm ?? 0, u),
+      top: lengthInputValue(o.borderTopMm ?? 0, u),
+      right: lengthInputValue(o.borderRightMm ?? 0, u),
+      bottom: lengthInputValue(o.borderBottomMm ?? 0, u),
+    };
   }
   v.object = { objectType: o.objectType, photoProcess: o.photoProcess ?? "", sensitivities: o.sensitivities };
   return v;
@@ -34,7 +39,12 @@ export function Component() {
   const draft = useObjectPlan(id);
   const save = useSavePlan(id);
 
-  if (object.isError) return <Notice tone="fail" title="Object not found">{object.error.message}</Notice>;
+  if (object.isError)
+    return (
+      <Notice tone="fail" title="Object not found">
+        {object.error.message}
+      </Notice>
+    );
   if (!settings || object.isPending || draft.isPending) return <SkeletonRows />;
   const o = object.data;
   const base = defaultValues(settings.unit, settings.minOverlapMm);
@@ -45,12 +55,20 @@ export function Component() {
     <div className="space-y-5 print:space-y-2">
       <header className="flex flex-wrap items-end justify-between gap-3">
         <div>
-          <p className="hidden text-xs text-graphite print:block">{settings.studioName} · printed {formatDateTime(new Date().toISOString())}</p>
-          <p className="text-sm font-semibold text-accent num"><Link to={`/objects/${o.id}`} className="hover:underline">{o.objectNumber}</Link></p>
-          <h1 className="text-2xl font-bold tracking-tight print:text-lg">{words.Mount} plan · {o.title}</h1>
+          <p className="hidden text-xs text-graphite print:block">
+            {settings.studioName} · printed {formatDateTime(new Date().toISOString())}
+          </p>
+          <p className="text-sm font-semibold text-accent num">
+            <Link to={`/objects/${o.id}`} className="hover:underline">
+              {o.objectNumber}
+            </Link>
+          </p>
+          <h1 className="text-2xl font-bold tracking-tight print:text-lg">
+            {words.Mount} plan · {o.title}
+          </h1>
           <p className="text-sm text-graphite print:hidden">
-            {draft.data ? `Draft saved ${formatDateTime(draft.data.updatedAt)}.` : "No draft saved yet: the sheet and its border come from the object record."}
-            {" "}The mounting record that uses this plan comes next.
+            {draft.data ? `Draft saved ${formatDateTime(draft.data.updatedAt)}.` : "No draft saved yet: the sheet and its border come from the object record."} The mounting record
+            that uses this plan comes next.
           </p>
         </div>
       </header>
@@ -59,7 +77,13 @@ export function Component() {
         settings={{ unit: settings.unit, minOverlapMm: settings.minOverlapMm, rebateClearanceMm: settings.rebateClearanceMm, framePresets: settings.framePresets, words }}
         initial={initial}
         onSave={writable ? async (input) => void (await save.mutateAsync({ input, version: draft.data?.version })) : undefined}
-        saveState={save.isSuccess ? <Notice tone="pass" title="Draft saved">The plan is kept on the object as a draft.</Notice> : undefined}
+        saveState={
+          save.isSuccess ? (
+            <Notice tone="pass" title="Draft saved">
+              The plan is kept on the object as a draft.
+            </Notice>
+          ) : undefined
+        }
       />
     </div>
   );

@@ -1,12 +1,6 @@
 import type { ReactNode } from "react";
 import { Link, useParams } from "react-router";
-import {
-  OBJECT_TYPE_LABELS,
-  PHOTO_PROCESS_LABELS,
-  SENSITIVITY_LABELS,
-  VALUATION_BASIS_LABELS,
-  type ObjectRecord,
-} from "@shared/schemas/objects.ts";
+import { OBJECT_TYPE_LABELS, PHOTO_PROCESS_LABELS, SENSITIVITY_LABELS, VALUATION_BASIS_LABELS, type ObjectRecord } from "@shared/schemas/objects.ts";
 import { formatLength, formatSize, type Unit } from "@shared/domain/units.ts";
 import { can } from "@shared/permissions.ts";
 import { useMe } from "@/features/session/api/session.ts";
@@ -73,7 +67,10 @@ export function Component() {
   if (q.isError)
     return (
       <Notice tone="fail" title="Object not found">
-        {q.error.message} <Link to="/objects" className="font-medium underline">Back to the register</Link>
+        {q.error.message}{" "}
+        <Link to="/objects" className="font-medium underline">
+          Back to the register
+        </Link>
       </Notice>
     );
   const o = q.data;
@@ -176,15 +173,28 @@ export function Component() {
                   Current: {MOUNTING_REASON_LABELS[current.reason]} of {formatDate(current.mountedOn)} <span className="font-normal text-graphite">by {current.framerName}</span>
                 </p>
                 <p className="mt-1 num">{mountSummary(current.current.data, current.current.plan)}</p>
-                <p className="mt-1 text-graphite">{current.current.plan.level === "pass" ? "✓ Conservation checks pass." : current.current.plan.level === "warn" ? "▲ Some checks need a decision." : "✕ A conservation check fails."}</p>
-                <ButtonLink to={`/mountings/${current.id}`} variant="secondary" className="mt-2">Open the mounting record</ButtonLink>
+                <p className="mt-1 text-graphite">
+                  {current.current.plan.level === "pass"
+                    ? "✓ Conservation checks pass."
+                    : current.current.plan.level === "warn"
+                      ? "▲ Some checks need a decision."
+                      : "✕ A conservation check fails."}
+                </p>
+                <ButtonLink to={`/mountings/${current.id}`} variant="secondary" className="mt-2">
+                  Open the mounting record
+                </ButtonLink>
               </div>
             ) : (
-              <EmptyState title={`No ${words.mount} recorded`}>Plan the window, borders, glazing and frame from this object's sheet, then record the boards and hinges used.</EmptyState>
+              <EmptyState title={`No ${words.mount} recorded`}>
+                Plan the window, borders, glazing and frame from this object's sheet, then record the boards and hinges used.
+              </EmptyState>
             )}
             {draft.data && (
               <p className="rounded-card bg-paper-deep px-3 py-2">
-                Draft {words.mount} plan, saved {formatDateTime(draft.data.updatedAt)}: <span className="num">window {draft.data.plan.display.aperture} · outer {draft.data.plan.display.outer}</span>
+                Draft {words.mount} plan, saved {formatDateTime(draft.data.updatedAt)}:{" "}
+                <span className="num">
+                  window {draft.data.plan.display.aperture} · outer {draft.data.plan.display.outer}
+                </span>
               </p>
             )}
             {others.length > 0 && (
@@ -193,16 +203,20 @@ export function Component() {
                 <ul className="divide-y divide-stone-light">
                   {others.map((m) => (
                     <li key={m.id} className="flex items-center justify-between gap-3 py-1.5">
-                      <Link to={`/mountings/${m.id}`} className="text-accent hover:underline">{MOUNTING_REASON_LABELS[m.reason]} · {formatDate(m.mountedOn)}</Link>
+                      <Link to={`/mountings/${m.id}`} className="text-accent hover:underline">
+                        {MOUNTING_REASON_LABELS[m.reason]} · {formatDate(m.mountedOn)}
+                      </Link>
                       <Badge tone={m.status === "draft" ? "warn" : "neutral"}>{MOUNTING_STATUS_LABELS[m.status]}</Badge>
                     </li>
                   ))}
                 </ul>
               </div>
             )}
-            {(studioCanMount || (can(user, "plan:write", { clientId: o.clientId }))) && (
+            {(studioCanMount || can(user, "plan:write", { clientId: o.clientId })) && (
               <div className="flex flex-wrap gap-2">
-                <ButtonLink to={`/objects/${o.id}/plan`} variant={draft.data ? "secondary" : "primary"}>{draft.data ? `Open the ${words.mount} plan` : `Plan the ${words.mount}`}</ButtonLink>
+                <ButtonLink to={`/objects/${o.id}/plan`} variant={draft.data ? "secondary" : "primary"}>
+                  {draft.data ? `Open the ${words.mount} plan` : `Plan the ${words.mount}`}
+                </ButtonLink>
                 {studioCanMount && (draft.data || current) && (
                   <ButtonLink to={`/objects/${o.id}/mountings/new`}>{current ? "Record a reframing" : "Record the mounting"}</ButtonLink>
                 )}
@@ -222,7 +236,14 @@ export function Component() {
             )}
             <CustodyList
               objectId={o.id}
-              actions={(r) => <DocumentButton url={`/api/custody/${r.id}/document`} label="Receipt (PDF)" fallbackName={`receipt-${o.objectNumber}.pdf`} onIssued={() => refreshDocuments(o.id)} />}
+              actions={(r) => (
+                <DocumentButton
+                  url={`/api/custody/${r.id}/document`}
+                  label="Receipt (PDF)"
+                  fallbackName={`receipt-${o.objectNumber}.pdf`}
+                  onIssued={() => refreshDocuments(o.id)}
+                />
+              )}
             />
           </div>
         </Card>
@@ -244,13 +265,19 @@ export function Component() {
                   ))}
                 </ul>
                 {condition.data.filter((r) => r.status === "signed").length >= 2 && (
-                  <Link to={`/objects/${o.id}/condition/compare`} className="font-medium text-accent hover:underline">Compare two reports</Link>
+                  <Link to={`/objects/${o.id}/condition/compare`} className="font-medium text-accent hover:underline">
+                    Compare two reports
+                  </Link>
                 )}
               </>
             ) : (
               <EmptyState title="No condition report yet">Condition reports with photos record the state of the object at each hand-over.</EmptyState>
             )}
-            {can(user, "condition:write", { clientId: o.clientId }) && <ButtonLink to={`/objects/${o.id}/condition/new`} variant="secondary">New condition report</ButtonLink>}
+            {can(user, "condition:write", { clientId: o.clientId }) && (
+              <ButtonLink to={`/objects/${o.id}/condition/new`} variant="secondary">
+                New condition report
+              </ButtonLink>
+            )}
           </div>
         </Card>
         <Card title="Photos">
@@ -262,9 +289,19 @@ export function Component() {
         <Card title="Documents" className="lg:col-span-2">
           <div id="documents" className="space-y-4">
             <div className="flex flex-wrap gap-3">
-              <DocumentButton url={`/api/objects/${o.id}/documents/dossier`} label="Object dossier (PDF)" fallbackName={`dossier-${o.objectNumber}.pdf`} onIssued={() => refreshDocuments(o.id)} />
+              <DocumentButton
+                url={`/api/objects/${o.id}/documents/dossier`}
+                label="Object dossier (PDF)"
+                fallbackName={`dossier-${o.objectNumber}.pdf`}
+                onIssued={() => refreshDocuments(o.id)}
+              />
               {can(user, "label:print") && (
-                <LabelButton url={`/api/objects/${o.id}/documents/back-label`} label="Back label (PDF)" fallbackName={`back-label-${o.objectNumber}.pdf`} onIssued={() => refreshDocuments(o.id)} />
+                <LabelButton
+                  url={`/api/objects/${o.id}/documents/back-label`}
+                  label="Back label (PDF)"
+                  fallbackName={`back-label-${o.objectNumber}.pdf`}
+                  onIssued={() => refreshDocuments(o.id)}
+                />
               )}
             </div>
             <DocumentsList items={documents.data ?? []} />

@@ -33,7 +33,18 @@ const PAGE_SIZE = 50;
 const FIRST_DIR: Partial<Record<SortKey, "asc" | "desc">> = { lastMountedOn: "desc" };
 
 /** The register's address: the shared list query, with "due for a check" as a switch (the day is the studio's today). */
-const RegisterSearchSchema = ObjectListQuerySchema.pick({ q: true, clientId: true, status: true, objectType: true, method: true, boardGrade: true, glazing: true, sort: true, dir: true, page: true }).extend({
+const RegisterSearchSchema = ObjectListQuerySchema.pick({
+  q: true,
+  clientId: true,
+  status: true,
+  objectType: true,
+  method: true,
+  boardGrade: true,
+  glazing: true,
+  sort: true,
+  dir: true,
+  page: true,
+}).extend({
   due: z.literal("1").optional(),
 });
 const NAMES = { objectType: "type", clientId: "client", boardGrade: "board" } as const;

@@ -28,13 +28,26 @@ function SettingsForm({ initial, readOnly }: { initial: StudioSettings; readOnly
   });
   return (
     <form onSubmit={submit} noValidate className="max-w-3xl space-y-4">
-      {save.isSuccess && !form.formState.isDirty && <Notice tone="pass" title="Saved">The studio settings are saved.</Notice>}
-      {save.isError && <Notice tone="fail" title="Not saved">{save.error.message}</Notice>}
+      {save.isSuccess && !form.formState.isDirty && (
+        <Notice tone="pass" title="Saved">
+          The studio settings are saved.
+        </Notice>
+      )}
+      {save.isError && (
+        <Notice tone="fail" title="Not saved">
+          {save.error.message}
+        </Notice>
+      )}
       <fieldset disabled={readOnly} className="grid gap-4 rounded-card bg-paper-sheet p-5 shadow-card md:grid-cols-2">
         <h2 className="col-span-full text-base font-semibold">Studio</h2>
         <TextField label="Studio name" error={e.studioName?.message} {...form.register("studioName")} />
         <TextAreaField label="Address" error={e.studioAddress?.message} {...form.register("studioAddress")} />
-        <TextField label="Telephone and e-mail" hint="Printed under the address on every document and back label." error={e.studioContact?.message} {...form.register("studioContact")} />
+        <TextField
+          label="Telephone and e-mail"
+          hint="Printed under the address on every document and back label."
+          error={e.studioContact?.message}
+          {...form.register("studioContact")}
+        />
         <h2 className="col-span-full mt-2 text-base font-semibold">Measures and words</h2>
         <SelectField label="Unit" error={e.unit?.message} {...form.register("unit")}>
           <option value="mm">Millimetres</option>
@@ -49,12 +62,41 @@ function SettingsForm({ initial, readOnly }: { initial: StudioSettings; readOnly
           <option value="Letter">US Letter (8 1/2 × 11 in)</option>
         </SelectField>
         <TextField label="Currency" maxLength={3} error={e.currency?.message} hint="ISO 4217 code" {...form.register("currency")} />
-        <TextField label="Minimum overlap (mm)" type="number" step="0.5" error={e.minOverlapMm?.message} hint="How far the window must cover the sheet on each overlapped side. 5 mm is common practice." {...form.register("minOverlapMm", { valueAsNumber: true })} />
-        <TextField label="Condition check every (months)" type="number" error={e.checkIntervalMonths?.message} hint="After the last check, or the mounting when there is none." {...form.register("checkIntervalMonths", { valueAsNumber: true })} />
-        <TextField label="…for objects on loan (months)" type="number" error={e.checkIntervalOnLoanMonths?.message} {...form.register("checkIntervalOnLoanMonths", { valueAsNumber: true })} />
-        <TextField label="Rebate clearance (mm, in total)" type="number" step="0.5" error={e.rebateClearanceMm?.message} hint="Added to the package size to give the frame rebate; 1–3 mm is usual." {...form.register("rebateClearanceMm", { valueAsNumber: true })} />
+        <TextField
+          label="Minimum overlap (mm)"
+          type="number"
+          step="0.5"
+          error={e.minOverlapMm?.message}
+          hint="How far the window must cover the sheet on each overlapped side. 5 mm is common practice."
+          {...form.register("minOverlapMm", { valueAsNumber: true })}
+        />
+        <TextField
+          label="Condition check every (months)"
+          type="number"
+          error={e.checkIntervalMonths?.message}
+          hint="After the last check, or the mounting when there is none."
+          {...form.register("checkIntervalMonths", { valueAsNumber: true })}
+        />
+        <TextField
+          label="…for objects on loan (months)"
+          type="number"
+          error={e.checkIntervalOnLoanMonths?.message}
+          {...form.register("checkIntervalOnLoanMonths", { valueAsNumber: true })}
+        />
+        <TextField
+          label="Rebate clearance (mm, in total)"
+          type="number"
+          step="0.5"
+          error={e.rebateClearanceMm?.message}
+          hint="Added to the package size to give the frame rebate; 1–3 mm is usual."
+          {...form.register("rebateClearanceMm", { valueAsNumber: true })}
+        />
       </fieldset>
-      {!readOnly && <Button type="submit" disabled={form.formState.isSubmitting}>Save settings</Button>}
+      {!readOnly && (
+        <Button type="submit" disabled={form.formState.isSubmitting}>
+          Save settings
+        </Button>
+      )}
     </form>
   );
 }
@@ -75,13 +117,28 @@ function Vocabulary({ readOnly }: { readOnly: boolean }) {
     <section className="max-w-3xl space-y-3 rounded-card bg-paper-sheet p-5 shadow-card" aria-label="Condition vocabulary">
       <h2 className="text-base font-semibold">Condition vocabulary</h2>
       <p className="text-sm text-graphite">The words findings are recorded in. Photographs use both lists. A retired term stays on old reports but is no longer offered.</p>
-      <Segmented kind="tab" label="List" options={["paper", "photograph"] as const} value={list} onChange={setList} optionLabel={(l) => (l === "paper" ? "Paper" : "Photographs")} hover={false} />
+      <Segmented
+        kind="tab"
+        label="List"
+        options={["paper", "photograph"] as const}
+        value={list}
+        onChange={setList}
+        optionLabel={(l) => (l === "paper" ? "Paper" : "Photographs")}
+        hover={false}
+      />
       <ul className="grid gap-1 sm:grid-cols-2">
         {shown.map((t) => (
           <li key={t.id} className="flex items-center justify-between gap-2 border-b border-stone-light py-1 text-sm">
-            <span className={t.active ? "" : "text-graphite line-through"}>{t.term}{t.caution ? " ▲" : ""}</span>
+            <span className={t.active ? "" : "text-graphite line-through"}>
+              {t.term}
+              {t.caution ? " ▲" : ""}
+            </span>
             {!readOnly && (
-              <Button variant="quiet" className="px-2 py-0.5 text-xs" onClick={() => save.mutate({ id: t.id, list: t.list, term: t.term, caution: t.caution ?? null, active: !t.active })}>
+              <Button
+                variant="quiet"
+                className="px-2 py-0.5 text-xs"
+                onClick={() => save.mutate({ id: t.id, list: t.list, term: t.term, caution: t.caution ?? null, active: !t.active })}
+              >
                 {t.active ? "Retire" : "Bring back"}
               </Button>
             )}
@@ -91,7 +148,9 @@ function Vocabulary({ readOnly }: { readOnly: boolean }) {
       {!readOnly && (
         <div className="flex items-end gap-2">
           <TextField label={`New ${list === "paper" ? "paper" : "photograph"} term`} value={draft} error={error ?? undefined} onChange={(e) => setDraft(e.target.value)} />
-          <Button onClick={add} disabled={!draft.trim() || save.isPending}>Add</Button>
+          <Button onClick={add} disabled={!draft.trim() || save.isPending}>
+            Add
+          </Button>
         </div>
       )}
       <p className="text-xs text-graphite">▲ shows a handling caution (mould, insects) on reports with that finding.</p>
@@ -110,7 +169,9 @@ type PresetRow = { label: string; width: string; height: string };
 function FramePresets({ settings, readOnly }: { settings: StudioSettingsRecord; readOnly: boolean }) {
   const save = useSaveSettings();
   const u = settings.unit;
-  const [rows, setRows] = useState<PresetRow[]>(settings.framePresets.map((p) => ({ label: p.label, width: lengthInputValue(p.widthMm, u), height: lengthInputValue(p.heightMm, u) })));
+  const [rows, setRows] = useState<PresetRow[]>(
+    settings.framePresets.map((p) => ({ label: p.label, width: lengthInputValue(p.widthMm, u), height: lengthInputValue(p.heightMm, u) })),
+  );
   const [errors, setErrors] = useState<Record<string, string>>({});
   const set = (i: number, k: keyof PresetRow, v: string) => setRows((r) => r.map((row, j) => (j === i ? { ...row, [k]: v } : row)));
   function submit() {
@@ -130,22 +191,45 @@ function FramePresets({ settings, readOnly }: { settings: StudioSettingsRecord; 
     <section className="max-w-3xl space-y-3 rounded-card bg-paper-sheet p-5 shadow-card" aria-label="The studio's frame sizes">
       <h2 className="text-base font-semibold">The studio's frame sizes</h2>
       <p className="text-sm text-graphite">Ready-made sizes the studio stocks; the planner offers them beside the standard ones. Sizes in {u === "in" ? "inches" : "mm"}.</p>
-      {save.isSuccess && <Notice tone="pass" title="Saved">The frame sizes are saved.</Notice>}
-      {save.isError && <Notice tone="fail" title="Not saved">{save.error.message}</Notice>}
+      {save.isSuccess && (
+        <Notice tone="pass" title="Saved">
+          The frame sizes are saved.
+        </Notice>
+      )}
+      {save.isError && (
+        <Notice tone="fail" title="Not saved">
+          {save.error.message}
+        </Notice>
+      )}
       {rows.length === 0 && <p className="text-sm text-graphite">No sizes yet.</p>}
       {rows.map((r, i) => (
         // biome-ignore lint/suspicious/noArrayIndexKey: the inputs are controlled and errors are addressed by row number, so position is the row's identity
         <div key={i} className="grid grid-cols-[1fr_7rem_7rem_auto] items-end gap-2">
           <TextField label="Name" disabled={readOnly} value={r.label} error={errors[`${i}.label`]} onChange={(e) => set(i, "label", e.target.value)} />
           <TextField label={`Width (${u})`} disabled={readOnly} className="num" value={r.width} error={errors[`${i}.width`]} onChange={(e) => set(i, "width", e.target.value)} />
-          <TextField label={`Height (${u})`} disabled={readOnly} className="num" value={r.height} error={errors[`${i}.height`]} onChange={(e) => set(i, "height", e.target.value)} />
-          {!readOnly && <Button variant="quiet" onClick={() => setRows((x) => x.filter((_, j) => j !== i))} aria-label={`Remove ${r.label || "this size"}`}>Remove</Button>}
+          <TextField
+            label={`Height (${u})`}
+            disabled={readOnly}
+            className="num"
+            value={r.height}
+            error={errors[`${i}.height`]}
+            onChange={(e) => set(i, "height", e.target.value)}
+          />
+          {!readOnly && (
+            <Button variant="quiet" onClick={() => setRows((x) => x.filter((_, j) => j !== i))} aria-label={`Remove ${r.label || "this size"}`}>
+              Remove
+            </Button>
+          )}
         </div>
       ))}
       {!readOnly && (
         <div className="flex gap-2">
-          <Button variant="secondary" onClick={() => setRows((x) => [...x, { label: "", width: "", height: "" }])}>Add a size</Button>
-          <Button onClick={submit} disabled={save.isPending}>Save sizes</Button>
+          <Button variant="secondary" onClick={() => setRows((x) => [...x, { label: "", width: "", height: "" }])}>
+            Add a size
+          </Button>
+          <Button onClick={submit} disabled={save.isPending}>
+            Save sizes
+          </Button>
         </div>
       )}
     </section>
@@ -162,13 +246,23 @@ function Logo({ hasLogo, version }: { hasLogo: boolean; version: number }) {
   return (
     <section className="max-w-3xl space-y-3 rounded-card bg-paper-sheet p-5 shadow-card" aria-label="Logo on documents">
       <h2 className="text-base font-semibold">Logo on documents</h2>
-      <p className="text-sm text-graphite">Shown beside the studio's name at the top of every document. A PNG or JPEG of at most 2 MB and 4000 × 4000 pixels; it is stored as a PNG 600 pixels wide at most.</p>
+      <p className="text-sm text-graphite">
+        Shown beside the studio's name at the top of every document. A PNG or JPEG of at most 2 MB and 4000 × 4000 pixels; it is stored as a PNG 600 pixels wide at most.
+      </p>
       {hasLogo ? (
-        <img src={`/api/settings/logo?v=${version}`} alt="The studio's current logo" className="h-12 w-auto max-w-xs rounded border border-stone-light bg-white object-contain p-1" />
+        <img
+          src={`/api/settings/logo?v=${version}`}
+          alt="The studio's current logo"
+          className="h-12 w-auto max-w-xs rounded border border-stone-light bg-white object-contain p-1"
+        />
       ) : (
         <p className="text-sm text-graphite">No logo yet: documents show the studio's name only.</p>
       )}
-      {error && <Notice tone="fail" title="Logo not changed">{error}</Notice>}
+      {error && (
+        <Notice tone="fail" title="Logo not changed">
+          {error}
+        </Notice>
+      )}
       <div className="flex flex-wrap items-end gap-3">
         <label className="grid gap-1 text-sm">
           <span className="font-medium">{hasLogo ? "Replace the logo (PNG or JPEG)" : "Upload a logo (PNG or JPEG)"}</span>
@@ -185,12 +279,23 @@ function Logo({ hasLogo, version }: { hasLogo: boolean; version: number }) {
           />
         </label>
         {hasLogo && (
-          <Button variant="quiet" disabled={busy} onClick={() => { upload.reset(); remove.mutate(); }}>
+          <Button
+            variant="quiet"
+            disabled={busy}
+            onClick={() => {
+              upload.reset();
+              remove.mutate();
+            }}
+          >
             Remove
           </Button>
         )}
       </div>
-      {upload.isPending && <p className="text-sm text-graphite" role="status">Uploading the logo…</p>}
+      {upload.isPending && (
+        <p className="text-sm text-graphite" role="status">
+          Uploading the logo…
+        </p>
+      )}
     </section>
   );
 }

@@ -25,7 +25,12 @@ export function navFor(user: SessionUser): NavItem[] {
       { to: "/studio", label: "Studio" },
     ];
   }
-  if (user.role === "registrar") return [{ to: "/objects", label: "Collection" }, { to: "/condition", label: "Condition" }, { to: "/clients", label: "Institution" }];
+  if (user.role === "registrar")
+    return [
+      { to: "/objects", label: "Collection" },
+      { to: "/condition", label: "Condition" },
+      { to: "/clients", label: "Institution" },
+    ];
   return [{ to: "/objects", label: "My collection" }];
 }
 
@@ -67,13 +72,7 @@ export function AppLayout() {
           <NavLink to={items[0].to} aria-label="Reversa, home">
             <Logo />
           </NavLink>
-          <button
-            type="button"
-            className="rounded px-2 py-1 text-sm text-graphite md:hidden"
-            aria-expanded={open}
-            aria-controls="main-nav"
-            onClick={() => setOpen((o) => !o)}
-          >
+          <button type="button" className="rounded px-2 py-1 text-sm text-graphite md:hidden" aria-expanded={open} aria-controls="main-nav" onClick={() => setOpen((o) => !o)}>
             Menu
           </button>
         </div>

@@ -2,8 +2,7 @@ import type { ButtonHTMLAttributes } from "react";
 import { Link, type LinkProps } from "react-router";
 
 type Variant = "primary" | "secondary" | "quiet" | "danger";
-const BASE =
-  "inline-flex items-center justify-center gap-2 rounded-card px-4 py-2 text-sm font-semibold transition-colors disabled:cursor-not-allowed disabled:opacity-60";
+const BASE = "inline-flex items-center justify-center gap-2 rounded-card px-4 py-2 text-sm font-semibold transition-colors disabled:cursor-not-allowed disabled:opacity-60";
 const VARIANTS: Record<Variant, string> = {
   primary: "bg-accent text-paper-sheet hover:bg-accent-hover",
   secondary: "border border-stone bg-paper-sheet text-ink hover:border-graphite-light hover:bg-paper-deep",
@@ -24,7 +23,19 @@ export function ButtonLink({ variant = "primary", className = "", ...props }: Li
 }
 
 /** A form's last row: save (saying so while it saves) and cancel. */
-export function FormActions({ submitting, label, busyLabel = "Saving…", onCancel, className = "flex gap-3" }: { submitting: boolean; label: string; busyLabel?: string; onCancel: () => void; className?: string }) {
+export function FormActions({
+  submitting,
+  label,
+  busyLabel = "Saving…",
+  onCancel,
+  className = "flex gap-3",
+}: {
+  submitting: boolean;
+  label: string;
+  busyLabel?: string;
+  onCancel: () => void;
+  className?: string;
+}) {
   return (
     <div className={className}>
       <Button type="submit" disabled={submitting}>

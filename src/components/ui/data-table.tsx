@@ -40,12 +40,13 @@ export function DataTable<T>({
       <table className={tableClassName}>
         <thead className={head === "sticky" ? STICKY_HEAD : PLAIN_HEAD}>
           <tr>
-            {columns.map((c) =>
-              c.head ?? (
-                <th key={c.key} scope="col" className={`${padX} py-2.5 font-semibold ${align(c)} ${c.th ?? ""}`}>
-                  {c.header}
-                </th>
-              ),
+            {columns.map(
+              (c) =>
+                c.head ?? (
+                  <th key={c.key} scope="col" className={`${padX} py-2.5 font-semibold ${align(c)} ${c.th ?? ""}`}>
+                    {c.header}
+                  </th>
+                ),
             )}
           </tr>
         </thead>

@@ -37,9 +37,7 @@ type InputProps = InputHTMLAttributes<HTMLInputElement> & { label: string; error
 export const TextField = forwardRef<HTMLInputElement, InputProps>(function TextField({ label, error, hint, wrapClassName, className = "", ...props }, ref) {
   return (
     <Field label={label} error={error} hint={hint} className={wrapClassName}>
-      {({ id, describedBy }) => (
-        <input ref={ref} id={id} aria-invalid={!!error} aria-describedby={describedBy} {...props} className={`${controlClass(error)} ${className}`} />
-      )}
+      {({ id, describedBy }) => <input ref={ref} id={id} aria-invalid={!!error} aria-describedby={describedBy} {...props} className={`${controlClass(error)} ${className}`} />}
     </Field>
   );
 });
@@ -49,7 +47,14 @@ export const SelectField = forwardRef<HTMLSelectElement, SelectProps>(function S
   return (
     <Field label={label} error={error} hint={hint} className={wrapClassName}>
       {({ id, describedBy }) => (
-        <select ref={ref} id={id} aria-invalid={!!error} aria-describedby={describedBy} {...props} className={`${controlClass(error)} disabled:bg-paper-deep disabled:text-graphite ${className}`}>
+        <select
+          ref={ref}
+          id={id}
+          aria-invalid={!!error}
+          aria-describedby={describedBy}
+          {...props}
+          className={`${controlClass(error)} disabled:bg-paper-deep disabled:text-graphite ${className}`}
+        >
           {children}
         </select>
       )}

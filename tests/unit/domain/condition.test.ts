@@ -10,8 +10,7 @@ const finding = (over: Partial<Finding> & Pick<Finding, "id" | "term">): Finding
   notes: null,
   ...over,
 });
-const report = (findings: Finding[]): ConditionData =>
-  ConditionDataSchema.parse({ overallRating: ratingFloor(findings), summary: "Examined under raking light.", findings });
+const report = (findings: Finding[]): ConditionData => ConditionDataSchema.parse({ overallRating: ratingFloor(findings), summary: "Examined under raking light.", findings });
 const statuses = (r: ReturnType<typeof compareFindings>) => r.map((c) => [c.status, (c.after ?? c.before)!.id]);
 
 describe("ratingFloor", () => {

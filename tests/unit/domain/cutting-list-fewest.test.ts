@@ -8,10 +8,7 @@ import { fewestSheets } from "./support/guillotine-brute.ts";
 // invented for the test; the 1120 × 815 mm full sheet is common practice (no source).
 const SHEET = { width: 1120, height: 815 };
 
-const batch = fc.array(
-  fc.record({ w: fc.integer({ min: 150, max: 800 }), h: fc.integer({ min: 150, max: 800 }) }),
-  { minLength: 1, maxLength: 8 },
-);
+const batch = fc.array(fc.record({ w: fc.integer({ min: 150, max: 800 }), h: fc.integer({ min: 150, max: 800 }) }), { minLength: 1, maxLength: 8 });
 
 function asPieces(boards: { w: number; h: number }[]): CutPiece[] {
   return boards.map((b, i) => ({ id: `b${i}`, width: b.w, height: b.h, quantity: 1 }));
@@ -31,7 +28,12 @@ describe("the cutting list uses the fewest sheets", () => {
 
   it("when four boards fit one sheet only in a layout a first-fit packer misses, then one sheet is used", () => {
     // 2 × (560 × 400) side by side on top, then 2 × (560 × 415) below: exactly 1120 × 815.
-    const boards = [{ w: 400, h: 560 }, { w: 560, h: 415 }, { w: 415, h: 560 }, { w: 560, h: 400 }];
+    const boards = [
+      { w: 400, h: 560 },
+      { w: 560, h: 415 },
+      { w: 415, h: 560 },
+      { w: 560, h: 400 },
+    ];
     expect(fewestSheets(boards, SHEET, 0)).toBe(1);
     expect(cuttingList(asPieces(boards), SHEET, 0).sheetCount).toBe(1);
   });

@@ -72,7 +72,9 @@ type SideSpec = { spec: NonNullable<Extract<MountPlanInput["window"], { all: unk
 function sideArb(unit: Unit): fc.Arbitrary<SideSpec> {
   return fc.oneof(
     typedLength(unit, 0, 60).map((o) => ({ spec: { mode: "overlap" as const, overlap: o.value }, requestedMm: o.mm })),
-    fc.tuple(typedLength(unit, 0, 40), typedLength(unit, -5, 10)).map(([b, c]) => ({ spec: { mode: "hide-border" as const, border: b.value, into: c.value }, requestedMm: b.mm + c.mm })),
+    fc
+      .tuple(typedLength(unit, 0, 40), typedLength(unit, -5, 10))
+      .map(([b, c]) => ({ spec: { mode: "hide-border" as const, border: b.value, into: c.value }, requestedMm: b.mm + c.mm })),
     typedLength(unit, 0, 40).map((g) => ({ spec: { mode: "float" as const, reveal: g.value }, requestedMm: -g.mm })),
   );
 }
@@ -93,7 +95,9 @@ const windowCase: fc.Arbitrary<Case> = unitAndPrecision.chain(({ unit, precision
     const all = sideArb(unit).map((s) => make({ all: s.spec }, { left: s.requestedMm, top: s.requestedMm, right: s.requestedMm, bottom: s.requestedMm }));
     const perSide = fc
       .tuple(sideArb(unit), sideArb(unit), sideArb(unit), sideArb(unit))
-      .map(([l, t, r, b]) => make({ left: l.spec, top: t.spec, right: r.spec, bottom: b.spec }, { left: l.requestedMm, top: t.requestedMm, right: r.requestedMm, bottom: b.requestedMm }));
+      .map(([l, t, r, b]) =>
+        make({ left: l.spec, top: t.spec, right: r.spec, bottom: b.spec }, { left: l.requestedMm, top: t.requestedMm, right: r.requestedMm, bottom: b.requestedMm }),
+      );
     const custom = fc
       .tuple(typedLength(unit, 10, w.mm), typedLength(unit, 10, h.mm), typedLength(unit, -20, 60), typedLength(unit, -20, 60))
       .map(([cw, ch, cl, ct]) =>
@@ -143,14 +147,12 @@ const isMultipleOf = (v: number, step: number) => Math.abs(v - Math.round(v / st
 describe("mount plan properties", () => {
   it("property overlap-bound: when every side overlaps by at least the minimum, then the aperture is never larger than sheet − 2 × minimum on either axis", () => {
     const arb = unitAndPrecision.chain(({ unit, precision }) =>
-      fc
-        .tuple(typedLength(unit, 150, 1500), typedLength(unit, 150, 1500), fc.array(typedLength(unit, 0, 60), { minLength: 4, maxLength: 4 }))
-        .chain(([w, h, o]) => {
-          const least = Math.min(...o.map((x) => x.mm));
-          // The minimum is the least overlap itself, or any length below it.
-          const min = least >= 1 ? fc.oneof(fc.constant(o.find((x) => x.mm === least)!), typedLength(unit, 0, least)) : fc.constant(o.find((x) => x.mm === least)!);
-          return min.map((m) => ({ unit, precision, w, h, o, m }));
-        }),
+      fc.tuple(typedLength(unit, 150, 1500), typedLength(unit, 150, 1500), fc.array(typedLength(unit, 0, 60), { minLength: 4, maxLength: 4 })).chain(([w, h, o]) => {
+        const least = Math.min(...o.map((x) => x.mm));
+        // The minimum is the least overlap itself, or any length below it.
+        const min = least >= 1 ? fc.oneof(fc.constant(o.find((x) => x.mm === least)!), typedLength(unit, 0, least)) : fc.constant(o.find((x) => x.mm === least)!);
+        return min.map((m) => ({ unit, precision, w, h, o, m }));
+      }),
     );
     fc.assert(
       fc.property(arb, ({ unit, precision, w, h, o, m }) => {
@@ -281,7 +283,8 @@ describe("mount plan properties", () => {
         expect(Number.isInteger(y.perSheet)).toBe(true);
         expect(y.perSheet).toBeGreaterThanOrEqual(0);
         expect(y.perSheet).toBeLessThanOrEqual(bound);
-        const fits = (g.outer.width <= sheet.width + EXACT && g.outer.height <= sheet.height + EXACT) || (g.outer.height <= sheet.width + EXACT && g.outer.width <= sheet.height + EXACT);
+        const fits =
+          (g.outer.width <= sheet.width + EXACT && g.outer.height <= sheet.height + EXACT) || (g.outer.height <= sheet.width + EXACT && g.outer.width <= sheet.height + EXACT);
         expect(y.perSheet > 0).toBe(fits);
         expect(plan.findings.some((f) => f.code === "board-too-small")).toBe(!fits);
       }),
@@ -291,10 +294,12 @@ describe("mount plan properties", () => {
 
   // ── Shown figures (docs/trade-reference.md §9): one unit, rounded once, parts adding up to the whole ──
   const shownCase = windowCase.chain(withBorders).chain((c) =>
-    fc.record({
-      display: fc.constantFrom<Unit>("mm", "in"),
-      double: fc.option(typedLength(c.unit, 1, 6), { nil: undefined }),
-    }).map(({ display, double }) => ({ ...c, display, input: { ...c.input, ...(double ? { doubleMount: { reveal: double.value } } : {}) } })),
+    fc
+      .record({
+        display: fc.constantFrom<Unit>("mm", "in"),
+        double: fc.option(typedLength(c.unit, 1, 6), { nil: undefined }),
+      })
+      .map(({ display, double }) => ({ ...c, display, input: { ...c.input, ...(double ? { doubleMount: { reveal: double.value } } : {}) } })),
   );
   const read = (text: string, unit: Unit): number => {
     const r = parseLength(text.replace(/ (mm|in)$/, ""), unit);
@@ -323,7 +328,9 @@ describe("mount plan properties", () => {
           expect(text.replace(/\(\d+(\.\d+)? mm\)/g, "")).not.toMatch(u === "in" ? /\d mm\b/ : /\d in\b/);
         }
         // The drawing writes the same figures as the table.
-        const labels = planDrawing(r.geometry).shapes.filter((x) => x.kind === "text").map((x) => (x as { text: string }).text);
+        const labels = planDrawing(r.geometry)
+          .shapes.filter((x) => x.kind === "text")
+          .map((x) => (x as { text: string }).text);
         expect(labels).toContain(`outer ${d["outer.width"]}`);
         expect(labels).toContain(`window ${d["aperture.height"]}`);
         for (const s of SIDES) expect(labels).toContain(d[`borders.${s}`]);
@@ -342,7 +349,10 @@ describe("mount plan properties", () => {
         const u = c.display;
         const grid = u === "in" ? MM_PER_INCH / 64 : 0.1;
         const coarse = u === c.unit ? grid : u === "in" ? MM_PER_INCH / 16 : 0.1;
-        for (const [x, y, dim] of [["left", "right", "width"], ["top", "bottom", "height"]] as const) {
+        for (const [x, y, dim] of [
+          ["left", "right", "width"],
+          ["top", "bottom", "height"],
+        ] as const) {
           if (Math.abs(b[x] - b[y]) >= 1e-9) continue;
           // The one exception: both overlaps on the axis were tight, so the shown window itself gave up a
           // grid step to keep them honest (see shown-overlap-honest); the borders then differ by that step.
@@ -387,13 +397,27 @@ describe("mount plan properties", () => {
   });
 
   it("an inch plan shown in mm whose window rounds down and whose failing side must show under the minimum spreads the rounding: each overlap within two grid steps of the truth (found by shown-overlap-honest)", () => {
-    const input = { unit: "in", precision: 8, sheet: { width: 45.171875, height: 52.33735449311726 }, window: { left: { mode: "hide-border", border: 0, into: 0 }, top: { mode: "overlap", overlap: 0 }, right: { mode: "float", reveal: 0.953125 }, bottom: { mode: "overlap", overlap: "0.15625" } }, borders: { all: "3 63/64" } };
+    const input = {
+      unit: "in",
+      precision: 8,
+      sheet: { width: 45.171875, height: 52.33735449311726 },
+      window: {
+        left: { mode: "hide-border", border: 0, into: 0 },
+        top: { mode: "overlap", overlap: 0 },
+        right: { mode: "float", reveal: 0.953125 },
+        bottom: { mode: "overlap", overlap: "0.15625" },
+      },
+      borders: { all: "3 63/64" },
+    };
     const r = computePlan(MountPlanInputSchema.parse(input), { minOverlapMm: 5, rebateClearanceMm: 2, displayUnit: "mm" });
     if (!r.ok) throw new Error("the plan should compute");
     for (const s of SIDES) expect(Math.abs(read(r.plan.display[`overlap.${s}`], "mm") - r.geometry.overlap[s]), s).toBeLessThanOrEqual(0.2 + 1e-6);
     // The bottom's true 4.997 mm fails the 5 mm minimum, so it shows under it; the parts still add up.
     expect(read(r.plan.display["overlap.bottom"], "mm")).toBeLessThan(5);
-    expect(read(r.plan.display["overlap.top"], "mm") + read(r.plan.display["aperture.height"], "mm") + read(r.plan.display["overlap.bottom"], "mm")).toBeCloseTo(read(r.plan.display["sheet.height"], "mm"), 6);
+    expect(read(r.plan.display["overlap.top"], "mm") + read(r.plan.display["aperture.height"], "mm") + read(r.plan.display["overlap.bottom"], "mm")).toBeCloseTo(
+      read(r.plan.display["sheet.height"], "mm"),
+      6,
+    );
   });
 
   it("property same-unit-exact: when a plan is shown in its own unit, then its window and outer size are shown exactly as computed", () => {

@@ -115,7 +115,14 @@ describe("size presets", () => {
 
   it("when listing frame sizes, then the CCI Notes 11/5 sizes are there, exact in mm", () => {
     // CCI Notes 11/5 "Matting Works on Paper"; 1 in = 25.4 mm exactly (1959 agreement; NIST HB 44 App. C).
-    for (const [w, h] of [[8, 10], [10, 12], [14, 18], [16, 22], [22, 28], [28, 36]]) {
+    for (const [w, h] of [
+      [8, 10],
+      [10, 12],
+      [14, 18],
+      [16, 22],
+      [22, 28],
+      [28, 36],
+    ]) {
       const p = FRAME_PRESETS.find((f) => f.id === `${w}x${h}in`);
       expect(p, `${w}×${h} in`).toBeDefined();
       expect(p!.width).toBeCloseTo(w * IN, 9);
@@ -435,7 +442,13 @@ describe("glazing weight and hanging", () => {
 
   it("when the package weighs 10 kg or more, then the hanging caution becomes a warning to lift with two people", () => {
     // 1000 × 1000 mm outer with 4 mm glass: 1 m² × 4 × 2.5 = 10 kg of glass alone. 10 kg threshold: common practice (no source).
-    const { plan } = planOf({ unit: "mm", sheet: { width: 810, height: 810 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 100 }, glazing: { material: "glass", thickness: 4 } });
+    const { plan } = planOf({
+      unit: "mm",
+      sheet: { width: 810, height: 810 },
+      window: { all: { mode: "overlap", overlap: 5 } },
+      borders: { all: 100 },
+      glazing: { material: "glass", thickness: 4 },
+    });
     expect(plan.glazing.weightKg).toBe(10);
     const hanging = plan.findings.find((f) => f.code === "hanging")!;
     expect(hanging.severity).toBe("warn");
@@ -551,7 +564,8 @@ describe("conservation checks", () => {
 
     it("when an albumen print goes on buffered board, then it warns (unbuffered is often chosen)", () => {
       // CCAHA, "ISO standards for housing photographs".
-      for (const p of ["albumen", "salted-paper", "platinum-palladium", "dye-transfer", "collodion"] as const) expect(photo(p, { patPassed: true, buffered: true }), p).toBe("warn");
+      for (const p of ["albumen", "salted-paper", "platinum-palladium", "dye-transfer", "collodion"] as const)
+        expect(photo(p, { patPassed: true, buffered: true }), p).toBe("warn");
     });
   });
 
@@ -742,13 +756,17 @@ describe("the drawing model", () => {
     const { geometry } = planOf(input);
     return { geometry, drawing: planDrawing(geometry, [{ edge: "top", offset: 20, width: 25 }]) };
   };
-  const band = (shapes: Shape[], side: string) => shapes.find((s) => s.kind === "rect" && s.role.startsWith("band-") && s.side === side) as Extract<Shape, { kind: "rect" }> | undefined;
+  const band = (shapes: Shape[], side: string) =>
+    shapes.find((s) => s.kind === "rect" && s.role.startsWith("band-") && s.side === side) as Extract<Shape, { kind: "rect" }> | undefined;
 
   const CASES: [string, MountPlanInput][] = [
     ["A4 with overlap", A4_OVERLAP_5],
     ["8 × 10 in with a double mount", { unit: "in", sheet: { width: 8, height: 10 }, window: { all: { mode: "overlap", overlap: "1/4" } }, doubleMount: { reveal: "3/16" } }],
     ["a float", { ...A4_OVERLAP_5, window: { all: { mode: "float", reveal: 10 } } }],
-    ["a custom window past the sheet", { ...A4_OVERLAP_5, window: { mode: "custom", width: 200, height: 280, left: -4, top: 8 }, imageBorders: { left: 10, top: 10, right: 10, bottom: 10 } }],
+    [
+      "a custom window past the sheet",
+      { ...A4_OVERLAP_5, window: { mode: "custom", width: 200, height: 280, left: -4, top: 8 }, imageBorders: { left: 10, top: 10, right: 10, bottom: 10 } },
+    ],
   ];
 
   it.each(CASES)("when drawing %s, then no shape has a NaN or infinite number and the view box is finite", (_name, input) => {
@@ -850,7 +868,12 @@ describe("the plan's level and cross-checks", () => {
   });
 
   it("when the attachment is pressure-sensitive tape, then the archival check fails too (NEDCC leaflet 4.10)", () => {
-    const { plan } = planOf({ unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } }, materials: { boardGrade: "museum", attachment: "pressure-sensitive-tape" } });
+    const { plan } = planOf({
+      unit: "mm",
+      sheet: { width: 210, height: 297 },
+      window: { all: { mode: "overlap", overlap: 5 } },
+      materials: { boardGrade: "museum", attachment: "pressure-sensitive-tape" },
+    });
     expect(plan.checks.find((c) => c.id === "archival-boards")?.verdict).toBe("fail");
     expect(plan.checks.find((c) => c.id === "reversible-attachment")?.verdict).toBe("fail");
   });

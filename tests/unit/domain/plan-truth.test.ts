@@ -18,7 +18,10 @@ const errorsOf = (input: MountPlanInput, code: string) => run(input).plan.findin
 describe("geometry that cannot be built (docs/trade-reference.md §3)", () => {
   it("when the overlap is wider than the border, then the sheet past the outer edge is an error per side at the border's field", () => {
     const f = errorsOf({ ...A4, window: { all: { mode: "overlap", overlap: 30 } }, borders: { top: 40, side: 20, bottom: 40 }, frame: { rebateLip: 1 } }, "sheet-past-outer");
-    expect(f.map((x) => [x.side, x.field, x.severity])).toEqual([["left", "borders.side", "error"], ["right", "borders.side", "error"]]);
+    expect(f.map((x) => [x.side, x.field, x.severity])).toEqual([
+      ["left", "borders.side", "error"],
+      ["right", "borders.side", "error"],
+    ]);
     expect(f[0].message).toContain("Left edge: the sheet reaches 10 mm past the outer edge");
   });
 
@@ -36,7 +39,10 @@ describe("geometry that cannot be built (docs/trade-reference.md §3)", () => {
     // Image 210 − 2 × 10 = 190 mm across; 20 mm into it is 10.5 %.
     const f = errorsOf({ ...A4, window: { all: { mode: "hide-border", border: 10, into: 20 } } }, "window-hides-image");
     // Down, 20 mm of 297 − 20 = 277 mm is 7.2 %: no warning there.
-    expect(f.map((x) => [x.side, x.severity])).toEqual([["left", "warn"], ["right", "warn"]]);
+    expect(f.map((x) => [x.side, x.severity])).toEqual([
+      ["left", "warn"],
+      ["right", "warn"],
+    ]);
     expect(f[0].field).toBe("window.all.into");
   });
 

@@ -1,14 +1,5 @@
 import { describe, expect, it } from "vitest";
-import {
-  MM_PER_INCH,
-  formatInches,
-  formatLength,
-  formatMm,
-  formatSize,
-  lengthInputValue,
-  parseLength,
-  roundTo,
-} from "../../../shared/domain/units.ts";
+import { MM_PER_INCH, formatInches, formatLength, formatMm, formatSize, lengthInputValue, parseLength, roundTo } from "../../../shared/domain/units.ts";
 
 /** The millimetres of a parse that must succeed. */
 function mmOf(input: string | number, unit: "mm" | "in"): number {

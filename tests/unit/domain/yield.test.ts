@@ -1,14 +1,6 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import {
-  MAX_PLACEMENTS,
-  STANDARD_BOARD_SHEETS,
-  blanksPerSheet,
-  cuttingList,
-  type CutPiece,
-  type Placement,
-  type Size,
-} from "../../../shared/domain/mount-plan/yield.ts";
+import { MAX_PLACEMENTS, STANDARD_BOARD_SHEETS, blanksPerSheet, cuttingList, type CutPiece, type Placement, type Size } from "../../../shared/domain/mount-plan/yield.ts";
 
 // 1 in = 25.4 mm exactly (1959 agreement; NIST Handbook 44, Appendix C).
 const IN = 25.4;
@@ -313,11 +305,7 @@ describe("blanksPerSheet: properties", () => {
   it("when 30 typical blanks are sized against sheets up to 1524 × 1016 mm, then each returns a layout", () => {
     // No timing assertion: the search is bounded by a count of cuts tried, so it always finishes.
     const samples = fc.sample(
-      fc.tuple(
-        fc.record({ width: mmLength(50, 1016), height: mmLength(50, 1016) }),
-        fc.record({ width: mmLength(500, 1524), height: mmLength(500, 1016) }),
-        kerfArb,
-      ),
+      fc.tuple(fc.record({ width: mmLength(50, 1016), height: mmLength(50, 1016) }), fc.record({ width: mmLength(500, 1524), height: mmLength(500, 1016) }), kerfArb),
       { numRuns: 30, seed: 20240 },
     );
     expect(samples).toHaveLength(30);
@@ -353,8 +341,14 @@ describe("cuttingList: check values", () => {
     const list = cuttingList([portrait, landscape], SHEET_1120x815, 0);
     expect(list.sheetCount).toBe(2);
     const all = list.sheets.flatMap((s) => s.placements);
-    expectBlankShape(all.filter((p) => p.pieceId === "portrait"), portrait);
-    expectBlankShape(all.filter((p) => p.pieceId === "landscape"), landscape);
+    expectBlankShape(
+      all.filter((p) => p.pieceId === "portrait"),
+      portrait,
+    );
+    expectBlankShape(
+      all.filter((p) => p.pieceId === "landscape"),
+      landscape,
+    );
   });
 
   it("when two 16 × 20 in and four 8 × 10 in blanks are batched on one 32 × 40 in sheet, then one sheet at 75 % holds them", () => {
@@ -416,8 +410,7 @@ describe("cuttingList: properties", () => {
     fc.assert(
       fc.property(piecesArb, sheetArb, kerfArb, (pieces, sheet, kerf) => {
         const list = cuttingList(pieces, sheet, kerf);
-        const fits = (p: CutPiece) =>
-          (p.width <= sheet.width + 1e-9 && p.height <= sheet.height + 1e-9) || (p.height <= sheet.width + 1e-9 && p.width <= sheet.height + 1e-9);
+        const fits = (p: CutPiece) => (p.width <= sheet.width + 1e-9 && p.height <= sheet.height + 1e-9) || (p.height <= sheet.width + 1e-9 && p.width <= sheet.height + 1e-9);
         const all = list.sheets.flatMap((s) => s.placements);
         for (const p of pieces) {
           const mine = all.filter((q) => q.pieceId === p.id);

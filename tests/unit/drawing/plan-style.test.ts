@@ -61,7 +61,9 @@ describe("plan drawing geometry", () => {
   });
 
   it("when an arrowhead is drawn along the x axis, then its tip is the line's end and its barbs half a font size back", () => {
-    const [tip, a, b] = arrowHeadPoints(0, 0, 10, 0, 4).split(" ").map((p) => p.split(",").map(Number));
+    const [tip, a, b] = arrowHeadPoints(0, 0, 10, 0, 4)
+      .split(" ")
+      .map((p) => p.split(",").map(Number));
     expect(tip).toEqual([10, 0]);
     expect(a[0]).toBeCloseTo(10 - 2 * Math.cos(0.4), 9);
     expect(a[1]).toBeCloseTo(2 * Math.sin(0.4), 9);

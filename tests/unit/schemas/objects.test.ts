@@ -1,11 +1,5 @@
 import { describe, expect, it } from "vitest";
-import {
-  ObjectCreateSchema,
-  ObjectListQuerySchema,
-  ObjectNumberSchema,
-  ObjectUpdateSchema,
-  type ObjectCreateInput,
-} from "../../../shared/schemas/objects.ts";
+import { ObjectCreateSchema, ObjectListQuerySchema, ObjectNumberSchema, ObjectUpdateSchema, type ObjectCreateInput } from "../../../shared/schemas/objects.ts";
 import { issuesToFields } from "../../../shared/schemas/errors.ts";
 
 // ISO 216: A4 = 210 × 297 mm.

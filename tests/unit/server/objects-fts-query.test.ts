@@ -23,7 +23,7 @@ describe("toFtsQuery", () => {
 
   it("when only punctuation or nothing is typed, then there is no query", () => {
     expect(toFtsQuery("")).toBeNull();
-    expect(toFtsQuery("  -- ** \" ")).toBeNull();
+    expect(toFtsQuery('  -- ** " ')).toBeNull();
   });
 
   it("when accented or full-width letters are typed, then they are kept as letters", () => {

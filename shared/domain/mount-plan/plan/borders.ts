@@ -31,7 +31,9 @@ export function bordersAndOuter(input: MountPlanParsed, aperture: Box, stepMm: n
     if (t.failed()) return null;
     if (ow <= aperture.width) fields["fitOuter.width"] = `The outer width ${t.length(ow)} is not wider than the window (${t.length(aperture.width, "down")}).`;
     const vTotal = oh - aperture.height;
-    if (vTotal <= weightMm) fields["fitOuter.height"] = `The outer height ${t.length(oh)} leaves no room for top and bottom borders around a ${t.length(aperture.height, "down")} window${weightMm ? ` with ${t.length(weightMm)} bottom weighting` : ""}.`;
+    if (vTotal <= weightMm)
+      fields["fitOuter.height"] =
+        `The outer height ${t.length(oh)} leaves no room for top and bottom borders around a ${t.length(aperture.height, "down")} window${weightMm ? ` with ${t.length(weightMm)} bottom weighting` : ""}.`;
     if (t.failed()) return null;
     const left = roundTo((ow - aperture.width) / 2, stepMm, "nearest");
     // The same rule as with given borders: bottom = top + amount, or bottom = top × (1 + percentage).
@@ -50,7 +52,12 @@ export function bordersAndOuter(input: MountPlanParsed, aperture: Box, stepMm: n
       borderKind = "all";
     } else if ("side" in b) {
       const side = t.len(b.side, "borders.side", { min: 0, label: "Side border" });
-      borders = { left: side, right: side, top: t.len(b.top, "borders.top", { min: 0, label: "Top border" }), bottom: t.len(b.bottom, "borders.bottom", { min: 0, label: "Bottom border" }) };
+      borders = {
+        left: side,
+        right: side,
+        top: t.len(b.top, "borders.top", { min: 0, label: "Top border" }),
+        bottom: t.len(b.bottom, "borders.bottom", { min: 0, label: "Bottom border" }),
+      };
       borderKind = "side";
     } else {
       borders = {

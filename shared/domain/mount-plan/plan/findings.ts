@@ -46,7 +46,10 @@ function unbuildableFindings({ g, input, win, borderKind, clearance, t }: Findin
   const fr = input.frame ?? {};
   const yieldResult = g.yield;
   if (imageBorders) {
-    for (const [a, b, dim] of [["left", "right", "width"], ["top", "bottom", "height"]] as const) {
+    for (const [a, b, dim] of [
+      ["left", "right", "width"],
+      ["top", "bottom", "height"],
+    ] as const) {
       if (imageBorders[a] + imageBorders[b] >= sheet[dim] - 1e-9) {
         findings.push({
           code: "image-borders-exceed-sheet",
@@ -74,7 +77,12 @@ function unbuildableFindings({ g, input, win, borderKind, clearance, t }: Findin
     const offLeft = custom.left + custom.width <= 0 || custom.left >= sheet.width;
     const offTop = custom.top + custom.height <= 0 || custom.top >= sheet.height;
     if (offLeft || offTop) {
-      findings.push({ code: "window-off-sheet", severity: "error", field: offLeft ? "window.left" : "window.top", message: "The window lies wholly off the sheet: its position puts it clear of the sheet's edge. Place it over the sheet." });
+      findings.push({
+        code: "window-off-sheet",
+        severity: "error",
+        field: offLeft ? "window.left" : "window.top",
+        message: "The window lies wholly off the sheet: its position puts it clear of the sheet's edge. Place it over the sheet.",
+      });
     } else {
       for (const s of SIDES) {
         if (overlap[s] < -1e-9) {
@@ -90,7 +98,12 @@ function unbuildableFindings({ g, input, win, borderKind, clearance, t }: Findin
     }
     for (const dim of ["width", "height"] as const) {
       if (custom[dim] > sheet[dim] + 1e-9) {
-        findings.push({ code: "window-larger-than-sheet", severity: "error", field: `window.${dim}`, message: `The window's ${dim} (${t.length(custom[dim])}) is larger than the sheet's (${t.shown(fig.sheet[dim])}): it cannot hold the sheet on that axis.` });
+        findings.push({
+          code: "window-larger-than-sheet",
+          severity: "error",
+          field: `window.${dim}`,
+          message: `The window's ${dim} (${t.length(custom[dim])}) is larger than the sheet's (${t.shown(fig.sheet[dim])}): it cannot hold the sheet on that axis.`,
+        });
       }
     }
   }
@@ -112,7 +125,12 @@ function unbuildableFindings({ g, input, win, borderKind, clearance, t }: Findin
     }
   }
   if (yieldResult && yieldResult.perSheet === 0) {
-    findings.push({ code: "board-too-small", severity: "error", field: "boardSheet", message: `A ${figureSize(fig.outer, du)} board does not fit on a ${t.length(yieldResult.sheet.width)} × ${t.length(yieldResult.sheet.height)} sheet.` });
+    findings.push({
+      code: "board-too-small",
+      severity: "error",
+      field: "boardSheet",
+      message: `A ${figureSize(fig.outer, du)} board does not fit on a ${t.length(yieldResult.sheet.width)} × ${t.length(yieldResult.sheet.height)} sheet.`,
+    });
   }
 }
 
@@ -124,11 +142,23 @@ function sideFindings({ g, win, borderKind, minB, t }: FindingsInput, shownImage
   const { rebateDepth, thickness } = g.package;
   if (minB !== undefined) {
     for (const s of SIDES) {
-      if (borders[s] < minB - 1e-9) findings.push({ code: "border-below-minimum", severity: "warn", side: s, field: borderPath(borderKind, s), message: `${SIDE_WORD[s]}: the border comes out at ${t.shown(fig.borders[s])}, below the ${t.length(minB)} you asked for.` });
+      if (borders[s] < minB - 1e-9)
+        findings.push({
+          code: "border-below-minimum",
+          severity: "warn",
+          side: s,
+          field: borderPath(borderKind, s),
+          message: `${SIDE_WORD[s]}: the border comes out at ${t.shown(fig.borders[s])}, below the ${t.length(minB)} you asked for.`,
+        });
     }
   }
   if (rebateDepth !== undefined && rebateDepth + 1e-9 < thickness) {
-    findings.push({ code: "rebate-too-shallow", severity: "warn", field: "frame.rebateDepth", message: `The rebate is ${t.length(rebateDepth)} deep but the package (glazing, spacer, boards and backing) is ${t.length(thickness, "up")} thick.` });
+    findings.push({
+      code: "rebate-too-shallow",
+      severity: "warn",
+      field: "frame.rebateDepth",
+      message: `The rebate is ${t.length(rebateDepth)} deep but the package (glazing, spacer, boards and backing) is ${t.length(thickness, "up")} thick.`,
+    });
   }
   for (const s of SIDES) {
     const o = overlap[s];
@@ -149,7 +179,13 @@ function sideFindings({ g, win, borderKind, minB, t }: FindingsInput, shownImage
     if (mode === "hide-border") {
       const c = into[s] as number;
       if (c < 0) {
-        findings.push({ code: "window-shows-border", severity: "error", side: s, field: askedPath[s], message: `${word}: the window edge sits ${t.length(-c, "up")} outside the image, so the border shows.` });
+        findings.push({
+          code: "window-shows-border",
+          severity: "error",
+          side: s,
+          field: askedPath[s],
+          message: `${word}: the window edge sits ${t.length(-c, "up")} outside the image, so the border shows.`,
+        });
       } else {
         // How much of the image this side's window edge hides, against the image's size on that axis.
         const dim = AXIS_OF[s];
@@ -169,9 +205,19 @@ function sideFindings({ g, win, borderKind, minB, t }: FindingsInput, shownImage
     if (imageBorders && shownImage && mode !== "float" && mode !== "hide-border" && o >= -1e-9) {
       const b = imageBorders[s];
       if (o < b - 1e-9) {
-        findings.push({ code: "window-shows-border", severity: "info", side: s, message: `${word}: ${t.shown(Math.max(0, shownImage[s] - fig.overlap[s]))} of the sheet's border shows inside the window.` });
+        findings.push({
+          code: "window-shows-border",
+          severity: "info",
+          side: s,
+          message: `${word}: ${t.shown(Math.max(0, shownImage[s] - fig.overlap[s]))} of the sheet's border shows inside the window.`,
+        });
       } else if (o > b + 1e-9 && b > 0) {
-        findings.push({ code: "window-covers-image", severity: "warn", side: s, message: `${word}: the window covers ${t.shown(Math.max(0, fig.overlap[s] - shownImage[s]))} of the image itself, past the ${t.shown(shownImage[s])} border.` });
+        findings.push({
+          code: "window-covers-image",
+          severity: "warn",
+          side: s,
+          message: `${word}: the window covers ${t.shown(Math.max(0, fig.overlap[s] - shownImage[s]))} of the image itself, past the ${t.shown(shownImage[s])} border.`,
+        });
       }
     }
   }

@@ -72,7 +72,9 @@ export function toPlan(g: PlanGeometry, findings: Finding[], checks: Check[], le
       ...(g.package.rebateDepth !== undefined ? { rebateDepth: inUnit(g.package.rebateDepth, inch) } : {}),
       ...(g.package.weightKg !== undefined ? { weightKg: Math.round(g.package.weightKg * 1000) / 1000 } : {}),
     },
-    ...(g.yield ? { yield: { perSheet: g.yield.perSheet, sheet: boxIn(g.yield.sheet, inch), kerf: inUnit(g.yield.kerf, inch), utilisation: Math.round(g.yield.utilisation * 1000) / 1000 } } : {}),
+    ...(g.yield
+      ? { yield: { perSheet: g.yield.perSheet, sheet: boxIn(g.yield.sheet, inch), kerf: inUnit(g.yield.kerf, inch), utilisation: Math.round(g.yield.utilisation * 1000) / 1000 } }
+      : {}),
     findings,
     checks,
     level,

@@ -39,6 +39,4 @@ export type PlanGeometry = {
   figures: Figures;
 };
 
-export type PlanResult =
-  | { ok: true; plan: MountPlan; geometry: PlanGeometry }
-  | { ok: false; fields: Record<string, string> };
+export type PlanResult = { ok: true; plan: MountPlan; geometry: PlanGeometry } | { ok: false; fields: Record<string, string> };

@@ -10,7 +10,11 @@ export function cautions(g: PlanGeometry, input: MountPlanParsed, findings: Find
   const gl = input.glazing;
   const packageWeight = g.package.weightKg;
   if (gl?.material === "glass") {
-    findings.push({ code: "glass-handling", severity: "info", message: "Glass cuts: wear cut-resistant gloves and eye protection when handling and cutting it, and put offcuts in a glass bin." });
+    findings.push({
+      code: "glass-handling",
+      severity: "info",
+      message: "Glass cuts: wear cut-resistant gloves and eye protection when handling and cutting it, and put offcuts in a glass bin.",
+    });
   }
   if (packageWeight !== undefined) {
     const heavy = packageWeight >= K.HEAVY_PACKAGE_KG;

@@ -72,8 +72,12 @@ export function windowPerSide(input: MountPlanParsed, sheet: Box, stepMm: number
   if (t.failed()) return null;
 
   const exact = { width: sheet.width - overlap.left - overlap.right, height: sheet.height - overlap.top - overlap.bottom };
-  if (!(exact.width > 0)) fields[custom ? "window.width" : "window"] = `The overlaps leave no window across: the sheet is ${t.length(sheet.width)} wide and the left and right overlaps take ${t.length(overlap.left + overlap.right)}.`;
-  if (!(exact.height > 0)) fields[custom ? "window.height" : "window"] = `The overlaps leave no window down: the sheet is ${t.length(sheet.height)} high and the top and bottom overlaps take ${t.length(overlap.top + overlap.bottom)}.`;
+  if (!(exact.width > 0))
+    fields[custom ? "window.width" : "window"] =
+      `The overlaps leave no window across: the sheet is ${t.length(sheet.width)} wide and the left and right overlaps take ${t.length(overlap.left + overlap.right)}.`;
+  if (!(exact.height > 0))
+    fields[custom ? "window.height" : "window"] =
+      `The overlaps leave no window down: the sheet is ${t.length(sheet.height)} high and the top and bottom overlaps take ${t.length(overlap.top + overlap.bottom)}.`;
   if (t.failed()) return null;
 
   // Round toward safety, axis by axis. A held side never loses overlap: the window rounds down and
@@ -81,7 +85,10 @@ export function windowPerSide(input: MountPlanParsed, sheet: Box, stepMm: number
   // with both sides floating the window rounds up and the reveals share the gain; with one side
   // floating the window rounds down and the held side takes all of the loss.
   const aperture = { width: 0, height: 0 };
-  for (const [a, b, dim] of [["left", "right", "width"], ["top", "bottom", "height"]] as const) {
+  for (const [a, b, dim] of [
+    ["left", "right", "width"],
+    ["top", "bottom", "height"],
+  ] as const) {
     const floatA = modes[a] === "float";
     const floatB = modes[b] === "float";
     if (floatA && floatB) {

@@ -29,9 +29,7 @@ const MAX_PACK_WORK = 4_000_000;
 const OPEN_SHEET_WINDOW = 8;
 
 const RULES: { order: Order; fit: Fit; split: Split }[] = (["area", "long-side", "perimeter"] as Order[]).flatMap((order) =>
-  (["area", "short-side"] as Fit[]).flatMap((fit) =>
-    (["shorter-leftover", "longer-leftover", "big-offcut", "even-offcuts"] as Split[]).map((split) => ({ order, fit, split })),
-  ),
+  (["area", "short-side"] as Fit[]).flatMap((fit) => (["shorter-leftover", "longer-leftover", "big-offcut", "even-offcuts"] as Split[]).map((split) => ({ order, fit, split }))),
 );
 
 /**
@@ -287,11 +285,13 @@ function repackEmptiest(packing: Packing, units: Unit[], sheet: Size, kerf: numb
       if (packed && packed.length < take) {
         const drop = new Set(chosen.map((c) => c.i));
         // Repacked placements are relative to the piece as given; recover `rotated` against the input's own sides.
-        const fixed = packed.map((ps) => ps.map((p) => {
-          const u = byId.get(p.pieceId);
-          const rotated = u ? !(Math.abs(p.width - u.w) <= EPS && Math.abs(p.height - u.h) <= EPS) : p.rotated;
-          return { ...p, rotated };
-        }));
+        const fixed = packed.map((ps) =>
+          ps.map((p) => {
+            const u = byId.get(p.pieceId);
+            const rotated = u ? !(Math.abs(p.width - u.w) <= EPS && Math.abs(p.height - u.h) <= EPS) : p.rotated;
+            return { ...p, rotated };
+          }),
+        );
         current = [...current.filter((_, i) => !drop.has(i)), ...fixed];
         improved = true;
       }

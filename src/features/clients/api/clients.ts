@@ -13,8 +13,7 @@ export const clientListQuery = queryOptions({
   queryKey: clientKeys.list(),
   queryFn: () => api.get<{ items: ClientRecord[] }>("/api/clients").then((r) => r.items),
 });
-export const clientQuery = (id: string) =>
-  queryOptions({ queryKey: clientKeys.one(id), queryFn: () => api.get<ClientRecord>(`/api/clients/${encodeURIComponent(id)}`) });
+export const clientQuery = (id: string) => queryOptions({ queryKey: clientKeys.one(id), queryFn: () => api.get<ClientRecord>(`/api/clients/${encodeURIComponent(id)}`) });
 
 export const useClients = (enabled = true) => useQuery({ ...clientListQuery, enabled });
 export const useClient = (id: string) => useQuery(clientQuery(id));
@@ -22,8 +21,7 @@ export const useClient = (id: string) => useQuery(clientQuery(id));
 export function useSaveClient(id?: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: ClientCreate) =>
-      id ? api.put<ClientRecord>(`/api/clients/${encodeURIComponent(id)}`, body) : api.post<ClientRecord>("/api/clients", body),
+    mutationFn: (body: ClientCreate) => (id ? api.put<ClientRecord>(`/api/clients/${encodeURIComponent(id)}`, body) : api.post<ClientRecord>("/api/clients", body)),
     onSuccess: (c) => {
       qc.invalidateQueries({ queryKey: clientKeys.all });
       // Objects show their owner's name.

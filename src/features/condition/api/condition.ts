@@ -61,7 +61,11 @@ export const useConditionRegister = (params: RegisterParams) =>
     placeholderData: keepPreviousData,
   });
 export const useTerms = (all = false) =>
-  useQuery({ queryKey: conditionKeys.terms(all), queryFn: () => api.get<{ items: Term[] }>(`/api/condition-terms${qs({ all: all ? "true" : undefined })}`).then((r) => r.items), staleTime: 5 * 60_000 });
+  useQuery({
+    queryKey: conditionKeys.terms(all),
+    queryFn: () => api.get<{ items: Term[] }>(`/api/condition-terms${qs({ all: all ? "true" : undefined })}`).then((r) => r.items),
+    staleTime: 5 * 60_000,
+  });
 
 function useDone() {
   const qc = useQueryClient();

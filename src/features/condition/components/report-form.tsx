@@ -126,21 +126,35 @@ export function ReportForm({ mode, objectType, photos, terms, mountings, examine
   return (
     <form onSubmit={submit} noValidate className="grid gap-6 xl:grid-cols-[minmax(26rem,34rem)_1fr]" aria-label="Condition report">
       <div className="space-y-4">
-        {server.error && <Notice tone="fail" title="Not saved">{server.error.message}</Notice>}
+        {server.error && (
+          <Notice tone="fail" title="Not saved">
+            {server.error.message}
+          </Notice>
+        )}
         {mode === "correct" && (
           <div className="rounded-card bg-paper-sheet p-4 shadow-card">
-            <Notice tone="info" title="A correction">The signed report stays as it was; this saves a new revision with your reason.</Notice>
+            <Notice tone="info" title="A correction">
+              The signed report stays as it was; this saves a new revision with your reason.
+            </Notice>
             <TextAreaField label="Reason for the correction" wrapClassName="mt-3" error={err("correctionReason")} {...register("correctionReason")} />
           </div>
         )}
         <section className="grid grid-cols-2 gap-3 rounded-card bg-paper-sheet p-4 shadow-card">
           <SelectField label="Context" disabled={mode === "correct"} error={err("context")} {...register("context")}>
-            {CONDITION_CONTEXTS.map((c) => <option key={c} value={c}>{CONDITION_CONTEXT_LABELS[c]}</option>)}
+            {CONDITION_CONTEXTS.map((c) => (
+              <option key={c} value={c}>
+                {CONDITION_CONTEXT_LABELS[c]}
+              </option>
+            ))}
           </SelectField>
           <TextField label="Date examined" type="date" disabled={mode === "correct"} error={err("reportDate")} {...register("reportDate")} />
           <SelectField label="Mounting record" wrapClassName="col-span-2" disabled={mode === "correct"} error={err("mountingId")} {...register("mountingId")}>
             <option value="">None</option>
-            {mountings.map((m) => <option key={m.id} value={m.id}>{m.label}</option>)}
+            {mountings.map((m) => (
+              <option key={m.id} value={m.id}>
+                {m.label}
+              </option>
+            ))}
           </SelectField>
         </section>
 
@@ -149,11 +163,24 @@ export function ReportForm({ mode, objectType, photos, terms, mountings, examine
             <h2 className="font-semibold">Findings ({findings.fields.length})</h2>
             <div className="flex gap-2">
               {previous && previous.findings.length > 0 && findings.fields.length === 0 && (
-                <Button variant="quiet" onClick={() => findings.replace(previous.findings.map((f) => ({ ...f, location: f.location.kind === "marker" && !(v.data.photoIds ?? []).includes(f.location.photoId) ? { kind: "zone" as const, zone: "centre" as const } : f.location })))}>
+                <Button
+                  variant="quiet"
+                  onClick={() =>
+                    findings.replace(
+                      previous.findings.map((f) => ({
+                        ...f,
+                        location:
+                          f.location.kind === "marker" && !(v.data.photoIds ?? []).includes(f.location.photoId) ? { kind: "zone" as const, zone: "centre" as const } : f.location,
+                      })),
+                    )
+                  }
+                >
                   Carry over the last report's {previous.findings.length}
                 </Button>
               )}
-              <Button variant="quiet" onClick={() => addFinding({ kind: "zone", zone: "centre" })}>Add a finding</Button>
+              <Button variant="quiet" onClick={() => addFinding({ kind: "zone", zone: "centre" })}>
+                Add a finding
+              </Button>
             </div>
           </div>
           {findings.fields.length === 0 && <p className="text-sm text-graphite">No findings yet. Add one, or click on a photo to pin one there.</p>}
@@ -166,25 +193,48 @@ export function ReportForm({ mode, objectType, photos, terms, mountings, examine
                 <legend className="px-1 text-sm font-semibold">Finding {i + 1}</legend>
                 <div className="grid grid-cols-2 gap-3">
                   <SelectField label="Term" error={err(`data.findings.${i}.term`)} {...register(`data.findings.${i}.term`)}>
-                    {list.map((t) => <option key={t.id} value={t.term}>{t.term}{t.list === "photograph" ? " (photograph)" : ""}</option>)}
+                    {list.map((t) => (
+                      <option key={t.id} value={t.term}>
+                        {t.term}
+                        {t.list === "photograph" ? " (photograph)" : ""}
+                      </option>
+                    ))}
                   </SelectField>
                   <SelectField label="Severity" error={err(`data.findings.${i}.severity`)} {...register(`data.findings.${i}.severity`)}>
-                    {SEVERITIES.map((s) => <option key={s} value={s}>{SEVERITY_LABELS[s]}</option>)}
+                    {SEVERITIES.map((s) => (
+                      <option key={s} value={s}>
+                        {SEVERITY_LABELS[s]}
+                      </option>
+                    ))}
                   </SelectField>
                   {loc?.kind === "marker" ? (
                     <div className="col-span-2 flex items-center justify-between text-sm">
-                      <span>Pinned on {PHOTO_KIND_LABELS[photos.find((p) => p.id === loc.photoId)?.kind ?? "detail"].toLowerCase()} photo, marker {i + 1}</span>
-                      <Button variant="quiet" onClick={() => setValue(`data.findings.${i}.location`, { kind: "zone", zone: "centre" })}>Use a zone instead</Button>
+                      <span>
+                        Pinned on {PHOTO_KIND_LABELS[photos.find((p) => p.id === loc.photoId)?.kind ?? "detail"].toLowerCase()} photo, marker {i + 1}
+                      </span>
+                      <Button variant="quiet" onClick={() => setValue(`data.findings.${i}.location`, { kind: "zone", zone: "centre" })}>
+                        Use a zone instead
+                      </Button>
                     </div>
                   ) : (
                     <SelectField label="Where" error={err(`data.findings.${i}.location.zone`)} {...register(`data.findings.${i}.location.zone` as Path<ReportFormValues>)}>
-                      {ZONES.map((z) => <option key={z} value={z}>{ZONE_LABELS[z]}</option>)}
+                      {ZONES.map((z) => (
+                        <option key={z} value={z}>
+                          {ZONE_LABELS[z]}
+                        </option>
+                      ))}
                     </SelectField>
                   )}
                   <TextField label="Extent" error={err(`data.findings.${i}.extent`)} hint="e.g. 12 mm, three spots" {...register(`data.findings.${i}.extent`)} />
                   <TextAreaField label="Notes" rows={2} wrapClassName="col-span-2" error={err(`data.findings.${i}.notes`)} {...register(`data.findings.${i}.notes`)} />
-                  <label className="flex items-center gap-2 text-sm"><input type="checkbox" className="h-4 w-4" {...register(`data.findings.${i}.resolved`)} /> Resolved</label>
-                  <div className="text-right"><Button variant="quiet" onClick={() => findings.remove(i)}>Remove</Button></div>
+                  <label className="flex items-center gap-2 text-sm">
+                    <input type="checkbox" className="h-4 w-4" {...register(`data.findings.${i}.resolved`)} /> Resolved
+                  </label>
+                  <div className="text-right">
+                    <Button variant="quiet" onClick={() => findings.remove(i)}>
+                      Remove
+                    </Button>
+                  </div>
                 </div>
               </fieldset>
             );
@@ -192,15 +242,30 @@ export function ReportForm({ mode, objectType, photos, terms, mountings, examine
         </section>
 
         <section className="grid gap-3 rounded-card bg-paper-sheet p-4 shadow-card">
-          <SelectField label="Overall rating" error={err("data.overallRating")} hint={floor !== "good" ? `The findings allow ${RATING_LABELS[floor].toLowerCase()} at best.` : "The overall rating can't be better than the worst finding."} {...register("data.overallRating")}>
-            {RATINGS.map((r) => <option key={r} value={r} disabled={RATINGS.indexOf(r) < RATINGS.indexOf(floor)}>{RATING_LABELS[r]}</option>)}
+          <SelectField
+            label="Overall rating"
+            error={err("data.overallRating")}
+            hint={floor !== "good" ? `The findings allow ${RATING_LABELS[floor].toLowerCase()} at best.` : "The overall rating can't be better than the worst finding."}
+            {...register("data.overallRating")}
+          >
+            {RATINGS.map((r) => (
+              <option key={r} value={r} disabled={RATINGS.indexOf(r) < RATINGS.indexOf(floor)}>
+                {RATING_LABELS[r]}
+              </option>
+            ))}
           </SelectField>
           <TextAreaField label="Summary" rows={3} error={err("data.summary")} {...register("data.summary")} />
           <h3 className="text-sm font-semibold">Recommendations</h3>
           <TextAreaField label="Display" rows={2} error={err("data.recommendations.display")} {...register("data.recommendations.display")} />
           <TextAreaField label="Handling" rows={2} error={err("data.recommendations.handling")} {...register("data.recommendations.handling")} />
           <TextAreaField label="Environment" rows={2} error={err("data.recommendations.environment")} {...register("data.recommendations.environment")} />
-          <TextAreaField label="Referral to a conservator" rows={2} error={err("data.recommendations.referral")} hint="Findings are observations, not treatment: refer treatment to a qualified conservator." {...register("data.recommendations.referral")} />
+          <TextAreaField
+            label="Referral to a conservator"
+            rows={2}
+            error={err("data.recommendations.referral")}
+            hint="Findings are observations, not treatment: refer treatment to a qualified conservator."
+            {...register("data.recommendations.referral")}
+          />
           <TextAreaField label="Light and display" rows={4} error={err("data.lightNotes")} {...register("data.lightNotes")} />
         </section>
 
@@ -210,7 +275,11 @@ export function ReportForm({ mode, objectType, photos, terms, mountings, examine
           <TextField label="Date signed" type="date" error={err("data.signatures.examiner.date")} {...register("data.signatures.examiner.date")} />
           {twoParty && (
             <>
-              <TextField label="Other party (borrower or lender)" error={err("data.signatures.otherParty.name") ?? err("data.signatures.otherParty")} {...register("data.signatures.otherParty.name")} />
+              <TextField
+                label="Other party (borrower or lender)"
+                error={err("data.signatures.otherParty.name") ?? err("data.signatures.otherParty")}
+                {...register("data.signatures.otherParty.name")}
+              />
               <TextField label="Date signed" type="date" error={err("data.signatures.otherParty.date")} {...register("data.signatures.otherParty.date")} />
               <TextField label="Their role" wrapClassName="col-span-2" {...register("data.signatures.otherParty.role")} />
             </>

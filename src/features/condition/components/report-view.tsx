@@ -28,7 +28,9 @@ export function Cautions({ cautions }: { cautions: string[] }) {
   return (
     <div className="space-y-2">
       {cautions.map((c) => (
-        <Notice key={c} tone="warn" title="Handling caution">{c}</Notice>
+        <Notice key={c} tone="warn" title="Handling caution">
+          {c}
+        </Notice>
       ))}
     </div>
   );
@@ -60,10 +62,16 @@ export function ReportView({ data, photos, cautions }: { data: ConditionData; ph
                     <span className="flex h-6 w-6 shrink-0 items-center justify-center rounded-full border-2 border-ink text-xs font-bold">{i + 1}</span>
                     <div>
                       <p className="font-medium">
-                        {f.term} <span className="font-normal text-graphite">· {SEVERITY_LABELS[f.severity].toLowerCase()}{f.resolved ? " · resolved" : ""}</span>
+                        {f.term}{" "}
+                        <span className="font-normal text-graphite">
+                          · {SEVERITY_LABELS[f.severity].toLowerCase()}
+                          {f.resolved ? " · resolved" : ""}
+                        </span>
                       </p>
                       <p className="text-ink-soft">
-                        {f.location.kind === "zone" ? ZONE_LABELS[f.location.zone] : `Marked on the ${PHOTO_KIND_LABELS[photos.find((p) => p.id === (f.location as { photoId: string }).photoId)?.kind ?? "detail"].toLowerCase()} photo`}
+                        {f.location.kind === "zone"
+                          ? ZONE_LABELS[f.location.zone]
+                          : `Marked on the ${PHOTO_KIND_LABELS[photos.find((p) => p.id === (f.location as { photoId: string }).photoId)?.kind ?? "detail"].toLowerCase()} photo`}
                         {f.extent ? ` · ${f.extent}` : ""}
                       </p>
                       {f.notes && <p className="text-graphite">{f.notes}</p>}
@@ -90,8 +98,19 @@ export function ReportView({ data, photos, cautions }: { data: ConditionData; ph
           </div>
           <div className="rounded-card bg-paper-sheet p-4 shadow-card">
             <h2 className="mb-2 font-semibold">Signatures</h2>
-            {data.signatures.examiner ? <p>Examiner: {data.signatures.examiner.name}, {formatDate(data.signatures.examiner.date)}</p> : <p className="text-graphite">Not signed yet.</p>}
-            {data.signatures.otherParty && <p>Other party: {data.signatures.otherParty.name}{data.signatures.otherParty.role ? ` (${data.signatures.otherParty.role})` : ""}, {formatDate(data.signatures.otherParty.date)}</p>}
+            {data.signatures.examiner ? (
+              <p>
+                Examiner: {data.signatures.examiner.name}, {formatDate(data.signatures.examiner.date)}
+              </p>
+            ) : (
+              <p className="text-graphite">Not signed yet.</p>
+            )}
+            {data.signatures.otherParty && (
+              <p>
+                Other party: {data.signatures.otherParty.name}
+                {data.signatures.otherParty.role ? ` (${data.signatures.otherParty.role})` : ""}, {formatDate(data.signatures.otherParty.date)}
+              </p>
+            )}
           </div>
         </div>
         <div className="space-y-4">
@@ -110,7 +129,11 @@ export function ReportView({ data, photos, cautions }: { data: ConditionData; ph
                     .filter(({ f }) => f.location.kind === "marker" && f.location.photoId === p.id)
                     .map(({ f, n }) => ({ id: f.id, n, x: (f.location as { x: number }).x, y: (f.location as { y: number }).y, tone: f.severity }))}
                 />
-                <figcaption className="mt-1 text-xs text-graphite">{PHOTO_KIND_LABELS[p.kind]}{p.caption ? ` · ${p.caption}` : ""}{p.takenAt ? ` · taken ${formatDate(p.takenAt)}` : ""}</figcaption>
+                <figcaption className="mt-1 text-xs text-graphite">
+                  {PHOTO_KIND_LABELS[p.kind]}
+                  {p.caption ? ` · ${p.caption}` : ""}
+                  {p.takenAt ? ` · taken ${formatDate(p.takenAt)}` : ""}
+                </figcaption>
               </figure>
             ))
           )}

@@ -141,8 +141,8 @@ function ReceiptForm({ objectId, status, ownerName, studioName, onDone, onCancel
   return (
     <form onSubmit={submit} noValidate aria-label="Custody receipt" className="space-y-4">
       <Notice tone="warn" title="Handling at the hand-over">
-        Heavy frames take two people: carry them upright, one hand under the bottom rail, and never lift a frame by its top rail. Wear gloves for glazed frames
-        and loose glass: glass cuts. Look the object over together with the person handing it over before either of you signs.
+        Heavy frames take two people: carry them upright, one hand under the bottom rail, and never lift a frame by its top rail. Wear gloves for glazed frames and loose glass:
+        glass cuts. Look the object over together with the person handing it over before either of you signs.
       </Notice>
       {serverError && (
         <Notice tone="fail" title={serverError.status === 409 ? "Not recorded: the object is not where this receipt says" : "Not recorded"}>
@@ -177,7 +177,14 @@ function ReceiptForm({ objectId, status, ownerName, studioName, onDone, onCancel
           {...register("location")}
         />
         {RETURN_DUE_KINDS.includes(kind) ? (
-          <TextField label="Agreed return date" type="date" className="num" error={e.returnDue?.message} hint="The day it is agreed to come back (optional); printed on the receipt" {...register("returnDue")} />
+          <TextField
+            label="Agreed return date"
+            type="date"
+            className="num"
+            error={e.returnDue?.message}
+            hint="The day it is agreed to come back (optional); printed on the receipt"
+            {...register("returnDue")}
+          />
         ) : null}
         <TextAreaField label="Notes" wrapClassName="md:col-span-2" error={e.notes?.message} hint="Packing, transport, anything agreed at the hand-over" {...register("notes")} />
       </div>

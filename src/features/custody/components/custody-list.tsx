@@ -34,8 +34,7 @@ export function CustodyList({ objectId, actions }: { objectId: string; actions?:
   if (q.data.length === 0)
     return (
       <EmptyState title="No receipts yet">
-        Each time this object comes into the studio or leaves it, a receipt records the date, who handed it over and who took it, its condition in one line, and
-        who signed.
+        Each time this object comes into the studio or leaves it, a receipt records the date, who handed it over and who took it, its condition in one line, and who signed.
       </EmptyState>
     );
   return (

@@ -12,10 +12,19 @@ export const documentKeys = {
 };
 
 export const useObjectDocuments = (objectId: string) =>
-  useQuery({ queryKey: documentKeys.object(objectId), queryFn: () => api.get<{ items: IssuedDocument[] }>(`/api/objects/${encodeURIComponent(objectId)}/documents`).then((r) => r.items), enabled: !!objectId });
+  useQuery({
+    queryKey: documentKeys.object(objectId),
+    queryFn: () => api.get<{ items: IssuedDocument[] }>(`/api/objects/${encodeURIComponent(objectId)}/documents`).then((r) => r.items),
+    enabled: !!objectId,
+  });
 export const useAllDocuments = () => useQuery({ queryKey: documentKeys.list(), queryFn: () => api.get<{ items: IssuedDocument[] }>("/api/documents").then((r) => r.items) });
 export const useVerification = (code: string) =>
-  useQuery({ queryKey: documentKeys.verify(code), queryFn: () => api.get<Verification>(`/api/verify/${encodeURIComponent(code)}`), enabled: code.trim().length >= 4, retry: false });
+  useQuery({
+    queryKey: documentKeys.verify(code),
+    queryFn: () => api.get<Verification>(`/api/verify/${encodeURIComponent(code)}`),
+    enabled: code.trim().length >= 4,
+    retry: false,
+  });
 
 export function useRefreshDocuments() {
   const qc = useQueryClient();

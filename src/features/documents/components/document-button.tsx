@@ -3,7 +3,21 @@ import { Button } from "@/components/ui/button.tsx";
 import { download } from "@/lib/api-client.ts";
 
 /** Issues a document and saves the PDF; says so, with its verification code, or says what went wrong. */
-export function DocumentButton({ url, label, body, fallbackName, onIssued, variant = "secondary" }: { url: string; label: string; body?: unknown; fallbackName: string; onIssued?: () => void; variant?: "primary" | "secondary" }) {
+export function DocumentButton({
+  url,
+  label,
+  body,
+  fallbackName,
+  onIssued,
+  variant = "secondary",
+}: {
+  url: string;
+  label: string;
+  body?: unknown;
+  fallbackName: string;
+  onIssued?: () => void;
+  variant?: "primary" | "secondary";
+}) {
   const [state, setState] = useState<{ busy: boolean; message: string | null; error: boolean }>({ busy: false, message: null, error: false });
   return (
     <span className="inline-flex flex-col gap-1">
@@ -23,7 +37,11 @@ export function DocumentButton({ url, label, body, fallbackName, onIssued, varia
       >
         {state.busy ? "Preparing…" : label}
       </Button>
-      {state.message && <span role="status" className={`text-xs ${state.error ? "text-fail" : "text-graphite"}`}>{state.message}</span>}
+      {state.message && (
+        <span role="status" className={`text-xs ${state.error ? "text-fail" : "text-graphite"}`}>
+          {state.message}
+        </span>
+      )}
     </span>
   );
 }

@@ -46,14 +46,22 @@ export function ExportsPanel({ clientId, showValuations, mayTakeOriginals = fals
 
   return (
     <div className="space-y-3 text-sm">
-      {error && <Notice tone="fail" title="Not exported">{error}</Notice>}
+      {error && (
+        <Notice tone="fail" title="Not exported">
+          {error}
+        </Notice>
+      )}
       <ul className="divide-y divide-stone-light">
         {DATASETS.filter((d) => d !== "valuations" || showValuations).map((d) => (
           <li key={d} className="flex items-center justify-between gap-3 py-2">
             <span>{DATASET_LABELS[d]}</span>
             <span className="flex gap-2">
-              <Button variant="quiet" className="px-2 py-1" onClick={() => get(d, "csv")}>CSV</Button>
-              <Button variant="quiet" className="px-2 py-1" onClick={() => get(d, "json")}>JSON</Button>
+              <Button variant="quiet" className="px-2 py-1" onClick={() => get(d, "csv")}>
+                CSV
+              </Button>
+              <Button variant="quiet" className="px-2 py-1" onClick={() => get(d, "json")}>
+                JSON
+              </Button>
             </span>
           </li>
         ))}
@@ -83,11 +91,17 @@ export function ExportsPanel({ clientId, showValuations, mayTakeOriginals = fals
         {job && (
           <span className="flex items-center gap-2" role="status">
             <progress max={1} value={job.progress} className="h-2 w-40" aria-label="Archive progress" />
-            <span className="text-graphite num">{job.state === "done" ? `${job.message ?? "Ready"} Downloading.` : job.state === "failed" ? job.message ?? "Failed" : `${Math.round(job.progress * 100)} %`}</span>
+            <span className="text-graphite num">
+              {job.state === "done" ? `${job.message ?? "Ready"} Downloading.` : job.state === "failed" ? (job.message ?? "Failed") : `${Math.round(job.progress * 100)} %`}
+            </span>
           </span>
         )}
       </div>
-      <p className="text-xs text-graphite">CSV files are UTF-8 with a byte-order mark so spreadsheets open them; column names follow Spectrum 5.0 units of information where one fits, and every value is in words. The ZIP adds the photos (full size, camera and place metadata removed), each object's dossier, its signed condition reports and custody receipts as PDFs, and a manifest giving each file's SHA-256.</p>
+      <p className="text-xs text-graphite">
+        CSV files are UTF-8 with a byte-order mark so spreadsheets open them; column names follow Spectrum 5.0 units of information where one fits, and every value is in words. The
+        ZIP adds the photos (full size, camera and place metadata removed), each object's dossier, its signed condition reports and custody receipts as PDFs, and a manifest giving
+        each file's SHA-256.
+      </p>
     </div>
   );
 }

@@ -47,7 +47,9 @@ export function Timeline({ objectId }: { objectId: string }) {
       ) : q.isError ? (
         <Notice tone="fail">{q.error.message}</Notice>
       ) : items.length === 0 ? (
-        <EmptyState title={group === 0 ? "No history yet" : "Nothing of this kind yet"}>Every mounting, reframing, condition check and move of this object is listed here, newest first.</EmptyState>
+        <EmptyState title={group === 0 ? "No history yet" : "Nothing of this kind yet"}>
+          Every mounting, reframing, condition check and move of this object is listed here, newest first.
+        </EmptyState>
       ) : (
         <ol className="relative space-y-3 border-l border-stone pl-5" data-testid="timeline">
           {items.map((e) => {

@@ -16,8 +16,7 @@ export const objectMountingsQuery = (objectId: string) =>
     queryKey: mountingKeys.object(objectId),
     queryFn: () => api.get<{ items: MountingRecord[] }>(`/api/objects/${encodeURIComponent(objectId)}/mountings`).then((r) => r.items),
   });
-export const mountingQuery = (id: string) =>
-  queryOptions({ queryKey: mountingKeys.one(id), queryFn: () => api.get<MountingRecord>(`/api/mountings/${encodeURIComponent(id)}`) });
+export const mountingQuery = (id: string) => queryOptions({ queryKey: mountingKeys.one(id), queryFn: () => api.get<MountingRecord>(`/api/mountings/${encodeURIComponent(id)}`) });
 export const revisionsQuery = (id: string) =>
   queryOptions({
     queryKey: mountingKeys.revisions(id),

@@ -18,7 +18,9 @@ function Row({ label, children }: { label: string; children: ReactNode }) {
 }
 
 const boardLine = (b: Board) =>
-  [BOARD_GRADE_LABELS[b.grade], `${b.ply}-ply`, b.buffered ? "buffered" : "unbuffered", b.colour, b.maker, b.batch && `batch ${b.batch}`, b.patPassed ? "PAT passed" : null].filter(Boolean).join(" · ");
+  [BOARD_GRADE_LABELS[b.grade], `${b.ply}-ply`, b.buffered ? "buffered" : "unbuffered", b.colour, b.maker, b.batch && `batch ${b.batch}`, b.patPassed ? "PAT passed" : null]
+    .filter(Boolean)
+    .join(" · ");
 
 /** One revision of a mounting record: the plan drawn with its hinges, the materials, the checks and how to undo it. */
 export function MountingView({ revision, settings }: { revision: MountingRevision; settings: PlanSettings }) {
@@ -29,30 +31,62 @@ export function MountingView({ revision, settings }: { revision: MountingRevisio
   // One unit on the screen: the studio's, for the plan's figures and every other length alike.
   const unit = settings.unit;
   const len = (mm: number) => lengthText(mm, unit);
-  const model = r.ok ? planDrawing(r.geometry, d.attachment.hinges.map((h) => ({ edge: h.edge, offset: h.offsetMm, width: h.widthMm }))) : null;
+  const model = r.ok
+    ? planDrawing(
+        r.geometry,
+        d.attachment.hinges.map((h) => ({ edge: h.edge, offset: h.offsetMm, width: h.widthMm })),
+      )
+    : null;
   return (
     <div className="grid gap-5 lg:grid-cols-2">
       <div className="space-y-3">
-        <div className="rounded-card bg-paper-sheet p-4 shadow-card">{model && <PlanDrawing model={model} title={`Mount drawn to scale: window ${plan.display.aperture}, with ${d.attachment.hinges.length} hinges`} />}</div>
+        <div className="rounded-card bg-paper-sheet p-4 shadow-card">
+          {model && <PlanDrawing model={model} title={`Mount drawn to scale: window ${plan.display.aperture}, with ${d.attachment.hinges.length} hinges`} />}
+        </div>
         <div className="rounded-card border-l-4 border-accent bg-paper-sheet p-4 shadow-card">
           <h3 className="font-semibold">How to undo this mounting</h3>
-          <p className="mt-1 whitespace-pre-line text-sm" data-testid="undo-notes">{d.undoNotes}</p>
+          <p className="mt-1 whitespace-pre-line text-sm" data-testid="undo-notes">
+            {d.undoNotes}
+          </p>
         </div>
       </div>
       <div className="space-y-3">
         <dl className="rounded-card bg-paper-sheet p-4 text-sm shadow-card">
-          <Row label="Sheet"><span className="num">{plan.display.sheet}</span></Row>
-          <Row label="Window (aperture)"><span className="num">{plan.display.aperture}</span></Row>
-          <Row label="Overlap L · T · R · B"><span className="num">{SIDES.map((s) => plan.display[`overlap.${s}`]).join(" · ")}</span></Row>
-          <Row label="Borders L · T · R · B"><span className="num">{SIDES.map((s) => plan.display[`borders.${s}`]).join(" · ")}</span></Row>
-          {plan.display.topWindow && <Row label="Top board window"><span className="num">{plan.display.topWindow}</span></Row>}
-          <Row label="Outer = glazing = backing"><span className="num">{plan.display.outer}</span></Row>
-          <Row label="Rebate"><span className="num">{plan.display.rebate}</span></Row>
+          <Row label="Sheet">
+            <span className="num">{plan.display.sheet}</span>
+          </Row>
+          <Row label="Window (aperture)">
+            <span className="num">{plan.display.aperture}</span>
+          </Row>
+          <Row label="Overlap L · T · R · B">
+            <span className="num">{SIDES.map((s) => plan.display[`overlap.${s}`]).join(" · ")}</span>
+          </Row>
+          <Row label="Borders L · T · R · B">
+            <span className="num">{SIDES.map((s) => plan.display[`borders.${s}`]).join(" · ")}</span>
+          </Row>
+          {plan.display.topWindow && (
+            <Row label="Top board window">
+              <span className="num">{plan.display.topWindow}</span>
+            </Row>
+          )}
+          <Row label="Outer = glazing = backing">
+            <span className="num">{plan.display.outer}</span>
+          </Row>
+          <Row label="Rebate">
+            <span className="num">{plan.display.rebate}</span>
+          </Row>
           <Row label="Window board">{boardLine(d.boards.window)}</Row>
           {d.boards.top && <Row label="Top board">{boardLine(d.boards.top)}</Row>}
           <Row label="Backing board">{boardLine(d.boards.backing)}</Row>
           <Row label="Attachment">
-            {[ATTACHMENT_LABELS[d.attachment.method], d.attachment.tissue, d.attachment.tissueWeightGsm && `${d.attachment.tissueWeightGsm} g/m²`, d.attachment.adhesive && ADHESIVE_LABELS[d.attachment.adhesive]].filter(Boolean).join(" · ")}
+            {[
+              ATTACHMENT_LABELS[d.attachment.method],
+              d.attachment.tissue,
+              d.attachment.tissueWeightGsm && `${d.attachment.tissueWeightGsm} g/m²`,
+              d.attachment.adhesive && ADHESIVE_LABELS[d.attachment.adhesive],
+            ]
+              .filter(Boolean)
+              .join(" · ")}
           </Row>
           {d.attachment.hinges.length > 0 && (
             <Row label="Hinges">
@@ -68,7 +102,16 @@ export function MountingView({ revision, settings }: { revision: MountingRevisio
           )}
           <Row label="Glazing">{[GLAZING_TYPE_LABELS[d.glazing.type], d.glazing.thicknessMm && len(d.glazing.thicknessMm)].filter(Boolean).join(" · ")}</Row>
           <Row label="Spacer">{[d.spacer?.type, d.spacer?.depthMm && `${len(d.spacer.depthMm)} deep`].filter(Boolean).join(" · ")}</Row>
-          <Row label="Frame">{[d.frame?.moulding, d.frame?.finish, d.frame?.faceWidthMm && `${len(d.frame.faceWidthMm)} face`, d.frame?.rebateDepthMm && `${len(d.frame.rebateDepthMm)} rebate depth`].filter(Boolean).join(" · ")}</Row>
+          <Row label="Frame">
+            {[
+              d.frame?.moulding,
+              d.frame?.finish,
+              d.frame?.faceWidthMm && `${len(d.frame.faceWidthMm)} face`,
+              d.frame?.rebateDepthMm && `${len(d.frame.rebateDepthMm)} rebate depth`,
+            ]
+              .filter(Boolean)
+              .join(" · ")}
+          </Row>
           <Row label="Backing">{d.backing && [BACKING_TYPE_LABELS[d.backing.type], d.backing.notes].filter(Boolean).join(" · ")}</Row>
           <Row label="Sealing">{d.sealing && [SEALING_TYPE_LABELS[d.sealing.type], d.sealing.notes].filter(Boolean).join(" · ")}</Row>
           <Row label="Hanging">{[d.hanging?.hardware, d.hanging?.wire, d.hanging?.notes].filter(Boolean).join(" · ")}</Row>

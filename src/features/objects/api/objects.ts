@@ -21,8 +21,7 @@ export const objectListQuery = (params: ObjectListParams) =>
     placeholderData: keepPreviousData,
   });
 
-export const objectQuery = (id: string) =>
-  queryOptions({ queryKey: objectKeys.one(id), queryFn: () => api.get<ObjectRecord>(`/api/objects/${encodeURIComponent(id)}`) });
+export const objectQuery = (id: string) => queryOptions({ queryKey: objectKeys.one(id), queryFn: () => api.get<ObjectRecord>(`/api/objects/${encodeURIComponent(id)}`) });
 
 export const useObjects = (params: ObjectListParams) => useQuery(objectListQuery(params));
 export const useObject = (id: string) => useQuery(objectQuery(id));

@@ -162,7 +162,13 @@ export function ObjectForm({ defaultValues, studioUnit, clients, canEditOwner, s
         <SelectField label="Object type" error={e.objectType?.message} {...register("objectType")}>
           <EnumOptions values={OBJECT_TYPES} labels={OBJECT_TYPE_LABELS} />
         </SelectField>
-        <SelectField label="Photographic process" disabled={!isPhoto} error={e.photoProcess?.message} hint={isPhoto ? undefined : "For photographs only"} {...register("photoProcess")}>
+        <SelectField
+          label="Photographic process"
+          disabled={!isPhoto}
+          error={e.photoProcess?.message}
+          hint={isPhoto ? undefined : "For photographs only"}
+          {...register("photoProcess")}
+        >
           <EnumOptions values={PHOTO_PROCESSES} labels={PHOTO_PROCESS_LABELS} blank="—" />
         </SelectField>
         <TextField label="Medium and technique" error={e.medium?.message} {...register("medium")} />

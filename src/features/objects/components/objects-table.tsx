@@ -20,14 +20,7 @@ type Props = {
   today?: string;
 };
 
-function SortHeader({
-  label,
-  k,
-  sort,
-  dir,
-  onSort,
-  align = "left",
-}: { label: string; k: SortKey; align?: "left" | "right" } & Pick<Props, "sort" | "dir" | "onSort">) {
+function SortHeader({ label, k, sort, dir, onSort, align = "left" }: { label: string; k: SortKey; align?: "left" | "right" } & Pick<Props, "sort" | "dir" | "onSort">) {
   const active = sort === k;
   const ariaSort = active ? (dir === "desc" ? "descending" : "ascending") : "none";
   return (
@@ -88,15 +81,27 @@ const sortable = (key: SortKey, label: string, p: Pick<Props, "sort" | "dir" | "
 export function ObjectsTable({ items, unit, sort, dir, onSort, showOwner = true, today = studioToday() }: Props) {
   const p = { sort, dir, onSort };
   const columns: Cell[] = [
-    sortable("objectNumber", "Object number", p, (o) => (
-      <Link to={`/objects/${o.id}`} className="text-accent hover:underline">
-        {o.objectNumber}
-      </Link>
-    ), { td: "whitespace-nowrap font-semibold num" }),
+    sortable(
+      "objectNumber",
+      "Object number",
+      p,
+      (o) => (
+        <Link to={`/objects/${o.id}`} className="text-accent hover:underline">
+          {o.objectNumber}
+        </Link>
+      ),
+      { td: "whitespace-nowrap font-semibold num" },
+    ),
     sortable("title", "Title", p, (o) => o.title, { td: "min-w-48" }),
     sortable("maker", "Maker", p, (o) => o.maker ?? "—", { td: "text-ink-soft" }),
     // The type gives way first on narrower screens: the mount columns say more about the work in hand.
-    { key: "type", header: "Type", th: "hidden 2xl:table-cell", td: "hidden text-ink-soft 2xl:table-cell", cell: (o) => OBJECT_TYPE_LABELS[o.objectType as ObjectType] ?? o.objectType },
+    {
+      key: "type",
+      header: "Type",
+      th: "hidden 2xl:table-cell",
+      td: "hidden text-ink-soft 2xl:table-cell",
+      cell: (o) => OBJECT_TYPE_LABELS[o.objectType as ObjectType] ?? o.objectType,
+    },
     { key: "sheet", header: "Sheet", align: "right", td: "whitespace-nowrap num", cell: (o) => sheetSize(o.sheetWidthMm, o.sheetHeightMm, unit) },
     ...(showOwner ? [{ key: "owner", header: "Owner", td: "text-ink-soft", cell: (o: ObjectListItem) => o.clientName }] : []),
     sortable("status", "Status", p, (o) => (
@@ -106,7 +111,10 @@ export function ObjectsTable({ items, unit, sort, dir, onSort, showOwner = true,
       </>
     )),
     { key: "mount", header: "Current mount", th: "whitespace-nowrap", td: "min-w-44", cell: (o) => <CurrentMount o={o} /> },
-    sortable("lastMountedOn", "Last mounted", p, (o) => (o.lastMountedOn ? formatDate(o.lastMountedOn) : <span className="text-graphite">—</span>), { align: "right", td: "whitespace-nowrap num" }),
+    sortable("lastMountedOn", "Last mounted", p, (o) => (o.lastMountedOn ? formatDate(o.lastMountedOn) : <span className="text-graphite">—</span>), {
+      align: "right",
+      td: "whitespace-nowrap num",
+    }),
     sortable("checkDueOn", "Check due", p, (o) => <CheckDue on={o.checkDueOn} today={today} />, { align: "right", td: "whitespace-nowrap num" }),
   ];
   return <DataTable columns={columns} rows={items} rowKey={(o) => o.id} />;

@@ -39,13 +39,7 @@ const UPLOAD_MESSAGES = {
 };
 
 /** Sends one photo (one request per file, so each has its own progress) through the client's upload. */
-export function uploadPhoto(
-  objectId: string,
-  file: File,
-  fields: PhotoUploadFields,
-  onProgress?: (p: UploadProgress) => void,
-  signal?: AbortSignal,
-): Promise<Photo> {
+export function uploadPhoto(objectId: string, file: File, fields: PhotoUploadFields, onProgress?: (p: UploadProgress) => void, signal?: AbortSignal): Promise<Photo> {
   const form = new FormData();
   // Fields before the file, so the server has them when the file arrives.
   form.append("kind", fields.kind);

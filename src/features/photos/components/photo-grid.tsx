@@ -60,7 +60,11 @@ export function PhotoGrid({ objectId, reportId, canUpload = false }: Props) {
                 </span>
                 <span className="block space-y-1 px-2.5 py-2">
                   <Badge tone="accent">{PHOTO_KIND_LABELS[p.kind] ?? p.kind}</Badge>
-                  {p.caption && <span className="block truncate text-sm text-ink" title={p.caption}>{p.caption}</span>}
+                  {p.caption && (
+                    <span className="block truncate text-sm text-ink" title={p.caption}>
+                      {p.caption}
+                    </span>
+                  )}
                   {taken && <span className="block text-xs text-graphite">{taken}</span>}
                 </span>
               </button>

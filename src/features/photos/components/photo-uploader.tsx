@@ -192,22 +192,14 @@ export function PhotoUploader({ objectId, reportId, canUpload, onUploaded }: Pro
       {items.length > 0 && (
         <ul aria-label="Photos to add" className="divide-y divide-stone-light rounded-card border border-stone bg-paper-sheet">
           {items.map((item) => (
-            <UploadRow
-              key={item.key}
-              item={item}
-              onChange={(change) => patch(item.key, change)}
-              onStart={() => start(item)}
-              onRemove={() => remove(item)}
-            />
+            <UploadRow key={item.key} item={item} onChange={(change) => patch(item.key, change)} onStart={() => start(item)} onRemove={() => remove(item)} />
           ))}
         </ul>
       )}
 
       {items.length > 0 && (
         <div className="flex flex-wrap items-center gap-3">
-          {ready.length > 0 && (
-            <Button onClick={() => ready.forEach((i) => void start(i))}>{ready.length > 1 ? `Add ${ready.length} photos` : "Add the photo"}</Button>
-          )}
+          {ready.length > 0 && <Button onClick={() => ready.forEach((i) => void start(i))}>{ready.length > 1 ? `Add ${ready.length} photos` : "Add the photo"}</Button>}
           {done.length > 0 && !busy && (
             <Button
               variant="quiet"

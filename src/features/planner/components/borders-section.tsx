@@ -14,8 +14,20 @@ export function BordersSection({ register, values, settings, errors, L, u, apply
         <option value="fit">Fit to an outer size (a ready-made frame)</option>
       </SelectField>
       {values.bordersMode === "all" && L("b.all", `Border (${u})`)}
-      {values.bordersMode === "tsb" && <div className="grid grid-cols-3 gap-2">{L("b.top", "Top")}{L("b.side", "Sides")}{L("b.bottom", "Bottom")}</div>}
-      {values.bordersMode === "sides" && <div className="grid grid-cols-4 gap-2">{SIDES.map((s) => <div key={s}>{L(`b.${s}`, SIDE_LABEL[s])}</div>)}</div>}
+      {values.bordersMode === "tsb" && (
+        <div className="grid grid-cols-3 gap-2">
+          {L("b.top", "Top")}
+          {L("b.side", "Sides")}
+          {L("b.bottom", "Bottom")}
+        </div>
+      )}
+      {values.bordersMode === "sides" && (
+        <div className="grid grid-cols-4 gap-2">
+          {SIDES.map((s) => (
+            <div key={s}>{L(`b.${s}`, SIDE_LABEL[s])}</div>
+          ))}
+        </div>
+      )}
       {values.bordersMode === "fit" && (
         <>
           <SelectField label="Frame size" value="" onChange={(e) => applyPreset("fit", e.target.value)}>
@@ -24,17 +36,26 @@ export function BordersSection({ register, values, settings, errors, L, u, apply
               <optgroup label="The studio's sizes">
                 {settings.framePresets.map((p, i) => (
                   // biome-ignore lint/suspicious/noArrayIndexKey: the option's value is its position in the studio's list
-                  <option key={i} value={`studio-${i}`}>{p.label}</option>
+                  <option key={i} value={`studio-${i}`}>
+                    {p.label}
+                  </option>
                 ))}
               </optgroup>
             )}
             {[...new Set(FRAME_PRESETS.map((p) => p.group))].map((g) => (
               <optgroup key={g} label={g}>
-                {FRAME_PRESETS.filter((p) => p.group === g).map((p) => <option key={p.id} value={p.id}>{p.label}</option>)}
+                {FRAME_PRESETS.filter((p) => p.group === g).map((p) => (
+                  <option key={p.id} value={p.id}>
+                    {p.label}
+                  </option>
+                ))}
               </optgroup>
             ))}
           </SelectField>
-          <div className="grid grid-cols-2 gap-3">{L("fit.width", `Outer width (${u})`)}{L("fit.height", `Outer height (${u})`)}</div>
+          <div className="grid grid-cols-2 gap-3">
+            {L("fit.width", `Outer width (${u})`)}
+            {L("fit.height", `Outer height (${u})`)}
+          </div>
         </>
       )}
       <SelectField label="Bottom weighting" {...register("weightMode")}>
@@ -43,9 +64,13 @@ export function BordersSection({ register, values, settings, errors, L, u, apply
         <option value="percent">Bottom larger by a percentage</option>
       </SelectField>
       {values.weightMode === "amount" && L("weight", `Extra at the bottom (${u})`, "Often 10–20 mm.")}
-      {values.weightMode === "percent" && <TextField label="Bottom larger by (%)" inputMode="decimal" error={errors.bottomWeightPercent} hint="Often 10–15 %." {...register("weightPct")} />}
+      {values.weightMode === "percent" && (
+        <TextField label="Bottom larger by (%)" inputMode="decimal" error={errors.bottomWeightPercent} hint="Often 10–15 %." {...register("weightPct")} />
+      )}
       {L("minBorder", `Warn below a border of (${u})`)}
-      <label className="flex items-center gap-2 text-sm"><input type="checkbox" className="h-4 w-4" {...register("double")} /> Double {settings.words.mount} (a top board with a reveal)</label>
+      <label className="flex items-center gap-2 text-sm">
+        <input type="checkbox" className="h-4 w-4" {...register("double")} /> Double {settings.words.mount} (a top board with a reveal)
+      </label>
       {values.double && L("doubleReveal", `Reveal of the inner board (${u})`, "Commonly 3–6 mm a side.")}
     </Group>
   );

@@ -14,7 +14,9 @@ export function FrameSection({ register, settings, L, u }: SectionProps) {
         </SelectField>
         {L("glazing.thickness", `Thickness (${u})`)}
       </div>
-      <label className="flex items-center gap-2 text-sm"><input type="checkbox" className="h-4 w-4" {...register("glazing.uv")} /> UV-filtering</label>
+      <label className="flex items-center gap-2 text-sm">
+        <input type="checkbox" className="h-4 w-4" {...register("glazing.uv")} /> UV-filtering
+      </label>
       <div className="grid grid-cols-2 gap-3">
         {L("spacer", `Spacer depth (${u})`)}
         {L("frame.rebateDepth", `${settings.words.Rebate} depth (${u})`)}
@@ -32,10 +34,20 @@ export function BoardSection({ register, values, L, u, applyPreset }: SectionPro
     <Group title="Board sheet and yield" open={false}>
       <SelectField label="Full sheet" {...register("board.preset", { onChange: (e) => applyPreset("board", e.target.value) })}>
         <option value="">Not needed</option>
-        {STANDARD_BOARD_SHEETS.map((b) => <option key={b.id} value={b.id}>{b.label}</option>)}
+        {STANDARD_BOARD_SHEETS.map((b) => (
+          <option key={b.id} value={b.id}>
+            {b.label}
+          </option>
+        ))}
         <option value="custom">Other size</option>
       </SelectField>
-      {values.board.preset && <div className="grid grid-cols-3 gap-2">{L("board.width", `Width (${u})`)}{L("board.height", `Height (${u})`)}{L("board.kerf", `Kerf (${u})`)}</div>}
+      {values.board.preset && (
+        <div className="grid grid-cols-3 gap-2">
+          {L("board.width", `Width (${u})`)}
+          {L("board.height", `Height (${u})`)}
+          {L("board.kerf", `Kerf (${u})`)}
+        </div>
+      )}
     </Group>
   );
 }

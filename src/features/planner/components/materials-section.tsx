@@ -11,17 +11,30 @@ export function MaterialsSection({ register, values }: SectionProps) {
       <div className="grid grid-cols-2 gap-3">
         <SelectField label="Object type" {...register("object.objectType")}>
           <option value="">Not given</option>
-          {OBJECT_TYPES.map((t) => <option key={t} value={t}>{OBJECT_TYPE_LABELS[t]}</option>)}
+          {OBJECT_TYPES.map((t) => (
+            <option key={t} value={t}>
+              {OBJECT_TYPE_LABELS[t]}
+            </option>
+          ))}
         </SelectField>
         <SelectField label="Photographic process" disabled={values.object.objectType !== "photograph"} {...register("object.photoProcess")}>
           <option value="">—</option>
-          {PHOTO_PROCESSES.map((p) => <option key={p} value={p}>{PHOTO_PROCESS_LABELS[p]}</option>)}
+          {PHOTO_PROCESSES.map((p) => (
+            <option key={p} value={p}>
+              {PHOTO_PROCESS_LABELS[p]}
+            </option>
+          ))}
         </SelectField>
       </div>
       <fieldset>
         <legend className="mb-1 text-sm font-medium text-ink-soft">Sensitivities</legend>
         <div className="flex flex-wrap gap-3">
-          {SENSITIVITIES.map((s) => <label key={s} className="inline-flex items-center gap-1.5 text-sm"><input type="checkbox" value={s} className="h-4 w-4" {...register("object.sensitivities")} />{SENSITIVITY_LABELS[s]}</label>)}
+          {SENSITIVITIES.map((s) => (
+            <label key={s} className="inline-flex items-center gap-1.5 text-sm">
+              <input type="checkbox" value={s} className="h-4 w-4" {...register("object.sensitivities")} />
+              {SENSITIVITY_LABELS[s]}
+            </label>
+          ))}
         </div>
       </fieldset>
       <div className="grid grid-cols-2 gap-3">
@@ -43,11 +56,19 @@ export function MaterialsSection({ register, values }: SectionProps) {
         </SelectField>
         <SelectField label="Attachment" {...register("materials.attachment")}>
           <option value="">Not chosen</option>
-          {ATTACHMENT_METHODS.map((m) => <option key={m} value={m}>{ATTACHMENT_METHOD_LABELS[m]}</option>)}
+          {ATTACHMENT_METHODS.map((m) => (
+            <option key={m} value={m}>
+              {ATTACHMENT_METHOD_LABELS[m]}
+            </option>
+          ))}
         </SelectField>
         <SelectField label="Adhesive" {...register("materials.adhesive")}>
           <option value="">Not chosen</option>
-          {ADHESIVES.map((a) => <option key={a} value={a}>{ADHESIVE_LABELS[a]}</option>)}
+          {ADHESIVES.map((a) => (
+            <option key={a} value={a}>
+              {ADHESIVE_LABELS[a]}
+            </option>
+          ))}
         </SelectField>
         <TextField label="Number of hinges" inputMode="numeric" {...register("materials.hingeCount")} />
       </div>

@@ -31,7 +31,11 @@ export function PlanResultView({ result, errors, model, unit, settings, onSave, 
       {!plan ? (
         <Notice tone="warn" title="Not computed yet">
           <ul className="list-disc pl-5">
-            {Object.values(errors).slice(0, 5).map((m) => <li key={m}>{m}</li>)}
+            {Object.values(errors)
+              .slice(0, 5)
+              .map((m) => (
+                <li key={m}>{m}</li>
+              ))}
           </ul>
         </Notice>
       ) : (
@@ -39,36 +43,50 @@ export function PlanResultView({ result, errors, model, unit, settings, onSave, 
           <div className="flex flex-wrap items-center justify-between gap-3">
             <LevelBadge level={plan.level} />
             <div className="flex gap-2 print:hidden">
-              {onSave && <Button onClick={onSave} disabled={saving}>{saving ? "Saving…" : "Save draft"}</Button>}
-              <Button variant="secondary" onClick={() => window.print()}>Print</Button>
+              {onSave && (
+                <Button onClick={onSave} disabled={saving}>
+                  {saving ? "Saving…" : "Save draft"}
+                </Button>
+              )}
+              <Button variant="secondary" onClick={() => window.print()}>
+                Print
+              </Button>
             </div>
           </div>
-          {saveError && <Notice tone="fail" title="Not saved">{saveError}</Notice>}
+          {saveError && (
+            <Notice tone="fail" title="Not saved">
+              {saveError}
+            </Notice>
+          )}
           {saveState}
           <div className="rounded-card bg-paper-sheet p-4 shadow-card print:p-0 print:shadow-none">
             {model && <PlanDrawing model={model} title={`${settings.words.Mount} drawn to scale: window ${plan.display.aperture}, outer ${plan.display.outer}`} />}
           </div>
           <div className="grid gap-4 md:grid-cols-2">
             <dl className="rounded-card bg-paper-sheet p-4 text-sm shadow-card print:p-2 print:text-[11px] print:shadow-none" data-testid="plan-numbers">
-              {([
-                ["Window (aperture)", plan.display.aperture],
-                ...SIDES.map((s) => [
-                  `${SIDE_LABEL[s]} ${plan.overlap[s] < 0 ? "reveal" : "overlap"}`,
-                  plan.overlap[s] < 0 ? plan.display[`overlap.${s}`].replace("−", "") : plan.display[`overlap.${s}`],
-                ]),
-                ["Borders L · T · R · B", SIDES.map((s) => plan.display[`borders.${s}`]).join(" · ")],
-                ...(plan.display.topWindow ? [["Top board window", plan.display.topWindow]] : []),
-                [`Outer = glazing = backing`, plan.display.outer],
-                [`${settings.words.Rebate} size`, plan.display.rebate],
-                ["Sight size", plan.display.sight],
-                ["Moulding to order", plan.display.moulding],
-                ["Package thickness", formatLength(unit === "in" ? plan.package.thickness * 25.4 : plan.package.thickness, unit, { rounding: "up", denominator: 32 })],
-                ...(plan.package.weightKg !== undefined ? [["Glazing and boards", `about ${plan.package.weightKg.toFixed(1)} kg`]] : []),
-                ...(plan.yield ? [["Blanks per full sheet", `${plan.yield.perSheet} (${Math.round(plan.yield.utilisation * 100)} % used)`]] : []),
-              ] as [string, string][]).map(([k, v]) => (
+              {(
+                [
+                  ["Window (aperture)", plan.display.aperture],
+                  ...SIDES.map((s) => [
+                    `${SIDE_LABEL[s]} ${plan.overlap[s] < 0 ? "reveal" : "overlap"}`,
+                    plan.overlap[s] < 0 ? plan.display[`overlap.${s}`].replace("−", "") : plan.display[`overlap.${s}`],
+                  ]),
+                  ["Borders L · T · R · B", SIDES.map((s) => plan.display[`borders.${s}`]).join(" · ")],
+                  ...(plan.display.topWindow ? [["Top board window", plan.display.topWindow]] : []),
+                  [`Outer = glazing = backing`, plan.display.outer],
+                  [`${settings.words.Rebate} size`, plan.display.rebate],
+                  ["Sight size", plan.display.sight],
+                  ["Moulding to order", plan.display.moulding],
+                  ["Package thickness", formatLength(unit === "in" ? plan.package.thickness * 25.4 : plan.package.thickness, unit, { rounding: "up", denominator: 32 })],
+                  ...(plan.package.weightKg !== undefined ? [["Glazing and boards", `about ${plan.package.weightKg.toFixed(1)} kg`]] : []),
+                  ...(plan.yield ? [["Blanks per full sheet", `${plan.yield.perSheet} (${Math.round(plan.yield.utilisation * 100)} % used)`]] : []),
+                ] as [string, string][]
+              ).map(([k, v]) => (
                 <div key={k} className="flex justify-between gap-3 border-b border-stone-light py-1.5 last:border-0 print:py-0.5">
                   <dt className="text-graphite">{k}</dt>
-                  <dd className="text-right font-medium num" data-testid={`num-${k}`}>{v}</dd>
+                  <dd className="text-right font-medium num" data-testid={`num-${k}`}>
+                    {v}
+                  </dd>
                 </div>
               ))}
             </dl>

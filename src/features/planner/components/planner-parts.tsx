@@ -29,7 +29,9 @@ export function Group({ title, children, open = true }: { title: string; childre
   return (
     <details open={open} className="group rounded-card bg-paper-sheet shadow-card">
       <summary className="cursor-pointer select-none list-none px-4 py-3 font-semibold marker:hidden">
-        <span aria-hidden="true" className="mr-2 inline-block text-graphite transition group-open:rotate-90">›</span>
+        <span aria-hidden="true" className="mr-2 inline-block text-graphite transition group-open:rotate-90">
+          ›
+        </span>
         {title}
       </summary>
       <div className="space-y-3 border-t border-stone-light px-4 py-4">{children}</div>
@@ -38,7 +40,21 @@ export function Group({ title, children, open = true }: { title: string; childre
 }
 
 /** How the window meets the sheet on one side (or every side). */
-export function SideEditor({ name, label, mode, register, L, u }: { name: "all" | SideName; label: string; mode: string; register: UseFormRegister<PlannerValues>; L: LengthInput; u: string }) {
+export function SideEditor({
+  name,
+  label,
+  mode,
+  register,
+  L,
+  u,
+}: {
+  name: "all" | SideName;
+  label: string;
+  mode: string;
+  register: UseFormRegister<PlannerValues>;
+  L: LengthInput;
+  u: string;
+}) {
   return (
     <fieldset className="rounded-card border border-stone-light p-3">
       <legend className="px-1 text-sm font-semibold">{label}</legend>
@@ -60,4 +76,3 @@ export function SideEditor({ name, label, mode, register, L, u }: { name: "all" 
     </fieldset>
   );
 }
-

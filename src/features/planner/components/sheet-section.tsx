@@ -9,7 +9,11 @@ export function SheetSection({ register, values, L, u, applyPreset }: SectionPro
     <Group title="Sheet">
       <SelectField label="Preset" value="" onChange={(e) => applyPreset("sheet", e.target.value)}>
         <option value="">Choose a standard size…</option>
-        {SHEET_PRESETS.map((p) => <option key={p.id} value={p.id}>{p.label}</option>)}
+        {SHEET_PRESETS.map((p) => (
+          <option key={p.id} value={p.id}>
+            {p.label}
+          </option>
+        ))}
       </SelectField>
       <div className="grid grid-cols-2 gap-3">
         {L("sheetW", `Sheet width (${u})`)}
@@ -20,7 +24,9 @@ export function SheetSection({ register, values, L, u, applyPreset }: SectionPro
       </label>
       {values.hasImageBorders && (
         <div className="grid grid-cols-4 gap-2">
-          {SIDES.map((s) => <div key={s}>{L(`ib.${s}`, `${SIDE_LABEL[s]}`)}</div>)}
+          {SIDES.map((s) => (
+            <div key={s}>{L(`ib.${s}`, `${SIDE_LABEL[s]}`)}</div>
+          ))}
         </div>
       )}
     </Group>

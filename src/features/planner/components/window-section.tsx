@@ -20,9 +20,15 @@ export function WindowSection({ register, values, settings, L, u }: SectionProps
           {L("custom.top", `From the sheet's top edge (${u})`)}
         </div>
       ) : (
-        (values.windowMode === "all" ? (["all"] as const) : SIDES).map((s) => <SideEditor key={s} name={s} label={s === "all" ? "Every side" : SIDE_LABEL[s]} mode={values[s].mode} register={register} L={L} u={u} />)
+        (values.windowMode === "all" ? (["all"] as const) : SIDES).map((s) => (
+          <SideEditor key={s} name={s} label={s === "all" ? "Every side" : SIDE_LABEL[s]} mode={values[s].mode} register={register} L={L} u={u} />
+        ))
       )}
-      {L("minOverlap", `Minimum overlap (${u})`, `Leave empty for the studio minimum (${formatLength(settings.minOverlapMm, values.unit, { rounding: "up", denominator: 32 })}); a side below it fails the check.`)}
+      {L(
+        "minOverlap",
+        `Minimum overlap (${u})`,
+        `Leave empty for the studio minimum (${formatLength(settings.minOverlapMm, values.unit, { rounding: "up", denominator: 32 })}); a side below it fails the check.`,
+      )}
     </Group>
   );
 }

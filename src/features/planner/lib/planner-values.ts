@@ -36,12 +36,37 @@ export type PlannerValues = {
 
 /** Every field that holds a length, so a unit change can convert them all. */
 export const LENGTH_FIELDS = [
-  "sheetW", "sheetH", "ib.left", "ib.top", "ib.right", "ib.bottom",
+  "sheetW",
+  "sheetH",
+  "ib.left",
+  "ib.top",
+  "ib.right",
+  "ib.bottom",
   ...(["all", "left", "top", "right", "bottom"] as const).flatMap((s) => [`${s}.overlap`, `${s}.border`, `${s}.into`, `${s}.reveal`]),
-  "custom.width", "custom.height", "custom.left", "custom.top", "minOverlap",
-  "b.all", "b.top", "b.side", "b.bottom", "b.left", "b.right", "fit.width", "fit.height",
-  "weight", "minBorder", "doubleReveal", "glazing.thickness", "spacer",
-  "frame.rebateDepth", "frame.lip", "frame.faceWidth", "board.width", "board.height", "board.kerf",
+  "custom.width",
+  "custom.height",
+  "custom.left",
+  "custom.top",
+  "minOverlap",
+  "b.all",
+  "b.top",
+  "b.side",
+  "b.bottom",
+  "b.left",
+  "b.right",
+  "fit.width",
+  "fit.height",
+  "weight",
+  "minBorder",
+  "doubleReveal",
+  "glazing.thickness",
+  "spacer",
+  "frame.rebateDepth",
+  "frame.lip",
+  "frame.faceWidth",
+  "board.width",
+  "board.height",
+  "board.kerf",
 ] as const;
 export type LengthField = (typeof LENGTH_FIELDS)[number];
 
@@ -206,7 +231,9 @@ export function fromInput(input: MountPlanInput, base: PlannerValues): PlannerVa
   v.minBorder = s(input.minBorder);
   v.double = !!input.doubleMount;
   if (input.doubleMount) v.doubleReveal = s(input.doubleMount.reveal);
-  v.glazing = input.glazing ? { material: input.glazing.material, thickness: s(input.glazing.thickness), uv: !!input.glazing.uvFiltering } : { material: "", thickness: "", uv: false };
+  v.glazing = input.glazing
+    ? { material: input.glazing.material, thickness: s(input.glazing.thickness), uv: !!input.glazing.uvFiltering }
+    : { material: "", thickness: "", uv: false };
   v.spacer = s(input.spacer?.depth);
   v.frame = { rebateDepth: s(input.frame?.rebateDepth), lip: s(input.frame?.rebateLip), faceWidth: s(input.frame?.faceWidth), waste: s(input.frame?.wastePercent) };
   v.board = { preset: input.boardSheet ? "custom" : "", width: s(input.boardSheet?.width), height: s(input.boardSheet?.height), kerf: s(input.kerf) };
@@ -257,13 +284,7 @@ export function fieldForPath(path: string, v: PlannerValues): string {
  * the exact mm it stood for: while the text is still that, the exact mm is used, so toggling back and forth never drifts.
  * Overlaps convert rounding up, so a conversion never weakens them.
  */
-export function convertLength(
-  text: string,
-  from: Unit,
-  to: Unit,
-  last?: { text: string; mm: number },
-  rounding: Rounding = "nearest",
-): { text: string; mm: number | null } {
+export function convertLength(text: string, from: Unit, to: Unit, last?: { text: string; mm: number }, rounding: Rounding = "nearest"): { text: string; mm: number | null } {
   if (text.trim() === "") return { text, mm: null };
   const r = parseLength(text, from);
   if (!r.ok) return { text, mm: null };
@@ -273,4 +294,16 @@ export function convertLength(
 }
 
 /** Fields whose conversion must not make them smaller. */
-export const ROUND_UP_FIELDS: readonly string[] = ["minOverlap", "all.overlap", "left.overlap", "top.overlap", "right.overlap", "bottom.overlap", "all.into", "left.into", "top.into", "right.into", "bottom.into"];
+export const ROUND_UP_FIELDS: readonly string[] = [
+  "minOverlap",
+  "all.overlap",
+  "left.overlap",
+  "top.overlap",
+  "right.overlap",
+  "bottom.overlap",
+  "all.into",
+  "left.into",
+  "top.into",
+  "right.into",
+  "bottom.into",
+];

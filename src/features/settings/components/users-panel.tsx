@@ -19,7 +19,10 @@ export function UsersPanel({ clients }: { clients: ClientRecord[] }) {
   const users = useUsers();
   const create = useCreateUser();
   const [done, setDone] = useState<string | null>(null);
-  const form = useForm<Input, unknown, UserCreate>({ resolver: zodResolver(UserCreateSchema), defaultValues: { name: "", email: "", role: "framer", clientId: null, password: "" } });
+  const form = useForm<Input, unknown, UserCreate>({
+    resolver: zodResolver(UserCreateSchema),
+    defaultValues: { name: "", email: "", role: "framer", clientId: null, password: "" },
+  });
   const role = form.watch("role");
   const e = form.formState.errors;
   const server = useServerErrors(form);
@@ -37,25 +40,62 @@ export function UsersPanel({ clients }: { clients: ClientRecord[] }) {
       <ul className="divide-y divide-stone-light text-sm" data-testid="users">
         {(users.data ?? []).map((u) => (
           <li key={u.id} className="flex flex-wrap justify-between gap-2 py-1.5">
-            <span><span className="font-medium">{u.name}</span> <span className="text-graphite">· {u.email}</span></span>
-            <span className="text-ink-soft">{ROLE_LABELS[u.role]}{u.clientName ? ` · ${u.clientName}` : ""}</span>
+            <span>
+              <span className="font-medium">{u.name}</span> <span className="text-graphite">· {u.email}</span>
+            </span>
+            <span className="text-ink-soft">
+              {ROLE_LABELS[u.role]}
+              {u.clientName ? ` · ${u.clientName}` : ""}
+            </span>
           </li>
         ))}
       </ul>
-      {done && <Notice tone="pass" title="Account made">{done}</Notice>}
-      {create.isError && !(create.error instanceof ApiError && Object.keys(create.error.fields).length) && <Notice tone="fail" title="Not made">{create.error.message}</Notice>}
+      {done && (
+        <Notice tone="pass" title="Account made">
+          {done}
+        </Notice>
+      )}
+      {create.isError && !(create.error instanceof ApiError && Object.keys(create.error.fields).length) && (
+        <Notice tone="fail" title="Not made">
+          {create.error.message}
+        </Notice>
+      )}
       <form onSubmit={submit} noValidate className="grid gap-3 md:grid-cols-2">
         <TextField label="Name" error={e.name?.message} {...form.register("name")} />
         <TextField label="E-mail address" type="email" error={e.email?.message} {...form.register("email")} />
         <SelectField label="Role" error={e.role?.message} {...form.register("role")}>
-          {ROLES.map((r) => <option key={r} value={r}>{ROLE_LABELS[r]}</option>)}
+          {ROLES.map((r) => (
+            <option key={r} value={r}>
+              {ROLE_LABELS[r]}
+            </option>
+          ))}
         </SelectField>
-        <SelectField label="Client" disabled={role !== "collector" && role !== "registrar"} error={e.clientId?.message} {...form.register("clientId", { setValueAs: (v) => (v === "" ? null : v) })}>
+        <SelectField
+          label="Client"
+          disabled={role !== "collector" && role !== "registrar"}
+          error={e.clientId?.message}
+          {...form.register("clientId", { setValueAs: (v) => (v === "" ? null : v) })}
+        >
           <option value="">{role === "collector" || role === "registrar" ? "Choose…" : "— (studio staff)"}</option>
-          {choices.map((c) => <option key={c.id} value={c.id}>{c.name}</option>)}
+          {choices.map((c) => (
+            <option key={c.id} value={c.id}>
+              {c.name}
+            </option>
+          ))}
         </SelectField>
-        <TextField label="First password" type="password" autoComplete="new-password" error={e.password?.message} hint="At least 12 characters: a phrase of unrelated words, not built from the name, the e-mail address or the studio's name. Tell the person privately." {...form.register("password")} />
-        <div className="flex items-end"><Button type="submit" disabled={form.formState.isSubmitting}>Add the account</Button></div>
+        <TextField
+          label="First password"
+          type="password"
+          autoComplete="new-password"
+          error={e.password?.message}
+          hint="At least 12 characters: a phrase of unrelated words, not built from the name, the e-mail address or the studio's name. Tell the person privately."
+          {...form.register("password")}
+        />
+        <div className="flex items-end">
+          <Button type="submit" disabled={form.formState.isSubmitting}>
+            Add the account
+          </Button>
+        </div>
       </form>
     </section>
   );

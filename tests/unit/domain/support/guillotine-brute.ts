@@ -42,7 +42,11 @@ export function fewestSheets(boards: Board[], sheet: { width: number; height: nu
     let v = narrowMemo.get(key);
     if (v === undefined) {
       v = Infinity;
-      for (const x of sides(mask)) if (across ? fits(mask, x, h) : fits(mask, h, x)) { v = x; break; }
+      for (const x of sides(mask))
+        if (across ? fits(mask, x, h) : fits(mask, h, x)) {
+          v = x;
+          break;
+        }
       narrowMemo.set(key, v);
     }
     return v <= limit + EPS ? v : Infinity;
