@@ -8,7 +8,7 @@ export default defineConfig({
     environment: "node",
     globalSetup: ["tests/e2e/support/server.ts"],
     fileParallelism: false,
-    testTimeout: 60_000,
-    hookTimeout: 60_000,
+    testTimeout: 600_000,
+    hookTimeout: 300_000,
   },
 });

@@ -31,6 +31,8 @@ import { userRoutes } from "./features/users/users.routes.ts";
 import { selectionDocumentsRoutes } from "./features/documents/selection-documents.routes.ts";
 import { documentsRoutes } from "./features/documents/documents.routes.ts";
 import { exportRoutes } from "./features/exports/exports.routes.ts";
+import { setExportTimeLimit } from "./features/exports/export-pool.ts";
+import { setRenderTimeLimit } from "./features/documents/render-pool.ts";
 
 export type AppDeps = {
   config: Config & { authSecret: string } & HistoryKeying;
@@ -42,6 +44,8 @@ export type AppDeps = {
 export function createApp({ config, database, clock = () => new Date() }: AppDeps) {
   const { db } = database;
   useHistoryKey(db, config.historyKey, config.checkpointsFile);
+  setRenderTimeLimit(config.workTimeLimitMs);
+  setExportTimeLimit(config.workTimeLimitMs);
   const logger = createLogger(config.logLevel);
   const auth = createAuth(db, config);
   const sessions = createSessionResolver(auth, db);

@@ -27,6 +27,8 @@ export type Config = {
   loginAccountDelayAfter: number;
   /** The first delay; each further failure doubles it, up to 10 s (never a lock-out). */
   loginDelayMs: number;
+  /** Longest one document may take to lay out (and one export's datasets to gather) before it is stopped. */
+  workTimeLimitMs: number;
   /** Folder of the built client to serve, or null to serve the API only. */
   clientDir: string | null;
   secureCookies: boolean;
@@ -65,6 +67,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     loginRateLimit: e.LOGIN_RATE_LIMIT,
     loginAccountDelayAfter: e.LOGIN_ACCOUNT_DELAY_AFTER,
     loginDelayMs: e.LOGIN_DELAY_MS,
+    workTimeLimitMs: e.WORK_TIME_LIMIT_S * 1000,
     clientDir: e.NODE_ENV === "production" ? path.resolve("dist/client") : null,
     secureCookies: publicUrl.startsWith("https://"),
   };

@@ -21,5 +21,7 @@ export const EnvSchema = z.object({
   LOGIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
   LOGIN_ACCOUNT_DELAY_AFTER: z.coerce.number().int().min(1).default(5),
   LOGIN_DELAY_MS: z.coerce.number().int().min(1).max(60_000).default(500),
+  /** Longest one document may take to lay out, and one export's datasets to gather, in seconds. */
+  WORK_TIME_LIMIT_S: z.coerce.number().int().min(5).max(3600).default(120),
   NODE_ENV: z.string().default("development"),
 });

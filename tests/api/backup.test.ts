@@ -100,7 +100,7 @@ describe("npm run backup and npm run restore", () => {
     const me = await fetch(`${again.baseUrl}/api/me`, { headers: { cookie } });
     expect(me.status).toBe(200);
     expect((await fetch(`${again.baseUrl}${photo.urls.thumb}`, { headers: { cookie } })).status).toBe(200);
-  }, 240_000);
+  });
 
   it("when a file in the backup was altered, then restore refuses it, names the file and writes nothing", async () => {
     const backupDir = path.join(work, "backup");
@@ -112,7 +112,7 @@ describe("npm run backup and npm run restore", () => {
     expect(r.status).toBe(1);
     expect(r.stderr).toContain(victim);
     expect(fs.existsSync(target)).toBe(false);
-  }, 60_000);
+  });
   it("when the checkpoints are kept elsewhere and the key comes from the environment, then the backup carries the checkpoints, says the key is the operator's to keep, and the restored history verifies", async () => {
     const live = path.join(work, "live-elsewhere");
     const checkpoints = path.join(work, "elsewhere", "checkpoints.log");
@@ -168,5 +168,5 @@ describe("npm run backup and npm run restore", () => {
     // The key is not in the backup: with another one the restored history does not check out.
     const wrongKey = await run("server/db/verify-history-cli.ts", [], { DATABASE_URL: path.join(restored, "reversa.db"), HISTORY_KEY: "w".repeat(40), HISTORY_CHECKPOINTS: "" });
     expect(wrongKey.code).toBe(1);
-  }, 240_000);
+  });
 });

@@ -72,8 +72,10 @@ describe("the server keeps answering while the heaviest document renders", () =>
         } as never);
     })();
     h.close();
-    server = await startServer({ SEED_DEMO: "false", HISTORY_KEY: key }, dir);
-  }, 180_000);
+    // The time limit is raised: this test is about the server answering while a long render runs, and on a
+    // loaded machine the 5,000-object schedule may take longer than the default 120 s.
+    server = await startServer({ SEED_DEMO: "false", HISTORY_KEY: key, WORK_TIME_LIMIT_S: "3600" }, dir);
+  });
   afterAll(async () => {
     await server?.stop();
     fs.rmSync(dir, { recursive: true, force: true });
@@ -112,5 +114,5 @@ describe("the server keeps answering while the heaviest document renders", () =>
     console.info(
       `while the 5,000-object schedule rendered: ${latencies.length} health + register pairs, median ${latencies[Math.floor(latencies.length / 2)].toFixed(0)} ms, slowest ${latencies.at(-1)!.toFixed(0)} ms`,
     );
-  }, 300_000);
+  }, 900_000);
 });

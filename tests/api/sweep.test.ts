@@ -76,5 +76,5 @@ describe("clean after a crash", () => {
     } finally {
       fs.rmSync(dir, { recursive: true, force: true });
     }
-  }, 120_000);
+  });
 });

@@ -19,7 +19,7 @@ function runCli(databaseUrl = file, key = t.historyKeyText) {
     cwd: ROOT,
     env: { ...process.env, DATABASE_URL: databaseUrl, LOG_LEVEL: "silent", HISTORY_KEY: key, HISTORY_CHECKPOINTS: t.checkpointsFile },
     encoding: "utf8",
-    timeout: 60_000,
+    timeout: 600_000,
   });
   if (r.error) throw r.error;
   return { status: r.status, stdout: r.stdout, stderr: r.stderr };

@@ -48,7 +48,7 @@ describe("framer journey: record an object and find it", () => {
     await page.goto(`${baseUrl}/objects`);
     await page.getByLabel("Search objects").fill("quince");
     await page.getByRole("link", { name: number }).waitFor();
-    await expect.poll(() => page.getByRole("row").count(), { timeout: 5000 }).toBe(2); // header + the one match
+    await expect.poll(() => page.getByRole("row").count(), { timeout: 60_000 }).toBe(2); // header + the one match
     await page.getByLabel("Search objects").fill(number);
     await page.getByRole("link", { name: number }).click();
     await page.getByRole("heading", { name: "Quince branch, e2e study" }).waitFor();

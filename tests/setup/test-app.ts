@@ -34,6 +34,9 @@ const BASE_ENV = {
   NODE_ENV: "test",
   // Every supertest request comes from 127.0.0.1; the rate-limit test sets its own small limit.
   LOGIN_RATE_LIMIT: "1000",
+  // Long documents in these tests must not be stopped because the machine is busy; the time limit itself
+  // is tested with a limit of its own (render-off-thread.test.ts).
+  WORK_TIME_LIMIT_S: "3600",
 };
 
 /**

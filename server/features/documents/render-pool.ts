@@ -10,8 +10,13 @@ import type { RenderResult, RenderTask } from "./render.worker.ts";
 export const RENDER_THREADS = 2;
 /** Documents waiting their turn beyond those being laid out; more are refused with "try again". */
 export const RENDER_QUEUE = 24;
-/** The longest one document may take to lay out before it is stopped and refused. */
+/** The longest one document may take to lay out before it is stopped and refused (WORK_TIME_LIMIT_S sets it). */
 export const RENDER_TIMEOUT_MS = 120_000;
+let renderTimeoutMs = RENDER_TIMEOUT_MS;
+/** Sets the time limit for the process's renders; the pool is the process's, so the limit is too. */
+export function setRenderTimeLimit(ms: number) {
+  renderTimeoutMs = ms;
+}
 
 const pool = workerPool(new URL("./render.worker.ts", import.meta.url), { threads: RENDER_THREADS, queue: RENDER_QUEUE });
 
@@ -26,7 +31,7 @@ export async function renderPdf(document: ReactElement<DocumentProps> | Document
   const p = pool.get();
   if (p.queueSize >= RENDER_QUEUE) throw new AppError("rate_limited", "Too many documents are being prepared right now. Try again in a minute.");
   try {
-    const { bytes, pages } = (await p.run(task, { signal: AbortSignal.timeout(opts.timeoutMs ?? RENDER_TIMEOUT_MS) })) as RenderResult;
+    const { bytes, pages } = (await p.run(task, { signal: AbortSignal.timeout(opts.timeoutMs ?? renderTimeoutMs) })) as RenderResult;
     return { pdf: Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength), pages };
   } catch (e) {
     const name = (e as Error)?.name;

@@ -5,7 +5,11 @@ import type { Gathered, GatherTask } from "./export.worker.ts";
 
 /** One thread: exports are occasional, and one at a time leaves the other core to the request thread. */
 const EXPORT_QUEUE = 32;
-const EXPORT_TIMEOUT_MS = 120_000;
+let exportTimeoutMs = 120_000;
+/** Sets the time limit for gathering one export's datasets (WORK_TIME_LIMIT_S); the pool is the process's. */
+export function setExportTimeLimit(ms: number) {
+  exportTimeoutMs = ms;
+}
 const pool = workerPool(new URL("./export.worker.ts", import.meta.url), { threads: 1, queue: EXPORT_QUEUE });
 
 /** Gathers datasets off the request thread (export.worker.ts). Too many waiting → 429; too slow → 503. */
@@ -13,7 +17,7 @@ export async function gatherInWorker(db: Db, task: Omit<GatherTask, "databaseFil
   const p = pool.get();
   if (p.queueSize >= EXPORT_QUEUE) throw new AppError("rate_limited", "Too many exports are being prepared right now. Try again in a minute.");
   try {
-    return (await p.run({ ...task, databaseFile: db.$client.name } satisfies GatherTask, { signal: AbortSignal.timeout(EXPORT_TIMEOUT_MS) })) as Gathered;
+    return (await p.run({ ...task, databaseFile: db.$client.name } satisfies GatherTask, { signal: AbortSignal.timeout(exportTimeoutMs) })) as Gathered;
   } catch (e) {
     const name = (e as Error)?.name;
     if (name === "AbortError" || name === "TimeoutError")

@@ -4,12 +4,10 @@ import fsp from "node:fs/promises";
 import os from "node:os";
 import path from "node:path";
 import { createHash, randomUUID } from "node:crypto";
-import { and, asc, eq, inArray } from "drizzle-orm";
 import { ZipArchive } from "archiver";
 import type { Db } from "../../db/client.ts";
 import { DATASETS, type Dataset, type JobStatus } from "../../../shared/schemas/exports.ts";
 import type { Config } from "../../lib/config.ts";
-import { conditionReports, custodyReceipts, exportJobs, photos } from "../../db/schema.ts";
 import { can, isStudio } from "../../../shared/permissions.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
 import type { ClientRecord } from "../../../shared/schemas/clients.ts";
@@ -24,6 +22,7 @@ import { issueConditionReport } from "../documents/condition-pdf.tsx";
 import { issueCustodyReceipt } from "../documents/custody-receipt.tsx";
 import { label } from "./exports.columns.ts";
 import { toCsv } from "./exports.datasets.ts";
+import { createExportsRepo } from "./exports.repo.ts";
 
 export { DATASETS, FORMATS, type Dataset, type ExportFilters, type Format } from "../../../shared/schemas/exports.ts";
 
@@ -78,20 +77,20 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
   /** The jobs this process is building now; every job's state is also in export_jobs, so a restart finds it. */
   const building = new Map<string, Job>();
 
-  const save = (job: Pick<Job, "id" | "state" | "progress" | "message">) =>
-    db.update(exportJobs).set({ state: job.state, progress: job.progress, message: job.message }).where(eq(exportJobs.id, job.id)).run();
+  const repo = createExportsRepo(db);
+  const save = (job: Pick<Job, "id" | "state" | "progress" | "message">) => repo.jobs.save(job);
 
   async function expire(row: { id: string; dir: string }) {
     const timer = building.get(row.id)?.timer;
     if (timer) clearTimeout(timer);
     building.delete(row.id);
-    db.delete(exportJobs).where(eq(exportJobs.id, row.id)).run();
+    repo.jobs.remove(row.id);
     await fsp.rm(row.dir, { recursive: true, force: true });
   }
 
   // At start: a job that was running when the process stopped cannot be resumed from half a ZIP; it is
   // marked failed (its owner sees why and starts again) and its partial file removed. Expired jobs go.
-  for (const row of db.select().from(exportJobs).all()) {
+  for (const row of repo.jobs.all()) {
     if (clock().getTime() - row.createdAtMs > JOB_TTL_MS) {
       void expire(row);
     } else if (row.state === "running") {
@@ -102,7 +101,7 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
 
   /** A job the user may see: only its owner, and only within the hour; anyone else gets 404 as for no job. */
   function ownJob(user: SessionUser, jobId: string) {
-    const row = db.select().from(exportJobs).where(eq(exportJobs.id, jobId)).get();
+    const row = repo.jobs.byId(jobId);
     if (!row || row.ownerId !== user.id) throw notFound("That export");
     if (clock().getTime() - row.createdAtMs > JOB_TTL_MS) {
       void expire(row);
@@ -119,58 +118,16 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
     const objs = gathered.objects;
     const byId = new Map(objs.map((o) => [o.id, o]));
     const ids = [...byId.keys()];
-    const inChunks = <T>(read: (part: string[]) => T[]): T[] => {
-      const out: T[] = [];
-      for (let i = 0; i < ids.length; i += 500) out.push(...read(ids.slice(i, i + 500)));
-      return out;
-    };
     // Photos of draft reports only to those who may see drafts (as the photos service); originals, which may
     // carry GPS, camera and owner metadata, only to studio staff who asked for them; everyone else gets the
     // full-size copy with its metadata stripped.
     const withDrafts = can(user, "condition:read", { clientId: client.id, draft: true });
-    const draftReports = new Set(
-      inChunks((part) =>
-        db
-          .select({ id: conditionReports.id })
-          .from(conditionReports)
-          .where(and(inArray(conditionReports.objectId, part), eq(conditionReports.status, "draft")))
-          .all(),
-      ).map((r) => r.id),
-    );
+    const draftReports = repo.draftReportIds(ids);
     const originals = job.originals && isStudio(user);
-    const photoRows = inChunks((part) =>
-      db
-        .select({
-          id: photos.id,
-          objectId: photos.objectId,
-          originalKey: photos.originalKey,
-          fullKey: photos.fullKey,
-          reportId: photos.reportId,
-          kind: photos.kind,
-          caption: photos.caption,
-        })
-        .from(photos)
-        .where(inArray(photos.objectId, part))
-        .orderBy(asc(photos.createdAt), asc(photos.id))
-        .all(),
-    ).filter((p) => withDrafts || !p.reportId || !draftReports.has(p.reportId));
+    const photoRows = repo.photosOf(ids).filter((p) => withDrafts || !p.reportId || !draftReports.has(p.reportId));
     // Signed reports only: a draft can still change, and a document is issued only for a signed report.
-    const reportRows = inChunks((part) =>
-      db
-        .select({ id: conditionReports.id, objectId: conditionReports.objectId, date: conditionReports.reportDate })
-        .from(conditionReports)
-        .where(and(inArray(conditionReports.objectId, part), eq(conditionReports.status, "signed")))
-        .orderBy(asc(conditionReports.reportDate), asc(conditionReports.id))
-        .all(),
-    );
-    const receiptRows = inChunks((part) =>
-      db
-        .select({ id: custodyReceipts.id, objectId: custodyReceipts.objectId, date: custodyReceipts.date, kind: custodyReceipts.kind })
-        .from(custodyReceipts)
-        .where(inArray(custodyReceipts.objectId, part))
-        .orderBy(asc(custodyReceipts.date), asc(custodyReceipts.createdAt))
-        .all(),
-    );
+    const reportRows = repo.signedReportsOf(ids);
+    const receiptRows = repo.receiptsOf(ids);
 
     // Photos named so a person can tell them apart: object number, its order on the object, kind and caption.
     const files: { file: string; name: string; objectId: string; caption: string | null }[] = [];
@@ -352,11 +309,7 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
       if (opts.originals && !isStudio(user))
         throw forbidden("Original photo files, with their camera and place metadata, go only to studio staff. Leave out originals to get the full-size copies.");
       // One archive at a time per client: a second would only compete with the first for the same files.
-      const busy = db
-        .select({ id: exportJobs.id })
-        .from(exportJobs)
-        .where(and(eq(exportJobs.clientId, client.id), eq(exportJobs.state, "running")))
-        .get();
+      const busy = repo.jobs.runningFor(client.id);
       if (busy)
         throw conflict(`An archive of ${client.name}'s records is being built already. Wait for it to finish (it is kept for an hour), then start another if you need one.`);
       const id = randomUUID();
@@ -376,21 +329,19 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
         // Removes the job and its file after an hour; unref'd so it never holds the process open.
         timer: setTimeout(() => void expire({ id, dir }), JOB_TTL_MS).unref(),
       };
-      db.insert(exportJobs)
-        .values({
-          id,
-          ownerId: user.id,
-          clientId: client.id,
-          state: "running",
-          progress: 0,
-          message: job.message,
-          originals: job.originals,
-          dir,
-          file: job.file,
-          filename: job.filename,
-          createdAtMs: job.createdAt,
-        })
-        .run();
+      repo.jobs.insert({
+        id,
+        ownerId: user.id,
+        clientId: client.id,
+        state: "running",
+        progress: 0,
+        message: job.message,
+        originals: job.originals,
+        dir,
+        file: job.file,
+        filename: job.filename,
+        createdAtMs: job.createdAt,
+      });
       building.set(id, job);
       setImmediate(() => {
         run(job, user, client).catch(async (err: unknown) => {
@@ -418,7 +369,7 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
 
     /** For shutdown and tests: removes every job and its file. */
     async clear() {
-      await Promise.all(db.select().from(exportJobs).all().map(expire));
+      await Promise.all(repo.jobs.all().map(expire));
     },
   };
 }

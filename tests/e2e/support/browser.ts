@@ -16,6 +16,9 @@ export async function launch(): Promise<{ browser: Browser; context: BrowserCont
     viewport: { width: 1280, height: 900 },
     args: ["--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
   });
+  // Waits are for things to happen, not for speed: a loaded CI machine may take a while to render a page.
+  context.setDefaultTimeout(120_000);
+  context.setDefaultNavigationTimeout(120_000);
   return {
     browser: context.browser()!,
     context,
