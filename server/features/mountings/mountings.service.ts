@@ -11,8 +11,8 @@ import {
   type MountingRecord,
   type MountingRevision,
 } from "../../../shared/schemas/mountings.ts";
-import { UNBUILDABLE } from "../../../shared/domain/mount-plan/index.ts";
-import { mountSummary, recordPlan, type CatalogueFacts } from "../../../shared/domain/mounting.ts";
+import { UNBUILDABLE, type PlanResult } from "../../../shared/domain/mount-plan/index.ts";
+import { mountSummary, recordPlan } from "../../../shared/domain/mounting.ts";
 import type { RevisionWithChanges } from "../../../shared/schemas/revisioned.ts";
 import { AppError, conflict } from "../../lib/errors.ts";
 import { getSettings } from "../settings/settings.repo.ts";
@@ -20,21 +20,7 @@ import type { ObjectRow } from "../objects/objects.repo.ts";
 import { revisionedService } from "../revisioned/revisioned.service.ts";
 import { appendEvent } from "../history/history.chain.ts";
 import * as repo from "./mountings.repo.ts";
-
-/** The catalogue facts a record's checks read, sent with each revision so the screen computes the same plan. */
-function catalogueOf(o: ObjectRow): CatalogueFacts {
-  return {
-    objectType: o.objectType,
-    photoProcess: o.photoProcess,
-    sensitivities: o.sensitivities,
-    medium: o.medium,
-    support: o.support,
-    borderLeftMm: o.borderLeftMm,
-    borderTopMm: o.borderTopMm,
-    borderRightMm: o.borderRightMm,
-    borderBottomMm: o.borderBottomMm,
-  };
-}
+import { mountingDetail } from "./mounting-detail.ts";
 
 const STALE = "Someone else changed this mounting record while you were working on it. Your entries are still in the form: reload to see theirs, then try again.";
 
@@ -44,9 +30,9 @@ export function createMountingsService(db: Db) {
    * (recordPlan, the one function every screen and document uses); a record is never shown from
    * stored numbers. `built`: the record says what was done, so geometry that cannot be built is refused.
    */
-  function planFor(data: MountingData, o: ObjectRow, opts: { built?: boolean } = {}) {
+  /** A recomputed plan, or the 422 when it cannot be computed (or, `built`, when its geometry cannot be built). */
+  function checked(r: PlanResult, opts: { built?: boolean } = {}) {
     const prefix = "data.plan.";
-    const r = recordPlan(data, o, getSettings(db));
     if (!r.ok) {
       const fields = Object.fromEntries(Object.entries(r.fields).map(([k, v]) => [`${prefix}${k}`, v]));
       const first = Object.entries(fields)[0];
@@ -62,16 +48,24 @@ export function createMountingsService(db: Db) {
     return r.plan;
   }
 
-  function toRevision(r: repo.RevisionRow, o: ObjectRow): MountingRevision {
-    const data = MountingDataSchema.parse(r.data);
+  /**
+   * Recomputes a plan from data about to be saved, the object's catalogue and its materials (recordPlan,
+   * the one function every screen and document uses). `built`: the record says what was done, so
+   * geometry that cannot be built is refused.
+   */
+  const planFor = (data: MountingData, o: ObjectRow, opts: { built?: boolean } = {}) => checked(recordPlan(data, o, getSettings(db)), opts);
+
+  /** A revision as the API answers it, from mountingDetail: a record is never shown from stored numbers. */
+  function toRevision(r: repo.RevisionRow, o: ObjectRow, row: repo.MountingRow): MountingRevision {
+    const d = mountingDetail(db, row, { object: o, revision: r })!;
     return {
       revision: r.revision,
-      data,
+      data: d.data,
       correctionReason: r.correctionReason,
       createdAt: r.createdAt.toISOString(),
       createdByName: r.createdByName,
-      plan: planFor(data, o),
-      catalogue: catalogueOf(o),
+      plan: checked(d.result),
+      catalogue: d.catalogue,
     };
   }
 

@@ -40,7 +40,7 @@ export type RevisionedFeature<Row extends RecordBase, Rev extends RevisionBase, 
   versionFirst?: boolean;
   /** A revision row's data as the feature's type. */
   dataOf(rev: Rev): D;
-  toRevision(rev: Rev, o: ObjectRow): OutRev;
+  toRevision(rev: Rev, o: ObjectRow, row: Row): OutRev;
   toRecord(row: Row, o: ObjectRow, current: OutRev): Out;
 };
 
@@ -76,7 +76,7 @@ export function revisionedService<Row extends RecordBase, Rev extends RevisionBa
   }
 
   function show(row: Row, o: ObjectRow, rev?: Rev): Out {
-    return f.toRecord(row, o, f.toRevision(rev ?? f.repo.revision(db, row.id, row.currentRevision)!, o));
+    return f.toRecord(row, o, f.toRevision(rev ?? f.repo.revision(db, row.id, row.currentRevision)!, o, row));
   }
   const reload = (id: string, o: ObjectRow) => show(f.repo.find(db, id)!, o);
 
@@ -106,8 +106,8 @@ export function revisionedService<Row extends RecordBase, Rev extends RevisionBa
     },
 
     revisions(user: SessionUser, id: string): RevisionWithChanges<OutRev>[] {
-      const { o } = load(user, id);
-      const revs = f.repo.revisionsOf(db, id).map((r) => f.toRevision(r, o));
+      const { row, o } = load(user, id);
+      const revs = f.repo.revisionsOf(db, id).map((r) => f.toRevision(r, o, row));
       return revs.map((r, i) => ({ ...r, changes: i === 0 ? [] : diffValues(revs[i - 1].data, r.data) }));
     },
 
