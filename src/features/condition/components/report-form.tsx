@@ -1,9 +1,10 @@
 import { useMemo, useState } from "react";
-import { useFieldArray, useForm, useWatch, type Path, type Resolver } from "react-hook-form";
+import { useFieldArray, useForm, useWatch, type Path } from "react-hook-form";
 import { studioToday } from "@/lib/today.ts";
 import {
   CONDITION_CONTEXTS,
   CONDITION_CONTEXT_LABELS,
+  ConditionCorrectionSchema,
   ConditionCreateSchema,
   RATINGS,
   RATING_LABELS,
@@ -23,7 +24,8 @@ import { ratingFloor } from "@shared/domain/condition.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
 import { Button, FormActions } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
-import { errorAt, useServerErrors, withCorrectionReason } from "@/lib/form-errors.ts";
+import { errorAt, useServerErrors } from "@/lib/form-errors.ts";
+import { revisionedResolver } from "@/lib/revisioned.ts";
 import { PhotoMarkers } from "./photo-markers.tsx";
 
 export type ReportFormValues = {
@@ -50,12 +52,8 @@ function toBody(v: ReportFormValues) {
   };
 }
 
-function resolver(mode: ReportFormMode): Resolver<ReportFormValues, unknown, Submit> {
-  return async (values) => {
-    const parsed = ConditionCreateSchema.safeParse(toBody(values));
-    return withCorrectionReason<ReportFormValues, typeof parsed>(parsed, mode === "correct", values.correctionReason, "Say why the report is corrected.");
-  };
-}
+const resolver = (mode: ReportFormMode) =>
+  revisionedResolver<ReportFormValues, typeof ConditionCreateSchema>({ create: ConditionCreateSchema, correction: ConditionCorrectionSchema }, toBody, mode === "correct");
 
 type Props = {
   mode: ReportFormMode;

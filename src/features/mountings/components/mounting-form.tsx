@@ -1,5 +1,5 @@
 import { useMemo } from "react";
-import { useFieldArray, useForm, useWatch, type Resolver } from "react-hook-form";
+import { useFieldArray, useForm, useWatch } from "react-hook-form";
 import { studioToday } from "@/lib/today.ts";
 import {
   BACKING_TYPES,
@@ -9,6 +9,7 @@ import {
   GLAZING_TYPE_LABELS,
   MOUNTING_REASONS,
   MOUNTING_REASON_LABELS,
+  MountingCorrectionSchema,
   MountingCreateSchema,
   MountingDataSchema,
   SEALING_TYPES,
@@ -25,7 +26,8 @@ import { Button, FormActions } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
 import { PlanDrawing } from "@/components/plan-drawing.tsx";
 import { ChecksList, LevelBadge } from "@/components/checks-list.tsx";
-import { errorAt, useServerErrors, withCorrectionReason } from "@/lib/form-errors.ts";
+import { errorAt, useServerErrors } from "@/lib/form-errors.ts";
+import { revisionedResolver } from "@/lib/revisioned.ts";
 import { ADHESIVE_LABELS, ATTACHMENT_METHOD_LABELS as ATTACHMENT_LABELS } from "@shared/schemas/mountings.ts";
 
 type FormData = Omit<MountingDataInput, "plan">;
@@ -53,13 +55,13 @@ export function emptyMountingData(planInput: MountPlanInput, hasTopBoard: boolea
   };
 }
 
-function resolverFor(planInput: MountPlanInput, mode: MountingFormMode): Resolver<MountingFormValues, unknown, MountingCreate & { correctionReason: string }> {
-  return async (values) => {
-    const body = { reason: values.reason, mountedOn: values.mountedOn, data: { ...values.data, plan: planInput } };
-    const parsed = MountingCreateSchema.safeParse(body);
-    return withCorrectionReason<MountingFormValues, typeof parsed>(parsed, mode === "correct", values.correctionReason, "Say why the record is corrected.");
-  };
-}
+/** The plan is not typed here: it comes from the planner (or the record), so the body gets it added. */
+const resolverFor = (planInput: MountPlanInput, mode: MountingFormMode) =>
+  revisionedResolver<MountingFormValues, typeof MountingCreateSchema>(
+    { create: MountingCreateSchema, correction: MountingCorrectionSchema },
+    (values) => ({ reason: values.reason, mountedOn: values.mountedOn, data: { ...values.data, plan: planInput } }),
+    mode === "correct",
+  );
 
 type Props = {
   mode: MountingFormMode;
