@@ -114,3 +114,24 @@ export function revisionedResolver<V extends FieldValues & { correctionReason: s
     return { values: {}, errors: nestedErrors<V>(fields) };
   };
 }
+
+/** What a revisioned record's form is doing: a new draft, a draft rewritten in place, or a correction of a locked record. */
+export type RevisionedFormMode = "new" | "draft" | "correct";
+
+/** The mode from the page's path: …/new, …/:id/edit (a draft) or …/:id/correct. */
+export const formModeOf = (pathname: string): RevisionedFormMode => (pathname.endsWith("/correct") ? "correct" : pathname.endsWith("/edit") ? "draft" : "new");
+
+type Save<B, R> = { mutateAsync: (body: B) => Promise<R> };
+
+/** Saves a revisioned form by its mode: the first draft, the draft from the version it was read at, or a correction with its reason. */
+export function saveByMode<Rec, Create extends { data: D }, D>(
+  mode: RevisionedFormMode,
+  m: { create: Save<Create, Rec>; update: Save<Create & { version: number }, Rec>; correct: Save<Correction<D>, Rec> },
+  body: Create,
+  existing: { version: number } | undefined,
+  correctionReason: string,
+): Promise<Rec> {
+  if (mode === "new") return m.create.mutateAsync(body);
+  if (mode === "draft") return m.update.mutateAsync({ ...body, version: existing!.version });
+  return m.correct.mutateAsync({ version: existing!.version, correctionReason, data: body.data });
+}

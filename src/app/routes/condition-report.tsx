@@ -1,5 +1,5 @@
 import { useState } from "react";
-import { Link, useParams } from "react-router";
+import { useParams } from "react-router";
 import { useQuery } from "@tanstack/react-query";
 import { can } from "@shared/permissions.ts";
 import { CONDITION_CONTEXT_LABELS } from "@shared/schemas/condition.ts";
@@ -13,6 +13,7 @@ import { objectPhotosQuery } from "@/features/photos/api/photos.ts";
 import { DocumentButton } from "@/features/documents/components/document-button.tsx";
 import { formatDate, formatDateTime } from "@/lib/format.ts";
 import { RevisionsList } from "@/components/revisions-list.tsx";
+import { ObjectLine } from "@/components/revisioned.tsx";
 
 export function Component() {
   const { id = "" } = useParams();
@@ -39,12 +40,7 @@ export function Component() {
     <div className="space-y-5">
       <header className="flex flex-wrap items-end justify-between gap-3">
         <div>
-          <p className="text-sm font-semibold text-accent num">
-            <Link to={`/objects/${rep.objectId}`} className="hover:underline">
-              {rep.objectNumber}
-            </Link>{" "}
-            · {rep.objectTitle}
-          </p>
+          <ObjectLine objectId={rep.objectId} objectNumber={rep.objectNumber} title={rep.objectTitle} />
           <h1 className="text-2xl font-bold tracking-tight">
             Condition {CONDITION_CONTEXT_LABELS[rep.context].toLowerCase()} · {formatDate(rep.reportDate)}
           </h1>

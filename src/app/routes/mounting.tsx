@@ -13,6 +13,7 @@ import { Button, ButtonLink } from "@/components/ui/button.tsx";
 import { TextField } from "@/components/ui/field.tsx";
 import { formatDate } from "@/lib/format.ts";
 import { RevisionsList } from "@/components/revisions-list.tsx";
+import { ObjectLine } from "@/components/revisioned.tsx";
 import { ApiError } from "@/lib/api-client.ts";
 
 export function Component() {
@@ -46,12 +47,7 @@ export function Component() {
     <div className="space-y-5">
       <header className="flex flex-wrap items-end justify-between gap-3">
         <div>
-          <p className="text-sm font-semibold text-accent num">
-            <Link to={`/objects/${rec.objectId}`} className="hover:underline">
-              {rec.objectNumber}
-            </Link>{" "}
-            · {rec.objectTitle}
-          </p>
+          <ObjectLine objectId={rec.objectId} objectNumber={rec.objectNumber} title={rec.objectTitle} />
           <h1 className="text-2xl font-bold tracking-tight">
             {MOUNTING_REASON_LABELS[rec.reason]} · {formatDate(rec.mountedOn)}
           </h1>

@@ -27,12 +27,13 @@ import { Notice } from "@/components/ui/feedback.tsx";
 import { PlanDrawing } from "@/components/plan-drawing.tsx";
 import { ChecksList, LevelBadge } from "@/components/checks-list.tsx";
 import { errorAt, useServerErrors } from "@/lib/form-errors.ts";
-import { revisionedResolver } from "@/lib/revisioned.ts";
+import { RevisionedFormHead } from "@/components/revisioned.tsx";
+import { revisionedResolver, type RevisionedFormMode } from "@/lib/revisioned.ts";
 import { ADHESIVE_LABELS, ATTACHMENT_METHOD_LABELS as ATTACHMENT_LABELS } from "@shared/schemas/mountings.ts";
 
 type FormData = Omit<MountingDataInput, "plan">;
 export type MountingFormValues = { reason: string; mountedOn: string; correctionReason: string; data: FormData };
-export type MountingFormMode = "new" | "draft" | "correct";
+export type MountingFormMode = RevisionedFormMode;
 
 const HINGED = ["t-hinge", "v-hinge", "pendant-hinge", "pass-through-hinge"];
 const num = { setValueAs: (v: unknown) => (v === "" || v === null || v === undefined ? null : Number(v)) };
@@ -158,19 +159,12 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
   return (
     <div className="grid gap-6 xl:grid-cols-[minmax(24rem,30rem)_1fr]">
       <form onSubmit={submit} noValidate className="space-y-4" aria-label="Mounting record">
-        {server.error && (
-          <Notice tone="fail" title="Not saved">
-            {server.error.message}
-          </Notice>
-        )}
-        {mode === "correct" && (
-          <div className="rounded-card bg-paper-sheet p-4 shadow-card">
-            <Notice tone="info" title="A correction">
-              The completed record stays as it was; this saves a new revision with your reason, and both stay readable.
-            </Notice>
-            <TextAreaField label="Reason for the correction" wrapClassName="mt-3" error={err("correctionReason")} {...register("correctionReason")} />
-          </div>
-        )}
+        <RevisionedFormHead
+          error={server.error}
+          correcting={mode === "correct"}
+          note="The completed record stays as it was; this saves a new revision with your reason, and both stay readable."
+          reason={{ error: err("correctionReason"), ...register("correctionReason") }}
+        />
         <section className="grid grid-cols-2 gap-3 rounded-card bg-paper-sheet p-4 shadow-card">
           <SelectField label="Reason" disabled={mode === "correct"} error={err("reason")} {...register("reason")}>
             {MOUNTING_REASONS.map((r) => (
