@@ -21,7 +21,7 @@ import { AppError, conflict, notFound } from "../../lib/errors.ts";
 import { assertCan } from "../../middleware/require-permission.ts";
 import { getSettings } from "../settings/settings.repo.ts";
 import { findObject, type ObjectRow } from "../objects/objects.repo.ts";
-import { revisionedService } from "../revisioned/revisioned.service.ts";
+import { recordFields, revisionedService, revisionFields } from "../revisioned/revisioned.service.ts";
 import { appendEvent } from "../history/history.chain.ts";
 import * as repo from "./condition.repo.ts";
 
@@ -95,25 +95,18 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
   }
 
   function toRevision(r: repo.RevisionRow): ConditionRevision {
-    return { revision: r.revision, data: r.data, correctionReason: r.correctionReason, createdAt: r.createdAt.toISOString(), createdByName: r.createdByName };
+    return revisionFields(r, r.data);
   }
 
   function toReport(row: repo.ReportRow, o: ObjectRow, current: ConditionRevision): ConditionReport {
     return {
-      id: row.id,
-      objectId: row.objectId,
-      objectNumber: o.objectNumber,
-      objectTitle: o.title,
-      status: row.status,
+      ...recordFields(row, o, current),
       context: row.context as ConditionContext,
       reportDate: row.reportDate,
       examinerName: row.examinerName,
       mountingId: row.mountingId,
       rating: row.rating as Rating,
-      currentRevision: row.currentRevision,
       signedAt: row.signedAt ? row.signedAt.toISOString() : null,
-      version: row.version,
-      current,
       cautions: cautionsFor(current.data, o),
     };
   }

@@ -17,7 +17,7 @@ import type { RevisionWithChanges } from "../../../shared/schemas/revisioned.ts"
 import { AppError, conflict } from "../../lib/errors.ts";
 import { getSettings } from "../settings/settings.repo.ts";
 import type { ObjectRow } from "../objects/objects.repo.ts";
-import { revisionedService } from "../revisioned/revisioned.service.ts";
+import { recordFields, revisionedService, revisionFields } from "../revisioned/revisioned.service.ts";
 import { appendEvent } from "../history/history.chain.ts";
 import * as repo from "./mountings.repo.ts";
 import { mountingDetail } from "./mounting-detail.ts";
@@ -58,35 +58,20 @@ export function createMountingsService(db: Db) {
   /** A revision as the API answers it, from mountingDetail: a record is never shown from stored numbers. */
   function toRevision(r: repo.RevisionRow, o: ObjectRow, row: repo.MountingRow): MountingRevision {
     const d = mountingDetail(db, row, { object: o, revision: r })!;
-    return {
-      revision: r.revision,
-      data: d.data,
-      correctionReason: r.correctionReason,
-      createdAt: r.createdAt.toISOString(),
-      createdByName: r.createdByName,
-      plan: checked(d.result),
-      catalogue: d.catalogue,
-    };
+    return { ...revisionFields(r, d.data), plan: checked(d.result), catalogue: d.catalogue };
   }
 
   function toRecord(row: repo.MountingRow, o: ObjectRow, current: MountingRevision): MountingRecord {
     return {
-      id: row.id,
-      objectId: row.objectId,
-      objectNumber: o.objectNumber,
-      objectTitle: o.title,
-      status: row.status,
+      ...recordFields(row, o, current),
       reason: row.reason as MountingRecord["reason"],
       mountedOn: row.mountedOn,
       framerId: row.framerId,
       framerName: row.framerName,
-      currentRevision: row.currentRevision,
       supersededById: row.supersededById,
       endedOn: row.endedOn,
       endReason: row.endReason,
-      version: row.version,
       updatedAt: row.updatedAt.toISOString(),
-      current,
     };
   }
 

@@ -3,7 +3,7 @@ import { inTransaction } from "../../db/client.ts";
 import { can, type Action } from "../../../shared/permissions.ts";
 import type { SessionUser } from "../../../shared/schemas/auth.ts";
 import type { EventType } from "../../../shared/schemas/history.ts";
-import type { Correction, RevisionWithChanges } from "../../../shared/schemas/revisioned.ts";
+import type { Correction, Revision, RevisionWithChanges } from "../../../shared/schemas/revisioned.ts";
 import { diffValues, type Change } from "../../../shared/domain/diff.ts";
 import { AppError, conflict, notFound } from "../../lib/errors.ts";
 import { assertCan } from "../../middleware/require-permission.ts";
@@ -43,6 +43,25 @@ export type RevisionedFeature<Row extends RecordBase, Rev extends RevisionBase, 
   toRevision(rev: Rev, o: ObjectRow, row: Row): OutRev;
   toRecord(row: Row, o: ObjectRow, current: OutRev): Out;
 };
+
+/** The fields every revision answers with; `data` as the feature reads it. */
+export function revisionFields<D>(r: RevisionBase, data: D): Revision<D> {
+  return { revision: r.revision, data, correctionReason: r.correctionReason, createdAt: r.createdAt.toISOString(), createdByName: r.createdByName };
+}
+
+/** The fields every record answers with: which it is, its object, its status, revision and version, and its current revision in full. */
+export function recordFields<S extends string, C>(row: RecordBase & { status: S }, o: ObjectRow, current: C) {
+  return {
+    id: row.id,
+    objectId: row.objectId,
+    objectNumber: o.objectNumber,
+    objectTitle: o.title,
+    status: row.status,
+    currentRevision: row.currentRevision,
+    version: row.version,
+    current,
+  };
+}
 
 /**
  * The revisioned life cycle on the server: draft → lock → corrections, with the reads and permission

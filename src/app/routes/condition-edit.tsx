@@ -1,6 +1,5 @@
 import { useLocation, useNavigate, useParams } from "react-router";
 import { useQuery } from "@tanstack/react-query";
-import { can } from "@shared/permissions.ts";
 import { lightGuidance } from "@shared/domain/condition.ts";
 import { MOUNTING_REASON_LABELS } from "@shared/schemas/mountings.ts";
 import { useMe } from "@/features/session/api/session.ts";
@@ -8,9 +7,9 @@ import { useObject } from "@/features/objects/api/objects.ts";
 import { useObjectMountings } from "@/features/mountings/api/mountings.ts";
 import { useCorrectReport, useCreateReport, useObjectCondition, useReport, useTerms, useUpdateReport } from "@/features/condition/api/condition.ts";
 import { ReportForm } from "@/features/condition/components/report-form.tsx";
-import { ObjectLine } from "@/components/revisioned.tsx";
+import { editGate, ObjectLine } from "@/components/revisioned.tsx";
 import { formModeOf, saveByMode } from "@/lib/revisioned.ts";
-import { Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { SkeletonRows } from "@/components/ui/feedback.tsx";
 import { formatDate } from "@/lib/format.ts";
 import { objectPhotosQuery } from "@/features/photos/api/photos.ts";
 
@@ -33,19 +32,9 @@ export function Component() {
   const correct = useCorrectReport(params.id ?? "");
 
   if (object.isPending || terms.isPending || reports.isPending || photos.isPending || mountings.isPending || (mode !== "new" && existing.isPending)) return <SkeletonRows />;
-  if (object.isError)
-    return (
-      <Notice tone="fail" title="Object not found">
-        {object.error.message}
-      </Notice>
-    );
-  const o = object.data;
-  if (!can(user, "condition:write", { clientId: o.clientId }))
-    return (
-      <Notice tone="warn" title="Read only">
-        Your role cannot write condition reports for this object.
-      </Notice>
-    );
+  const gate = editGate(object, user, "condition:write", "Your role cannot write condition reports for this object.");
+  if (!gate.ok) return gate.refusal;
+  const o = gate.o;
   const previous = (reports.data ?? []).find((r) => r.status === "signed" && r.id !== params.id)?.current.data ?? null;
 
   return (

@@ -8,12 +8,11 @@ import { useObject } from "@/features/objects/api/objects.ts";
 import { useReport, useReportRevisions, useSignReport } from "@/features/condition/api/condition.ts";
 import { RatingBadge, ReportView } from "@/features/condition/components/report-view.tsx";
 import { Badge, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
-import { Button, ButtonLink } from "@/components/ui/button.tsx";
 import { objectPhotosQuery } from "@/features/photos/api/photos.ts";
 import { DocumentButton } from "@/features/documents/components/document-button.tsx";
 import { formatDate, formatDateTime } from "@/lib/format.ts";
 import { RevisionsList } from "@/components/revisions-list.tsx";
-import { ObjectLine } from "@/components/revisioned.tsx";
+import { ObjectLine, RevisionedActions } from "@/components/revisioned.tsx";
 
 export function Component() {
   const { id = "" } = useParams();
@@ -57,23 +56,13 @@ export function Component() {
             <DocumentButton url={`/api/condition/${rep.id}/document`} label="Report for the insurer (PDF)" fallbackName={`condition-${rep.objectNumber}.pdf`} />
           )}
           {writable && (
-            <div className="flex flex-wrap gap-2">
-              {rep.status === "draft" && (
-                <ButtonLink to={`/condition/${rep.id}/edit`} variant="secondary">
-                  Edit draft
-                </ButtonLink>
-              )}
-              {rep.status === "draft" && (
-                <Button onClick={() => sign.mutate(rep.version)} disabled={sign.isPending}>
-                  Sign and lock
-                </Button>
-              )}
-              {rep.status === "signed" && (
-                <ButtonLink to={`/condition/${rep.id}/correct`} variant="secondary">
-                  Correct the report
-                </ButtonLink>
-              )}
-            </div>
+            <RevisionedActions
+              draft={rep.status === "draft"}
+              editTo={`/condition/${rep.id}/edit`}
+              correctTo={`/condition/${rep.id}/correct`}
+              correctLabel="Correct the report"
+              lock={{ label: "Sign and lock", onLock: () => sign.mutate(rep.version), pending: sign.isPending }}
+            />
           )}
         </div>
       </header>

@@ -1,5 +1,4 @@
 import { Link, useLocation, useNavigate, useParams } from "react-router";
-import { can } from "@shared/permissions.ts";
 import type { MountPlanInput } from "@shared/schemas/mount-plan.ts";
 import { useMe } from "@/features/session/api/session.ts";
 import { useStudio } from "@/features/settings/api/settings.ts";
@@ -7,7 +6,7 @@ import { useObject } from "@/features/objects/api/objects.ts";
 import { useObjectPlan } from "@/features/planner/api/plans.ts";
 import { useCorrectMounting, useCreateMounting, useMounting, useObjectMountings, useUpdateMountingDraft } from "@/features/mountings/api/mountings.ts";
 import { MountingForm } from "@/features/mountings/components/mounting-form.tsx";
-import { ObjectLine } from "@/components/revisioned.tsx";
+import { editGate, ObjectLine } from "@/components/revisioned.tsx";
 import { formModeOf, saveByMode } from "@/lib/revisioned.ts";
 import { ButtonLink } from "@/components/ui/button.tsx";
 import { Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
@@ -32,19 +31,9 @@ export function Component() {
   const correct = useCorrectMounting(mountingId);
 
   if (!settings || object.isPending || (mode !== "new" && existing.isPending) || draftPlan.isPending || mountings.isPending) return <SkeletonRows />;
-  if (object.isError)
-    return (
-      <Notice tone="fail" title="Object not found">
-        {object.error.message}
-      </Notice>
-    );
-  const o = object.data;
-  if (!can(user, "mounting:write", { clientId: o.clientId }))
-    return (
-      <Notice tone="warn" title="Read only">
-        Only studio staff record mountings.
-      </Notice>
-    );
+  const gate = editGate(object, user, "mounting:write", "Only studio staff record mountings.");
+  if (!gate.ok) return gate.refusal;
+  const o = gate.o;
 
   // The plan comes from the planner's saved draft (or the record being edited): it is never retyped here.
   const current = mountings.data?.find((m) => m.status === "completed");
