@@ -25,11 +25,6 @@ import { mountingDetail } from "./mounting-detail.ts";
 const STALE = "Someone else changed this mounting record while you were working on it. Your entries are still in the form: reload to see theirs, then try again.";
 
 export function createMountingsService(db: Db) {
-  /**
-   * Recomputes a revision's plan from its saved input, the object's catalogue and its materials
-   * (recordPlan, the one function every screen and document uses); a record is never shown from
-   * stored numbers. `built`: the record says what was done, so geometry that cannot be built is refused.
-   */
   /** A recomputed plan, or the 422 when it cannot be computed (or, `built`, when its geometry cannot be built). */
   function checked(r: PlanResult, opts: { built?: boolean } = {}) {
     const prefix = "data.plan.";
