@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { optionalText, requiredText, isoDate as isoDateOf } from "./common.ts";
+import { revisionedSchemas, type Revision } from "./revisioned.ts";
 
 export const CONDITION_CONTEXTS = ["arrival", "before-mounting", "after-mounting", "periodic-check", "loan-out", "loan-return", "incident", "claim"] as const;
 export type ConditionContext = (typeof CONDITION_CONTEXTS)[number];
@@ -123,26 +124,27 @@ export const ConditionDataSchema = z
 export type ConditionData = z.infer<typeof ConditionDataSchema>;
 export type ConditionDataInput = z.input<typeof ConditionDataSchema>;
 
-export const ConditionCreateSchema = z.object({
-  context: z.enum(CONDITION_CONTEXTS, { message: "Choose why the object is examined." }),
-  reportDate: isoDate,
-  mountingId: z
-    .string()
-    .min(1)
-    .max(64)
-    .nullable()
-    .optional()
-    .transform((v) => v ?? null),
-  data: ConditionDataSchema,
-});
+const conditionSchemas = revisionedSchemas(
+  ConditionDataSchema,
+  {
+    context: z.enum(CONDITION_CONTEXTS, { message: "Choose why the object is examined." }),
+    reportDate: isoDate,
+    mountingId: z
+      .string()
+      .min(1)
+      .max(64)
+      .nullable()
+      .optional()
+      .transform((v) => v ?? null),
+  },
+  "Say why the report is corrected.",
+);
+
+export const ConditionCreateSchema = conditionSchemas.create;
 export type ConditionCreate = z.infer<typeof ConditionCreateSchema>;
-export const ConditionDraftUpdateSchema = ConditionCreateSchema.extend({ version: z.number().int().min(1) });
-export const ConditionSignSchema = z.object({ version: z.number().int().min(1) });
-export const ConditionCorrectionSchema = z.object({
-  version: z.number().int().min(1),
-  correctionReason: requiredText(1000, "Say why the report is corrected."),
-  data: ConditionDataSchema,
-});
+export const ConditionDraftUpdateSchema = conditionSchemas.draftUpdate;
+export const ConditionSignSchema = conditionSchemas.lock;
+export const ConditionCorrectionSchema = conditionSchemas.correction;
 
 export const ConditionListQuerySchema = z.object({
   rating: z.enum(RATINGS).optional(),
@@ -169,7 +171,7 @@ export const TermCreateSchema = z.object({
 });
 export type Term = z.infer<typeof TermCreateSchema> & { id: string; sortOrder: number };
 
-export type ConditionRevision = { revision: number; data: ConditionData; correctionReason: string | null; createdAt: string; createdByName: string | null };
+export type ConditionRevision = Revision<ConditionData>;
 export type ConditionReport = {
   id: string;
   objectId: string;

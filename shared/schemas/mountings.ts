@@ -2,6 +2,7 @@ import { z } from "zod";
 import { ADHESIVES, ATTACHMENT_METHODS, MountPlanInputSchema, SIDES, type MountPlan } from "./mount-plan.ts";
 import { optionalText, requiredText, isoDate as isoDateOf } from "./common.ts";
 import type { CatalogueFacts } from "../domain/mounting.ts";
+import { revisionedSchemas, VersionSchema, type Revision } from "./revisioned.ts";
 
 export const MOUNTING_REASONS = ["first-mounting", "reframing", "remount-after-damage", "hinge-repair", "glazing-change", "taken-out-of-frame", "other"] as const;
 export const MOUNTING_REASON_LABELS: Record<(typeof MOUNTING_REASONS)[number], string> = {
@@ -141,26 +142,24 @@ export type MountingDataInput = z.input<typeof MountingDataSchema>;
 
 const isoDate = isoDateOf();
 
-export const MountingCreateSchema = z.object({
-  reason: z.enum(MOUNTING_REASONS, { message: "Choose why the object is being mounted." }),
-  mountedOn: isoDate,
-  data: MountingDataSchema,
-});
+const mountingSchemas = revisionedSchemas(
+  MountingDataSchema,
+  { reason: z.enum(MOUNTING_REASONS, { message: "Choose why the object is being mounted." }), mountedOn: isoDate },
+  "Say why the record is corrected.",
+);
+
+export const MountingCreateSchema = mountingSchemas.create;
 export type MountingCreate = z.infer<typeof MountingCreateSchema>;
 
-export const MountingDraftUpdateSchema = MountingCreateSchema.extend({ version: z.number().int().min(1) });
+export const MountingDraftUpdateSchema = mountingSchemas.draftUpdate;
 export type MountingDraftUpdate = z.infer<typeof MountingDraftUpdateSchema>;
 
-export const MountingCorrectionSchema = z.object({
-  version: z.number().int().min(1),
-  correctionReason: requiredText(1000, "Say why the record is corrected."),
-  data: MountingDataSchema,
-});
+export const MountingCorrectionSchema = mountingSchemas.correction;
 export type MountingCorrection = z.infer<typeof MountingCorrectionSchema>;
 
-export const MountingCompleteSchema = z.object({ version: z.number().int().min(1) });
+export const MountingCompleteSchema = mountingSchemas.lock;
 export const MountingRemoveSchema = z.object({
-  version: z.number().int().min(1),
+  version: VersionSchema,
   endedOn: isoDate,
   endReason: requiredText(1000, "Say why the object was taken out of this mount."),
 });
@@ -177,17 +176,15 @@ export const MountingListQuerySchema = z.object({
 });
 export type MountingListQuery = z.infer<typeof MountingListQuerySchema>;
 
-export type MountingRevision = {
-  revision: number;
-  data: MountingData;
-  correctionReason: string | null;
-  createdAt: string;
-  createdByName: string | null;
-  /** The plan recomputed from this revision's saved input, the object's catalogue and the materials' checks (recordPlan). */
-  plan: MountPlan;
-  /** The object's catalogue facts the plan was computed with, so a screen recomputes the same plan. */
-  catalogue: CatalogueFacts;
-};
+export type MountingRevision = Revision<
+  MountingData,
+  {
+    /** The plan recomputed from this revision's saved input, the object's catalogue and the materials' checks (recordPlan). */
+    plan: MountPlan;
+    /** The object's catalogue facts the plan was computed with, so a screen recomputes the same plan. */
+    catalogue: CatalogueFacts;
+  }
+>;
 
 export type MountingRecord = {
   id: string;

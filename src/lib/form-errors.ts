@@ -1,6 +1,5 @@
 import { useState } from "react";
 import type { FieldErrors, FieldValues, Path, UseFormSetError } from "react-hook-form";
-import { issuesToFields } from "@shared/schemas/errors.ts";
 import { type ApiError, toApiError } from "./api-client.ts";
 
 /** Turns `{ "data.boards.window.grade": "…" }` into the nested errors react-hook-form expects. */
@@ -49,19 +48,4 @@ export function useServerErrors<T extends FieldValues>(form: { setError: UseForm
     }
   }
   return { error, run, clear: () => setError(null) };
-}
-
-/**
- * A resolver's answer for a record that can be corrected: the shared schema's result, plus the reason
- * a correction must give. Either the parsed body with the trimmed reason, or every message at its field.
- */
-export function withCorrectionReason<
-  V extends FieldValues,
-  P extends { success: true; data: object } | { success: false; error: { issues: readonly { path: PropertyKey[]; message: string }[] } },
->(parsed: P, correcting: boolean, reason: string, missingReason: string) {
-  const fields = parsed.success ? {} : issuesToFields(parsed.error.issues);
-  if (correcting && !reason.trim()) fields.correctionReason = missingReason;
-  if (parsed.success && Object.keys(fields).length === 0)
-    return { values: { ...(parsed.data as Extract<P, { success: true }>["data"]), correctionReason: reason.trim() }, errors: {} };
-  return { values: {}, errors: nestedErrors<V>(fields) };
 }

@@ -3,6 +3,7 @@ import { randomUUID } from "node:crypto";
 import type { Db } from "../../db/client.ts";
 import { conditionReports, conditionRevisions, conditionTerms, mountings, objects, photos, user } from "../../db/schema.ts";
 import type { ConditionCreate, ConditionData, ConditionListQuery } from "../../../shared/schemas/condition.ts";
+import { revisionedRepo } from "../revisioned/revisioned.repo.ts";
 
 export type ReportRow = typeof conditionReports.$inferSelect;
 export type RevisionRow = typeof conditionRevisions.$inferSelect;
@@ -11,9 +12,10 @@ export type TermRow = typeof conditionTerms.$inferSelect;
 /** Columns copied from the current revision for the condition register's filters. */
 const filterCols = (d: ConditionData) => ({ rating: d.overallRating, unresolvedCount: d.findings.filter((f) => !f.resolved).length });
 
-export function findReport(db: Db, id: string): ReportRow | null {
-  return db.select().from(conditionReports).where(eq(conditionReports.id, id)).get() ?? null;
-}
+/** The revisioned life cycle's Drizzle code, bound to the condition reports' tables. */
+const revisioned = revisionedRepo(conditionReports, conditionRevisions, "reportId");
+export const { revisionsOf, revision, currentRevisions } = revisioned;
+export const findReport = revisioned.find;
 
 export function reportsOfObject(db: Db, objectId: string): ReportRow[] {
   return db
@@ -24,92 +26,31 @@ export function reportsOfObject(db: Db, objectId: string): ReportRow[] {
     .all();
 }
 
-export function revisionsOf(db: Db, reportId: string): RevisionRow[] {
-  return db.select().from(conditionRevisions).where(eq(conditionRevisions.reportId, reportId)).orderBy(conditionRevisions.revision).all();
-}
-
-export function revision(db: Db, reportId: string, n: number): RevisionRow | null {
-  return (
-    db
-      .select()
-      .from(conditionRevisions)
-      .where(and(eq(conditionRevisions.reportId, reportId), eq(conditionRevisions.revision, n)))
-      .get() ?? null
-  );
-}
-
-/** Current revisions for many reports at once (the object page lists all of an object's reports). */
-export function currentRevisions(db: Db, rows: ReportRow[]): Map<string, RevisionRow> {
-  if (rows.length === 0) return new Map();
-  const all = db
-    .select()
-    .from(conditionRevisions)
-    .where(
-      inArray(
-        conditionRevisions.reportId,
-        rows.map((r) => r.id),
-      ),
-    )
-    .all();
-  const want = new Map(rows.map((r) => [r.id, r.currentRevision]));
-  return new Map(all.filter((r) => want.get(r.reportId) === r.revision).map((r) => [r.reportId, r]));
-}
-
 export function insertDraft(db: Db, objectId: string, body: ConditionCreate, user: { id: string; name: string }): string {
-  const id = randomUUID();
-  db.insert(conditionReports)
-    .values({
-      id,
-      objectId,
-      status: "draft",
-      context: body.context,
-      reportDate: body.reportDate,
-      examinerId: user.id,
-      examinerName: user.name,
-      mountingId: body.mountingId,
-      currentRevision: 1,
-      createdBy: user.id,
-      ...filterCols(body.data),
-    })
-    .run();
-  db.insert(conditionRevisions).values({ id: randomUUID(), reportId: id, revision: 1, data: body.data, createdBy: user.id, createdByName: user.name }).run();
-  return id;
+  const values = {
+    objectId,
+    context: body.context,
+    reportDate: body.reportDate,
+    examinerId: user.id,
+    examinerName: user.name,
+    mountingId: body.mountingId,
+    createdBy: user.id,
+    ...filterCols(body.data),
+  };
+  return revisioned.insertDraft(db, values, body.data, user);
 }
 
 /** Rewrites a draft in place (only drafts may change); false when the version is stale or the report is signed. */
 export function updateDraft(db: Db, row: ReportRow, version: number, body: ConditionCreate): boolean {
-  const r = db
-    .update(conditionReports)
-    .set({ context: body.context, reportDate: body.reportDate, mountingId: body.mountingId, version: version + 1, updatedAt: new Date(), ...filterCols(body.data) })
-    .where(and(eq(conditionReports.id, row.id), eq(conditionReports.version, version), eq(conditionReports.status, "draft")))
-    .run();
-  if (r.changes !== 1) return false;
-  db.update(conditionRevisions)
-    .set({ data: body.data, updatedAt: new Date() })
-    .where(and(eq(conditionRevisions.reportId, row.id), eq(conditionRevisions.revision, 1)))
-    .run();
-  return true;
+  return revisioned.rewriteDraft(db, row.id, version, { context: body.context, reportDate: body.reportDate, mountingId: body.mountingId, ...filterCols(body.data) }, body.data);
 }
 
 export function markSigned(db: Db, row: ReportRow, version: number, signedAt: Date, signedBy: string): boolean {
-  const r = db
-    .update(conditionReports)
-    .set({ status: "signed", signedAt, signedBy, version: version + 1, updatedAt: new Date() })
-    .where(and(eq(conditionReports.id, row.id), eq(conditionReports.version, version), eq(conditionReports.status, "draft")))
-    .run();
-  return r.changes === 1;
+  return revisioned.updateIfVersion(db, row.id, version, { status: "signed", signedAt, signedBy }, "draft");
 }
 
 export function addRevision(db: Db, row: ReportRow, version: number, data: ConditionData, reason: string, user: { id: string; name: string }): number | null {
-  const n = row.currentRevision + 1;
-  const r = db
-    .update(conditionReports)
-    .set({ currentRevision: n, version: version + 1, updatedAt: new Date(), ...filterCols(data) })
-    .where(and(eq(conditionReports.id, row.id), eq(conditionReports.version, version), eq(conditionReports.status, "signed")))
-    .run();
-  if (r.changes !== 1) return null;
-  db.insert(conditionRevisions).values({ id: randomUUID(), reportId: row.id, revision: n, data, correctionReason: reason, createdBy: user.id, createdByName: user.name }).run();
-  return n;
+  return revisioned.addRevision(db, row, version, { data, reason, user, patch: filterCols(data), status: "signed" });
 }
 
 /** Sets the object's condition columns: the latest signed report's date and when the next check falls due. */

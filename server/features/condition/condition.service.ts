@@ -15,12 +15,13 @@ import {
   type Term,
 } from "../../../shared/schemas/condition.ts";
 import { compareFindings, nextCheckDue, type ComparedFinding } from "../../../shared/domain/condition.ts";
-import { diffValues, type Change } from "../../../shared/domain/diff.ts";
+import type { Correction, RevisionWithChanges } from "../../../shared/schemas/revisioned.ts";
 import { can, isStudio } from "../../../shared/permissions.ts";
 import { AppError, conflict, notFound } from "../../lib/errors.ts";
 import { assertCan } from "../../middleware/require-permission.ts";
 import { getSettings } from "../settings/settings.repo.ts";
 import { findObject, type ObjectRow } from "../objects/objects.repo.ts";
+import { recordFields, revisionedService, revisionFields } from "../revisioned/revisioned.service.ts";
 import { appendEvent } from "../history/history.chain.ts";
 import * as repo from "./condition.repo.ts";
 
@@ -85,9 +86,6 @@ export function toTerm(r: repo.TermRow): Term {
 }
 
 export function createConditionService(db: Db, clock: () => Date = () => new Date()) {
-  /** A draft is read only by those who may write it (shared/permissions.ts). */
-  const sees = (user: SessionUser, o: ObjectRow, r: { status: string }) => can(user, "condition:read", { clientId: o.clientId, draft: r.status === "draft" });
-
   /** Handling cautions of the findings' terms, each once, in the order the findings give them. Retired terms keep theirs. */
   function cautionsFor(data: ConditionData, o: ObjectRow): string[] {
     if (data.findings.length === 0) return [];
@@ -97,52 +95,38 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
   }
 
   function toRevision(r: repo.RevisionRow): ConditionRevision {
-    return { revision: r.revision, data: r.data, correctionReason: r.correctionReason, createdAt: r.createdAt.toISOString(), createdByName: r.createdByName };
+    return revisionFields(r, r.data);
   }
 
-  function toReport(row: repo.ReportRow, o: ObjectRow, rev?: repo.RevisionRow): ConditionReport {
-    const current = toRevision(rev ?? repo.revision(db, row.id, row.currentRevision)!);
+  function toReport(row: repo.ReportRow, o: ObjectRow, current: ConditionRevision): ConditionReport {
     return {
-      id: row.id,
-      objectId: row.objectId,
-      objectNumber: o.objectNumber,
-      objectTitle: o.title,
-      status: row.status,
+      ...recordFields(row, o, current),
       context: row.context as ConditionContext,
       reportDate: row.reportDate,
       examinerName: row.examinerName,
       mountingId: row.mountingId,
       rating: row.rating as Rating,
-      currentRevision: row.currentRevision,
       signedAt: row.signedAt ? row.signedAt.toISOString() : null,
-      version: row.version,
-      current,
       cautions: cautionsFor(current.data, o),
     };
   }
 
-  function loadObject(user: SessionUser, objectId: string): ObjectRow {
-    const o = findObject(db, objectId);
-    if (!o) throw notFound("That object");
-    assertCan(user, "condition:read", { clientId: o.clientId }, { readAction: "condition:read", what: "That object" });
-    return o;
-  }
-
-  /** A report the user may see: drafts only to those who may write them (404 otherwise, so a draft's existence is not revealed). */
-  function load(user: SessionUser, id: string) {
-    const row = repo.findReport(db, id);
-    if (!row) throw notFound("That condition report");
-    const o = findObject(db, row.objectId)!;
-    assertCan(user, "condition:read", { clientId: o.clientId }, { readAction: "condition:read", what: "That condition report" });
-    if (!sees(user, o, row)) throw notFound("That condition report");
-    return { row, o };
-  }
-
-  function write(user: SessionUser, id: string) {
-    const l = load(user, id);
-    assertCan(user, "condition:write", { clientId: l.o.clientId }, { readAction: "condition:read", what: "That condition report" });
-    return l;
-  }
+  const life = revisionedService<repo.ReportRow, repo.RevisionRow, ConditionData, ConditionReport, ConditionRevision>(db, {
+    repo: { find: repo.findReport, revision: repo.revision, revisionsOf: repo.revisionsOf, currentRevisions: repo.currentRevisions, addRevision: repo.addRevision },
+    actions: { read: "condition:read", write: "condition:write" },
+    what: "That condition report",
+    stale: STALE,
+    messages: {
+      locked: "This condition report is signed and locked; make a correction instead, with a reason.",
+      alreadyLocked: "This condition report is already signed.",
+      draftCorrected: "A draft is edited directly; corrections are for signed reports.",
+    },
+    versionFirst: true,
+    dataOf: (r) => r.data,
+    toRevision,
+    toRecord: toReport,
+  });
+  const { load } = life;
 
   /**
    * The checks the contract cannot make alone: a real report date, a mounting and photos of the same object,
@@ -188,108 +172,75 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
   }
 
   return {
-    listForObject(user: SessionUser, objectId: string): ConditionReport[] {
-      const o = loadObject(user, objectId);
-      // Drafts are work in progress: those who may only read see reports once they are signed.
-      const rows = repo.reportsOfObject(db, objectId).filter((r) => sees(user, o, r));
-      const revs = repo.currentRevisions(db, rows);
-      return rows.map((r) => toReport(r, o, revs.get(r.id)));
-    },
-
-    get(user: SessionUser, id: string): ConditionReport {
-      const { row, o } = load(user, id);
-      return toReport(row, o);
-    },
-
-    revisions(user: SessionUser, id: string): (ConditionRevision & { changes: Change[] })[] {
-      load(user, id);
-      const revs = repo.revisionsOf(db, id).map(toRevision);
-      return revs.map((r, i) => ({ ...r, changes: i === 0 ? [] : diffValues(revs[i - 1].data, r.data) }));
-    },
+    listForObject: (user: SessionUser, objectId: string): ConditionReport[] => life.listForObject(user, objectId, repo.reportsOfObject),
+    get: (user: SessionUser, id: string): ConditionReport => life.get(user, id),
+    revisions: (user: SessionUser, id: string): RevisionWithChanges<ConditionRevision>[] => life.revisions(user, id),
 
     create(user: SessionUser, objectId: string, body: ConditionCreate): ConditionReport {
-      const o = loadObject(user, objectId);
-      assertCan(user, "condition:write", { clientId: o.clientId }, { readAction: "condition:read", what: "That object" });
-      const data = checkContent(user, o, body, null);
-      const id = inTransaction(db, (t) => repo.insertDraft(t, objectId, { ...body, data }, user));
-      return toReport(repo.findReport(db, id)!, o);
+      return life.create(user, objectId, {
+        check: (o) => checkContent(user, o, body, null),
+        insert: (t, data) => repo.insertDraft(t, objectId, { ...body, data }, user),
+      });
     },
 
     updateDraft(user: SessionUser, id: string, body: ConditionCreate & { version: number }): ConditionReport {
-      const { row, o } = write(user, id);
-      if (row.status !== "draft") throw conflict("This condition report is signed and locked; make a correction instead, with a reason.");
-      const data = checkContent(user, o, body, repo.revision(db, id, 1)!.data);
-      const ok = inTransaction(db, (t) => repo.updateDraft(t, row, body.version, { ...body, data }));
-      if (!ok) throw conflict(STALE);
-      return toReport(repo.findReport(db, id)!, o);
+      return life.updateDraft(user, id, {
+        check: (_row, o) => checkContent(user, o, body, repo.revision(db, id, 1)!.data),
+        rewrite: (t, row, data) => repo.updateDraft(t, row, body.version, { ...body, data }),
+      });
     },
 
     sign(user: SessionUser, id: string, version: number): ConditionReport {
-      const { row, o } = write(user, id);
-      if (row.status !== "draft") throw conflict("This condition report is already signed.");
-      if (row.version !== version) throw conflict(STALE);
-      const data = repo.revision(db, id, row.currentRevision)!.data;
-      const missing = signatureFields(row.context, data);
-      if (Object.keys(missing).length) throw invalid(missing);
-      const now = clock();
-      const ok = inTransaction(db, (d) => {
-        if (!repo.markSigned(d, row, version, now, user.id)) return false;
-        // Read inside the transaction, so two reports signed at once cannot both win with stale dates.
-        const fresh = findObject(d, row.objectId)!;
-        const lastConditionOn = max(fresh.lastConditionOn, row.reportDate)!;
-        // Due a studio interval after the last check or mounting, whichever is later (as mountings count it).
-        const from = max(lastConditionOn, fresh.lastMountedOn)!;
-        repo.setObjectCondition(d, row.objectId, lastConditionOn, nextCheckDue(from, fresh.status, getSettings(db)));
-        appendEvent(d, {
-          objectId: row.objectId,
-          type: "condition-reported",
-          actor: user,
-          at: now,
-          occurredOn: row.reportDate,
-          summary: conditionSummary(row.context, row.examinerName, data),
-          data: {
-            reportId: row.id,
-            revision: row.currentRevision,
-            context: row.context,
-            reportDate: row.reportDate,
-            rating: data.overallRating,
-            findings: data.findings.length,
-            unresolved: data.findings.filter((f) => !f.resolved).length,
-            terms: distinct(data.findings.map((f) => f.term)),
-          },
-        });
-        return true;
+      return life.lock(user, id, version, (row, _o, data) => {
+        const missing = signatureFields(row.context, data);
+        if (Object.keys(missing).length) throw invalid(missing);
+        const now = clock();
+        return (d) => {
+          if (!repo.markSigned(d, row, version, now, user.id)) return false;
+          // Read inside the transaction, so two reports signed at once cannot both win with stale dates.
+          const fresh = findObject(d, row.objectId)!;
+          const lastConditionOn = max(fresh.lastConditionOn, row.reportDate)!;
+          // Due a studio interval after the last check or mounting, whichever is later (as mountings count it).
+          const from = max(lastConditionOn, fresh.lastMountedOn)!;
+          repo.setObjectCondition(d, row.objectId, lastConditionOn, nextCheckDue(from, fresh.status, getSettings(db)));
+          appendEvent(d, {
+            objectId: row.objectId,
+            type: "condition-reported",
+            actor: user,
+            at: now,
+            occurredOn: row.reportDate,
+            summary: conditionSummary(row.context, row.examinerName, data),
+            data: {
+              reportId: row.id,
+              revision: row.currentRevision,
+              context: row.context,
+              reportDate: row.reportDate,
+              rating: data.overallRating,
+              findings: data.findings.length,
+              unresolved: data.findings.filter((f) => !f.resolved).length,
+              terms: distinct(data.findings.map((f) => f.term)),
+            },
+          });
+          return true;
+        };
       });
-      if (!ok) throw conflict(STALE);
-      return toReport(repo.findReport(db, id)!, o);
     },
 
-    correct(user: SessionUser, id: string, body: { version: number; correctionReason: string; data: ConditionData }): ConditionReport {
-      const { row, o } = write(user, id);
-      if (row.status === "draft") throw conflict("A draft is edited directly; corrections are for signed reports.");
-      if (row.version !== body.version) throw conflict(STALE);
-      const before = repo.revision(db, id, row.currentRevision)!.data;
-      const data = checkContent(user, o, { data: body.data }, before);
-      const missing = signatureFields(row.context, data);
-      if (Object.keys(missing).length) throw invalid(missing);
-      const changes = diffValues(before, data);
-      if (changes.length === 0) throw new AppError("validation_failed", "Check data: the correction changes nothing.", { data: "Change at least one entry, or cancel." });
-      const now = clock();
-      const ok = inTransaction(db, (d) => {
-        const n = repo.addRevision(d, row, body.version, data, body.correctionReason, user);
-        if (n === null) return false;
-        appendEvent(d, {
-          objectId: row.objectId,
+    correct(user: SessionUser, id: string, body: Correction<ConditionData>): ConditionReport {
+      return life.correct(user, id, body, {
+        check: (row, o, before) => {
+          const data = checkContent(user, o, { data: body.data }, before);
+          const missing = signatureFields(row.context, data);
+          if (Object.keys(missing).length) throw invalid(missing);
+          return data;
+        },
+        event: (row, n, data, changes) => ({
           type: "condition-reported",
-          actor: user,
-          at: now,
+          at: clock(),
           summary: `Condition report of ${row.reportDate} (${CONTEXT_PHRASES[row.context as ConditionContext] ?? row.context}) corrected (revision ${n}): ${body.correctionReason}`,
           data: { reportId: row.id, revision: n, corrected: true, rating: data.overallRating, changes },
-        });
-        return true;
+        }),
       });
-      if (!ok) throw conflict(STALE);
-      return toReport(repo.findReport(db, id)!, o);
     },
 
     /** Two reports of one object, earlier and later by report date whichever way they are asked for. */
@@ -300,8 +251,8 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
       if (a.row.objectId !== b.row.objectId) throw invalid({ to: "Choose two reports of the same object." });
       const aFirst = a.row.reportDate < b.row.reportDate || (a.row.reportDate === b.row.reportDate && a.row.createdAt.getTime() <= b.row.createdAt.getTime());
       const [e, l] = aFirst ? [a, b] : [b, a];
-      const earlier = toReport(e.row, e.o);
-      const later = toReport(l.row, l.o);
+      const earlier = life.show(e.row, e.o);
+      const later = life.show(l.row, l.o);
       return { earlier, later, findings: compareFindings(earlier.current.data, later.current.data) };
     },
 

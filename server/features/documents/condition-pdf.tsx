@@ -18,7 +18,8 @@ import { createDocumentsService } from "./documents.service.ts";
 import { and, desc, eq, isNotNull, lte } from "drizzle-orm";
 import { custodyReceipts } from "../../db/schema.ts";
 import { mountingInPlaceOn } from "../mountings/mountings.repo.ts";
-import { mountingDetail, summaryOf } from "./workshop-sheet.tsx";
+import { summaryOf } from "./workshop-sheet.tsx";
+import { mountingDetail } from "../mountings/mounting-detail.ts";
 import { Caution, ComparisonTag, KV, RatingTag, Table, para } from "../../lib/pdf/blocks.tsx";
 import { FindingsTable, type LoadedPhoto, PhotoGrid, loadPhoto, valuationLine } from "./record-blocks.tsx";
 

@@ -20,7 +20,7 @@ import { mountingInPlaceOn } from "../mountings/mountings.repo.ts";
 import { getSettings } from "../settings/settings.repo.ts";
 import { valuationText } from "./record-blocks.tsx";
 import { createDocumentsService } from "./documents.service.ts";
-import { mountingDetail } from "./workshop-sheet.tsx";
+import { mountingDetail } from "../mountings/mounting-detail.ts";
 
 // A unitless lineHeight in react-pdf 4 multiplies the font size set on the same style (18 when inherited), so both are given here.
 const P = { fontSize: 9, lineHeight: 1.4, marginBottom: 4 } as const;

@@ -20,8 +20,8 @@ import {
 } from "../../../shared/schemas/mountings.ts";
 import { MountPlanInputSchema, SIDES, type MountPlan } from "../../../shared/schemas/mount-plan.ts";
 import { CONDITION_CONTEXT_LABELS, type ConditionReport } from "../../../shared/schemas/condition.ts";
-import { lengthText, planDrawing, type DrawingModel, type PlanGeometry } from "../../../shared/domain/mount-plan/index.ts";
-import { draftPlan, mountSummary, recordPlan, type CatalogueFacts, type PlanSettings } from "../../../shared/domain/mounting.ts";
+import { lengthText, planDrawing, type DrawingModel, type PlanGeometry, type PlanResult } from "../../../shared/domain/mount-plan/index.ts";
+import { draftPlan, mountSummary } from "../../../shared/domain/mounting.ts";
 import { formatSize } from "../../../shared/domain/units.ts";
 import { vocab } from "../../../shared/schemas/settings.ts";
 import { DocShell } from "../../lib/pdf/layout.tsx";
@@ -30,6 +30,8 @@ import { ACCENT, GRAPHITE, s } from "../../lib/pdf/theme.ts";
 import { getSettings } from "../settings/settings.repo.ts";
 import { createObjectsService } from "../objects/objects.service.ts";
 import { createMountingsService } from "../mountings/mountings.service.ts";
+import { mountingDetail } from "../mountings/mounting-detail.ts";
+import { findMounting } from "../mountings/mountings.repo.ts";
 import { createMountPlansService } from "../mount-plans/mount-plans.service.ts";
 import { createConditionService } from "../condition/condition.service.ts";
 import { findPhoto, listForObject as photosOfObject } from "../photos/photos.repo.ts";
@@ -72,9 +74,8 @@ const boardLine = (b: Board) =>
 
 type PlanView = { plan: MountPlan; geometry: PlanGeometry; model: DrawingModel; data: MountingData | null };
 
-/** The plan recomputed from its saved input and the catalogue, exactly as the screen does (mounting-view.tsx), in the studio's unit. */
-function planView(input: unknown, data: MountingData | null, catalogue: CatalogueFacts, settings: PlanSettings): PlanView | null {
-  const r = data ? recordPlan(data, catalogue, settings) : draftPlan(MountPlanInputSchema.parse(input), catalogue, settings);
+/** A recomputed plan (the record's, from mountingDetail as the screen has it, or the planner's draft) drawn, in the studio's unit. */
+function planView(r: PlanResult, data: MountingData | null): PlanView | null {
   if (!r.ok) return null;
   const hinges = data ? data.attachment.hinges.map((h) => ({ edge: h.edge, offset: h.offsetMm, width: h.widthMm })) : [];
   return { plan: r.plan, geometry: r.geometry, data, model: planDrawing(r.geometry, hinges) };
@@ -94,7 +95,8 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
   const mountings = orNothing(() => createMountingsService(db).listForObject(user, objectId), [] as MountingRecord[]);
   const current = mountings.find((m) => m.status === "completed") ?? null;
   const draft = current ? null : orNothing(() => createMountPlansService(db).getDraft(user, objectId), null);
-  const view = current ? planView(null, current.current.data, object, settings) : draft ? planView(draft.input, null, object, settings) : null;
+  const detail = current ? mountingDetail(db, findMounting(db, current.id)!) : null;
+  const view = detail ? planView(detail.result, detail.data) : draft ? planView(draftPlan(MountPlanInputSchema.parse(draft.input), object, settings), null) : null;
 
   const reports = orNothing(() => createConditionService(db, clock).listForObject(user, objectId), [] as ConditionReport[]);
   const latest = reports.filter((r) => r.status === "signed").sort((a, b) => (`${a.reportDate}|${a.signedAt}` < `${b.reportDate}|${b.signedAt}` ? 1 : -1))[0] ?? null;

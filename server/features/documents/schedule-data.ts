@@ -8,7 +8,7 @@ import { packageSize } from "../../../shared/domain/mounting.ts";
 import { valuationIsOld } from "../../../shared/domain/valuation.ts";
 import { objectFilterWhere, type ObjectFilter } from "../objects/objects.repo.ts";
 import { findMounting } from "../mountings/mountings.repo.ts";
-import { mountingDetail } from "./workshop-sheet.tsx";
+import { mountingDetail } from "../mountings/mounting-detail.ts";
 import { RATING_LABELS, type Rating } from "../../../shared/schemas/condition.ts";
 import { formatSize, type Unit } from "../../../shared/domain/units.ts";
 import { getSettings } from "../settings/settings.repo.ts";

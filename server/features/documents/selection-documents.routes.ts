@@ -12,7 +12,8 @@ import { getSettings } from "../settings/settings.repo.ts";
 import { createDocumentsService } from "./documents.service.ts";
 import { documentJob, loadedDocumentJob } from "./registry.ts";
 import { issueCustodyReceipt } from "./custody-receipt.tsx";
-import { mountingDetail, summaryOf, workshopData, type WorkshopItem } from "./workshop-sheet.tsx";
+import { summaryOf, workshopData, type WorkshopItem } from "./workshop-sheet.tsx";
+import { mountingDetail } from "../mountings/mounting-detail.ts";
 import { objectUrl, qrFor, type LabelData } from "./labels.tsx";
 
 /**

@@ -3,35 +3,18 @@ import { Rect, Svg, Text as SvgText, View } from "@react-pdf/renderer";
 import { Text } from "../../lib/pdf/text.tsx";
 import { Mark } from "../../lib/pdf/blocks.tsx";
 import type { Db } from "../../db/client.ts";
-import type { MountingData, Board } from "../../../shared/schemas/mountings.ts";
+import type { Board } from "../../../shared/schemas/mountings.ts";
 import { ADHESIVE_LABELS, ATTACHMENT_METHOD_LABELS, GLAZING_TYPE_LABELS, MOUNTING_STATUS_LABELS } from "../../../shared/schemas/mountings.ts";
 import { lengthText } from "../../../shared/domain/mount-plan/index.ts";
-import { cuttingList, STANDARD_BOARD_SHEETS, type PlanResult } from "../../../shared/domain/mount-plan/index.ts";
+import { cuttingList, STANDARD_BOARD_SHEETS } from "../../../shared/domain/mount-plan/index.ts";
 import type { CuttingList } from "../../../shared/domain/mount-plan/yield.ts";
-import { mountSummary, recordPlan } from "../../../shared/domain/mounting.ts";
-import { findObject } from "../objects/objects.repo.ts";
+import { mountSummary } from "../../../shared/domain/mounting.ts";
 import { HEAVY_PACKAGE_KG } from "../../../shared/domain/mount-plan/constants.ts";
 import { formatSize, type Unit } from "../../../shared/domain/units.ts";
 import { DocShell, type DocMeta } from "../../lib/pdf/layout.tsx";
 import { ACCENT, GRAPHITE, INK, STONE, s } from "../../lib/pdf/theme.ts";
 import { getSettings } from "../settings/settings.repo.ts";
-import { revision, type MountingRow } from "../mountings/mountings.repo.ts";
-
-export type MountingDetail = {
-  row: MountingRow;
-  data: MountingData;
-  result: PlanResult;
-};
-
-/** A mounting's current revision with its plan recomputed from the record (never a stored copy). */
-export function mountingDetail(db: Db, row: MountingRow): MountingDetail | null {
-  const rev = revision(db, row.id, row.currentRevision);
-  if (!rev) return null;
-  const data = rev.data;
-  const o = findObject(db, row.objectId);
-  if (!o) return null;
-  return { row, data, result: recordPlan(data, o, getSettings(db)) };
-}
+import type { MountingDetail } from "../mountings/mounting-detail.ts";
 
 export function summaryOf(d: MountingDetail, vocabulary: "mount" | "mat"): string | null {
   return d.result.ok ? mountSummary(d.data, d.result.plan, { window: vocabulary === "mat" ? "opening" : "window" }) : null;

@@ -1,14 +1,15 @@
-import { Link, useLocation, useNavigate, useParams } from "react-router";
+import { useLocation, useNavigate, useParams } from "react-router";
 import { useQuery } from "@tanstack/react-query";
-import { can } from "@shared/permissions.ts";
 import { lightGuidance } from "@shared/domain/condition.ts";
 import { MOUNTING_REASON_LABELS } from "@shared/schemas/mountings.ts";
 import { useMe } from "@/features/session/api/session.ts";
 import { useObject } from "@/features/objects/api/objects.ts";
 import { useObjectMountings } from "@/features/mountings/api/mountings.ts";
 import { useCorrectReport, useCreateReport, useObjectCondition, useReport, useTerms, useUpdateReport } from "@/features/condition/api/condition.ts";
-import { ReportForm, type ReportFormMode } from "@/features/condition/components/report-form.tsx";
-import { Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { ReportForm } from "@/features/condition/components/report-form.tsx";
+import { editGate, ObjectLine } from "@/components/revisioned.tsx";
+import { formModeOf, saveByMode } from "@/lib/revisioned.ts";
+import { SkeletonRows } from "@/components/ui/feedback.tsx";
 import { formatDate } from "@/lib/format.ts";
 import { objectPhotosQuery } from "@/features/photos/api/photos.ts";
 
@@ -16,7 +17,7 @@ import { objectPhotosQuery } from "@/features/photos/api/photos.ts";
 export function Component() {
   const params = useParams();
   const location = useLocation();
-  const mode: ReportFormMode = location.pathname.endsWith("/correct") ? "correct" : location.pathname.endsWith("/edit") ? "draft" : "new";
+  const mode = formModeOf(location.pathname);
   const existing = useReport(mode === "new" ? "" : (params.id ?? ""));
   const objectId = mode === "new" ? (params.id ?? "") : (existing.data?.objectId ?? "");
   const object = useObject(objectId);
@@ -31,30 +32,15 @@ export function Component() {
   const correct = useCorrectReport(params.id ?? "");
 
   if (object.isPending || terms.isPending || reports.isPending || photos.isPending || mountings.isPending || (mode !== "new" && existing.isPending)) return <SkeletonRows />;
-  if (object.isError)
-    return (
-      <Notice tone="fail" title="Object not found">
-        {object.error.message}
-      </Notice>
-    );
-  const o = object.data;
-  if (!can(user, "condition:write", { clientId: o.clientId }))
-    return (
-      <Notice tone="warn" title="Read only">
-        Your role cannot write condition reports for this object.
-      </Notice>
-    );
+  const gate = editGate(object, user, "condition:write", "Your role cannot write condition reports for this object.");
+  if (!gate.ok) return gate.refusal;
+  const o = gate.o;
   const previous = (reports.data ?? []).find((r) => r.status === "signed" && r.id !== params.id)?.current.data ?? null;
 
   return (
     <div className="space-y-5">
       <header>
-        <p className="text-sm font-semibold text-accent num">
-          <Link to={`/objects/${o.id}`} className="hover:underline">
-            {o.objectNumber}
-          </Link>{" "}
-          · {o.title}
-        </p>
+        <ObjectLine objectId={o.id} objectNumber={o.objectNumber} title={o.title} />
         <h1 className="text-2xl font-bold tracking-tight">
           {mode === "correct" ? "Correct the condition report" : mode === "draft" ? "Condition report (draft)" : "New condition report"}
         </h1>
@@ -79,12 +65,7 @@ export function Component() {
         onCancel={() => navigate(-1)}
         onSubmit={async (v) => {
           const body = { context: v.context, reportDate: v.reportDate, mountingId: v.mountingId, data: v.data };
-          const r =
-            mode === "new"
-              ? await create.mutateAsync(body)
-              : mode === "draft"
-                ? await update.mutateAsync({ ...body, version: existing.data!.version })
-                : await correct.mutateAsync({ version: existing.data!.version, correctionReason: v.correctionReason, data: v.data });
+          const r = await saveByMode(mode, { create, update, correct }, body, existing.data, v.correctionReason);
           navigate(`/condition/${r.id}`);
         }}
       />

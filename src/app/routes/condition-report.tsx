@@ -1,5 +1,5 @@
 import { useState } from "react";
-import { Link, useParams } from "react-router";
+import { useParams } from "react-router";
 import { useQuery } from "@tanstack/react-query";
 import { can } from "@shared/permissions.ts";
 import { CONDITION_CONTEXT_LABELS } from "@shared/schemas/condition.ts";
@@ -8,11 +8,11 @@ import { useObject } from "@/features/objects/api/objects.ts";
 import { useReport, useReportRevisions, useSignReport } from "@/features/condition/api/condition.ts";
 import { RatingBadge, ReportView } from "@/features/condition/components/report-view.tsx";
 import { Badge, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
-import { Button, ButtonLink } from "@/components/ui/button.tsx";
 import { objectPhotosQuery } from "@/features/photos/api/photos.ts";
 import { DocumentButton } from "@/features/documents/components/document-button.tsx";
 import { formatDate, formatDateTime } from "@/lib/format.ts";
 import { RevisionsList } from "@/components/revisions-list.tsx";
+import { ObjectLine, RevisionedActions } from "@/components/revisioned.tsx";
 
 export function Component() {
   const { id = "" } = useParams();
@@ -39,12 +39,7 @@ export function Component() {
     <div className="space-y-5">
       <header className="flex flex-wrap items-end justify-between gap-3">
         <div>
-          <p className="text-sm font-semibold text-accent num">
-            <Link to={`/objects/${rep.objectId}`} className="hover:underline">
-              {rep.objectNumber}
-            </Link>{" "}
-            · {rep.objectTitle}
-          </p>
+          <ObjectLine objectId={rep.objectId} objectNumber={rep.objectNumber} title={rep.objectTitle} />
           <h1 className="text-2xl font-bold tracking-tight">
             Condition {CONDITION_CONTEXT_LABELS[rep.context].toLowerCase()} · {formatDate(rep.reportDate)}
           </h1>
@@ -61,23 +56,13 @@ export function Component() {
             <DocumentButton url={`/api/condition/${rep.id}/document`} label="Report for the insurer (PDF)" fallbackName={`condition-${rep.objectNumber}.pdf`} />
           )}
           {writable && (
-            <div className="flex flex-wrap gap-2">
-              {rep.status === "draft" && (
-                <ButtonLink to={`/condition/${rep.id}/edit`} variant="secondary">
-                  Edit draft
-                </ButtonLink>
-              )}
-              {rep.status === "draft" && (
-                <Button onClick={() => sign.mutate(rep.version)} disabled={sign.isPending}>
-                  Sign and lock
-                </Button>
-              )}
-              {rep.status === "signed" && (
-                <ButtonLink to={`/condition/${rep.id}/correct`} variant="secondary">
-                  Correct the report
-                </ButtonLink>
-              )}
-            </div>
+            <RevisionedActions
+              draft={rep.status === "draft"}
+              editTo={`/condition/${rep.id}/edit`}
+              correctTo={`/condition/${rep.id}/correct`}
+              correctLabel="Correct the report"
+              lock={{ label: "Sign and lock", onLock: () => sign.mutate(rep.version), pending: sign.isPending }}
+            />
           )}
         </div>
       </header>

@@ -1,12 +1,13 @@
 import { Link, useLocation, useNavigate, useParams } from "react-router";
-import { can } from "@shared/permissions.ts";
 import type { MountPlanInput } from "@shared/schemas/mount-plan.ts";
 import { useMe } from "@/features/session/api/session.ts";
 import { useStudio } from "@/features/settings/api/settings.ts";
 import { useObject } from "@/features/objects/api/objects.ts";
 import { useObjectPlan } from "@/features/planner/api/plans.ts";
 import { useCorrectMounting, useCreateMounting, useMounting, useObjectMountings, useUpdateMountingDraft } from "@/features/mountings/api/mountings.ts";
-import { MountingForm, type MountingFormMode } from "@/features/mountings/components/mounting-form.tsx";
+import { MountingForm } from "@/features/mountings/components/mounting-form.tsx";
+import { editGate, ObjectLine } from "@/components/revisioned.tsx";
+import { formModeOf, saveByMode } from "@/lib/revisioned.ts";
 import { ButtonLink } from "@/components/ui/button.tsx";
 import { Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { studioToday } from "@/lib/today.ts";
@@ -15,7 +16,7 @@ import { studioToday } from "@/lib/today.ts";
 export function Component() {
   const params = useParams();
   const location = useLocation();
-  const mode: MountingFormMode = location.pathname.endsWith("/correct") ? "correct" : location.pathname.endsWith("/edit") ? "draft" : "new";
+  const mode = formModeOf(location.pathname);
   const mountingId = mode === "new" ? "" : (params.id ?? "");
   const existing = useMounting(mountingId);
   const objectId = mode === "new" ? (params.id ?? "") : (existing.data?.objectId ?? "");
@@ -30,19 +31,9 @@ export function Component() {
   const correct = useCorrectMounting(mountingId);
 
   if (!settings || object.isPending || (mode !== "new" && existing.isPending) || draftPlan.isPending || mountings.isPending) return <SkeletonRows />;
-  if (object.isError)
-    return (
-      <Notice tone="fail" title="Object not found">
-        {object.error.message}
-      </Notice>
-    );
-  const o = object.data;
-  if (!can(user, "mounting:write", { clientId: o.clientId }))
-    return (
-      <Notice tone="warn" title="Read only">
-        Only studio staff record mountings.
-      </Notice>
-    );
+  const gate = editGate(object, user, "mounting:write", "Only studio staff record mountings.");
+  if (!gate.ok) return gate.refusal;
+  const o = gate.o;
 
   // The plan comes from the planner's saved draft (or the record being edited): it is never retyped here.
   const current = mountings.data?.find((m) => m.status === "completed");
@@ -68,12 +59,7 @@ export function Component() {
   return (
     <div className="space-y-5">
       <header>
-        <p className="text-sm font-semibold text-accent num">
-          <Link to={`/objects/${o.id}`} className="hover:underline">
-            {o.objectNumber}
-          </Link>{" "}
-          · {o.title}
-        </p>
+        <ObjectLine objectId={o.id} objectNumber={o.objectNumber} title={o.title} />
         <h1 className="text-2xl font-bold tracking-tight">
           {mode === "correct" ? "Correct the mounting record" : mode === "draft" ? "Mounting record (draft)" : current ? "Record a reframing" : "Record a mounting"}
         </h1>
@@ -98,16 +84,8 @@ export function Component() {
         initial={initial}
         onCancel={() => navigate(-1)}
         onSubmit={async (v) => {
-          if (mode === "new") {
-            const m = await create.mutateAsync({ reason: v.reason, mountedOn: v.mountedOn, data: v.data });
-            navigate(`/mountings/${m.id}`);
-          } else if (mode === "draft") {
-            const m = await update.mutateAsync({ reason: v.reason, mountedOn: v.mountedOn, data: v.data, version: existing.data!.version });
-            navigate(`/mountings/${m.id}`);
-          } else {
-            const m = await correct.mutateAsync({ version: existing.data!.version, correctionReason: v.correctionReason, data: v.data });
-            navigate(`/mountings/${m.id}`);
-          }
+          const m = await saveByMode(mode, { create, update, correct }, { reason: v.reason, mountedOn: v.mountedOn, data: v.data }, existing.data, v.correctionReason);
+          navigate(`/mountings/${m.id}`);
         }}
       />
     </div>

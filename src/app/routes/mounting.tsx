@@ -9,10 +9,11 @@ import { useObject } from "@/features/objects/api/objects.ts";
 import { useCompleteMounting, useMounting, useRemoveMounting, useRevisions } from "@/features/mountings/api/mountings.ts";
 import { MountingView } from "@/features/mountings/components/mounting-view.tsx";
 import { Badge, Card, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
-import { Button, ButtonLink } from "@/components/ui/button.tsx";
+import { Button } from "@/components/ui/button.tsx";
 import { TextField } from "@/components/ui/field.tsx";
 import { formatDate } from "@/lib/format.ts";
 import { RevisionsList } from "@/components/revisions-list.tsx";
+import { ObjectLine, RevisionedActions } from "@/components/revisioned.tsx";
 import { ApiError } from "@/lib/api-client.ts";
 
 export function Component() {
@@ -46,12 +47,7 @@ export function Component() {
     <div className="space-y-5">
       <header className="flex flex-wrap items-end justify-between gap-3">
         <div>
-          <p className="text-sm font-semibold text-accent num">
-            <Link to={`/objects/${rec.objectId}`} className="hover:underline">
-              {rec.objectNumber}
-            </Link>{" "}
-            · {rec.objectTitle}
-          </p>
+          <ObjectLine objectId={rec.objectId} objectNumber={rec.objectNumber} title={rec.objectTitle} />
           <h1 className="text-2xl font-bold tracking-tight">
             {MOUNTING_REASON_LABELS[rec.reason]} · {formatDate(rec.mountedOn)}
           </h1>
@@ -73,28 +69,19 @@ export function Component() {
           </p>
         </div>
         {writable && (
-          <div className="flex flex-wrap gap-2">
-            {rec.status === "draft" && (
-              <ButtonLink to={`/mountings/${rec.id}/edit`} variant="secondary">
-                Edit draft
-              </ButtonLink>
-            )}
-            {rec.status === "draft" && (
-              <Button onClick={() => complete.mutate(rec.version)} disabled={complete.isPending}>
-                Complete and lock
-              </Button>
-            )}
-            {rec.status !== "draft" && (
-              <ButtonLink to={`/mountings/${rec.id}/correct`} variant="secondary">
-                Correct the record
-              </ButtonLink>
-            )}
+          <RevisionedActions
+            draft={rec.status === "draft"}
+            editTo={`/mountings/${rec.id}/edit`}
+            correctTo={`/mountings/${rec.id}/correct`}
+            correctLabel="Correct the record"
+            lock={{ label: "Complete and lock", onLock: () => complete.mutate(rec.version), pending: complete.isPending }}
+          >
             {rec.status === "completed" && (
               <Button variant="secondary" onClick={() => setRemoving(true)}>
                 Taken out of mount…
               </Button>
             )}
-          </div>
+          </RevisionedActions>
         )}
       </header>
       {error && (

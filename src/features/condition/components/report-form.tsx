@@ -1,9 +1,10 @@
 import { useMemo, useState } from "react";
-import { useFieldArray, useForm, useWatch, type Path, type Resolver } from "react-hook-form";
+import { useFieldArray, useForm, useWatch, type Path } from "react-hook-form";
 import { studioToday } from "@/lib/today.ts";
 import {
   CONDITION_CONTEXTS,
   CONDITION_CONTEXT_LABELS,
+  ConditionCorrectionSchema,
   ConditionCreateSchema,
   RATINGS,
   RATING_LABELS,
@@ -22,8 +23,9 @@ import { PHOTO_KIND_LABELS } from "@shared/schemas/photos.ts";
 import { ratingFloor } from "@shared/domain/condition.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
 import { Button, FormActions } from "@/components/ui/button.tsx";
-import { Notice } from "@/components/ui/feedback.tsx";
-import { errorAt, useServerErrors, withCorrectionReason } from "@/lib/form-errors.ts";
+import { errorAt, useServerErrors } from "@/lib/form-errors.ts";
+import { RevisionedFormHead } from "@/components/revisioned.tsx";
+import { revisionedResolver, type RevisionedFormMode } from "@/lib/revisioned.ts";
 import { PhotoMarkers } from "./photo-markers.tsx";
 
 export type ReportFormValues = {
@@ -33,7 +35,7 @@ export type ReportFormValues = {
   correctionReason: string;
   data: ConditionDataInput & { signatures: { examiner?: { name: string; date: string; role?: string | null }; otherParty?: { name: string; date: string; role?: string | null } } };
 };
-export type ReportFormMode = "new" | "draft" | "correct";
+export type ReportFormMode = RevisionedFormMode;
 type Submit = ConditionCreate & { correctionReason: string };
 
 // randomUUID needs a secure context (https or localhost); elsewhere fall back to time and randomness.
@@ -50,12 +52,8 @@ function toBody(v: ReportFormValues) {
   };
 }
 
-function resolver(mode: ReportFormMode): Resolver<ReportFormValues, unknown, Submit> {
-  return async (values) => {
-    const parsed = ConditionCreateSchema.safeParse(toBody(values));
-    return withCorrectionReason<ReportFormValues, typeof parsed>(parsed, mode === "correct", values.correctionReason, "Say why the report is corrected.");
-  };
-}
+const resolver = (mode: ReportFormMode) =>
+  revisionedResolver<ReportFormValues, typeof ConditionCreateSchema>({ create: ConditionCreateSchema, correction: ConditionCorrectionSchema }, toBody, mode === "correct");
 
 type Props = {
   mode: ReportFormMode;
@@ -126,19 +124,12 @@ export function ReportForm({ mode, objectType, photos, terms, mountings, examine
   return (
     <form onSubmit={submit} noValidate className="grid gap-6 xl:grid-cols-[minmax(26rem,34rem)_1fr]" aria-label="Condition report">
       <div className="space-y-4">
-        {server.error && (
-          <Notice tone="fail" title="Not saved">
-            {server.error.message}
-          </Notice>
-        )}
-        {mode === "correct" && (
-          <div className="rounded-card bg-paper-sheet p-4 shadow-card">
-            <Notice tone="info" title="A correction">
-              The signed report stays as it was; this saves a new revision with your reason.
-            </Notice>
-            <TextAreaField label="Reason for the correction" wrapClassName="mt-3" error={err("correctionReason")} {...register("correctionReason")} />
-          </div>
-        )}
+        <RevisionedFormHead
+          error={server.error}
+          correcting={mode === "correct"}
+          note="The signed report stays as it was; this saves a new revision with your reason."
+          reason={{ error: err("correctionReason"), ...register("correctionReason") }}
+        />
         <section className="grid grid-cols-2 gap-3 rounded-card bg-paper-sheet p-4 shadow-card">
           <SelectField label="Context" disabled={mode === "correct"} error={err("context")} {...register("context")}>
             {CONDITION_CONTEXTS.map((c) => (

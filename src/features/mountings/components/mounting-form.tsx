@@ -1,5 +1,5 @@
 import { useMemo } from "react";
-import { useFieldArray, useForm, useWatch, type Resolver } from "react-hook-form";
+import { useFieldArray, useForm, useWatch } from "react-hook-form";
 import { studioToday } from "@/lib/today.ts";
 import {
   BACKING_TYPES,
@@ -9,6 +9,7 @@ import {
   GLAZING_TYPE_LABELS,
   MOUNTING_REASONS,
   MOUNTING_REASON_LABELS,
+  MountingCorrectionSchema,
   MountingCreateSchema,
   MountingDataSchema,
   SEALING_TYPES,
@@ -25,12 +26,14 @@ import { Button, FormActions } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
 import { PlanDrawing } from "@/components/plan-drawing.tsx";
 import { ChecksList, LevelBadge } from "@/components/checks-list.tsx";
-import { errorAt, useServerErrors, withCorrectionReason } from "@/lib/form-errors.ts";
+import { errorAt, useServerErrors } from "@/lib/form-errors.ts";
+import { RevisionedFormHead } from "@/components/revisioned.tsx";
+import { revisionedResolver, type RevisionedFormMode } from "@/lib/revisioned.ts";
 import { ADHESIVE_LABELS, ATTACHMENT_METHOD_LABELS as ATTACHMENT_LABELS } from "@shared/schemas/mountings.ts";
 
 type FormData = Omit<MountingDataInput, "plan">;
 export type MountingFormValues = { reason: string; mountedOn: string; correctionReason: string; data: FormData };
-export type MountingFormMode = "new" | "draft" | "correct";
+export type MountingFormMode = RevisionedFormMode;
 
 const HINGED = ["t-hinge", "v-hinge", "pendant-hinge", "pass-through-hinge"];
 const num = { setValueAs: (v: unknown) => (v === "" || v === null || v === undefined ? null : Number(v)) };
@@ -53,13 +56,13 @@ export function emptyMountingData(planInput: MountPlanInput, hasTopBoard: boolea
   };
 }
 
-function resolverFor(planInput: MountPlanInput, mode: MountingFormMode): Resolver<MountingFormValues, unknown, MountingCreate & { correctionReason: string }> {
-  return async (values) => {
-    const body = { reason: values.reason, mountedOn: values.mountedOn, data: { ...values.data, plan: planInput } };
-    const parsed = MountingCreateSchema.safeParse(body);
-    return withCorrectionReason<MountingFormValues, typeof parsed>(parsed, mode === "correct", values.correctionReason, "Say why the record is corrected.");
-  };
-}
+/** The plan is not typed here: it comes from the planner (or the record), so the body gets it added. */
+const resolverFor = (planInput: MountPlanInput, mode: MountingFormMode) =>
+  revisionedResolver<MountingFormValues, typeof MountingCreateSchema>(
+    { create: MountingCreateSchema, correction: MountingCorrectionSchema },
+    (values) => ({ reason: values.reason, mountedOn: values.mountedOn, data: { ...values.data, plan: planInput } }),
+    mode === "correct",
+  );
 
 type Props = {
   mode: MountingFormMode;
@@ -156,19 +159,12 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
   return (
     <div className="grid gap-6 xl:grid-cols-[minmax(24rem,30rem)_1fr]">
       <form onSubmit={submit} noValidate className="space-y-4" aria-label="Mounting record">
-        {server.error && (
-          <Notice tone="fail" title="Not saved">
-            {server.error.message}
-          </Notice>
-        )}
-        {mode === "correct" && (
-          <div className="rounded-card bg-paper-sheet p-4 shadow-card">
-            <Notice tone="info" title="A correction">
-              The completed record stays as it was; this saves a new revision with your reason, and both stay readable.
-            </Notice>
-            <TextAreaField label="Reason for the correction" wrapClassName="mt-3" error={err("correctionReason")} {...register("correctionReason")} />
-          </div>
-        )}
+        <RevisionedFormHead
+          error={server.error}
+          correcting={mode === "correct"}
+          note="The completed record stays as it was; this saves a new revision with your reason, and both stay readable."
+          reason={{ error: err("correctionReason"), ...register("correctionReason") }}
+        />
         <section className="grid grid-cols-2 gap-3 rounded-card bg-paper-sheet p-4 shadow-card">
           <SelectField label="Reason" disabled={mode === "correct"} error={err("reason")} {...register("reason")}>
             {MOUNTING_REASONS.map((r) => (
