@@ -1,6 +1,6 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
-import { agentFor, createTestApp, expectErrorShape, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
+import { agentsFor, createTestApp, expectErrorShape, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
 import { conditionTerms } from "../../server/db/schema.ts";
 import type { ConditionReport, Term } from "../../shared/schemas/condition.ts";
 
@@ -16,12 +16,7 @@ const words = (items: Term[]) => items.map((i) => i.term);
 
 beforeAll(async () => {
   studio = await makeStudio(t);
-  as = {
-    admin: await agentFor(t, studio.people.admin),
-    framer: await agentFor(t, studio.people.framer),
-    registrar: await agentFor(t, studio.people.registrar),
-    collector: await agentFor(t, studio.people.collector),
-  };
+  as = await agentsFor(t, studio.people);
 });
 
 describe("reading the vocabulary", () => {

@@ -2,7 +2,8 @@ import { randomUUID } from "node:crypto";
 import { beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import type { z } from "zod";
-import { agentFor, createTestApp, expectErrorShape, makeClient, makeObject, makePerson, makeStudio, signIn, type Agent, type Person } from "../setup/test-app.ts";
+import { accessMatrix, type MatrixRow } from "../setup/access-matrix.ts";
+import { agentFor, agentsFor, createTestApp, expectErrorShape, makeClient, makeObject, makePerson, makeStudio, signIn, type Agent, type Person } from "../setup/test-app.ts";
 import { conditionReports, conditionRevisions, conditionTerms, events, mountings, objects, photos, user } from "../../server/db/schema.ts";
 import { DEMO_PASSWORD, seedDemo } from "../../server/db/seed.ts";
 import { seedCondition } from "../../server/db/seed-condition.ts";
@@ -90,12 +91,7 @@ function makeMounting(objectId: string, status: "draft" | "completed" = "complet
 beforeAll(async () => {
   studio = await makeStudio(t);
   otherPrivate = makeClient(t.db, { kind: "private", name: "Basil Owner" }).id;
-  as = {
-    admin: await agentFor(t, studio.people.admin),
-    framer: await agentFor(t, studio.people.framer),
-    registrar: await agentFor(t, studio.people.registrar),
-    collector: await agentFor(t, studio.people.collector),
-  };
+  as = await agentsFor(t, studio.people);
 });
 
 describe("the life cycle of a condition report", () => {
@@ -800,37 +796,11 @@ describe("the condition register", () => {
 });
 
 describe("who may do what with condition reports", () => {
-  type Who = "admin" | "framer" | "registrar-own" | "registrar-other" | "collector-own" | "collector-other" | "signed-out";
-  const WHO: Who[] = ["admin", "framer", "registrar-own", "registrar-other", "collector-own", "collector-other", "signed-out"];
-
-  /** Each role reaches for the object it would own: a registrar their institution's (or another's), a collector theirs (or another private client's). */
-  function subject(who: Who): { agent: Agent; objectId: string } {
-    const on = (clientId: string) => makeObject(t.db, clientId);
-    switch (who) {
-      case "admin":
-        return { agent: as.admin, objectId: on(studio.collectorClient.id) };
-      case "framer":
-        return { agent: as.framer, objectId: on(studio.institution.id) };
-      case "registrar-own":
-        return { agent: as.registrar, objectId: on(studio.institution.id) };
-      case "registrar-other":
-        return { agent: as.registrar, objectId: on(studio.otherInstitution.id) };
-      case "collector-own":
-        return { agent: as.collector, objectId: on(studio.collectorClient.id) };
-      case "collector-other":
-        return { agent: as.collector, objectId: on(otherPrivate) };
-      case "signed-out":
-        return { agent: t.agent(), objectId: on(studio.collectorClient.id) };
-    }
-  }
-
-  const refusal = (status: number) => ({ 401: "unauthenticated", 403: "forbidden", 404: "not_found" })[status as 401 | 403 | 404];
   const snapshot = (objectId: string) =>
     JSON.stringify({ r: reportsOf(objectId).map((x) => [x.id, x.version, x.status, x.currentRevision]), e: eventsOf(objectId).length, o: objectDates(objectId) });
   const READ = { admin: 200, framer: 200, "registrar-own": 200, "registrar-other": 404, "collector-own": 200, "collector-other": 404, "signed-out": 401 };
   const STUDIO_DRAFT = { admin: 200, framer: 200, "registrar-own": 200, "registrar-other": 404, "collector-own": 404, "collector-other": 404, "signed-out": 401 };
 
-  type Row = { route: string; expected: Record<Who, number>; run: (agent: Agent, objectId: string) => Promise<{ status: number; body: unknown; written: () => boolean }> };
   const read = (path: (objectId: string, reportId: string) => string, make: (objectId: string) => Promise<ConditionReport>) => async (agent: Agent, objectId: string) => {
     const rep = await make(objectId);
     const res = await agent.get(path(objectId, rep.id));
@@ -839,7 +809,7 @@ describe("who may do what with condition reports", () => {
   const signed = (objectId: string) => signedOn(objectId);
   const draft = (objectId: string) => draftOn(objectId);
 
-  const ROWS: Row[] = [
+  const ROWS: MatrixRow[] = [
     { route: "GET /api/objects/:id/condition", expected: READ, run: read((o) => `/api/objects/${o}/condition`, signed) },
     {
       route: "POST /api/objects/:id/condition",
@@ -920,23 +890,7 @@ describe("who may do what with condition reports", () => {
     },
   ];
 
-  const CASES = ROWS.flatMap((row) => WHO.map((who) => ({ route: row.route, who, status: row.expected[who], row })));
-
-  it.each(CASES)("when $who calls $route, then it answers $status", async ({ who, status, row }) => {
-    const { agent, objectId } = subject(who);
-    const res = await row.run(agent, objectId);
-    expect(res.status).toBe(status);
-    const code = refusal(status);
-    if (code) {
-      expectErrorShape(res.body, code);
-      expect(res.written(), "a refused request left a trace").toBe(false);
-    } else if (status === 409) {
-      expectErrorShape(res.body, "conflict");
-      expect(res.written()).toBe(false);
-    } else if (row.route.startsWith("POST") || row.route.startsWith("PUT")) {
-      expect(res.written(), "an allowed write left no trace").toBe(true);
-    }
-  });
+  accessMatrix(t, ROWS, () => ({ studio, as, otherPrivateClientId: otherPrivate }));
 
   it("when a registrar writes a report, then the report names the registrar as examiner", async () => {
     const r = await draftOn(makeObject(t.db, studio.institution.id), DATA, {}, as.registrar);

@@ -1,6 +1,6 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
-import { agentFor, createTestApp, expectErrorShape, makeObject, makeStudio, signIn, type Agent, type TestApp } from "../setup/test-app.ts";
+import { agentsFor, createTestApp, expectErrorShape, makeObject, makeStudio, signIn, type Agent, type TestApp } from "../setup/test-app.ts";
 import { custodyReceipts, events, objects } from "../../server/db/schema.ts";
 import type { CustodyCreate, CustodyReceipt } from "../../shared/schemas/custody.ts";
 import type { HistoryEvent } from "../../shared/schemas/history.ts";
@@ -34,18 +34,9 @@ const objectRow = (app: TestApp, id: string) => app.db.select().from(objects).wh
 const receiptsOf = (app: TestApp, id: string) => app.db.select().from(custodyReceipts).where(eq(custodyReceipts.objectId, id)).all();
 const eventsOf = (app: TestApp, id: string) => app.db.select().from(events).where(eq(events.objectId, id)).all();
 
-async function agents(app: TestApp, s: Awaited<ReturnType<typeof makeStudio>>): Promise<Record<RoleName, Agent>> {
-  return {
-    admin: await agentFor(app, s.people.admin),
-    framer: await agentFor(app, s.people.framer),
-    collector: await agentFor(app, s.people.collector),
-    registrar: await agentFor(app, s.people.registrar),
-  };
-}
-
 beforeAll(async () => {
   studio = await makeStudio(t);
-  as = await agents(t, studio);
+  as = await agentsFor(t, studio.people);
 });
 
 describe("POST /api/objects/:id/custody", () => {
@@ -302,7 +293,7 @@ describe("GET /api/custody/in-studio and /api/custody/receipts", () => {
 
   beforeAll(async () => {
     const s = await makeStudio(u);
-    us = await agents(u, s);
+    us = await agentsFor(u, s.people);
     const mk = (n: string, clientId: string, status = "with-owner") => makeObject(u.db, clientId, { objectNumber: n, title: `Object ${n}`, status: status as "with-owner" });
     numbers = { early: "S-003", late: "S-001", twice: "S-002", noReceipt: "S-004", gone: "S-005", onLoan: "S-006" };
     ids = {

@@ -6,8 +6,8 @@ import { randomUUID } from "node:crypto";
 import { beforeAll, describe, expect, it } from "vitest";
 import request from "supertest";
 import sharp from "sharp";
-import { createTestApp, signIn, type Agent } from "../setup/test-app.ts";
-import { DEMO_PASSWORD, seedDemo } from "../../server/db/seed.ts";
+import { createTestApp, demoAgents, type Agent, type RoleAgents } from "../setup/test-app.ts";
+import { seedDemo } from "../../server/db/seed.ts";
 import { findObjectIdByNumber } from "../../server/features/objects/objects.repo.ts";
 import { formatMoney } from "../../shared/domain/money.ts";
 import { can } from "../../shared/permissions.ts";
@@ -15,7 +15,7 @@ import { valuationLine } from "../../server/features/documents/record-blocks.tsx
 import type { ObjectRecord } from "../../shared/schemas/objects.ts";
 
 const t = createTestApp();
-const as = {} as Record<"admin" | "framer" | "collector" | "registrar", Agent>;
+let as: RoleAgents;
 const tmp = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-docs-"));
 
 /** Collects a binary answer (supertest parses only text and JSON by itself). */
@@ -46,10 +46,7 @@ const idOf = (n: string) => findObjectIdByNumber(t.db, n)!;
 
 beforeAll(async () => {
   await seedDemo(t.db);
-  as.admin = await signIn(t.agent(), "admin@reversa.test", DEMO_PASSWORD);
-  as.framer = await signIn(t.agent(), "framer@reversa.test", DEMO_PASSWORD);
-  as.collector = await signIn(t.agent(), "collector@reversa.test", DEMO_PASSWORD);
-  as.registrar = await signIn(t.agent(), "registrar@reversa.test", DEMO_PASSWORD);
+  as = await demoAgents(t);
 });
 
 describe("the object dossier", () => {

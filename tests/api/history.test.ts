@@ -1,7 +1,7 @@
 import { createHmac } from "node:crypto";
 import { beforeAll, describe, expect, it } from "vitest";
 import { asc, eq } from "drizzle-orm";
-import { agentFor, createTestApp, expectErrorShape, makeClient, makePerson, makeStudio, type Agent, type TestApp } from "../setup/test-app.ts";
+import { agentFor, agentsFor, createTestApp, expectErrorShape, makeClient, makePerson, makeStudio, type Agent, type TestApp } from "../setup/test-app.ts";
 import { events } from "../../server/db/schema.ts";
 import { canonicalJson, eventHash } from "../../server/features/history/history.chain.ts";
 import type { ObjectCreateInput, ObjectRecord } from "../../shared/schemas/objects.ts";
@@ -86,12 +86,7 @@ let second: MountingRecord;
 
 beforeAll(async () => {
   studio = await makeStudio(t);
-  as = {
-    admin: await agentFor(t, studio.people.admin),
-    framer: await agentFor(t, studio.people.framer),
-    registrar: await agentFor(t, studio.people.registrar),
-    collector: await agentFor(t, studio.people.collector),
-  };
+  as = await agentsFor(t, studio.people);
   obj = await createObject(as.framer, objectBody(studio.collectorClient.id, { objectNumber: "H-JOURNEY" }));
   obj = await edit(as.framer, obj, { title: "Heron at the weir, ink study", medium: "Iron gall ink" });
   obj = await edit(as.framer, obj, { valuationMinor: 1_234_500, valuationCurrency: "GBP", valuationDate: "2026-02-01", valuationBasis: "market" });

@@ -5,8 +5,8 @@ import { spawnSync } from "node:child_process";
 import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { and, eq, isNotNull } from "drizzle-orm";
-import { createTestApp, makeClient, makeObject, signIn, type Agent } from "../setup/test-app.ts";
-import { DEMO_PASSWORD, seedDemo } from "../../server/db/seed.ts";
+import { createTestApp, demoAgents, makeClient, makeObject, type Agent, type RoleAgents } from "../setup/test-app.ts";
+import { seedDemo } from "../../server/db/seed.ts";
 import { clients, custodyReceipts, mountings, objects, user } from "../../server/db/schema.ts";
 import { getSettings, saveSettings } from "../../server/features/settings/settings.repo.ts";
 import { formatMoney } from "../../shared/domain/money.ts";
@@ -14,7 +14,7 @@ import { renderScheduleForBench } from "../../server/features/documents/schedule
 import { handlingCautions } from "../../server/features/documents/custody-receipt.tsx";
 
 const t = createTestApp({ env: { PUBLIC_URL: "http://reversa.example.test" } });
-const as = {} as Record<"admin" | "framer" | "collector" | "registrar", Agent>;
+let as: RoleAgents;
 const tmp = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-more-docs-"));
 afterAll(() => fs.rmSync(tmp, { recursive: true, force: true }));
 
@@ -69,10 +69,7 @@ let varga: string;
 
 beforeAll(async () => {
   await seedDemo(t.db);
-  as.admin = await signIn(t.agent(), "admin@reversa.test", DEMO_PASSWORD);
-  as.framer = await signIn(t.agent(), "framer@reversa.test", DEMO_PASSWORD);
-  as.collector = await signIn(t.agent(), "collector@reversa.test", DEMO_PASSWORD);
-  as.registrar = await signIn(t.agent(), "registrar@reversa.test", DEMO_PASSWORD);
+  as = await demoAgents(t);
   wrenfold = t.db.select().from(user).where(eq(user.email, "registrar@reversa.test")).get()!.clientId!;
   varga = t.db.select().from(user).where(eq(user.email, "collector@reversa.test")).get()!.clientId!;
 });

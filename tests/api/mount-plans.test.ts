@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
-import { agentFor, createTestApp, expectErrorShape, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
+import { agentsFor, createTestApp, expectErrorShape, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
 import { mountPlans } from "../../server/db/schema.ts";
 import type { MountPlan, MountPlanInput } from "../../shared/schemas/mount-plan.ts";
 import type { StudioSettings } from "../../shared/schemas/settings.ts";
@@ -26,12 +26,7 @@ beforeAll(async () => {
     institutions: makeObject(t.db, studio.institution.id, { title: "Survey of the east meadow" }),
     others: makeObject(t.db, studio.otherInstitution.id, { title: "Parish boundary deed" }),
   };
-  as = {
-    admin: await agentFor(t, studio.people.admin),
-    framer: await agentFor(t, studio.people.framer),
-    collector: await agentFor(t, studio.people.collector),
-    registrar: await agentFor(t, studio.people.registrar),
-  };
+  as = await agentsFor(t, studio.people);
 });
 
 const calculate = (agent: Agent, body: unknown) => agent.post("/api/mount-plans/calculate").send(body as object);

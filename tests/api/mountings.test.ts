@@ -1,6 +1,7 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
-import { agentFor, createTestApp, expectErrorShape, makeClient, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
+import { accessMatrix, type MatrixRow } from "../setup/access-matrix.ts";
+import { agentsFor, createTestApp, expectErrorShape, makeClient, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
 import { events, mountingRevisions, mountings, objects } from "../../server/db/schema.ts";
 import type { MountingDataInput, MountingRecord } from "../../shared/schemas/mountings.ts";
 import type { Check } from "../../shared/schemas/mount-plan.ts";
@@ -85,12 +86,7 @@ let otherPrivate: string;
 beforeAll(async () => {
   studio = await makeStudio(t);
   otherPrivate = makeClient(t.db, { kind: "private", name: "Basil Owner" }).id;
-  as = {
-    admin: await agentFor(t, studio.people.admin),
-    framer: await agentFor(t, studio.people.framer),
-    registrar: await agentFor(t, studio.people.registrar),
-    collector: await agentFor(t, studio.people.collector),
-  };
+  as = await agentsFor(t, studio.people);
 });
 
 describe("the life cycle of a mounting record", () => {
@@ -562,39 +558,10 @@ describe("records the contract refuses", () => {
 });
 
 describe("who may do what with mounting records", () => {
-  // Each role reaches for the object it would own: studio staff any object, a registrar their
-  // institution's (or another's), a collector their own (or another private client's).
-  type Who = "admin" | "framer" | "registrar-own" | "registrar-other" | "collector-own" | "collector-other" | "signed-out";
-  const WHO: Who[] = ["admin", "framer", "registrar-own", "registrar-other", "collector-own", "collector-other", "signed-out"];
-
-  function subject(who: Who): { agent: Agent; objectId: string } {
-    const on = (clientId: string) => makeObject(t.db, clientId);
-    switch (who) {
-      case "admin":
-        return { agent: as.admin, objectId: on(studio.collectorClient.id) };
-      case "framer":
-        return { agent: as.framer, objectId: on(studio.institution.id) };
-      case "registrar-own":
-        return { agent: as.registrar, objectId: on(studio.institution.id) };
-      case "registrar-other":
-        return { agent: as.registrar, objectId: on(studio.otherInstitution.id) };
-      case "collector-own":
-        return { agent: as.collector, objectId: on(studio.collectorClient.id) };
-      case "collector-other":
-        return { agent: as.collector, objectId: on(otherPrivate) };
-      case "signed-out":
-        return { agent: t.agent(), objectId: on(studio.collectorClient.id) };
-    }
-  }
-
-  const refusal = (status: number) => ({ 401: "unauthenticated", 403: "forbidden", 404: "not_found" })[status as 401 | 403 | 404];
-
-  type Row = { route: string; expected: Record<Who, number>; run: (agent: Agent, objectId: string) => Promise<{ status: number; body: unknown; written: () => boolean }> };
-
   /** Did the request leave any trace (row version, revision, status or event)? */
   const snapshot = (objectId: string) => JSON.stringify({ m: mountingsOf(objectId).map((m) => [m.id, m.version, m.status, m.currentRevision]), e: eventsOf(objectId).length });
 
-  const ROWS: Row[] = [
+  const ROWS: MatrixRow[] = [
     {
       route: "GET /api/objects/:id/mountings",
       expected: { admin: 200, framer: 200, "registrar-own": 200, "registrar-other": 404, "collector-own": 200, "collector-other": 404, "signed-out": 401 },
@@ -703,23 +670,7 @@ describe("who may do what with mounting records", () => {
     },
   ];
 
-  const CASES = ROWS.flatMap((row) => WHO.map((who) => ({ route: row.route, who, status: row.expected[who], row })));
-
-  it.each(CASES)("when $who calls $route, then it answers $status", async ({ who, status, row }) => {
-    const { agent, objectId } = subject(who);
-    const res = await row.run(agent, objectId);
-    expect(res.status).toBe(status);
-    const code = refusal(status);
-    if (code) {
-      expectErrorShape(res.body, code);
-      expect(res.written(), "a refused request left a trace").toBe(false);
-    } else if (status === 409) {
-      expectErrorShape(res.body, "conflict");
-      expect(res.written()).toBe(false);
-    } else if (row.route.startsWith("POST") || row.route.startsWith("PUT")) {
-      expect(res.written(), "an allowed write left no trace").toBe(true);
-    }
-  });
+  accessMatrix(t, ROWS, () => ({ studio, as, otherPrivateClientId: otherPrivate }));
 
   it("when an admin records a mounting, then the record names the admin as framer", async () => {
     const res = await as.admin.post(`/api/objects/${makeObject(t.db, studio.institution.id)}/mountings`).send(createBody());

@@ -7,7 +7,7 @@ import { eq, sql } from "drizzle-orm";
 import sharp from "sharp";
 import exifr from "exifr";
 import type { Response } from "supertest";
-import { agentFor, createTestApp, expectErrorShape, makeObject, makeStudio, type Agent, type TestApp } from "../setup/test-app.ts";
+import { agentFor, agentsFor, createTestApp, expectErrorShape, makeObject, makeStudio, type Agent, type TestApp } from "../setup/test-app.ts";
 import { conditionReports, photos } from "../../server/db/schema.ts";
 import { uploadTempDir } from "../../server/features/photos/photos.routes.ts";
 import type { Photo } from "../../shared/schemas/photos.ts";
@@ -141,12 +141,7 @@ afterAll(() => fs.rmSync(uploadTempDir(), { recursive: true, force: true }));
 
 beforeAll(async () => {
   studio = await makeStudio(t);
-  as = {
-    admin: await agentFor(t, studio.people.admin),
-    framer: await agentFor(t, studio.people.framer),
-    collector: await agentFor(t, studio.people.collector),
-    registrar: await agentFor(t, studio.people.registrar),
-  };
+  as = await agentsFor(t, studio.people);
   obj = {
     collector: makeObject(t.db, studio.collectorClient.id),
     institution: makeObject(t.db, studio.institution.id),

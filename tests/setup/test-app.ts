@@ -7,6 +7,7 @@ import { createApp } from "../../server/app.ts";
 import { openDatabase, type DbHandle } from "../../server/db/client.ts";
 import { loadConfig } from "../../server/lib/config.ts";
 import { makeClient, makeObject, makeUser } from "../../server/db/factories.ts";
+import { DEMO_PASSWORD, DEMO_USERS } from "../../server/db/seed.ts";
 import type { Role } from "../../shared/schemas/auth.ts";
 import type { ClientRecord } from "../../shared/schemas/clients.ts";
 
@@ -95,6 +96,32 @@ export async function makeStudio(t: TestApp) {
     registrar: await makePerson(t, "registrar", institution.id),
   };
   return { collectorClient, institution, otherInstitution, people };
+}
+
+/** One signed-in agent for each role. */
+export type RoleAgents = Record<Role, Agent>;
+
+/** Signs one agent in for each person of a studio, one after the other (password hashing is CPU-bound). */
+export async function agentsFor(t: TestApp, people: Record<Role, Person>): Promise<RoleAgents> {
+  return {
+    admin: await agentFor(t, people.admin),
+    framer: await agentFor(t, people.framer),
+    registrar: await agentFor(t, people.registrar),
+    collector: await agentFor(t, people.collector),
+  };
+}
+
+/** `makeStudio` with one signed-in agent per role beside it (`as.framer`, …). */
+export async function makeSignedInStudio(t: TestApp) {
+  const studio = await makeStudio(t);
+  return { studio, as: await agentsFor(t, studio.people) };
+}
+
+/** After `seedDemo`: one agent signed in as each demo user (admin@reversa.test, …) with the demo password. */
+export async function demoAgents(t: TestApp): Promise<RoleAgents> {
+  const as: Partial<RoleAgents> = {};
+  for (const u of DEMO_USERS) as[u.role] = await signIn(t.agent(), u.email, DEMO_PASSWORD);
+  return as as RoleAgents;
 }
 
 /** The one error shape: `{ error: { code, message, fields? } }` with nothing else beside it. */
