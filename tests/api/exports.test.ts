@@ -7,8 +7,9 @@ import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { parse } from "csv-parse/sync";
 import sharp from "sharp";
 import { and, eq, inArray, sql } from "drizzle-orm";
-import { createTestApp, expectErrorShape, makeObject, signIn, type Agent } from "../setup/test-app.ts";
-import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from "../../server/db/seed.ts";
+import { pollUntil } from "../setup/poll.ts";
+import { createTestApp, demoAgents, expectErrorShape, makeObject, type Agent, type RoleAgents } from "../setup/test-app.ts";
+import { seedDemo } from "../../server/db/seed.ts";
 import { clients, conditionReports, conditionRevisions, custodyReceipts, events, objects, photos, user } from "../../server/db/schema.ts";
 import { createExportsService, JOB_TTL_MS } from "../../server/features/exports/exports.service.ts";
 import { columnsFor, EXPORT_COLUMNS, minorToDecimal } from "../../server/features/exports/exports.columns.ts";
@@ -22,7 +23,7 @@ import { minorDigits } from "../../shared/domain/money.ts";
 import type { SessionUser } from "../../shared/schemas/auth.ts";
 
 const t = createTestApp();
-const as = {} as Record<"admin" | "framer" | "registrar" | "collector", Agent>;
+let as: RoleAgents;
 let varga: string; // the demo collector's client
 let wrenfold: string; // the demo registrar's client
 let photoId: string;
@@ -91,7 +92,7 @@ afterAll(() => {
 
 beforeAll(async () => {
   await seedDemo(t.db);
-  for (const u of DEMO_USERS) as[u.role] = await signIn(t.agent(), u.email, DEMO_PASSWORD);
+  as = await demoAgents(t);
   const byName = (name: string) => t.db.select({ id: clients.id }).from(clients).where(eq(clients.name, name)).get()!.id;
   varga = byName("Odile Varga-Pennick");
   wrenfold = byName("Wrenfold Hall Collection Trust");
@@ -395,19 +396,18 @@ describe("bulk ZIP of one client's records", () => {
     expect(start.body).toEqual({ jobId: expect.any(String) });
     const { jobId } = start.body as { jobId: string };
     const seen: number[] = [];
-    // Poll for up to a minute: on a loaded two-core machine the dossiers in the ZIP take a while.
-    const until = Date.now() + 60_000;
-    while (Date.now() < until) {
-      const s = await agent.get(`/api/exports/${jobId}`);
-      expect(s.status).toBe(200);
-      expect(s.body).toEqual({ state: expect.stringMatching(/^(running|done|failed)$/), progress: expect.any(Number), message: expect.any(String) });
-      seen.push(s.body.progress);
-      if (s.body.state !== "running") {
-        expect(s.body.state).toBe("done");
-        break;
-      }
-      await new Promise((r) => setTimeout(r, 25));
-    }
+    // On a loaded two-core machine the dossiers in the ZIP take a while; the test's timeout bounds the wait.
+    const last = await pollUntil(
+      async () => {
+        const s = await agent.get(`/api/exports/${jobId}`);
+        expect(s.status).toBe(200);
+        expect(s.body).toEqual({ state: expect.stringMatching(/^(running|done|failed)$/), progress: expect.any(Number), message: expect.any(String) });
+        seen.push(s.body.progress);
+        return s.body as { state: string };
+      },
+      (s) => s.state !== "running",
+    );
+    expect(last.state).toBe("done");
     return { jobId, seen };
   }
 
@@ -535,11 +535,10 @@ describe("bulk ZIP of one client's records", () => {
     expect((await as.collector.post(`/api/clients/${varga}/exports/archive`).send({ originals: true })).status).toBe(403);
     const start = await as.admin.post(`/api/clients/${varga}/exports/archive`).send({ originals: true });
     expect(start.status).toBe(202);
-    for (;;) {
-      const s = await as.admin.get(`/api/exports/${start.body.jobId}`);
-      if (s.body.state !== "running") break;
-      await new Promise((r) => setTimeout(r, 25));
-    }
+    await pollUntil(
+      () => as.admin.get(`/api/exports/${start.body.jobId}`),
+      (s) => s.body.state !== "running",
+    );
     const res = await raw(as.admin, `/api/exports/${start.body.jobId}/download`);
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-export-test-"));
     try {
@@ -573,12 +572,15 @@ describe("bulk ZIP of one client's records", () => {
     const jobId = service.startArchive(collector, findClient(t.db, varga)!);
     const seen: number[] = [];
     // Watched every turn of the event loop until it ends, however long a loaded machine takes (the test timeout bounds it).
-    for (;;) {
-      const s = service.status(collector, jobId);
-      if (seen.at(-1) !== s.progress) seen.push(s.progress);
-      if (s.state !== "running") break;
-      await new Promise((r) => setImmediate(r));
-    }
+    await pollUntil(
+      () => {
+        const s = service.status(collector, jobId);
+        if (seen.at(-1) !== s.progress) seen.push(s.progress);
+        return s;
+      },
+      (s) => s.state !== "running",
+      { intervalMs: 0 },
+    );
     expect(service.status(collector, jobId).state).toBe("done");
     expect(seen.length).toBeGreaterThan(2); // 0, at least one step between, 1
     expect(seen[0]).toBe(0);
