@@ -1,10 +1,10 @@
-import { randomUUID } from "node:crypto";
 import { beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import type { z } from "zod";
+import { makeMounting, makePhoto } from "../../server/db/factories.ts";
 import { accessMatrix, type MatrixRow } from "../setup/access-matrix.ts";
 import { agentFor, agentsFor, createTestApp, expectErrorShape, makeClient, makeObject, makePerson, makeStudio, signIn, type Agent, type Person } from "../setup/test-app.ts";
-import { conditionReports, conditionRevisions, conditionTerms, events, mountings, objects, photos, user } from "../../server/db/schema.ts";
+import { conditionReports, conditionRevisions, conditionTerms, events, objects, user } from "../../server/db/schema.ts";
 import { DEMO_PASSWORD, seedDemo } from "../../server/db/seed.ts";
 import { seedCondition } from "../../server/db/seed-condition.ts";
 import { findObjectIdByNumber } from "../../server/features/objects/objects.repo.ts";
@@ -58,34 +58,6 @@ async function signedOn(objectId: string, data: ConditionDataInput = DATA, over:
   const res = await agent.post(`/api/condition/${d.id}/sign`).send({ version: d.version });
   if (res.status !== 200) throw new Error(`Sign answered ${res.status}: ${JSON.stringify(res.body)}`);
   return res.body;
-}
-
-/** A photo row as the photos feature would leave it (the files themselves are not needed here). */
-function makePhoto(objectId: string): string {
-  const id = randomUUID();
-  t.db
-    .insert(photos)
-    .values({
-      id,
-      objectId,
-      kind: "condition",
-      mime: "image/jpeg",
-      width: 1200,
-      height: 900,
-      bytes: 123_456,
-      sha256: "a".repeat(64),
-      originalKey: `o/${id}`,
-      fullKey: `f/${id}`,
-      webKey: `w/${id}`,
-      thumbKey: `t/${id}`,
-    })
-    .run();
-  return id;
-}
-function makeMounting(objectId: string, status: "draft" | "completed" = "completed", mountedOn = "2026-01-10"): string {
-  const id = randomUUID();
-  t.db.insert(mountings).values({ id, objectId, status, reason: "first-mounting", mountedOn, framerName: "Test framer" }).run();
-  return id;
 }
 
 beforeAll(async () => {
@@ -468,26 +440,26 @@ describe("what a report may refer to", () => {
   };
 
   it("when the mounting is one of the same object, then the report refers to it", async () => {
-    const m = makeMounting(objectId);
+    const m = makeMounting(t.db, studio.people.framer, objectId, { mountedOn: "2026-01-10" }).id;
     const r = await draftOn(objectId, DATA, { context: "after-mounting", mountingId: m });
     expect(r.mountingId).toBe(m);
   });
 
   it("when the mounting belongs to another object or does not exist, then it answers 422 at mountingId", async () => {
-    const elsewhere = makeMounting(makeObject(t.db, studio.institution.id));
+    const elsewhere = makeMounting(t.db, studio.people.framer, makeObject(t.db, studio.institution.id), { mountedOn: "2026-01-10" }).id;
     expect(Object.keys(await refused(createBody(DATA, { mountingId: elsewhere })))).toEqual(["mountingId"]);
     expect(Object.keys(await refused(createBody(DATA, { mountingId: "no-such-mounting" })))).toEqual(["mountingId"]);
   });
 
   it("when a registrar names a draft mounting, then it answers 422 as if it did not exist; the studio may name it", async () => {
-    const draft = makeMounting(objectId, "draft");
+    const draft = makeMounting(t.db, studio.people.framer, objectId, { mountedOn: "2026-01-10", status: "draft" }).id;
     const fields = await refused(createBody(DATA, { mountingId: draft }), as.registrar);
     expect(fields).toEqual({ mountingId: "Choose a mounting record of this object." });
     expect((await draftOn(objectId, DATA, { mountingId: draft })).mountingId).toBe(draft);
   });
 
   it("when the photos are the object's own, then the report keeps them, with a marker on one", async () => {
-    const [p1, p2] = [makePhoto(objectId), makePhoto(objectId)];
+    const [p1, p2] = [makePhoto(t.db, objectId), makePhoto(t.db, objectId)];
     const marker: FindingInput = { ...TEAR, location: { kind: "marker", photoId: p2, x: 0.92, y: 0.4 } };
     const r = await draftOn(objectId, with_({ photoIds: [p1, p2], findings: [FOXING, marker] }));
     expect(r.current.data.photoIds).toEqual([p1, p2]);
@@ -495,14 +467,14 @@ describe("what a report may refer to", () => {
   });
 
   it("when a photo is another object's or unknown, then it answers 422 at data.photoIds.N", async () => {
-    const own = makePhoto(objectId);
-    const foreign = makePhoto(makeObject(t.db, studio.institution.id));
+    const own = makePhoto(t.db, objectId);
+    const foreign = makePhoto(t.db, makeObject(t.db, studio.institution.id));
     const fields = await refused(createBody(with_({ photoIds: [own, foreign, "no-such-photo"] })));
     expect(Object.keys(fields).sort()).toEqual(["data.photoIds.1", "data.photoIds.2"]);
   });
 
   it("when a marker is on a photo that is not part of the report, then it answers 422 at the finding's location", async () => {
-    const p = makePhoto(objectId);
+    const p = makePhoto(t.db, objectId);
     const fields = await refused(createBody(with_({ findings: [{ ...TEAR, location: { kind: "marker", photoId: p, x: 0.5, y: 0.5 } }] })));
     expect(Object.keys(fields)).toEqual(["data.findings.0.location.photoId"]);
   });
