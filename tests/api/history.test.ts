@@ -1,6 +1,7 @@
 import { createHmac } from "node:crypto";
 import { beforeAll, describe, expect, it } from "vitest";
 import { asc, eq } from "drizzle-orm";
+import { A4_CORNERS, A4_HINGED } from "../../server/db/factories.ts";
 import { agentFor, agentsFor, createTestApp, expectErrorShape, makeClient, makePerson, makeStudio, type Agent, type TestApp } from "../setup/test-app.ts";
 import { events } from "../../server/db/schema.ts";
 import { canonicalJson, eventHash } from "../../server/features/history/history.chain.ts";
@@ -27,29 +28,9 @@ const objectBody = (clientId: string, over: Partial<ObjectCreateInput> = {}): Ob
   ...over,
 });
 
-// 5 mm overlap a side: common practice (no source). T-hinges of Japanese tissue with wheat starch paste
-// along the top (Library of Congress, "Matting and Hinging Works of Art on Paper").
-const DATA: MountingDataInput = {
-  plan: { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 60 } },
-  boards: { window: { grade: "museum", buffered: false, ply: 4 }, backing: { grade: "museum", buffered: false, ply: 4 } },
-  attachment: {
-    method: "t-hinge",
-    tissue: "Kozo",
-    adhesive: "wheat-starch-paste",
-    hinges: [
-      { edge: "top", offsetMm: 40, widthMm: 25 },
-      { edge: "top", offsetMm: 145, widthMm: 25 },
-    ],
-  },
-  glazing: { type: "uv-glass", thicknessMm: 2 },
-  undoNotes: "Release both hinges with a damp blotter.",
-};
-const REFRAME: MountingDataInput = {
-  ...DATA,
-  attachment: { method: "corners", hinges: [] },
-  glazing: { type: "ar-uv-glass", thicknessMm: 3 },
-  undoNotes: "Slide the sheet out of the corners.",
-};
+// The A4 print hinged, then reframed in corners (sources beside the values in server/db/factories.ts).
+const DATA = A4_HINGED;
+const REFRAME = A4_CORNERS;
 
 async function createObject(agent: Agent, body: ObjectCreateInput): Promise<ObjectRecord> {
   const res = await agent.post("/api/objects").send(body);

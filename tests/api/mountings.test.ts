@@ -1,5 +1,6 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
+import { A4_CORNERS, A4_HINGED } from "../../server/db/factories.ts";
 import { accessMatrix, type MatrixRow } from "../setup/access-matrix.ts";
 import { agentsFor, createTestApp, expectErrorShape, makeClient, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
 import { events, mountingRevisions, mountings, objects } from "../../server/db/schema.ts";
@@ -12,37 +13,9 @@ type Role = "admin" | "framer" | "registrar" | "collector";
 let studio: Awaited<ReturnType<typeof makeStudio>>;
 let as: Record<Role, Agent>;
 
-// A4 = 210 × 297 mm (ISO 216); 5 mm overlap a side: common practice (no source), so the window is 200 × 287 mm.
-// Two T-hinges of Japanese tissue with wheat starch paste along the top edge (Library of Congress,
-// "Matting and Hinging Works of Art on Paper"); UV-filtering glass (NEDCC leaflet 4.10).
-const DATA: MountingDataInput = {
-  plan: { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 60 } },
-  boards: {
-    window: { grade: "museum", buffered: false, ply: 4, colour: "Antique white", maker: "Bainbridge", batch: "MB-2291" },
-    backing: { grade: "museum", buffered: false, ply: 4, batch: "MB-2292" },
-  },
-  attachment: {
-    method: "t-hinge",
-    tissue: "Kozo, Japanese tissue",
-    tissueWeightGsm: 12,
-    adhesive: "wheat-starch-paste",
-    hinges: [
-      { edge: "top", offsetMm: 40, widthMm: 25 },
-      { edge: "top", offsetMm: 145, widthMm: 25 },
-    ],
-  },
-  glazing: { type: "uv-glass", thicknessMm: 2 },
-  undoNotes: "Release both T-hinges with a damp blotter over the paste; lift the sheet once the paste has softened.",
-};
-
-/** A second mount: corners under a conservation board and anti-reflective UV glass. */
-const REFRAME: MountingDataInput = {
-  ...DATA,
-  boards: { window: { grade: "conservation", buffered: true, ply: 8, batch: "CB-7710" }, backing: { grade: "conservation", buffered: true, ply: 4 } },
-  attachment: { method: "corners", hinges: [] },
-  glazing: { type: "ar-uv-glass", thicknessMm: 3 },
-  undoNotes: "Slide the sheet out of the four polyester corners; nothing is stuck to it.",
-};
+// The A4 print's two mounts, hinged and then in corners, with their sources beside the values in server/db/factories.ts.
+const DATA = A4_HINGED;
+const REFRAME = A4_CORNERS;
 
 const with_ = (over: Partial<MountingDataInput>): MountingDataInput => ({ ...DATA, ...over });
 const createBody = (data: MountingDataInput = DATA, over: Record<string, unknown> = {}) => ({ reason: "first-mounting", mountedOn: "2026-03-02", data, ...over });

@@ -1,10 +1,11 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
+import { A4_HINGED } from "../../server/db/factories.ts";
 import { agentFor, createTestApp, expectErrorShape, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
 import { objects } from "../../server/db/schema.ts";
 import { REGISTER_BOARD_GRADES, REGISTER_GLAZINGS, REGISTER_METHODS, type ObjectListItem } from "../../shared/schemas/objects.ts";
 import { ATTACHMENT_METHODS, BOARD_GRADES } from "../../shared/schemas/mount-plan.ts";
-import { ATTACHMENT_METHOD_LABELS, GLAZING_TYPES, type MountingDataInput, type MountingRecord } from "../../shared/schemas/mountings.ts";
+import { ATTACHMENT_METHOD_LABELS, GLAZING_TYPES, type MountingRecord } from "../../shared/schemas/mountings.ts";
 
 const t = createTestApp();
 let framer: Agent;
@@ -24,22 +25,8 @@ function setRegister(objectId: string, cols: Partial<typeof objects.$inferInsert
   t.db.update(objects).set(cols).where(eq(objects.id, objectId)).run();
 }
 
-// A4 (ISO 216), 5 mm overlap (common practice, no source); T-hinges with wheat starch paste
-// (Library of Congress, "Matting and Hinging Works of Art on Paper"); UV-filtering glass (NEDCC leaflet 4.10).
-const HINGED: MountingDataInput = {
-  plan: { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 60 } },
-  boards: { window: { grade: "museum", buffered: false, ply: 4, batch: "MB-2291" }, backing: { grade: "museum", buffered: false, ply: 4 } },
-  attachment: {
-    method: "t-hinge",
-    adhesive: "wheat-starch-paste",
-    hinges: [
-      { edge: "top", offsetMm: 40, widthMm: 25 },
-      { edge: "top", offsetMm: 145, widthMm: 25 },
-    ],
-  },
-  glazing: { type: "uv-glass", thicknessMm: 2 },
-  undoNotes: "Release both T-hinges with a damp blotter over the paste.",
-};
+// The A4 print hinged (sources beside the values in server/db/factories.ts).
+const HINGED = A4_HINGED;
 
 beforeAll(async () => {
   const s = await makeStudio(t);
