@@ -3,6 +3,7 @@ import { eq } from "drizzle-orm";
 import { agentsFor, createTestApp, expectErrorShape, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
 import { conditionTerms } from "../../server/db/schema.ts";
 import type { ConditionReport, Term } from "../../shared/schemas/condition.ts";
+import { first } from "../setup/lists.ts";
 
 const t = createTestApp();
 
@@ -190,7 +191,7 @@ describe("old reports keep their words", () => {
     expect(signed.status).toBe(200);
     expect((await as.admin.put(`/api/condition-terms/${made.id}`).send({ ...made, active: false })).status).toBe(200);
     const r: ConditionReport = (await as.collector.get(`/api/condition/${draft.body.id}`)).body;
-    expect(r.current.data.findings[0].term).toBe("active mould bloom");
+    expect(first(r.current.data.findings).term).toBe("active mould bloom");
     expect(r.cautions).toEqual(["Treat as mould: nitrile gloves and a respirator."]);
     // Renaming the retired term changes the list, never the words of the report.
     await as.admin.put(`/api/condition-terms/${made.id}`).send({ ...made, term: "mould bloom", active: false });

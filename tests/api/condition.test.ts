@@ -13,6 +13,7 @@ import type { ConditionDataInput, ConditionReport, FindingSchema } from "../../s
 import type { ComparedFinding } from "../../shared/domain/condition.ts";
 import type { HistoryEvent } from "../../shared/schemas/history.ts";
 import type { SessionUser } from "../../shared/schemas/auth.ts";
+import { at, first } from "../setup/lists.ts";
 
 /** The studio's "now" in these tests: every signature is stamped with it. */
 const NOW = new Date("2026-12-01T10:30:00.000Z");
@@ -143,8 +144,8 @@ describe("the life cycle of a condition report", () => {
       actorName: "Test framer",
       summary: "Condition on arrival: poor — 3 findings (foxing, tear, abrasion). Examined by Test framer.",
     });
-    expect(evs[0].at.toISOString()).toBe(NOW.toISOString());
-    expect(evs[0].data).toMatchObject({ reportId: report.id, revision: 1, rating: "poor", findings: 3, unresolved: 2 });
+    expect(first(evs).at.toISOString()).toBe(NOW.toISOString());
+    expect(first(evs).data).toMatchObject({ reportId: report.id, revision: 1, rating: "poor", findings: 3, unresolved: 2 });
   });
 
   it("when someone edits a signed report in place, then it answers 409 and the report is unchanged", async () => {
@@ -237,8 +238,8 @@ describe("the life cycle of a condition report", () => {
     expect(res.status).toBe(200);
     const items: HistoryEvent[] = res.body.items;
     expect(items.map((e) => e.type)).toEqual(["condition-reported", "condition-reported"]);
-    expect(items[0].summary).toContain("corrected");
-    expect(items[1].summary).toMatch(/^Condition on arrival: poor/);
+    expect(first(items).summary).toContain("corrected");
+    expect(at(items, 1).summary).toMatch(/^Condition on arrival: poor/);
     const verify = await as.admin.get(`/api/objects/${objectId}/history/verify`);
     expect(verify.body).toEqual({ ok: true, checked: 2 });
   });
@@ -265,7 +266,7 @@ describe("the summary written to the history", () => {
   it("when a report with foxing, a tear and mould is signed, then the event reads like the brief's example and names no value", async () => {
     const objectId = makeObject(t.db, studio.institution.id, { valuationMinor: 420000, valuationCurrency: "GBP" });
     await signedOn(objectId, with_({ findings: [FOXING, TEAR, MOULD] }), {}, as.registrar);
-    const [ev] = eventsOf(objectId);
+    const ev = first(eventsOf(objectId));
     expect(ev.summary).toBe("Condition on arrival: fair — 3 findings (foxing, tear, mould). Examined by Test registrar.");
     expect(JSON.stringify(ev)).not.toMatch(/4200|valuation/i);
   });
@@ -273,7 +274,7 @@ describe("the summary written to the history", () => {
   it("when a report has no findings, then it says so", async () => {
     const objectId = makeObject(t.db, studio.institution.id);
     await signedOn(objectId, with_({ overallRating: "good", findings: [] }), { context: "periodic-check" });
-    expect(eventsOf(objectId)[0].summary).toBe("Condition at a periodic check: good — no findings. Examined by Test framer.");
+    expect(first(eventsOf(objectId)).summary).toBe("Condition at a periodic check: good — no findings. Examined by Test framer.");
   });
 });
 
@@ -341,7 +342,9 @@ describe("signing", () => {
     const s = await signedOn(objectId, with_({ signatures: { examiner: EXAMINER, otherParty: OTHER_PARTY } }), { context: "loan-out" });
     expect(s.status).toBe("signed");
     expect(s.current.data.signatures.otherParty).toEqual(OTHER_PARTY);
-    expect(eventsOf(objectId)[0].summary).toBe("Condition at loan out: fair — 2 findings (foxing, tear). Examined by Test framer. Signed for the other party by Priya Anand-Coll.");
+    expect(first(eventsOf(objectId)).summary).toBe(
+      "Condition at loan out: fair — 2 findings (foxing, tear). Examined by Test framer. Signed for the other party by Priya Anand-Coll.",
+    );
   });
 
   it("when a report outside a loan has only the examiner's signature, then it signs", async () => {
@@ -463,7 +466,7 @@ describe("what a report may refer to", () => {
     const marker: FindingInput = { ...TEAR, location: { kind: "marker", photoId: p2, x: 0.92, y: 0.4 } };
     const r = await draftOn(objectId, with_({ photoIds: [p1, p2], findings: [FOXING, marker] }));
     expect(r.current.data.photoIds).toEqual([p1, p2]);
-    expect(r.current.data.findings[1].location).toEqual({ kind: "marker", photoId: p2, x: 0.92, y: 0.4 });
+    expect(at(r.current.data.findings, 1).location).toEqual({ kind: "marker", photoId: p2, x: 0.92, y: 0.4 });
   });
 
   it("when a photo is another object's or unknown, then it answers 422 at data.photoIds.N", async () => {
@@ -495,7 +498,7 @@ describe("what a report may refer to", () => {
 
   it("when a term is typed in another case, then the report keeps the vocabulary's spelling", async () => {
     const r = await draftOn(objectId, with_({ findings: [{ ...FOXING, term: "Foxing" }] }));
-    expect(r.current.data.findings[0].term).toBe("foxing");
+    expect(first(r.current.data.findings).term).toBe("foxing");
   });
 
   it("when a term has been retired, then a new report may not use it, but a signed report that has it keeps it through a correction", async () => {
@@ -649,7 +652,7 @@ describe("the condition register", () => {
   let own: string; // the collector's object
   let inst: string; // the registrar's institution's object
   let otherInst: string;
-  const r: Record<string, ConditionReport> = {};
+  const r = {} as Record<"ownArrival" | "ownDraft" | "instCheck" | "instResolved" | "otherIncident", ConditionReport>;
 
   beforeAll(async () => {
     examiner = await makePerson(t, "framer");
@@ -901,20 +904,22 @@ describe("the demo condition reports", () => {
   });
 
   it("when 2026-0001's two reports are compared, then the foxing is unchanged, the tear worsened and the abrasion new", () => {
-    const [later, earlier] = service().listForObject(framer, numbered("2026-0001"));
+    const reports = service().listForObject(framer, numbered("2026-0001"));
+    expect(reports).toHaveLength(2);
+    const [later, earlier] = [at(reports, 0), at(reports, 1)];
     const c = service().compare(framer, earlier.id, later.id);
     expect(Object.fromEntries(c.findings.map((f) => [(f.after ?? f.before)!.term, f.status]))).toEqual({ foxing: "unchanged", tear: "worsened", abrasion: "new" });
   });
 
   it("when 2026-0009's report is opened, then it shows the mould caution", () => {
-    const [r] = service().listForObject(framer, numbered("2026-0009"));
+    const r = first(service().listForObject(framer, numbered("2026-0009")));
     expect(r.cautions).toHaveLength(1);
     expect(r.cautions[0]).toMatch(/respirator/);
   });
 
   it("when 2026-0018 went out on loan, then its report is signed by both parties and its check falls due a loan interval later", () => {
     const id = numbered("2026-0018");
-    const [r] = service().listForObject(framer, id);
+    const r = first(service().listForObject(framer, id));
     expect(r.context).toBe("loan-out");
     expect(r.current.data.signatures.otherParty?.name).toBe("Owen Taverner");
     const o = demo.db.select().from(objects).where(eq(objects.id, id)).get()!;

@@ -8,6 +8,7 @@ import type { InStudioItem } from "../../server/features/custody/custody.service
 import { DEMO_PASSWORD, seedDemo } from "../../server/db/seed.ts";
 import { seedCustody } from "../../server/db/seed-custody.ts";
 import { verifyChains } from "../../server/features/history/history.chain.ts";
+import { at, first } from "../setup/lists.ts";
 
 // "Today" is 1 December 2026 (midday UTC, the same day in any studio's time zone).
 const clock = () => new Date("2026-12-01T12:00:00Z");
@@ -170,11 +171,11 @@ describe("POST /api/objects/:id/custody", () => {
     expect(history.status).toBe(200);
     const items = history.body.items as HistoryEvent[];
     expect(items.map((e) => e.type)).toEqual(steps.map((s) => s.type).reverse());
-    const intake = items[items.length - 1];
+    const intake = at(items, -1);
     expect(intake.summary).toContain("from From intake to To intake");
     expect(intake.summary).toContain("Condition on arrival: Condition at intake.");
     expect(intake.summary).toContain("Received from the owner on 1 Sep 2026");
-    expect(items[0].summary).toContain("Condition on departure: Condition at return-to-owner.");
+    expect(first(items).summary).toContain("Condition on departure: Condition at return-to-owner.");
     expect(intake.data).toMatchObject({ kind: "intake", direction: "in", statusBefore: "with-owner", statusAfter: "in-studio" });
     expect(verifyChains(t.db, id).ok).toBe(true);
 

@@ -13,6 +13,7 @@ import { formatMoney } from "../../shared/domain/money.ts";
 import { can } from "../../shared/permissions.ts";
 import { valuationLine } from "../../server/features/documents/record-blocks.tsx";
 import type { ObjectRecord } from "../../shared/schemas/objects.ts";
+import { first, present } from "../setup/lists.ts";
 
 const t = createTestApp();
 let as: RoleAgents;
@@ -59,7 +60,7 @@ describe("the object dossier", () => {
     const res = await post(as.framer, `/api/objects/${objectId()}/documents/dossier`);
     expect(res.status, String(res.body)).toBe(200);
     pdf = res.body as Buffer;
-    code = res.headers["x-verification-code"];
+    code = present(res.headers["x-verification-code"], "the x-verification-code header");
     text = textOf(pdf);
   });
 
@@ -94,7 +95,7 @@ describe("the object dossier", () => {
     expect(text).toContain(current.current.plan.display.aperture);
     expect(text).toContain(current.current.plan.display.outer);
     expect(text).toContain("How to undo this mount");
-    expect(text).toContain(current.current.data.undoNotes.split("\n")[0].split(" ").slice(0, 4).join(" "));
+    expect(text).toContain(first(current.current.data.undoNotes.split("\n")).split(" ").slice(0, 4).join(" "));
     expect(text).toContain("Conservation checks");
     expect(text).toContain("Mounting history");
     expect(text).toMatch(/Current\s/);
@@ -208,7 +209,7 @@ describe("the condition report for an insurer", () => {
       status: string;
       current: { data: { findings: { term: string }[] } };
     }[];
-    const latest = reports.filter((r) => r.status === "signed").sort((a, b) => (a.reportDate < b.reportDate ? 1 : -1))[0];
+    const latest = first(reports.filter((r) => r.status === "signed").sort((a, b) => (a.reportDate < b.reportDate ? 1 : -1)));
     const res = await post(as.collector, `/api/condition/${latest.id}/document`);
     expect(res.status).toBe(200);
     expect(res.headers["content-disposition"]).toMatch(/^attachment; filename="condition-report-2026-0001-/);

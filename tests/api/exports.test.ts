@@ -21,6 +21,7 @@ import { ADHESIVES, ATTACHMENT_METHODS, BOARD_GRADES } from "../../shared/schema
 import { GLAZING_TYPES, MOUNTING_REASONS, MOUNTING_STATUSES } from "../../shared/schemas/mountings.ts";
 import { minorDigits } from "../../shared/domain/money.ts";
 import type { SessionUser } from "../../shared/schemas/auth.ts";
+import { at, first } from "../setup/lists.ts";
 
 const t = createTestApp();
 let as: RoleAgents;
@@ -54,7 +55,7 @@ async function csv(agent: Agent, url: string): Promise<{ text: string; rows: Row
   expect(res.headers["content-disposition"]).toMatch(/^attachment; filename=".+\.csv"$/);
   const text = (res.body as Buffer).toString("utf8");
   const rows = parse(text, { bom: true, columns: true, record_delimiter: "\r\n" }) as Row[];
-  const header = (parse(text, { bom: true, to_line: 1 }) as string[][])[0];
+  const header = first(parse(text, { bom: true, to_line: 1 }) as string[][], "the CSV header");
   return { text, rows, header };
 }
 
@@ -422,7 +423,7 @@ describe("bulk ZIP of one client's records", () => {
   it("when the collector asks for a ZIP, then the job runs to done with rising progress, and the ZIP holds every dataset, the photos (metadata removed) and the PDFs, each listed in the manifest with a SHA-256 that matches", async () => {
     const eventsBefore = t.db.select({ n: sql<number>`count(*)` }).from(events).where(eq(events.type, "document-issued")).get()!.n;
     const { jobId, seen } = await runToDone(as.collector, varga);
-    for (let i = 1; i < seen.length; i++) expect(seen[i]).toBeGreaterThanOrEqual(seen[i - 1]);
+    for (let i = 1; i < seen.length; i++) expect(at(seen, i)).toBeGreaterThanOrEqual(at(seen, i - 1));
     expect(seen.at(-1)).toBe(1);
     for (const p of seen) expect(p >= 0 && p <= 1).toBe(true);
 
@@ -585,7 +586,7 @@ describe("bulk ZIP of one client's records", () => {
     expect(seen.length).toBeGreaterThan(2); // 0, at least one step between, 1
     expect(seen[0]).toBe(0);
     expect(seen.at(-1)).toBe(1);
-    for (let i = 1; i < seen.length; i++) expect(seen[i]).toBeGreaterThan(seen[i - 1]);
+    for (let i = 1; i < seen.length; i++) expect(at(seen, i)).toBeGreaterThan(at(seen, i - 1));
     expect(seen.slice(1, -1).every((p) => p > 0 && p < 1)).toBe(true);
 
     const { file } = service.download(collector, jobId);

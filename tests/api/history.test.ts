@@ -8,6 +8,7 @@ import { canonicalJson, eventHash } from "../../server/features/history/history.
 import type { ObjectCreateInput, ObjectRecord } from "../../shared/schemas/objects.ts";
 import type { HistoryEvent } from "../../shared/schemas/history.ts";
 import type { MountingDataInput, MountingRecord } from "../../shared/schemas/mountings.ts";
+import { at, first as firstOf } from "../setup/lists.ts";
 
 const t = createTestApp();
 
@@ -92,7 +93,7 @@ describe("the events each action writes", () => {
   const one = (type: string) => {
     const found = items.filter((e) => e.type === type);
     expect(found, type).toHaveLength(1);
-    return found[0];
+    return firstOf(found, type);
   };
 
   it("when the journey is read back, then every action is there, newest first by the day it happened, then by entry", () => {
@@ -145,9 +146,9 @@ describe("the events each action writes", () => {
     await edit(as.registrar, o, { title: "Renamed by the registrar", valuationMinor: 987_654, valuationCurrency: "EUR" });
     const got = (await history(as.registrar, o.id)).items;
     expect(got.map((e) => e.type)).toEqual(["valued", "catalogue-changed", "created"]);
-    expect(got[1].data.changes).toEqual([{ path: "title", before: "Heron, ink study", after: "Renamed by the registrar" }]);
+    expect(at(got, 1).data.changes).toEqual([{ path: "title", before: "Heron, ink study", after: "Renamed by the registrar" }]);
     expect(JSON.stringify(got)).not.toContain("987654");
-    expect(got[0].actorName).toBe("Test registrar");
+    expect(firstOf(got).actorName).toBe("Test registrar");
   });
 
   it("when an object is recorded with a value, then a valued event follows created, without the amount", async () => {
@@ -228,7 +229,7 @@ describe("reading the history", () => {
     do {
       const page: { items: HistoryEvent[]; nextBefore: string | null } = await history(as.framer, obj.id, `?limit=3${before ? `&before=${before}` : ""}`);
       expect(page.items.length).toBeLessThanOrEqual(3);
-      const last = page.items[page.items.length - 1];
+      const last = at(page.items, -1);
       if (page.nextBefore !== null) expect(page.nextBefore).toBe(`${last.occurredOn}:${last.seq}`);
       pages.push(page.items);
       before = page.nextBefore;
@@ -286,7 +287,7 @@ describe("the hash chain", () => {
   });
 
   it("when any part of an event's content or its link changes, then its hash changes", () => {
-    const r = rowsOf(t, obj.id)[1];
+    const r = at(rowsOf(t, obj.id), 1);
     const content = {
       objectId: r.objectId,
       type: r.type,
@@ -316,7 +317,7 @@ describe("the hash chain", () => {
     const o = await createObject(as.framer, objectBody(studio.institution.id));
     const rows = rowsOf(t, o.id);
     expect(rows).toHaveLength(1);
-    expect(rows[0].prevHash).toBeNull();
+    expect(firstOf(rows).prevHash).toBeNull();
   });
 
   it("when the object's chain is verified, then it is ok and counts the object's events", async () => {
@@ -399,7 +400,7 @@ describe("nobody deletes history", () => {
   it("when anyone sends DELETE, PUT or PATCH to a history, then there is no such route (404) and nothing changes", async () => {
     const before = rowsOf(t, obj.id);
     for (const method of ["delete", "put", "patch"] as const) {
-      for (const path of [`/api/objects/${obj.id}/history`, `/api/objects/${obj.id}/history/${before[0].seq}`]) {
+      for (const path of [`/api/objects/${obj.id}/history`, `/api/objects/${obj.id}/history/${firstOf(before).seq}`]) {
         const res = await as.admin[method](path).send({});
         expect(res.status, `${method} ${path}`).toBe(404);
         expectErrorShape(res.body, "not_found");
@@ -409,9 +410,9 @@ describe("nobody deletes history", () => {
   });
 
   it("when the database is asked to UPDATE an event, then it refuses", () => {
-    const seq = rowsOf(t, obj.id)[0].seq;
+    const seq = firstOf(rowsOf(t, obj.id)).seq;
     expect(() => t.database.sqlite.prepare("UPDATE events SET summary = 'nothing happened' WHERE seq = ?").run(seq)).toThrow(/history events cannot be changed/);
-    expect(rowsOf(t, obj.id)[0].summary).not.toBe("nothing happened");
+    expect(firstOf(rowsOf(t, obj.id)).summary).not.toBe("nothing happened");
   });
 
   it("when the database is asked to DELETE an event, then it refuses", () => {
@@ -442,7 +443,7 @@ describe("tampering by hand is caught by verify", () => {
   });
 
   it("when one event's summary is changed after the trigger is dropped, then verify names that event's seq and object", async () => {
-    const target = rowsOf(x, a.id)[1];
+    const target = at(rowsOf(x, a.id), 1);
     x.database.sqlite.exec("DROP TRIGGER events_no_update");
     x.database.sqlite.prepare("UPDATE events SET summary = ? WHERE seq = ?").run("Catalogue changed: nothing.", target.seq);
 
@@ -461,7 +462,7 @@ describe("tampering by hand is caught by verify", () => {
   });
 
   it("when an event's data is changed, then verify names that event", async () => {
-    const target = rowsOf(x, a.id)[2];
+    const target = at(rowsOf(x, a.id), 2);
     x.database.sqlite.prepare("UPDATE events SET data = ? WHERE seq = ?").run(JSON.stringify({ changes: [] }), target.seq);
     expect((await admin.get(`/api/objects/${a.id}/history/verify`)).body).toMatchObject({ ok: false, checked: 2, brokenAt: { seq: target.seq, objectId: a.id } });
     x.database.sqlite.prepare("UPDATE events SET data = ? WHERE seq = ?").run(JSON.stringify(target.data), target.seq);
@@ -472,20 +473,20 @@ describe("tampering by hand is caught by verify", () => {
     const rows = rowsOf(x, b.id);
     expect(rows).toHaveLength(4);
     x.database.sqlite.exec("DROP TRIGGER events_no_delete");
-    x.database.sqlite.prepare("DELETE FROM events WHERE seq = ?").run(rows[1].seq);
+    x.database.sqlite.prepare("DELETE FROM events WHERE seq = ?").run(at(rows, 1).seq);
 
     const one = await admin.get(`/api/objects/${b.id}/history/verify`);
-    expect(one.body).toMatchObject({ ok: false, checked: 1, brokenAt: { seq: rows[2].seq, objectId: b.id } });
+    expect(one.body).toMatchObject({ ok: false, checked: 1, brokenAt: { seq: at(rows, 2).seq, objectId: b.id } });
     expect(one.body.brokenAt.reason).toMatch(/removed/);
     const all = await admin.get("/api/history/verify");
-    expect(all.body).toMatchObject({ ok: false, brokenAt: { seq: rows[2].seq, objectId: b.id } });
+    expect(all.body).toMatchObject({ ok: false, brokenAt: { seq: at(rows, 2).seq, objectId: b.id } });
   });
 
   it("when an object's first event is deleted, then verify names the event that now claims a missing predecessor", async () => {
     const rows = rowsOf(x, a.id);
-    x.database.sqlite.prepare("DELETE FROM events WHERE seq = ?").run(rows[0].seq);
+    x.database.sqlite.prepare("DELETE FROM events WHERE seq = ?").run(firstOf(rows).seq);
     const one = await admin.get(`/api/objects/${a.id}/history/verify`);
-    expect(one.body).toMatchObject({ ok: false, checked: 0, brokenAt: { seq: rows[1].seq, objectId: a.id } });
+    expect(one.body).toMatchObject({ ok: false, checked: 0, brokenAt: { seq: at(rows, 1).seq, objectId: a.id } });
     expect(one.body.brokenAt.reason).toMatch(/not there/);
   });
 
@@ -496,9 +497,9 @@ describe("tampering by hand is caught by verify", () => {
     c = await edit(admin, c, { title: "C, second change" });
     expect((await admin.get(`/api/objects/${c.id}/history/verify`)).body).toEqual({ ok: true, checked: 3 });
     const rows = rowsOf(x, c.id);
-    x.database.sqlite.prepare("DELETE FROM events WHERE seq = ?").run(rows[2].seq);
+    x.database.sqlite.prepare("DELETE FROM events WHERE seq = ?").run(at(rows, 2).seq);
     const one = await admin.get(`/api/objects/${c.id}/history/verify`);
-    expect(one.body).toMatchObject({ ok: false, brokenAt: { seq: rows[1].seq, objectId: c.id } });
+    expect(one.body).toMatchObject({ ok: false, brokenAt: { seq: at(rows, 1).seq, objectId: c.id } });
     expect(one.body.brokenAt.reason).toMatch(/ends before/);
   });
 });

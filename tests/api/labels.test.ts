@@ -7,6 +7,7 @@ import { pageImage, pdfFonts, pdfInfo, pdfPages } from "../setup/pdf-layout.ts";
 import { DEMO_PASSWORD, seedDemo } from "../../server/db/seed.ts";
 import { issuedDocuments as documents, objects, user } from "../../server/db/schema.ts";
 import { getSettings, saveSettings } from "../../server/features/settings/settings.repo.ts";
+import { at as item, present } from "../setup/lists.ts";
 
 const PUBLIC = "http://records.example.test";
 const t = createTestApp({ env: { PUBLIC_URL: PUBLIC } });
@@ -23,7 +24,7 @@ const post = (agent: Agent, url: string, body?: object) => (body ? agent.post(ur
 async function issue(url: string, body?: object): Promise<{ pdf: Buffer; code: string }> {
   const res = await post(framer, url, body);
   expect(res.status, String(res.body)).toBe(200);
-  return { pdf: res.body as Buffer, code: res.headers["x-verification-code"] };
+  return { pdf: res.body as Buffer, code: present(res.headers["x-verification-code"], "the x-verification-code header") };
 }
 const words = (pdf: Buffer) => pdfPages(pdf).map((p) => p.lines.map((l) => l.text).join("\n"));
 const flat = (pdf: Buffer) => words(pdf).join("\n").replace(/\s+/g, " ");
@@ -49,7 +50,8 @@ async function grey(pdf: Buffer, page: number) {
  */
 function cutLines(img: { data: Buffer; width: number; height: number }, axis: "x" | "y"): number[] {
   const [n, m] = axis === "x" ? [img.width, img.height] : [img.height, img.width];
-  const at = (i: number, j: number) => (axis === "x" ? img.data[j * img.width + i] : img.data[i * img.width + j]);
+  // A pixel outside the image reads as 0 (it is neither line nor paper).
+  const at = (i: number, j: number) => (axis === "x" ? img.data[j * img.width + i] : img.data[i * img.width + j]) ?? 0;
   const hits: number[] = [];
   for (let i = 3; i < n - 3; i++) {
     let count = 0;
@@ -65,7 +67,11 @@ function cutLines(img: { data: Buffer; width: number; height: number }, axis: "x
     if (count > m / 3 && dashes >= 100) hits.push(i);
   }
   const lines: number[][] = [];
-  for (const h of hits) (lines.length && h - lines[lines.length - 1].at(-1)! <= 2 ? lines[lines.length - 1] : lines[lines.push([]) - 1]).push(h);
+  for (const h of hits) {
+    const last = lines.at(-1);
+    if (last && h - item(last, -1) <= 2) last.push(h);
+    else lines.push([h]);
+  }
   return lines.map((l) => l.reduce((a, b) => a + b, 0) / l.length);
 }
 
@@ -170,11 +176,11 @@ describe("the sheet of labels", () => {
         // Two columns of 100 mm on both papers; four rows of 70 mm fit A4's 297 mm, three fit Letter's 279.4 mm.
         expect(xs).toHaveLength(3);
         expect(ys).toHaveLength(paper === "A4" ? 5 : 4);
-        for (let i = 1; i < xs.length; i++) expect(Math.abs((xs[i] - xs[i - 1]) / PX_PER_MM - 100)).toBeLessThan(0.3);
-        for (let i = 1; i < ys.length; i++) expect(Math.abs((ys[i] - ys[i - 1]) / PX_PER_MM - 70)).toBeLessThan(0.3);
+        for (let i = 1; i < xs.length; i++) expect(Math.abs((item(xs, i) - item(xs, i - 1)) / PX_PER_MM - 100)).toBeLessThan(0.3);
+        for (let i = 1; i < ys.length; i++) expect(Math.abs((item(ys, i) - item(ys, i - 1)) / PX_PER_MM - 70)).toBeLessThan(0.3);
         // At least 5 mm of paper at every edge, where printers cannot print.
-        expect(xs[0] / PX_PER_MM).toBeGreaterThan(4.9);
-        expect(ys[0] / PX_PER_MM).toBeGreaterThan(4.9);
+        expect(item(xs, 0) / PX_PER_MM).toBeGreaterThan(4.9);
+        expect(item(ys, 0) / PX_PER_MM).toBeGreaterThan(4.9);
         expect((img.width - xs.at(-1)!) / PX_PER_MM).toBeGreaterThan(4.9);
         expect((img.height - ys.at(-1)!) / PX_PER_MM).toBeGreaterThan(4.9);
 
@@ -186,10 +192,10 @@ describe("the sheet of labels", () => {
           for (let r = 0; r + 1 < ys.length; r++) {
             for (let c = 0; c + 1 < xs.length; c++) {
               const region = {
-                left: Math.round(xs[c] * scale) + 2,
-                top: Math.round(ys[r] * scale) + 2,
-                width: Math.round((xs[c + 1] - xs[c]) * scale) - 4,
-                height: Math.round((ys[r + 1] - ys[r]) * scale) - 4,
+                left: Math.round(item(xs, c) * scale) + 2,
+                top: Math.round(item(ys, r) * scale) + 2,
+                width: Math.round((item(xs, c + 1) - item(xs, c)) * scale) - 4,
+                height: Math.round((item(ys, r + 1) - item(ys, r)) * scale) - 4,
               };
               const url = await decodeQr(pdf, p, region);
               if (url) decoded.push(url);

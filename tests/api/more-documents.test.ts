@@ -12,6 +12,7 @@ import { getSettings, saveSettings } from "../../server/features/settings/settin
 import { formatMoney } from "../../shared/domain/money.ts";
 import { renderScheduleForBench } from "../../server/features/documents/schedule.tsx";
 import { handlingCautions } from "../../server/features/documents/custody-receipt.tsx";
+import { at, first } from "../setup/lists.ts";
 
 const t = createTestApp({ env: { PUBLIC_URL: "http://reversa.example.test" } });
 let as: RoleAgents;
@@ -80,18 +81,18 @@ function sumRows(text: string, numbers: string[]): Map<string, number> {
   const sums = new Map<string, number>();
   const wanted = new Set(numbers);
   for (const line of text.split("\n")) {
-    const first = line.trim().split(" ")[0];
-    if (!wanted.has(first)) continue;
+    const number = first(line.trim().split(" "));
+    if (!wanted.has(number)) continue;
     const m = line.trim().match(MONEY);
     if (!m) continue;
-    const minor = Math.round(Number(m[2].replace(/,/g, "")) * 100);
-    sums.set(m[1].trim(), (sums.get(m[1].trim()) ?? 0) + minor);
+    const minor = Math.round(Number(at(m, 2).replace(/,/g, "")) * 100);
+    sums.set(at(m, 1).trim(), (sums.get(at(m, 1).trim()) ?? 0) + minor);
   }
   return sums;
 }
 function totalsIn(text: string): Map<string, number> {
   const out = new Map<string, number>();
-  for (const m of text.matchAll(/Total ((?:[A-Z]{1,3})?[$£€¥]|[A-Z]{3}\s)(\d[\d,]*(?:\.\d+)?)/g)) out.set(m[1].trim(), Math.round(Number(m[2].replace(/,/g, "")) * 100));
+  for (const m of text.matchAll(/Total ((?:[A-Z]{1,3})?[$£€¥]|[A-Z]{3}\s)(\d[\d,]*(?:\.\d+)?)/g)) out.set(at(m, 1).trim(), Math.round(Number(at(m, 2).replace(/,/g, "")) * 100));
   return out;
 }
 
@@ -131,7 +132,7 @@ describe("the schedule of values", () => {
     const { text } = await expectDocument(res, "schedule-of-values");
     expect(text).toContain("2 selected objects");
     const other = t.db.select().from(objects).where(eq(objects.clientId, varga)).get()!;
-    expect((await post(as.framer, `/api/clients/${wrenfold}/documents/schedule`, { objectIds: [rows[0].id, other.id] })).status).toBe(404);
+    expect((await post(as.framer, `/api/clients/${wrenfold}/documents/schedule`, { objectIds: [first(rows).id, other.id] })).status).toBe(404);
     expect((await post(as.framer, `/api/clients/${wrenfold}/documents/schedule`, { status: "nowhere" })).status).toBe(422);
   });
 
@@ -322,10 +323,10 @@ describe("the custody receipt", () => {
   it("asks for two people and never the top rail for a heavy frame, and says nothing of glass or weight where neither applies", () => {
     const heavy = handlingCautions({ glass: false, weightKg: 14.2 });
     expect(heavy.map((c) => c.title)).toEqual(["Heavy frame (about 14 kg)"]);
-    expect(heavy[0].text).toMatch(/two people.*Never lift it by the top rail/s);
+    expect(first(heavy).text).toMatch(/two people.*Never lift it by the top rail/s);
     expect(handlingCautions({ glass: false, weightKg: 3 })).toEqual([]);
     // Broken glass: the frame laid flat, nothing lifted off the work, the framer or a conservator called (common practice (no source)).
-    const glass = handlingCautions({ glass: true, weightKg: null })[0].text;
+    const glass = first(handlingCautions({ glass: true, weightKg: null })).text;
     expect(glass).toMatch(/lay the frame flat/);
     expect(glass).toMatch(/do not lift pieces off the work/);
     expect(glass).toMatch(/Call the framer or a conservator/);
@@ -347,7 +348,7 @@ describe("the workshop sheet", () => {
     const unit = getSettings(t.db).unit;
     expect(text).toContain(unit === "mm" ? "813 × 1016 mm" : "32 × 40 in");
     expect(text).toMatch(/sharps container/);
-    const other = await post(as.framer, "/api/documents/workshop-sheet", { mountingIds: [rows[0].mountings.id], boardSheetId: "40x60in" });
+    const other = await post(as.framer, "/api/documents/workshop-sheet", { mountingIds: [first(rows).mountings.id], boardSheetId: "40x60in" });
     expect((await expectDocument(other, "workshop-sheet")).text).toContain(unit === "mm" ? "1016 × 1524 mm" : "40 × 60 in");
   });
 

@@ -6,6 +6,7 @@ import { objects } from "../../server/db/schema.ts";
 import { REGISTER_BOARD_GRADES, REGISTER_GLAZINGS, REGISTER_METHODS, type ObjectListItem } from "../../shared/schemas/objects.ts";
 import { ATTACHMENT_METHODS, BOARD_GRADES } from "../../shared/schemas/mount-plan.ts";
 import { ATTACHMENT_METHOD_LABELS, GLAZING_TYPES, type MountingRecord } from "../../shared/schemas/mountings.ts";
+import { first, present } from "../setup/lists.ts";
 
 const t = createTestApp();
 let framer: Agent;
@@ -62,7 +63,7 @@ describe("register columns", () => {
   });
 
   it("when an object was never mounted, then its mount columns are empty and the old columns are all still there", async () => {
-    const f = (await list(framer, "q=2026-0006")).items[0];
+    const f = first((await list(framer, "q=2026-0006")).items);
     expect(f).toMatchObject({
       objectNumber: "2026-0006",
       title: "Heron",
@@ -136,7 +137,7 @@ describe("mount filters", () => {
 describe("date sorts", () => {
   // Objects without the date come after the dated ones in both directions, in id order (the tie-breaker).
   const byId = (dir: "asc" | "desc", ...keys: string[]) => {
-    const sorted = keys.map((k) => ({ k, id: id[k] })).sort((x, y) => (x.id < y.id ? -1 : 1));
+    const sorted = keys.map((k) => ({ k, id: present(id[k], `object ${k}`) })).sort((x, y) => (x.id < y.id ? -1 : 1));
     return (dir === "asc" ? sorted : sorted.reverse()).map(({ k }) => `2026-000${"abcdefg".indexOf(k) + 1}`);
   };
 

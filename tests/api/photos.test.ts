@@ -11,6 +11,7 @@ import { agentFor, agentsFor, createTestApp, expectErrorShape, makeObject, makeS
 import { conditionReports, photos } from "../../server/db/schema.ts";
 import { uploadTempDir } from "../../server/features/photos/photos.routes.ts";
 import type { Photo } from "../../shared/schemas/photos.ts";
+import { at } from "../setup/lists.ts";
 
 // Each app gets its own uploads folder, so "nothing was written" is judged against this file's uploads only.
 const uploadsDir = (name: string) => path.join(inject("testDbDir"), `uploads-photos-${name}-${randomUUID().slice(0, 8)}`);
@@ -44,7 +45,7 @@ const CRC_TABLE = Array.from({ length: 256 }, (_, n) => {
 });
 function crc32(buf: Buffer): number {
   let c = 0xffffffff;
-  for (const b of buf) c = CRC_TABLE[(c ^ b) & 0xff] ^ (c >>> 8);
+  for (const b of buf) c = at(CRC_TABLE, (c ^ b) & 0xff) ^ (c >>> 8);
   return (c ^ 0xffffffff) >>> 0;
 }
 function pngChunk(type: string, data: Buffer): Buffer {

@@ -100,11 +100,13 @@ function expectSame(s: Awaited<ReturnType<typeof surfaces>>) {
   }
   // The export: the same verdicts counted, each one not passed named with its reason.
   const count = (v: string) => s.record.checks.filter((c) => c.verdict === v).length;
-  const words = [
-    ["pass", "pass"],
-    ["warn", "caution"],
-    ["fail", "fail"],
-  ]
+  const words = (
+    [
+      ["pass", "pass"],
+      ["warn", "caution"],
+      ["fail", "fail"],
+    ] as const
+  )
     .filter(([v]) => count(v) > 0)
     .map(([v, w]) => `${count(v)} ${w}`);
   expect(s.row["Conservation checks"]).toBe(words.join(", "));

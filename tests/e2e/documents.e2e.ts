@@ -4,6 +4,7 @@ import os from "node:os";
 import path from "node:path";
 import { describe, expect, inject, it } from "vitest";
 import { browserSession, finish, openObject } from "./support/browser.ts";
+import { at, present } from "../setup/lists.ts";
 
 const baseUrl = inject("baseUrl");
 const browser = browserSession(baseUrl);
@@ -18,7 +19,7 @@ describe("documents journey", () => {
     expect(file.suggestedFilename()).toMatch(/^dossier-2026-0003-.+\.pdf$/);
     const status = page.getByText(/Issued with verification code/);
     await status.waitFor();
-    const code = (await status.textContent())!.match(/code ([0-9A-F-]+)/)![1];
+    const code = at(present((await status.textContent())?.match(/code ([0-9A-F-]+)/), "the verification code in the status"), 1);
     await page.getByTestId("documents").getByText(code).waitFor();
 
     // Signed out, anyone holding the document can check it.
