@@ -8,6 +8,7 @@ import { mountings, user } from "../../server/db/schema.ts";
 import { getSettings, saveSettings } from "../../server/features/settings/settings.repo.ts";
 import { pdfFonts, pdfInfo, pdfPages, type PdfPage } from "../setup/pdf-layout.ts";
 import { at } from "../setup/lists.ts";
+import { binary } from "../setup/http.ts";
 
 // Every document kind, rendered with a long record (many findings, many mountings, long unbroken
 // words, typed line breaks) on A4 and US Letter, in mm and in inches, and read back page by page.
@@ -26,11 +27,6 @@ const objectIds: string[] = [];
 const LONG_WORD = "Unbrokenreferencecodewithoutanyspacesatallthatrunsonandonpastthewidthofacolumn";
 const LINES = "First typed line of the note.\nSecond typed line, after a line break.\nThird line: ✕ ✓ ▲ — “quoted”.";
 
-const binary = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on("data", (c: Buffer) => chunks.push(c));
-  res.on("end", () => cb(null, Buffer.concat(chunks)));
-};
 async function issue(url: string, body?: object): Promise<Buffer> {
   const r = framer.post(url);
   const res = await (body ? r.send(body) : r).buffer(true).parse(binary as never);

@@ -14,17 +14,12 @@ import { can } from "../../shared/permissions.ts";
 import { valuationLine } from "../../server/features/documents/record-blocks.tsx";
 import type { ObjectRecord } from "../../shared/schemas/objects.ts";
 import { first, present } from "../setup/lists.ts";
+import { binary } from "../setup/http.ts";
 
 const t = createTestApp();
 let as: RoleAgents;
 const tmp = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-docs-"));
 
-/** Collects a binary answer (supertest parses only text and JSON by itself). */
-const binary = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on("data", (c: Buffer) => chunks.push(c));
-  res.on("end", () => cb(null, Buffer.concat(chunks)));
-};
 const post = (agent: Agent, url: string) =>
   agent
     .post(url)

@@ -22,6 +22,7 @@ import { GLAZING_TYPES, MOUNTING_REASONS, MOUNTING_STATUSES } from "../../shared
 import { minorDigits } from "../../shared/domain/money.ts";
 import type { SessionUser } from "../../shared/schemas/auth.ts";
 import { at, first } from "../setup/lists.ts";
+import { getBinary } from "../setup/http.ts";
 
 const t = createTestApp();
 let as: RoleAgents;
@@ -37,16 +38,8 @@ const VALUATION_COLUMNS = ["Valuation", "Valuation currency", "Valuation date", 
 type Row = Record<string, string>;
 const BOM = "\uFEFF";
 
-/** The raw text of a response, whatever its content type. */
-const raw = (agent: Agent, url: string) =>
-  agent
-    .get(url)
-    .buffer(true)
-    .parse((res, cb) => {
-      const chunks: Buffer[] = [];
-      res.on("data", (c: Buffer) => chunks.push(c));
-      res.on("end", () => cb(null, Buffer.concat(chunks)));
-    });
+/** The raw answer as a Buffer, whatever its content type. */
+const raw = getBinary;
 
 async function csv(agent: Agent, url: string): Promise<{ text: string; rows: Row[]; header: string[] }> {
   const res = await raw(agent, url);

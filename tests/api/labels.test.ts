@@ -8,6 +8,7 @@ import { DEMO_PASSWORD, seedDemo } from "../../server/db/seed.ts";
 import { issuedDocuments as documents, objects, user } from "../../server/db/schema.ts";
 import { getSettings, saveSettings } from "../../server/features/settings/settings.repo.ts";
 import { at as item, present } from "../setup/lists.ts";
+import { binary } from "../setup/http.ts";
 
 const PUBLIC = "http://records.example.test";
 const t = createTestApp({ env: { PUBLIC_URL: PUBLIC } });
@@ -15,11 +16,6 @@ const unset = createTestApp();
 const loopback = createTestApp({ env: { PUBLIC_URL: "http://127.0.0.1:3000" } });
 let framer: Agent;
 
-const binary = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on("data", (c: Buffer) => chunks.push(c));
-  res.on("end", () => cb(null, Buffer.concat(chunks)));
-};
 const post = (agent: Agent, url: string, body?: object) => (body ? agent.post(url).send(body) : agent.post(url)).buffer(true).parse(binary as never);
 async function issue(url: string, body?: object): Promise<{ pdf: Buffer; code: string }> {
   const res = await post(framer, url, body);

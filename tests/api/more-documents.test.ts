@@ -13,17 +13,13 @@ import { formatMoney } from "../../shared/domain/money.ts";
 import { renderScheduleForBench } from "../../server/features/documents/schedule.tsx";
 import { handlingCautions } from "../../server/features/documents/custody-receipt.tsx";
 import { at, first } from "../setup/lists.ts";
+import { binary } from "../setup/http.ts";
 
 const t = createTestApp({ env: { PUBLIC_URL: "http://reversa.example.test" } });
 let as: RoleAgents;
 const tmp = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-more-docs-"));
 afterAll(() => fs.rmSync(tmp, { recursive: true, force: true }));
 
-const binary = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on("data", (c: Buffer) => chunks.push(c));
-  res.on("end", () => cb(null, Buffer.concat(chunks)));
-};
 const post = (agent: Agent, url: string, body?: object) => {
   const r = agent.post(url);
   return (body ? r.send(body) : r).buffer(true).parse(binary as never);

@@ -7,18 +7,13 @@ import { beforeAll, describe, expect, it } from "vitest";
 import request from "supertest";
 import sharp from "sharp";
 import { createTestApp, expectErrorShape, makeMounting, makeObject, makeSignedInStudio, type Agent, type RoleAgents } from "../setup/test-app.ts";
+import { binary } from "../setup/http.ts";
 
 const t = createTestApp();
 let as: RoleAgents;
 /** A mounted object of the collector's, whose dossier shows the logo or not. */
 let objectId: string;
 const tmp = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-logo-"));
-
-const binary = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on("data", (c: Buffer) => chunks.push(c));
-  res.on("end", () => cb(null, Buffer.concat(chunks)));
-};
 
 const png = (width: number, height: number) =>
   sharp({ create: { width, height, channels: 4, background: { r: 180, g: 40, b: 60, alpha: 1 } } })
