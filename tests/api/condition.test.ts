@@ -2,7 +2,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import type { z } from "zod";
 import { makeMounting, makePhoto } from "../../server/db/factories.ts";
-import { accessMatrix, type MatrixRow } from "../setup/access-matrix.ts";
+import { accessMatrix, readRow, writeRow, type MatrixRow } from "../setup/access-matrix.ts";
 import { agentFor, agentsFor, createTestApp, expectErrorShape, makeClient, makeObject, makePerson, makeStudio, signIn, type Agent, type Person } from "../setup/test-app.ts";
 import { conditionReports, conditionRevisions, conditionTerms, events, objects, user } from "../../server/db/schema.ts";
 import { DEMO_PASSWORD, seedDemo } from "../../server/db/seed.ts";
@@ -776,81 +776,41 @@ describe("who may do what with condition reports", () => {
   const READ = { admin: 200, framer: 200, "registrar-own": 200, "registrar-other": 404, "collector-own": 200, "collector-other": 404, "signed-out": 401 };
   const STUDIO_DRAFT = { admin: 200, framer: 200, "registrar-own": 200, "registrar-other": 404, "collector-own": 404, "collector-other": 404, "signed-out": 401 };
 
-  const read = (path: (objectId: string, reportId: string) => string, make: (objectId: string) => Promise<ConditionReport>) => async (agent: Agent, objectId: string) => {
-    const rep = await make(objectId);
-    const res = await agent.get(path(objectId, rep.id));
-    return { status: res.status, body: res.body, written: () => false };
-  };
   const signed = (objectId: string) => signedOn(objectId);
   const draft = (objectId: string) => draftOn(objectId);
+  const compared = async (objectId: string) => ({ a: await signedOn(objectId), b: await signedOn(objectId, DATA, { reportDate: "2026-11-19", context: "periodic-check" }) });
+  const STUDIO_WRITE = { admin: 201, framer: 201, "registrar-own": 201, "registrar-other": 404, "collector-own": 403, "collector-other": 404, "signed-out": 401 };
 
   const ROWS: MatrixRow[] = [
-    { route: "GET /api/objects/:id/condition", expected: READ, run: read((o) => `/api/objects/${o}/condition`, signed) },
+    readRow("GET /api/objects/:id/condition", READ, signed, (agent, _r, o) => agent.get(`/api/objects/${o}/condition`)),
     {
       route: "POST /api/objects/:id/condition",
-      expected: { admin: 201, framer: 201, "registrar-own": 201, "registrar-other": 404, "collector-own": 403, "collector-other": 404, "signed-out": 401 },
+      expected: STUDIO_WRITE,
       run: async (agent, objectId) => {
         const res = await agent.post(`/api/objects/${objectId}/condition`).send(createBody());
         return { status: res.status, body: res.body, written: () => reportsOf(objectId).length > 0 };
       },
     },
-    { route: "GET /api/condition/:id (signed)", expected: READ, run: read((_o, id) => `/api/condition/${id}`, signed) },
-    { route: "GET /api/condition/:id/revisions (signed)", expected: READ, run: read((_o, id) => `/api/condition/${id}/revisions`, signed) },
-    { route: "GET /api/condition/:id (draft)", expected: STUDIO_DRAFT, run: read((_o, id) => `/api/condition/${id}`, draft) },
-    { route: "GET /api/condition/:id/revisions (draft)", expected: STUDIO_DRAFT, run: read((_o, id) => `/api/condition/${id}/revisions`, draft) },
-    {
-      route: "GET /api/condition/compare",
-      expected: READ,
-      run: async (agent, objectId) => {
-        const a = await signedOn(objectId);
-        const b = await signedOn(objectId, DATA, { reportDate: "2026-11-19", context: "periodic-check" });
-        const res = await agent.get(`/api/condition/compare?from=${a.id}&to=${b.id}`);
-        return { status: res.status, body: res.body, written: () => false };
-      },
-    },
-    {
-      // A collector cannot see a draft, so cannot learn that one exists by trying to write to it.
-      route: "PUT /api/condition/:id (draft)",
-      expected: STUDIO_DRAFT,
-      run: async (agent, objectId) => {
-        const d = await draftOn(objectId);
-        const before = snapshot(objectId);
-        const res = await agent.put(`/api/condition/${d.id}`).send({ ...createBody(with_({ summary: "Edited." })), version: d.version });
-        return { status: res.status, body: res.body, written: () => snapshot(objectId) !== before };
-      },
-    },
-    {
-      route: "PUT /api/condition/:id (signed)",
-      expected: { admin: 409, framer: 409, "registrar-own": 409, "registrar-other": 404, "collector-own": 403, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        const s = await signedOn(objectId);
-        const before = snapshot(objectId);
-        const res = await agent.put(`/api/condition/${s.id}`).send({ ...createBody(with_({ summary: "Edited." })), version: s.version });
-        return { status: res.status, body: res.body, written: () => snapshot(objectId) !== before };
-      },
-    },
-    {
-      route: "POST /api/condition/:id/sign",
-      expected: STUDIO_DRAFT,
-      run: async (agent, objectId) => {
-        const d = await draftOn(objectId);
-        const before = snapshot(objectId);
-        const res = await agent.post(`/api/condition/${d.id}/sign`).send({ version: d.version });
-        return { status: res.status, body: res.body, written: () => snapshot(objectId) !== before };
-      },
-    },
-    {
-      route: "POST /api/condition/:id/corrections",
-      expected: { admin: 201, framer: 201, "registrar-own": 201, "registrar-other": 404, "collector-own": 403, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        const s = await signedOn(objectId);
-        const before = snapshot(objectId);
-        const res = await agent
-          .post(`/api/condition/${s.id}/corrections`)
-          .send({ version: s.version, correctionReason: "Extent measured again.", data: with_({ summary: "Corrected." }) });
-        return { status: res.status, body: res.body, written: () => snapshot(objectId) !== before };
-      },
-    },
+    readRow("GET /api/condition/:id (signed)", READ, signed, (agent, r) => agent.get(`/api/condition/${r.id}`)),
+    readRow("GET /api/condition/:id/revisions (signed)", READ, signed, (agent, r) => agent.get(`/api/condition/${r.id}/revisions`)),
+    readRow("GET /api/condition/:id (draft)", STUDIO_DRAFT, draft, (agent, r) => agent.get(`/api/condition/${r.id}`)),
+    readRow("GET /api/condition/:id/revisions (draft)", STUDIO_DRAFT, draft, (agent, r) => agent.get(`/api/condition/${r.id}/revisions`)),
+    readRow("GET /api/condition/compare", READ, compared, (agent, { a, b }) => agent.get(`/api/condition/compare?from=${a.id}&to=${b.id}`)),
+    // A collector cannot see a draft, so cannot learn that one exists by trying to write to it.
+    writeRow("PUT /api/condition/:id (draft)", STUDIO_DRAFT, snapshot, draft, (agent, d) =>
+      agent.put(`/api/condition/${d.id}`).send({ ...createBody(with_({ summary: "Edited." })), version: d.version }),
+    ),
+    writeRow(
+      "PUT /api/condition/:id (signed)",
+      { admin: 409, framer: 409, "registrar-own": 409, "registrar-other": 404, "collector-own": 403, "collector-other": 404, "signed-out": 401 },
+      snapshot,
+      signed,
+      (agent, r) => agent.put(`/api/condition/${r.id}`).send({ ...createBody(with_({ summary: "Edited." })), version: r.version }),
+    ),
+    writeRow("POST /api/condition/:id/sign", STUDIO_DRAFT, snapshot, draft, (agent, d) => agent.post(`/api/condition/${d.id}/sign`).send({ version: d.version })),
+    writeRow("POST /api/condition/:id/corrections", STUDIO_WRITE, snapshot, signed, (agent, r) =>
+      agent.post(`/api/condition/${r.id}/corrections`).send({ version: r.version, correctionReason: "Extent measured again.", data: with_({ summary: "Corrected." }) }),
+    ),
     {
       // Everyone signed in may open the register; what is in it depends on who asks.
       route: "GET /api/condition (the report is listed)",

@@ -1,7 +1,7 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import { A4_CORNERS, A4_HINGED } from "../../server/db/factories.ts";
-import { accessMatrix, type MatrixRow } from "../setup/access-matrix.ts";
+import { accessMatrix, readRow, writeRow, type MatrixRow } from "../setup/access-matrix.ts";
 import { agentsFor, createTestApp, expectErrorShape, makeClient, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
 import { events, mountingRevisions, mountings, objects } from "../../server/db/schema.ts";
 import type { MountingDataInput, MountingRecord } from "../../shared/schemas/mountings.ts";
@@ -534,16 +534,14 @@ describe("who may do what with mounting records", () => {
   /** Did the request leave any trace (row version, revision, status or event)? */
   const snapshot = (objectId: string) => JSON.stringify({ m: mountingsOf(objectId).map((m) => [m.id, m.version, m.status, m.currentRevision]), e: eventsOf(objectId).length });
 
+  const completed = (objectId: string) => completedOn(objectId);
+  const draft = (objectId: string) => draftOn(objectId);
+  const OWN_READ = { admin: 200, framer: 200, "registrar-own": 200, "registrar-other": 404, "collector-own": 200, "collector-other": 404, "signed-out": 401 };
+  // A client-side user cannot see a draft, so cannot learn that one exists by trying to write to it.
+  const STUDIO_DRAFT = { admin: 200, framer: 200, "registrar-own": 404, "registrar-other": 404, "collector-own": 404, "collector-other": 404, "signed-out": 401 };
+
   const ROWS: MatrixRow[] = [
-    {
-      route: "GET /api/objects/:id/mountings",
-      expected: { admin: 200, framer: 200, "registrar-own": 200, "registrar-other": 404, "collector-own": 200, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        await completedOn(objectId);
-        const res = await agent.get(`/api/objects/${objectId}/mountings`);
-        return { status: res.status, body: res.body, written: () => false };
-      },
-    },
+    readRow("GET /api/objects/:id/mountings", OWN_READ, completed, (agent, _m, objectId) => agent.get(`/api/objects/${objectId}/mountings`)),
     {
       route: "POST /api/objects/:id/mountings",
       expected: { admin: 201, framer: 201, "registrar-own": 403, "registrar-other": 404, "collector-own": 403, "collector-other": 404, "signed-out": 401 },
@@ -552,95 +550,36 @@ describe("who may do what with mounting records", () => {
         return { status: res.status, body: res.body, written: () => mountingsOf(objectId).length > 0 };
       },
     },
-    {
-      route: "GET /api/mountings/:id (completed)",
-      expected: { admin: 200, framer: 200, "registrar-own": 200, "registrar-other": 404, "collector-own": 200, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        const m = await completedOn(objectId);
-        const res = await agent.get(`/api/mountings/${m.id}`);
-        return { status: res.status, body: res.body, written: () => false };
-      },
-    },
-    {
-      route: "GET /api/mountings/:id/revisions (completed)",
-      expected: { admin: 200, framer: 200, "registrar-own": 200, "registrar-other": 404, "collector-own": 200, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        const m = await completedOn(objectId);
-        const res = await agent.get(`/api/mountings/${m.id}/revisions`);
-        return { status: res.status, body: res.body, written: () => false };
-      },
-    },
-    {
-      route: "GET /api/mountings/:id (draft)",
-      expected: { admin: 200, framer: 200, "registrar-own": 404, "registrar-other": 404, "collector-own": 404, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        const d = await draftOn(objectId);
-        const res = await agent.get(`/api/mountings/${d.id}`);
-        return { status: res.status, body: res.body, written: () => false };
-      },
-    },
-    {
-      route: "GET /api/mountings/:id/revisions (draft)",
-      expected: { admin: 200, framer: 200, "registrar-own": 404, "registrar-other": 404, "collector-own": 404, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        const d = await draftOn(objectId);
-        const res = await agent.get(`/api/mountings/${d.id}/revisions`);
-        return { status: res.status, body: res.body, written: () => false };
-      },
-    },
-    {
-      // A client-side user cannot see a draft, so cannot learn that one exists by trying to write to it.
-      route: "PUT /api/mountings/:id (draft)",
-      expected: { admin: 200, framer: 200, "registrar-own": 404, "registrar-other": 404, "collector-own": 404, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        const d = await draftOn(objectId);
-        const before = snapshot(objectId);
-        const res = await agent.put(`/api/mountings/${d.id}`).send({ ...createBody(with_({ notes: "Edited" })), version: d.version });
-        return { status: res.status, body: res.body, written: () => snapshot(objectId) !== before };
-      },
-    },
-    {
-      route: "PUT /api/mountings/:id (completed)",
-      expected: { admin: 409, framer: 409, "registrar-own": 403, "registrar-other": 404, "collector-own": 403, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        const m = await completedOn(objectId);
-        const before = snapshot(objectId);
-        const res = await agent.put(`/api/mountings/${m.id}`).send({ ...createBody(with_({ notes: "Edited" })), version: m.version });
-        return { status: res.status, body: res.body, written: () => snapshot(objectId) !== before };
-      },
-    },
-    {
-      route: "POST /api/mountings/:id/complete",
-      expected: { admin: 200, framer: 200, "registrar-own": 404, "registrar-other": 404, "collector-own": 404, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        const d = await draftOn(objectId);
-        const before = snapshot(objectId);
-        const res = await agent.post(`/api/mountings/${d.id}/complete`).send({ version: d.version });
-        return { status: res.status, body: res.body, written: () => snapshot(objectId) !== before };
-      },
-    },
-    {
-      route: "POST /api/mountings/:id/corrections",
-      expected: { admin: 201, framer: 201, "registrar-own": 403, "registrar-other": 404, "collector-own": 403, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        const m = await completedOn(objectId);
-        const before = snapshot(objectId);
-        const res = await agent
-          .post(`/api/mountings/${m.id}/corrections`)
-          .send({ version: m.version, correctionReason: "Hinge widths measured again.", data: with_({ notes: "Corrected" }) });
-        return { status: res.status, body: res.body, written: () => snapshot(objectId) !== before };
-      },
-    },
-    {
-      route: "POST /api/mountings/:id/remove",
-      expected: { admin: 200, framer: 200, "registrar-own": 403, "registrar-other": 404, "collector-own": 403, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        const m = await completedOn(objectId);
-        const before = snapshot(objectId);
-        const res = await agent.post(`/api/mountings/${m.id}/remove`).send({ version: m.version, endedOn: "2026-04-01", endReason: "Taken out for conservation." });
-        return { status: res.status, body: res.body, written: () => snapshot(objectId) !== before };
-      },
-    },
+    readRow("GET /api/mountings/:id (completed)", OWN_READ, completed, (agent, m) => agent.get(`/api/mountings/${m.id}`)),
+    readRow("GET /api/mountings/:id/revisions (completed)", OWN_READ, completed, (agent, m) => agent.get(`/api/mountings/${m.id}/revisions`)),
+    readRow("GET /api/mountings/:id (draft)", STUDIO_DRAFT, draft, (agent, d) => agent.get(`/api/mountings/${d.id}`)),
+    readRow("GET /api/mountings/:id/revisions (draft)", STUDIO_DRAFT, draft, (agent, d) => agent.get(`/api/mountings/${d.id}/revisions`)),
+    writeRow("PUT /api/mountings/:id (draft)", STUDIO_DRAFT, snapshot, draft, (agent, d) =>
+      agent.put(`/api/mountings/${d.id}`).send({ ...createBody(with_({ notes: "Edited" })), version: d.version }),
+    ),
+    writeRow(
+      "PUT /api/mountings/:id (completed)",
+      { admin: 409, framer: 409, "registrar-own": 403, "registrar-other": 404, "collector-own": 403, "collector-other": 404, "signed-out": 401 },
+      snapshot,
+      completed,
+      (agent, m) => agent.put(`/api/mountings/${m.id}`).send({ ...createBody(with_({ notes: "Edited" })), version: m.version }),
+    ),
+    writeRow("POST /api/mountings/:id/complete", STUDIO_DRAFT, snapshot, draft, (agent, d) => agent.post(`/api/mountings/${d.id}/complete`).send({ version: d.version })),
+    writeRow(
+      "POST /api/mountings/:id/corrections",
+      { admin: 201, framer: 201, "registrar-own": 403, "registrar-other": 404, "collector-own": 403, "collector-other": 404, "signed-out": 401 },
+      snapshot,
+      completed,
+      (agent, m) =>
+        agent.post(`/api/mountings/${m.id}/corrections`).send({ version: m.version, correctionReason: "Hinge widths measured again.", data: with_({ notes: "Corrected" }) }),
+    ),
+    writeRow(
+      "POST /api/mountings/:id/remove",
+      { admin: 200, framer: 200, "registrar-own": 403, "registrar-other": 404, "collector-own": 403, "collector-other": 404, "signed-out": 401 },
+      snapshot,
+      completed,
+      (agent, m) => agent.post(`/api/mountings/${m.id}/remove`).send({ version: m.version, endedOn: "2026-04-01", endReason: "Taken out for conservation." }),
+    ),
   ];
 
   accessMatrix(t, ROWS, () => ({ studio, as, otherPrivateClientId: otherPrivate }));

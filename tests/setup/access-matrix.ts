@@ -69,3 +69,38 @@ export function accessMatrix(t: TestApp, rows: readonly MatrixRow[], studio: () 
     }
   });
 }
+
+type Answer = PromiseLike<{ status: number; body: unknown }>;
+
+/** A read: `make` sets up the record on the caller's object, `call` asks for it; nothing may be written. */
+export function readRow<R>(route: string, expected: Expected, make: (objectId: string) => Promise<R>, call: (agent: Agent, made: R, objectId: string) => Answer): MatrixRow {
+  return {
+    route,
+    expected,
+    run: async (agent, objectId) => {
+      const made = await make(objectId);
+      const res = await call(agent, made, objectId);
+      return { status: res.status, body: res.body, written: () => false };
+    },
+  };
+}
+
+/** A write to a record `make` sets up: it counts as written when `snapshot(objectId)` differs from before the call. */
+export function writeRow<R>(
+  route: string,
+  expected: Expected,
+  snapshot: (objectId: string) => string,
+  make: (objectId: string) => Promise<R>,
+  call: (agent: Agent, made: R, objectId: string) => Answer,
+): MatrixRow {
+  return {
+    route,
+    expected,
+    run: async (agent, objectId) => {
+      const made = await make(objectId);
+      const before = snapshot(objectId);
+      const res = await call(agent, made, objectId);
+      return { status: res.status, body: res.body, written: () => snapshot(objectId) !== before };
+    },
+  };
+}
