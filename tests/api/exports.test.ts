@@ -40,6 +40,14 @@ const BOM = "\uFEFF";
 
 /** The raw answer as a Buffer, whatever its content type. */
 const raw = getBinary;
+/** The ids of a client's objects, read from the database. */
+const objectIdsOf = (clientId: string) =>
+  t.db
+    .select({ id: objects.id })
+    .from(objects)
+    .where(eq(objects.clientId, clientId))
+    .all()
+    .map((o) => o.id);
 
 async function csv(agent: Agent, url: string): Promise<{ text: string; rows: Row[]; header: string[] }> {
   const res = await raw(agent, url);
@@ -210,12 +218,7 @@ describe("single-dataset exports", () => {
 
   it("when the custody dataset is read, then it lists every hand-over of the client's objects as recorded", async () => {
     const rows = await json(as.collector, `/api/clients/${varga}/exports/custody.json`);
-    const ids = t.db
-      .select({ id: objects.id })
-      .from(objects)
-      .where(eq(objects.clientId, varga))
-      .all()
-      .map((o) => o.id);
+    const ids = objectIdsOf(varga);
     const recorded = t.db.select().from(custodyReceipts).where(inArray(custodyReceipts.objectId, ids)).all();
     expect(rows.map((r) => r["Receipt id"]).sort()).toEqual(recorded.map((r) => r.id).sort());
     for (const r of recorded) {
@@ -429,12 +432,7 @@ describe("bulk ZIP of one client's records", () => {
     expect(res.headers["content-type"]).toBe("application/zip");
     expect(res.headers["content-disposition"]).toMatch(/^attachment; filename=".+\.zip"$/);
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-export-test-"));
-    const ids = t.db
-      .select({ id: objects.id })
-      .from(objects)
-      .where(eq(objects.clientId, varga))
-      .all()
-      .map((o) => o.id);
+    const ids = objectIdsOf(varga);
     try {
       const file = path.join(dir, "export.zip");
       fs.writeFileSync(file, res.body as Buffer);

@@ -60,6 +60,18 @@ const history = async (agent: Agent, objectId: string, query = ""): Promise<{ it
   return res.body;
 };
 const rowsOf = (app: TestApp, objectId: string) => app.db.select().from(events).where(eq(events.objectId, objectId)).orderBy(asc(events.seq)).all();
+/** The part of a stored event its hash covers, written out here as the history chain defines it. */
+const hashedContent = (r: ReturnType<typeof rowsOf>[number]) => ({
+  objectId: r.objectId,
+  type: r.type,
+  at: r.at.getTime(),
+  actorId: r.actorId,
+  actorName: r.actorName,
+  summary: r.summary,
+  data: r.data,
+  prevHash: r.prevHash,
+  occurredOn: r.occurredOn ?? undefined,
+});
 
 /** Every action of the journey on one object, in order, so each test below can read its event. */
 let obj: ObjectRecord;
@@ -266,17 +278,7 @@ describe("the hash chain", () => {
     let prev: string | null = null;
     for (const r of rows) {
       expect(r.prevHash, `event ${r.seq}`).toBe(prev);
-      const content = {
-        objectId: r.objectId,
-        type: r.type,
-        at: r.at.getTime(),
-        actorId: r.actorId,
-        actorName: r.actorName,
-        summary: r.summary,
-        data: r.data,
-        prevHash: r.prevHash,
-        occurredOn: r.occurredOn ?? undefined,
-      };
+      const content = hashedContent(r);
       // Recomputed by hand (HMAC-SHA256, RFC 2104, keyed with the app's history key) as well as through eventHash.
       const byHand = createHmac("sha256", t.historyKey).update(canonicalJson(content)).digest("hex");
       expect(r.hash, `event ${r.seq}`).toBe(byHand);
@@ -288,17 +290,7 @@ describe("the hash chain", () => {
 
   it("when any part of an event's content or its link changes, then its hash changes", () => {
     const r = at(rowsOf(t, obj.id), 1);
-    const content = {
-      objectId: r.objectId,
-      type: r.type,
-      at: r.at.getTime(),
-      actorId: r.actorId,
-      actorName: r.actorName,
-      summary: r.summary,
-      data: r.data,
-      prevHash: r.prevHash,
-      occurredOn: r.occurredOn ?? undefined,
-    };
+    const content = hashedContent(r);
     const h = eventHash(content, t.historyKey);
     for (const over of [
       { summary: `${r.summary} ` },

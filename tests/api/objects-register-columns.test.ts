@@ -3,23 +3,16 @@ import { eq } from "drizzle-orm";
 import { A4_HINGED } from "../../server/db/factories.ts";
 import { agentFor, createTestApp, expectErrorShape, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
 import { objects } from "../../server/db/schema.ts";
-import { REGISTER_BOARD_GRADES, REGISTER_GLAZINGS, REGISTER_METHODS, type ObjectListItem } from "../../shared/schemas/objects.ts";
+import { REGISTER_BOARD_GRADES, REGISTER_GLAZINGS, REGISTER_METHODS } from "../../shared/schemas/objects.ts";
 import { ATTACHMENT_METHODS, BOARD_GRADES } from "../../shared/schemas/mount-plan.ts";
 import { ATTACHMENT_METHOD_LABELS, GLAZING_TYPES, type MountingRecord } from "../../shared/schemas/mountings.ts";
 import { first, present } from "../setup/lists.ts";
+import { listObjects as list, objectNumbers as numbers } from "../setup/registers.ts";
 
 const t = createTestApp();
 let framer: Agent;
 let collector: Agent;
 const id: Record<string, string> = {};
-
-type ListBody = { items: ObjectListItem[]; total: number; page: number; pageSize: number };
-async function list(agent: Agent, query: string): Promise<ListBody> {
-  const res = await agent.get(`/api/objects?${query}`);
-  if (res.status !== 200) throw new Error(`GET /api/objects?${query} answered ${res.status}: ${JSON.stringify(res.body)}`);
-  return res.body as ListBody;
-}
-const numbers = (body: ListBody) => body.items.map((i) => i.objectNumber);
 
 /** Sets an object's register columns directly, as the mountings service (and later the condition feature) keeps them. */
 function setRegister(objectId: string, cols: Partial<typeof objects.$inferInsert>) {
