@@ -1,13 +1,12 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import { eq, isNotNull, isNull } from "drizzle-orm";
+import { isNotNull, isNull } from "drizzle-orm";
 import sharp from "sharp";
 import jsQR from "jsqr";
-import { createTestApp, makeObject, signIn, type Agent } from "../setup/test-app.ts";
+import { agentFor, createTestApp, makeMounting, makeObject, makeSignedInStudio, makeStudio, type Agent, type Person, type TestApp } from "../setup/test-app.ts";
 import { pageImage, pdfFonts, pdfInfo, pdfPages } from "../setup/pdf-layout.ts";
-import { DEMO_PASSWORD, seedDemo } from "../../server/db/seed.ts";
-import { issuedDocuments as documents, objects, user } from "../../server/db/schema.ts";
+import { issuedDocuments as documents, objects } from "../../server/db/schema.ts";
 import { getSettings, saveSettings } from "../../server/features/settings/settings.repo.ts";
-import { at as item, present } from "../setup/lists.ts";
+import { first, at as item, present } from "../setup/lists.ts";
 import { binary } from "../setup/http.ts";
 
 const PUBLIC = "http://records.example.test";
@@ -79,11 +78,31 @@ async function decodeQr(pdf: Buffer, page: number, region?: { left: number; top:
   return jsQR(new Uint8ClampedArray(data.buffer, data.byteOffset, data.length), info.width, info.height)?.data ?? null;
 }
 
+/** The collector's client, whose in-studio objects the register's filter picks. */
+let collectorClientId: string;
+/** The framer of each app that is not ready to print. */
+const framers = new Map<TestApp, Person>();
+
 beforeAll(async () => {
-  await seedDemo(t.db);
-  await seedDemo(unset.db);
-  await seedDemo(loopback.db);
-  framer = await signIn(t.agent(), "framer@reversa.test", DEMO_PASSWORD);
+  const { studio, as } = await makeSignedInStudio(t);
+  framer = as.framer;
+  collectorClientId = studio.collectorClient.id;
+  // The studio's address and contact, which every back label carries.
+  saveSettings(t.db, {
+    ...getSettings(t.db),
+    studioName: "Tidewell & Marr Conservation Framing",
+    studioAddress: "Unit 4, Ropewalk Yard, Eastharbour (an invented studio)",
+    studioContact: "01632 960 417 · bench@tidewell-marr.example",
+  });
+  // Twelve objects (more than one A4 sheet of eight labels): the collector's, in and out of the studio, and an institution's; one mounted.
+  const own = Array.from({ length: 6 }, (_, i) => makeObject(t.db, collectorClientId, { status: i % 3 === 2 ? "with-owner" : "in-studio" }));
+  for (let i = 0; i < 6; i++) makeObject(t.db, studio.institution.id, { status: "in-studio" });
+  makeMounting(t.db, studio.people.framer, first(own));
+  for (const app of [unset, loopback]) {
+    const s = await makeStudio(app);
+    makeObject(app.db, s.collectorClient.id);
+    framers.set(app, s.people.framer);
+  }
 });
 
 describe("back labels point only at the studio's public address", () => {
@@ -98,7 +117,7 @@ describe("back labels point only at the studio's public address", () => {
     ["a loopback address", loopback, /PUBLIC_URL is http:\/\/127\.0\.0\.1:3000/],
   ] as const) {
     it(`warns before printing and refuses to print, keeping no record, when PUBLIC_URL is ${name}`, async () => {
-      const agent = await signIn(app.agent(), "framer@reversa.test", DEMO_PASSWORD);
+      const agent = await agentFor(app, present(framers.get(app), "the app's framer"));
       const ready = await agent.get("/api/documents/labels/readiness");
       expect(ready.body.ready).toBe(false);
       expect(ready.body.problem).toMatch(hint);
@@ -206,8 +225,7 @@ describe("the sheet of labels", () => {
   }
 
   it("is produced for the register's filter, one label for each object the register lists", async () => {
-    const varga = t.db.select().from(user).where(eq(user.email, "collector@reversa.test")).get()!.clientId!;
-    const filter = { clientId: varga, status: "in-studio" };
+    const filter = { clientId: collectorClientId, status: "in-studio" };
     const listed = await framer.get("/api/objects").query({ ...filter, pageSize: 200 });
     const want = (listed.body.items as { objectNumber: string }[]).map((o) => o.objectNumber);
     expect(want.length).toBeGreaterThan(1);
@@ -219,7 +237,7 @@ describe("the sheet of labels", () => {
       .all()
       .map((o) => o.objectNumber);
     expect(all.filter((n) => new RegExp(`(^|\\s)${n}(\\s|$)`, "m").test(text)).sort()).toEqual(want.sort());
-    const none = await post(framer, "/api/documents/label-sheet", { clientId: varga, q: "nothing-matches-this" });
+    const none = await post(framer, "/api/documents/label-sheet", { clientId: collectorClientId, q: "nothing-matches-this" });
     expect(none.status).toBe(422);
     const unmounted = t.db.select().from(objects).where(isNull(objects.currentMountingId)).all().length;
     expect(unmounted).toBeGreaterThan(0);
