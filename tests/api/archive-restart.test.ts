@@ -3,6 +3,7 @@ import os from "node:os";
 import path from "node:path";
 import Database from "better-sqlite3";
 import { afterAll, describe, expect, it } from "vitest";
+import { pollUntil } from "../setup/poll.ts";
 import { signInCookie, startServer, type RunningServer } from "../setup/spawn-server.ts";
 import { DEMO_PASSWORD } from "../../server/db/seed.ts";
 
@@ -49,11 +50,11 @@ describe("an archive job when the server is killed while it is built", () => {
     const again = await fetch(`${second.baseUrl}/api/clients/${clientId}/exports/archive`, { method: "POST", headers: { cookie, origin: second.baseUrl } });
     expect(again.status).toBe(202);
     const { jobId: newId } = (await again.json()) as { jobId: string };
-    let state = "running";
-    for (const until = Date.now() + 600_000; state === "running" && Date.now() < until; ) {
-      await new Promise((r) => setTimeout(r, 100));
-      state = (await (await fetch(`${second.baseUrl}/api/exports/${newId}`, { headers: { cookie } })).json()).state;
-    }
+    const { state } = await pollUntil(
+      async () => (await (await fetch(`${second.baseUrl}/api/exports/${newId}`, { headers: { cookie } })).json()) as { state: string },
+      (s) => s.state !== "running",
+      { intervalMs: 100 },
+    );
     expect(state).toBe("done");
     const zip = await fetch(`${second.baseUrl}/api/exports/${newId}/download`, { headers: { cookie } });
     expect(zip.status).toBe(200);

@@ -1,5 +1,5 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import { agentFor, createTestApp, expectErrorShape, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
+import { agentsFor, createTestApp, expectErrorShape, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
 import type { ClientRecord } from "../../shared/schemas/clients.ts";
 
 const t = createTestApp();
@@ -11,12 +11,7 @@ beforeAll(async () => {
   makeObject(t.db, studio.collectorClient.id);
   makeObject(t.db, studio.collectorClient.id);
   makeObject(t.db, studio.institution.id);
-  as = {
-    admin: await agentFor(t, studio.people.admin),
-    framer: await agentFor(t, studio.people.framer),
-    collector: await agentFor(t, studio.people.collector),
-    registrar: await agentFor(t, studio.people.registrar),
-  };
+  as = await agentsFor(t, studio.people);
 });
 
 const names = (items: ClientRecord[]) => items.map((c) => c.name);

@@ -1,8 +1,9 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
-import { agentFor, createTestApp, expectErrorShape, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
+import { agentsFor, createTestApp, expectErrorShape, makeConditionReport, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
 import { conditionTerms } from "../../server/db/schema.ts";
 import type { ConditionReport, Term } from "../../shared/schemas/condition.ts";
+import { first } from "../setup/lists.ts";
 
 const t = createTestApp();
 
@@ -16,12 +17,7 @@ const words = (items: Term[]) => items.map((i) => i.term);
 
 beforeAll(async () => {
   studio = await makeStudio(t);
-  as = {
-    admin: await agentFor(t, studio.people.admin),
-    framer: await agentFor(t, studio.people.framer),
-    registrar: await agentFor(t, studio.people.registrar),
-    collector: await agentFor(t, studio.people.collector),
-  };
+  as = await agentsFor(t, studio.people);
 });
 
 describe("reading the vocabulary", () => {
@@ -184,21 +180,19 @@ describe("old reports keep their words", () => {
     const made = (await as.admin.post("/api/condition-terms").send({ list: "paper", term: "active mould bloom", caution: "Treat as mould: nitrile gloves and a respirator." }))
       .body as Term;
     const objectId = makeObject(t.db, studio.collectorClient.id);
-    const finding = { id: "f-1", term: "active mould bloom", location: { kind: "zone", zone: "verso" }, severity: "moderate" };
-    const draft = await as.framer.post(`/api/objects/${objectId}/condition`).send({
-      context: "arrival",
+    const finding = { id: "f-1", term: "active mould bloom", location: { kind: "zone", zone: "verso" }, severity: "moderate" } as const;
+    // Signed on arrival, 2026-03-02, by the framer (the factory signs through the condition service).
+    const report = makeConditionReport(t.db, studio.people.framer, objectId, {
       reportDate: "2026-03-02",
-      data: { overallRating: "fair", summary: "Bloom on the back.", findings: [finding], signatures: { examiner: { name: "Test framer", date: "2026-03-02" } } },
+      data: { overallRating: "fair", summary: "Bloom on the back.", findings: [finding] },
     });
-    expect(draft.status).toBe(201);
-    const signed = await as.framer.post(`/api/condition/${draft.body.id}/sign`).send({ version: draft.body.version });
-    expect(signed.status).toBe(200);
+    expect(report.status).toBe("signed");
     expect((await as.admin.put(`/api/condition-terms/${made.id}`).send({ ...made, active: false })).status).toBe(200);
-    const r: ConditionReport = (await as.collector.get(`/api/condition/${draft.body.id}`)).body;
-    expect(r.current.data.findings[0].term).toBe("active mould bloom");
+    const r: ConditionReport = (await as.collector.get(`/api/condition/${report.id}`)).body;
+    expect(first(r.current.data.findings).term).toBe("active mould bloom");
     expect(r.cautions).toEqual(["Treat as mould: nitrile gloves and a respirator."]);
     // Renaming the retired term changes the list, never the words of the report.
     await as.admin.put(`/api/condition-terms/${made.id}`).send({ ...made, term: "mould bloom", active: false });
-    expect((await as.collector.get(`/api/condition/${draft.body.id}`)).body.current.data.findings[0].term).toBe("active mould bloom");
+    expect((await as.collector.get(`/api/condition/${report.id}`)).body.current.data.findings[0].term).toBe("active mould bloom");
   });
 });

@@ -1,6 +1,6 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
-import { agentFor, createTestApp, expectErrorShape, makeObject, makeStudio, signIn, type Agent, type TestApp } from "../setup/test-app.ts";
+import { agentsFor, createTestApp, expectErrorShape, makeObject, makeStudio, signIn, type Agent, type TestApp } from "../setup/test-app.ts";
 import { custodyReceipts, events, objects } from "../../server/db/schema.ts";
 import type { CustodyCreate, CustodyReceipt } from "../../shared/schemas/custody.ts";
 import type { HistoryEvent } from "../../shared/schemas/history.ts";
@@ -8,6 +8,7 @@ import type { InStudioItem } from "../../server/features/custody/custody.service
 import { DEMO_PASSWORD, seedDemo } from "../../server/db/seed.ts";
 import { seedCustody } from "../../server/db/seed-custody.ts";
 import { verifyChains } from "../../server/features/history/history.chain.ts";
+import { at, first } from "../setup/lists.ts";
 
 // "Today" is 1 December 2026 (midday UTC, the same day in any studio's time zone).
 const clock = () => new Date("2026-12-01T12:00:00Z");
@@ -34,18 +35,9 @@ const objectRow = (app: TestApp, id: string) => app.db.select().from(objects).wh
 const receiptsOf = (app: TestApp, id: string) => app.db.select().from(custodyReceipts).where(eq(custodyReceipts.objectId, id)).all();
 const eventsOf = (app: TestApp, id: string) => app.db.select().from(events).where(eq(events.objectId, id)).all();
 
-async function agents(app: TestApp, s: Awaited<ReturnType<typeof makeStudio>>): Promise<Record<RoleName, Agent>> {
-  return {
-    admin: await agentFor(app, s.people.admin),
-    framer: await agentFor(app, s.people.framer),
-    collector: await agentFor(app, s.people.collector),
-    registrar: await agentFor(app, s.people.registrar),
-  };
-}
-
 beforeAll(async () => {
   studio = await makeStudio(t);
-  as = await agents(t, studio);
+  as = await agentsFor(t, studio.people);
 });
 
 describe("POST /api/objects/:id/custody", () => {
@@ -179,11 +171,11 @@ describe("POST /api/objects/:id/custody", () => {
     expect(history.status).toBe(200);
     const items = history.body.items as HistoryEvent[];
     expect(items.map((e) => e.type)).toEqual(steps.map((s) => s.type).reverse());
-    const intake = items[items.length - 1];
+    const intake = at(items, -1);
     expect(intake.summary).toContain("from From intake to To intake");
     expect(intake.summary).toContain("Condition on arrival: Condition at intake.");
     expect(intake.summary).toContain("Received from the owner on 1 Sep 2026");
-    expect(items[0].summary).toContain("Condition on departure: Condition at return-to-owner.");
+    expect(first(items).summary).toContain("Condition on departure: Condition at return-to-owner.");
     expect(intake.data).toMatchObject({ kind: "intake", direction: "in", statusBefore: "with-owner", statusAfter: "in-studio" });
     expect(verifyChains(t.db, id).ok).toBe(true);
 
@@ -302,7 +294,7 @@ describe("GET /api/custody/in-studio and /api/custody/receipts", () => {
 
   beforeAll(async () => {
     const s = await makeStudio(u);
-    us = await agents(u, s);
+    us = await agentsFor(u, s.people);
     const mk = (n: string, clientId: string, status = "with-owner") => makeObject(u.db, clientId, { objectNumber: n, title: `Object ${n}`, status: status as "with-owner" });
     numbers = { early: "S-003", late: "S-001", twice: "S-002", noReceipt: "S-004", gone: "S-005", onLoan: "S-006" };
     ids = {

@@ -7,6 +7,8 @@ import { DEMO_PASSWORD, seedDemo } from "../../server/db/seed.ts";
 import { mountings, user } from "../../server/db/schema.ts";
 import { getSettings, saveSettings } from "../../server/features/settings/settings.repo.ts";
 import { pdfFonts, pdfInfo, pdfPages, type PdfPage } from "../setup/pdf-layout.ts";
+import { at } from "../setup/lists.ts";
+import { binary } from "../setup/http.ts";
 
 // Every document kind, rendered with a long record (many findings, many mountings, long unbroken
 // words, typed line breaks) on A4 and US Letter, in mm and in inches, and read back page by page.
@@ -25,11 +27,6 @@ const objectIds: string[] = [];
 const LONG_WORD = "Unbrokenreferencecodewithoutanyspacesatallthatrunsonandonpastthewidthofacolumn";
 const LINES = "First typed line of the note.\nSecond typed line, after a line break.\nThird line: ✕ ✓ ▲ — “quoted”.";
 
-const binary = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on("data", (c: Buffer) => chunks.push(c));
-  res.on("end", () => cb(null, Buffer.concat(chunks)));
-};
 async function issue(url: string, body?: object): Promise<Buffer> {
   const r = framer.post(url);
   const res = await (body ? r.send(body) : r).buffer(true).parse(binary as never);
@@ -200,7 +197,7 @@ function expectReadable(name: string, pdf: Buffer, paper: { width: number; heigh
   const pages = pdfPages(pdf);
   expect(pages.length).toBe(info.pages);
   const heights = pages.flatMap((p) => bodyLines(p).map((l) => l.height)).sort((a, b) => a - b);
-  const body = heights[Math.floor(heights.length / 2)];
+  const body = at(heights, Math.floor(heights.length / 2));
   pages.forEach((page, i) => {
     const where = `${name}, page ${i + 1} of ${pages.length}`;
     for (const line of page.lines) {
@@ -216,7 +213,7 @@ function expectReadable(name: string, pdf: Buffer, paper: { width: number; heigh
     const lines = bodyLines(page);
     if (i < pages.length - 1 && lines.length) {
       // A heading (set larger than the body text) is never the last line of a page.
-      const last = lines[lines.length - 1];
+      const last = at(lines, -1);
       expect(last.height, `${where}: the heading "${last.text}" is the last line of the page`).toBeLessThan(body * 1.12);
       // A block too tall for what is left moves on, but it never leaves more than 40% of a page empty behind it.
       const bodyHeight = page.height - BODY_BOTTOM - BODY_TOP;

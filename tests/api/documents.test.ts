@@ -6,24 +6,20 @@ import { randomUUID } from "node:crypto";
 import { beforeAll, describe, expect, it } from "vitest";
 import request from "supertest";
 import sharp from "sharp";
-import { createTestApp, signIn, type Agent } from "../setup/test-app.ts";
-import { DEMO_PASSWORD, seedDemo } from "../../server/db/seed.ts";
+import { createTestApp, demoAgents, type Agent, type RoleAgents } from "../setup/test-app.ts";
+import { seedDemo } from "../../server/db/seed.ts";
 import { findObjectIdByNumber } from "../../server/features/objects/objects.repo.ts";
 import { formatMoney } from "../../shared/domain/money.ts";
 import { can } from "../../shared/permissions.ts";
 import { valuationLine } from "../../server/features/documents/record-blocks.tsx";
 import type { ObjectRecord } from "../../shared/schemas/objects.ts";
+import { first, present } from "../setup/lists.ts";
+import { binary } from "../setup/http.ts";
 
 const t = createTestApp();
-const as = {} as Record<"admin" | "framer" | "collector" | "registrar", Agent>;
+let as: RoleAgents;
 const tmp = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-docs-"));
 
-/** Collects a binary answer (supertest parses only text and JSON by itself). */
-const binary = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on("data", (c: Buffer) => chunks.push(c));
-  res.on("end", () => cb(null, Buffer.concat(chunks)));
-};
 const post = (agent: Agent, url: string) =>
   agent
     .post(url)
@@ -46,10 +42,7 @@ const idOf = (n: string) => findObjectIdByNumber(t.db, n)!;
 
 beforeAll(async () => {
   await seedDemo(t.db);
-  as.admin = await signIn(t.agent(), "admin@reversa.test", DEMO_PASSWORD);
-  as.framer = await signIn(t.agent(), "framer@reversa.test", DEMO_PASSWORD);
-  as.collector = await signIn(t.agent(), "collector@reversa.test", DEMO_PASSWORD);
-  as.registrar = await signIn(t.agent(), "registrar@reversa.test", DEMO_PASSWORD);
+  as = await demoAgents(t);
 });
 
 describe("the object dossier", () => {
@@ -62,7 +55,7 @@ describe("the object dossier", () => {
     const res = await post(as.framer, `/api/objects/${objectId()}/documents/dossier`);
     expect(res.status, String(res.body)).toBe(200);
     pdf = res.body as Buffer;
-    code = res.headers["x-verification-code"];
+    code = present(res.headers["x-verification-code"], "the x-verification-code header");
     text = textOf(pdf);
   });
 
@@ -97,7 +90,7 @@ describe("the object dossier", () => {
     expect(text).toContain(current.current.plan.display.aperture);
     expect(text).toContain(current.current.plan.display.outer);
     expect(text).toContain("How to undo this mount");
-    expect(text).toContain(current.current.data.undoNotes.split("\n")[0].split(" ").slice(0, 4).join(" "));
+    expect(text).toContain(first(current.current.data.undoNotes.split("\n")).split(" ").slice(0, 4).join(" "));
     expect(text).toContain("Conservation checks");
     expect(text).toContain("Mounting history");
     expect(text).toMatch(/Current\s/);
@@ -211,7 +204,7 @@ describe("the condition report for an insurer", () => {
       status: string;
       current: { data: { findings: { term: string }[] } };
     }[];
-    const latest = reports.filter((r) => r.status === "signed").sort((a, b) => (a.reportDate < b.reportDate ? 1 : -1))[0];
+    const latest = first(reports.filter((r) => r.status === "signed").sort((a, b) => (a.reportDate < b.reportDate ? 1 : -1)));
     const res = await post(as.collector, `/api/condition/${latest.id}/document`);
     expect(res.status).toBe(200);
     expect(res.headers["content-disposition"]).toMatch(/^attachment; filename="condition-report-2026-0001-/);

@@ -7,8 +7,9 @@ import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { parse } from "csv-parse/sync";
 import sharp from "sharp";
 import { and, eq, inArray, sql } from "drizzle-orm";
-import { createTestApp, expectErrorShape, makeObject, signIn, type Agent } from "../setup/test-app.ts";
-import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from "../../server/db/seed.ts";
+import { pollUntil } from "../setup/poll.ts";
+import { createTestApp, demoAgents, expectErrorShape, makeObject, type Agent, type RoleAgents } from "../setup/test-app.ts";
+import { seedDemo } from "../../server/db/seed.ts";
 import { clients, conditionReports, conditionRevisions, custodyReceipts, events, objects, photos, user } from "../../server/db/schema.ts";
 import { createExportsService, JOB_TTL_MS } from "../../server/features/exports/exports.service.ts";
 import { columnsFor, EXPORT_COLUMNS, minorToDecimal } from "../../server/features/exports/exports.columns.ts";
@@ -20,9 +21,11 @@ import { ADHESIVES, ATTACHMENT_METHODS, BOARD_GRADES } from "../../shared/schema
 import { GLAZING_TYPES, MOUNTING_REASONS, MOUNTING_STATUSES } from "../../shared/schemas/mountings.ts";
 import { minorDigits } from "../../shared/domain/money.ts";
 import type { SessionUser } from "../../shared/schemas/auth.ts";
+import { at, first } from "../setup/lists.ts";
+import { getBinary } from "../setup/http.ts";
 
 const t = createTestApp();
-const as = {} as Record<"admin" | "framer" | "registrar" | "collector", Agent>;
+let as: RoleAgents;
 let varga: string; // the demo collector's client
 let wrenfold: string; // the demo registrar's client
 let photoId: string;
@@ -35,16 +38,16 @@ const VALUATION_COLUMNS = ["Valuation", "Valuation currency", "Valuation date", 
 type Row = Record<string, string>;
 const BOM = "\uFEFF";
 
-/** The raw text of a response, whatever its content type. */
-const raw = (agent: Agent, url: string) =>
-  agent
-    .get(url)
-    .buffer(true)
-    .parse((res, cb) => {
-      const chunks: Buffer[] = [];
-      res.on("data", (c: Buffer) => chunks.push(c));
-      res.on("end", () => cb(null, Buffer.concat(chunks)));
-    });
+/** The raw answer as a Buffer, whatever its content type. */
+const raw = getBinary;
+/** The ids of a client's objects, read from the database. */
+const objectIdsOf = (clientId: string) =>
+  t.db
+    .select({ id: objects.id })
+    .from(objects)
+    .where(eq(objects.clientId, clientId))
+    .all()
+    .map((o) => o.id);
 
 async function csv(agent: Agent, url: string): Promise<{ text: string; rows: Row[]; header: string[] }> {
   const res = await raw(agent, url);
@@ -53,7 +56,7 @@ async function csv(agent: Agent, url: string): Promise<{ text: string; rows: Row
   expect(res.headers["content-disposition"]).toMatch(/^attachment; filename=".+\.csv"$/);
   const text = (res.body as Buffer).toString("utf8");
   const rows = parse(text, { bom: true, columns: true, record_delimiter: "\r\n" }) as Row[];
-  const header = (parse(text, { bom: true, to_line: 1 }) as string[][])[0];
+  const header = first(parse(text, { bom: true, to_line: 1 }) as string[][], "the CSV header");
   return { text, rows, header };
 }
 
@@ -82,16 +85,16 @@ const asCsvCells = (rows: Record<string, string | number | null>[]) =>
     ),
   );
 
-// The app's jobs keep their ZIPs for an hour; the test process ends sooner, so it removes the ones it made.
-const exportDirs = () => new Set(fs.readdirSync(os.tmpdir()).filter((d) => d.startsWith("reversa-export-")));
-const before = exportDirs();
-afterAll(() => {
-  for (const d of exportDirs()) if (!before.has(d)) fs.rmSync(path.join(os.tmpdir(), d), { recursive: true, force: true });
-});
+// The app's jobs keep their ZIPs for an hour; the test process ends sooner. Its temporary files go in a
+// folder of its own (each test file runs in its own process), removed at the end, so it never touches
+// another process's export folders.
+const privateTmp = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-exports-test-"));
+process.env.TMPDIR = privateTmp;
+afterAll(() => fs.rmSync(privateTmp, { recursive: true, force: true }));
 
 beforeAll(async () => {
   await seedDemo(t.db);
-  for (const u of DEMO_USERS) as[u.role] = await signIn(t.agent(), u.email, DEMO_PASSWORD);
+  as = await demoAgents(t);
   const byName = (name: string) => t.db.select({ id: clients.id }).from(clients).where(eq(clients.name, name)).get()!.id;
   varga = byName("Odile Varga-Pennick");
   wrenfold = byName("Wrenfold Hall Collection Trust");
@@ -215,12 +218,7 @@ describe("single-dataset exports", () => {
 
   it("when the custody dataset is read, then it lists every hand-over of the client's objects as recorded", async () => {
     const rows = await json(as.collector, `/api/clients/${varga}/exports/custody.json`);
-    const ids = t.db
-      .select({ id: objects.id })
-      .from(objects)
-      .where(eq(objects.clientId, varga))
-      .all()
-      .map((o) => o.id);
+    const ids = objectIdsOf(varga);
     const recorded = t.db.select().from(custodyReceipts).where(inArray(custodyReceipts.objectId, ids)).all();
     expect(rows.map((r) => r["Receipt id"]).sort()).toEqual(recorded.map((r) => r.id).sort());
     for (const r of recorded) {
@@ -395,19 +393,18 @@ describe("bulk ZIP of one client's records", () => {
     expect(start.body).toEqual({ jobId: expect.any(String) });
     const { jobId } = start.body as { jobId: string };
     const seen: number[] = [];
-    // Poll until it is done, for up to ten minutes: on a loaded two-core machine the dossiers take a while.
-    const until = Date.now() + 600_000;
-    while (Date.now() < until) {
-      const s = await agent.get(`/api/exports/${jobId}`);
-      expect(s.status).toBe(200);
-      expect(s.body).toEqual({ state: expect.stringMatching(/^(running|done|failed)$/), progress: expect.any(Number), message: expect.any(String) });
-      seen.push(s.body.progress);
-      if (s.body.state !== "running") {
-        expect(s.body.state).toBe("done");
-        break;
-      }
-      await new Promise((r) => setTimeout(r, 25));
-    }
+    // On a loaded two-core machine the dossiers in the ZIP take a while; the test's timeout bounds the wait.
+    const last = await pollUntil(
+      async () => {
+        const s = await agent.get(`/api/exports/${jobId}`);
+        expect(s.status).toBe(200);
+        expect(s.body).toEqual({ state: expect.stringMatching(/^(running|done|failed)$/), progress: expect.any(Number), message: expect.any(String) });
+        seen.push(s.body.progress);
+        return s.body as { state: string };
+      },
+      (s) => s.state !== "running",
+    );
+    expect(last.state).toBe("done");
     return { jobId, seen };
   }
 
@@ -422,7 +419,7 @@ describe("bulk ZIP of one client's records", () => {
   it("when the collector asks for a ZIP, then the job runs to done with rising progress, and the ZIP holds every dataset, the photos (metadata removed) and the PDFs, each listed in the manifest with a SHA-256 that matches", async () => {
     const eventsBefore = t.db.select({ n: sql<number>`count(*)` }).from(events).where(eq(events.type, "document-issued")).get()!.n;
     const { jobId, seen } = await runToDone(as.collector, varga);
-    for (let i = 1; i < seen.length; i++) expect(seen[i]).toBeGreaterThanOrEqual(seen[i - 1]);
+    for (let i = 1; i < seen.length; i++) expect(at(seen, i)).toBeGreaterThanOrEqual(at(seen, i - 1));
     expect(seen.at(-1)).toBe(1);
     for (const p of seen) expect(p >= 0 && p <= 1).toBe(true);
 
@@ -435,12 +432,7 @@ describe("bulk ZIP of one client's records", () => {
     expect(res.headers["content-type"]).toBe("application/zip");
     expect(res.headers["content-disposition"]).toMatch(/^attachment; filename=".+\.zip"$/);
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-export-test-"));
-    const ids = t.db
-      .select({ id: objects.id })
-      .from(objects)
-      .where(eq(objects.clientId, varga))
-      .all()
-      .map((o) => o.id);
+    const ids = objectIdsOf(varga);
     try {
       const file = path.join(dir, "export.zip");
       fs.writeFileSync(file, res.body as Buffer);
@@ -535,11 +527,10 @@ describe("bulk ZIP of one client's records", () => {
     expect((await as.collector.post(`/api/clients/${varga}/exports/archive`).send({ originals: true })).status).toBe(403);
     const start = await as.admin.post(`/api/clients/${varga}/exports/archive`).send({ originals: true });
     expect(start.status).toBe(202);
-    for (;;) {
-      const s = await as.admin.get(`/api/exports/${start.body.jobId}`);
-      if (s.body.state !== "running") break;
-      await new Promise((r) => setTimeout(r, 25));
-    }
+    await pollUntil(
+      () => as.admin.get(`/api/exports/${start.body.jobId}`),
+      (s) => s.body.state !== "running",
+    );
     const res = await raw(as.admin, `/api/exports/${start.body.jobId}/download`);
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-export-test-"));
     try {
@@ -573,17 +564,20 @@ describe("bulk ZIP of one client's records", () => {
     const jobId = service.startArchive(collector, findClient(t.db, varga)!);
     const seen: number[] = [];
     // Watched every turn of the event loop until it ends, however long a loaded machine takes (the test timeout bounds it).
-    for (;;) {
-      const s = service.status(collector, jobId);
-      if (seen.at(-1) !== s.progress) seen.push(s.progress);
-      if (s.state !== "running") break;
-      await new Promise((r) => setImmediate(r));
-    }
+    await pollUntil(
+      () => {
+        const s = service.status(collector, jobId);
+        if (seen.at(-1) !== s.progress) seen.push(s.progress);
+        return s;
+      },
+      (s) => s.state !== "running",
+      { intervalMs: 0 },
+    );
     expect(service.status(collector, jobId).state).toBe("done");
     expect(seen.length).toBeGreaterThan(2); // 0, at least one step between, 1
     expect(seen[0]).toBe(0);
     expect(seen.at(-1)).toBe(1);
-    for (let i = 1; i < seen.length; i++) expect(seen[i]).toBeGreaterThan(seen[i - 1]);
+    for (let i = 1; i < seen.length; i++) expect(at(seen, i)).toBeGreaterThan(at(seen, i - 1));
     expect(seen.slice(1, -1).every((p) => p > 0 && p < 1)).toBe(true);
 
     const { file } = service.download(collector, jobId);

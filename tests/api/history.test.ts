@@ -1,12 +1,14 @@
 import { createHmac } from "node:crypto";
 import { beforeAll, describe, expect, it } from "vitest";
 import { asc, eq } from "drizzle-orm";
-import { agentFor, createTestApp, expectErrorShape, makeClient, makePerson, makeStudio, type Agent, type TestApp } from "../setup/test-app.ts";
+import { A4_CORNERS, A4_HINGED } from "../../server/db/factories.ts";
+import { agentFor, agentsFor, createTestApp, expectErrorShape, makeClient, makePerson, makeStudio, type Agent, type TestApp } from "../setup/test-app.ts";
 import { events } from "../../server/db/schema.ts";
 import { canonicalJson, eventHash } from "../../server/features/history/history.chain.ts";
 import type { ObjectCreateInput, ObjectRecord } from "../../shared/schemas/objects.ts";
 import type { HistoryEvent } from "../../shared/schemas/history.ts";
 import type { MountingDataInput, MountingRecord } from "../../shared/schemas/mountings.ts";
+import { at, first as firstOf } from "../setup/lists.ts";
 
 const t = createTestApp();
 
@@ -27,29 +29,9 @@ const objectBody = (clientId: string, over: Partial<ObjectCreateInput> = {}): Ob
   ...over,
 });
 
-// 5 mm overlap a side: common practice (no source). T-hinges of Japanese tissue with wheat starch paste
-// along the top (Library of Congress, "Matting and Hinging Works of Art on Paper").
-const DATA: MountingDataInput = {
-  plan: { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 60 } },
-  boards: { window: { grade: "museum", buffered: false, ply: 4 }, backing: { grade: "museum", buffered: false, ply: 4 } },
-  attachment: {
-    method: "t-hinge",
-    tissue: "Kozo",
-    adhesive: "wheat-starch-paste",
-    hinges: [
-      { edge: "top", offsetMm: 40, widthMm: 25 },
-      { edge: "top", offsetMm: 145, widthMm: 25 },
-    ],
-  },
-  glazing: { type: "uv-glass", thicknessMm: 2 },
-  undoNotes: "Release both hinges with a damp blotter.",
-};
-const REFRAME: MountingDataInput = {
-  ...DATA,
-  attachment: { method: "corners", hinges: [] },
-  glazing: { type: "ar-uv-glass", thicknessMm: 3 },
-  undoNotes: "Slide the sheet out of the corners.",
-};
+// The A4 print hinged, then reframed in corners (sources beside the values in server/db/factories.ts).
+const DATA = A4_HINGED;
+const REFRAME = A4_CORNERS;
 
 async function createObject(agent: Agent, body: ObjectCreateInput): Promise<ObjectRecord> {
   const res = await agent.post("/api/objects").send(body);
@@ -78,6 +60,18 @@ const history = async (agent: Agent, objectId: string, query = ""): Promise<{ it
   return res.body;
 };
 const rowsOf = (app: TestApp, objectId: string) => app.db.select().from(events).where(eq(events.objectId, objectId)).orderBy(asc(events.seq)).all();
+/** The part of a stored event its hash covers, written out here as the history chain defines it. */
+const hashedContent = (r: ReturnType<typeof rowsOf>[number]) => ({
+  objectId: r.objectId,
+  type: r.type,
+  at: r.at.getTime(),
+  actorId: r.actorId,
+  actorName: r.actorName,
+  summary: r.summary,
+  data: r.data,
+  prevHash: r.prevHash,
+  occurredOn: r.occurredOn ?? undefined,
+});
 
 /** Every action of the journey on one object, in order, so each test below can read its event. */
 let obj: ObjectRecord;
@@ -86,12 +80,7 @@ let second: MountingRecord;
 
 beforeAll(async () => {
   studio = await makeStudio(t);
-  as = {
-    admin: await agentFor(t, studio.people.admin),
-    framer: await agentFor(t, studio.people.framer),
-    registrar: await agentFor(t, studio.people.registrar),
-    collector: await agentFor(t, studio.people.collector),
-  };
+  as = await agentsFor(t, studio.people);
   obj = await createObject(as.framer, objectBody(studio.collectorClient.id, { objectNumber: "H-JOURNEY" }));
   obj = await edit(as.framer, obj, { title: "Heron at the weir, ink study", medium: "Iron gall ink" });
   obj = await edit(as.framer, obj, { valuationMinor: 1_234_500, valuationCurrency: "GBP", valuationDate: "2026-02-01", valuationBasis: "market" });
@@ -116,7 +105,7 @@ describe("the events each action writes", () => {
   const one = (type: string) => {
     const found = items.filter((e) => e.type === type);
     expect(found, type).toHaveLength(1);
-    return found[0];
+    return firstOf(found, type);
   };
 
   it("when the journey is read back, then every action is there, newest first by the day it happened, then by entry", () => {
@@ -169,9 +158,9 @@ describe("the events each action writes", () => {
     await edit(as.registrar, o, { title: "Renamed by the registrar", valuationMinor: 987_654, valuationCurrency: "EUR" });
     const got = (await history(as.registrar, o.id)).items;
     expect(got.map((e) => e.type)).toEqual(["valued", "catalogue-changed", "created"]);
-    expect(got[1].data.changes).toEqual([{ path: "title", before: "Heron, ink study", after: "Renamed by the registrar" }]);
+    expect(at(got, 1).data.changes).toEqual([{ path: "title", before: "Heron, ink study", after: "Renamed by the registrar" }]);
     expect(JSON.stringify(got)).not.toContain("987654");
-    expect(got[0].actorName).toBe("Test registrar");
+    expect(firstOf(got).actorName).toBe("Test registrar");
   });
 
   it("when an object is recorded with a value, then a valued event follows created, without the amount", async () => {
@@ -252,7 +241,7 @@ describe("reading the history", () => {
     do {
       const page: { items: HistoryEvent[]; nextBefore: string | null } = await history(as.framer, obj.id, `?limit=3${before ? `&before=${before}` : ""}`);
       expect(page.items.length).toBeLessThanOrEqual(3);
-      const last = page.items[page.items.length - 1];
+      const last = at(page.items, -1);
       if (page.nextBefore !== null) expect(page.nextBefore).toBe(`${last.occurredOn}:${last.seq}`);
       pages.push(page.items);
       before = page.nextBefore;
@@ -289,17 +278,7 @@ describe("the hash chain", () => {
     let prev: string | null = null;
     for (const r of rows) {
       expect(r.prevHash, `event ${r.seq}`).toBe(prev);
-      const content = {
-        objectId: r.objectId,
-        type: r.type,
-        at: r.at.getTime(),
-        actorId: r.actorId,
-        actorName: r.actorName,
-        summary: r.summary,
-        data: r.data,
-        prevHash: r.prevHash,
-        occurredOn: r.occurredOn ?? undefined,
-      };
+      const content = hashedContent(r);
       // Recomputed by hand (HMAC-SHA256, RFC 2104, keyed with the app's history key) as well as through eventHash.
       const byHand = createHmac("sha256", t.historyKey).update(canonicalJson(content)).digest("hex");
       expect(r.hash, `event ${r.seq}`).toBe(byHand);
@@ -310,18 +289,8 @@ describe("the hash chain", () => {
   });
 
   it("when any part of an event's content or its link changes, then its hash changes", () => {
-    const r = rowsOf(t, obj.id)[1];
-    const content = {
-      objectId: r.objectId,
-      type: r.type,
-      at: r.at.getTime(),
-      actorId: r.actorId,
-      actorName: r.actorName,
-      summary: r.summary,
-      data: r.data,
-      prevHash: r.prevHash,
-      occurredOn: r.occurredOn ?? undefined,
-    };
+    const r = at(rowsOf(t, obj.id), 1);
+    const content = hashedContent(r);
     const h = eventHash(content, t.historyKey);
     for (const over of [
       { summary: `${r.summary} ` },
@@ -340,7 +309,7 @@ describe("the hash chain", () => {
     const o = await createObject(as.framer, objectBody(studio.institution.id));
     const rows = rowsOf(t, o.id);
     expect(rows).toHaveLength(1);
-    expect(rows[0].prevHash).toBeNull();
+    expect(firstOf(rows).prevHash).toBeNull();
   });
 
   it("when the object's chain is verified, then it is ok and counts the object's events", async () => {
@@ -423,7 +392,7 @@ describe("nobody deletes history", () => {
   it("when anyone sends DELETE, PUT or PATCH to a history, then there is no such route (404) and nothing changes", async () => {
     const before = rowsOf(t, obj.id);
     for (const method of ["delete", "put", "patch"] as const) {
-      for (const path of [`/api/objects/${obj.id}/history`, `/api/objects/${obj.id}/history/${before[0].seq}`]) {
+      for (const path of [`/api/objects/${obj.id}/history`, `/api/objects/${obj.id}/history/${firstOf(before).seq}`]) {
         const res = await as.admin[method](path).send({});
         expect(res.status, `${method} ${path}`).toBe(404);
         expectErrorShape(res.body, "not_found");
@@ -433,9 +402,9 @@ describe("nobody deletes history", () => {
   });
 
   it("when the database is asked to UPDATE an event, then it refuses", () => {
-    const seq = rowsOf(t, obj.id)[0].seq;
+    const seq = firstOf(rowsOf(t, obj.id)).seq;
     expect(() => t.database.sqlite.prepare("UPDATE events SET summary = 'nothing happened' WHERE seq = ?").run(seq)).toThrow(/history events cannot be changed/);
-    expect(rowsOf(t, obj.id)[0].summary).not.toBe("nothing happened");
+    expect(firstOf(rowsOf(t, obj.id)).summary).not.toBe("nothing happened");
   });
 
   it("when the database is asked to DELETE an event, then it refuses", () => {
@@ -466,7 +435,7 @@ describe("tampering by hand is caught by verify", () => {
   });
 
   it("when one event's summary is changed after the trigger is dropped, then verify names that event's seq and object", async () => {
-    const target = rowsOf(x, a.id)[1];
+    const target = at(rowsOf(x, a.id), 1);
     x.database.sqlite.exec("DROP TRIGGER events_no_update");
     x.database.sqlite.prepare("UPDATE events SET summary = ? WHERE seq = ?").run("Catalogue changed: nothing.", target.seq);
 
@@ -485,7 +454,7 @@ describe("tampering by hand is caught by verify", () => {
   });
 
   it("when an event's data is changed, then verify names that event", async () => {
-    const target = rowsOf(x, a.id)[2];
+    const target = at(rowsOf(x, a.id), 2);
     x.database.sqlite.prepare("UPDATE events SET data = ? WHERE seq = ?").run(JSON.stringify({ changes: [] }), target.seq);
     expect((await admin.get(`/api/objects/${a.id}/history/verify`)).body).toMatchObject({ ok: false, checked: 2, brokenAt: { seq: target.seq, objectId: a.id } });
     x.database.sqlite.prepare("UPDATE events SET data = ? WHERE seq = ?").run(JSON.stringify(target.data), target.seq);
@@ -496,20 +465,20 @@ describe("tampering by hand is caught by verify", () => {
     const rows = rowsOf(x, b.id);
     expect(rows).toHaveLength(4);
     x.database.sqlite.exec("DROP TRIGGER events_no_delete");
-    x.database.sqlite.prepare("DELETE FROM events WHERE seq = ?").run(rows[1].seq);
+    x.database.sqlite.prepare("DELETE FROM events WHERE seq = ?").run(at(rows, 1).seq);
 
     const one = await admin.get(`/api/objects/${b.id}/history/verify`);
-    expect(one.body).toMatchObject({ ok: false, checked: 1, brokenAt: { seq: rows[2].seq, objectId: b.id } });
+    expect(one.body).toMatchObject({ ok: false, checked: 1, brokenAt: { seq: at(rows, 2).seq, objectId: b.id } });
     expect(one.body.brokenAt.reason).toMatch(/removed/);
     const all = await admin.get("/api/history/verify");
-    expect(all.body).toMatchObject({ ok: false, brokenAt: { seq: rows[2].seq, objectId: b.id } });
+    expect(all.body).toMatchObject({ ok: false, brokenAt: { seq: at(rows, 2).seq, objectId: b.id } });
   });
 
   it("when an object's first event is deleted, then verify names the event that now claims a missing predecessor", async () => {
     const rows = rowsOf(x, a.id);
-    x.database.sqlite.prepare("DELETE FROM events WHERE seq = ?").run(rows[0].seq);
+    x.database.sqlite.prepare("DELETE FROM events WHERE seq = ?").run(firstOf(rows).seq);
     const one = await admin.get(`/api/objects/${a.id}/history/verify`);
-    expect(one.body).toMatchObject({ ok: false, checked: 0, brokenAt: { seq: rows[1].seq, objectId: a.id } });
+    expect(one.body).toMatchObject({ ok: false, checked: 0, brokenAt: { seq: at(rows, 1).seq, objectId: a.id } });
     expect(one.body.brokenAt.reason).toMatch(/not there/);
   });
 
@@ -520,9 +489,9 @@ describe("tampering by hand is caught by verify", () => {
     c = await edit(admin, c, { title: "C, second change" });
     expect((await admin.get(`/api/objects/${c.id}/history/verify`)).body).toEqual({ ok: true, checked: 3 });
     const rows = rowsOf(x, c.id);
-    x.database.sqlite.prepare("DELETE FROM events WHERE seq = ?").run(rows[2].seq);
+    x.database.sqlite.prepare("DELETE FROM events WHERE seq = ?").run(at(rows, 2).seq);
     const one = await admin.get(`/api/objects/${c.id}/history/verify`);
-    expect(one.body).toMatchObject({ ok: false, brokenAt: { seq: rows[1].seq, objectId: c.id } });
+    expect(one.body).toMatchObject({ ok: false, brokenAt: { seq: at(rows, 1).seq, objectId: c.id } });
     expect(one.body.brokenAt.reason).toMatch(/ends before/);
   });
 });

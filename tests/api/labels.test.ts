@@ -1,12 +1,13 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import { eq, isNotNull, isNull } from "drizzle-orm";
+import { isNotNull, isNull } from "drizzle-orm";
 import sharp from "sharp";
 import jsQR from "jsqr";
-import { createTestApp, makeObject, signIn, type Agent } from "../setup/test-app.ts";
+import { agentFor, createTestApp, makeMounting, makeObject, makeSignedInStudio, makeStudio, type Agent, type Person, type TestApp } from "../setup/test-app.ts";
 import { pageImage, pdfFonts, pdfInfo, pdfPages } from "../setup/pdf-layout.ts";
-import { DEMO_PASSWORD, seedDemo } from "../../server/db/seed.ts";
-import { issuedDocuments as documents, objects, user } from "../../server/db/schema.ts";
+import { issuedDocuments as documents, objects } from "../../server/db/schema.ts";
 import { getSettings, saveSettings } from "../../server/features/settings/settings.repo.ts";
+import { first, at as item, present } from "../setup/lists.ts";
+import { binary } from "../setup/http.ts";
 
 const PUBLIC = "http://records.example.test";
 const t = createTestApp({ env: { PUBLIC_URL: PUBLIC } });
@@ -14,16 +15,11 @@ const unset = createTestApp();
 const loopback = createTestApp({ env: { PUBLIC_URL: "http://127.0.0.1:3000" } });
 let framer: Agent;
 
-const binary = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on("data", (c: Buffer) => chunks.push(c));
-  res.on("end", () => cb(null, Buffer.concat(chunks)));
-};
 const post = (agent: Agent, url: string, body?: object) => (body ? agent.post(url).send(body) : agent.post(url)).buffer(true).parse(binary as never);
 async function issue(url: string, body?: object): Promise<{ pdf: Buffer; code: string }> {
   const res = await post(framer, url, body);
   expect(res.status, String(res.body)).toBe(200);
-  return { pdf: res.body as Buffer, code: res.headers["x-verification-code"] };
+  return { pdf: res.body as Buffer, code: present(res.headers["x-verification-code"], "the x-verification-code header") };
 }
 const words = (pdf: Buffer) => pdfPages(pdf).map((p) => p.lines.map((l) => l.text).join("\n"));
 const flat = (pdf: Buffer) => words(pdf).join("\n").replace(/\s+/g, " ");
@@ -49,7 +45,8 @@ async function grey(pdf: Buffer, page: number) {
  */
 function cutLines(img: { data: Buffer; width: number; height: number }, axis: "x" | "y"): number[] {
   const [n, m] = axis === "x" ? [img.width, img.height] : [img.height, img.width];
-  const at = (i: number, j: number) => (axis === "x" ? img.data[j * img.width + i] : img.data[i * img.width + j]);
+  // A pixel outside the image reads as 0 (it is neither line nor paper).
+  const at = (i: number, j: number) => (axis === "x" ? img.data[j * img.width + i] : img.data[i * img.width + j]) ?? 0;
   const hits: number[] = [];
   for (let i = 3; i < n - 3; i++) {
     let count = 0;
@@ -65,7 +62,11 @@ function cutLines(img: { data: Buffer; width: number; height: number }, axis: "x
     if (count > m / 3 && dashes >= 100) hits.push(i);
   }
   const lines: number[][] = [];
-  for (const h of hits) (lines.length && h - lines[lines.length - 1].at(-1)! <= 2 ? lines[lines.length - 1] : lines[lines.push([]) - 1]).push(h);
+  for (const h of hits) {
+    const last = lines.at(-1);
+    if (last && h - item(last, -1) <= 2) last.push(h);
+    else lines.push([h]);
+  }
   return lines.map((l) => l.reduce((a, b) => a + b, 0) / l.length);
 }
 
@@ -77,11 +78,31 @@ async function decodeQr(pdf: Buffer, page: number, region?: { left: number; top:
   return jsQR(new Uint8ClampedArray(data.buffer, data.byteOffset, data.length), info.width, info.height)?.data ?? null;
 }
 
+/** The collector's client, whose in-studio objects the register's filter picks. */
+let collectorClientId: string;
+/** The framer of each app that is not ready to print. */
+const framers = new Map<TestApp, Person>();
+
 beforeAll(async () => {
-  await seedDemo(t.db);
-  await seedDemo(unset.db);
-  await seedDemo(loopback.db);
-  framer = await signIn(t.agent(), "framer@reversa.test", DEMO_PASSWORD);
+  const { studio, as } = await makeSignedInStudio(t);
+  framer = as.framer;
+  collectorClientId = studio.collectorClient.id;
+  // The studio's address and contact, which every back label carries.
+  saveSettings(t.db, {
+    ...getSettings(t.db),
+    studioName: "Tidewell & Marr Conservation Framing",
+    studioAddress: "Unit 4, Ropewalk Yard, Eastharbour (an invented studio)",
+    studioContact: "01632 960 417 · bench@tidewell-marr.example",
+  });
+  // Twelve objects (more than one A4 sheet of eight labels): the collector's, in and out of the studio, and an institution's; one mounted.
+  const own = Array.from({ length: 6 }, (_, i) => makeObject(t.db, collectorClientId, { status: i % 3 === 2 ? "with-owner" : "in-studio" }));
+  for (let i = 0; i < 6; i++) makeObject(t.db, studio.institution.id, { status: "in-studio" });
+  makeMounting(t.db, studio.people.framer, first(own));
+  for (const app of [unset, loopback]) {
+    const s = await makeStudio(app);
+    makeObject(app.db, s.collectorClient.id);
+    framers.set(app, s.people.framer);
+  }
 });
 
 describe("back labels point only at the studio's public address", () => {
@@ -96,7 +117,7 @@ describe("back labels point only at the studio's public address", () => {
     ["a loopback address", loopback, /PUBLIC_URL is http:\/\/127\.0\.0\.1:3000/],
   ] as const) {
     it(`warns before printing and refuses to print, keeping no record, when PUBLIC_URL is ${name}`, async () => {
-      const agent = await signIn(app.agent(), "framer@reversa.test", DEMO_PASSWORD);
+      const agent = await agentFor(app, present(framers.get(app), "the app's framer"));
       const ready = await agent.get("/api/documents/labels/readiness");
       expect(ready.body.ready).toBe(false);
       expect(ready.body.problem).toMatch(hint);
@@ -170,11 +191,11 @@ describe("the sheet of labels", () => {
         // Two columns of 100 mm on both papers; four rows of 70 mm fit A4's 297 mm, three fit Letter's 279.4 mm.
         expect(xs).toHaveLength(3);
         expect(ys).toHaveLength(paper === "A4" ? 5 : 4);
-        for (let i = 1; i < xs.length; i++) expect(Math.abs((xs[i] - xs[i - 1]) / PX_PER_MM - 100)).toBeLessThan(0.3);
-        for (let i = 1; i < ys.length; i++) expect(Math.abs((ys[i] - ys[i - 1]) / PX_PER_MM - 70)).toBeLessThan(0.3);
+        for (let i = 1; i < xs.length; i++) expect(Math.abs((item(xs, i) - item(xs, i - 1)) / PX_PER_MM - 100)).toBeLessThan(0.3);
+        for (let i = 1; i < ys.length; i++) expect(Math.abs((item(ys, i) - item(ys, i - 1)) / PX_PER_MM - 70)).toBeLessThan(0.3);
         // At least 5 mm of paper at every edge, where printers cannot print.
-        expect(xs[0] / PX_PER_MM).toBeGreaterThan(4.9);
-        expect(ys[0] / PX_PER_MM).toBeGreaterThan(4.9);
+        expect(item(xs, 0) / PX_PER_MM).toBeGreaterThan(4.9);
+        expect(item(ys, 0) / PX_PER_MM).toBeGreaterThan(4.9);
         expect((img.width - xs.at(-1)!) / PX_PER_MM).toBeGreaterThan(4.9);
         expect((img.height - ys.at(-1)!) / PX_PER_MM).toBeGreaterThan(4.9);
 
@@ -186,10 +207,10 @@ describe("the sheet of labels", () => {
           for (let r = 0; r + 1 < ys.length; r++) {
             for (let c = 0; c + 1 < xs.length; c++) {
               const region = {
-                left: Math.round(xs[c] * scale) + 2,
-                top: Math.round(ys[r] * scale) + 2,
-                width: Math.round((xs[c + 1] - xs[c]) * scale) - 4,
-                height: Math.round((ys[r + 1] - ys[r]) * scale) - 4,
+                left: Math.round(item(xs, c) * scale) + 2,
+                top: Math.round(item(ys, r) * scale) + 2,
+                width: Math.round((item(xs, c + 1) - item(xs, c)) * scale) - 4,
+                height: Math.round((item(ys, r + 1) - item(ys, r)) * scale) - 4,
               };
               const url = await decodeQr(pdf, p, region);
               if (url) decoded.push(url);
@@ -204,8 +225,7 @@ describe("the sheet of labels", () => {
   }
 
   it("is produced for the register's filter, one label for each object the register lists", async () => {
-    const varga = t.db.select().from(user).where(eq(user.email, "collector@reversa.test")).get()!.clientId!;
-    const filter = { clientId: varga, status: "in-studio" };
+    const filter = { clientId: collectorClientId, status: "in-studio" };
     const listed = await framer.get("/api/objects").query({ ...filter, pageSize: 200 });
     const want = (listed.body.items as { objectNumber: string }[]).map((o) => o.objectNumber);
     expect(want.length).toBeGreaterThan(1);
@@ -217,7 +237,7 @@ describe("the sheet of labels", () => {
       .all()
       .map((o) => o.objectNumber);
     expect(all.filter((n) => new RegExp(`(^|\\s)${n}(\\s|$)`, "m").test(text)).sort()).toEqual(want.sort());
-    const none = await post(framer, "/api/documents/label-sheet", { clientId: varga, q: "nothing-matches-this" });
+    const none = await post(framer, "/api/documents/label-sheet", { clientId: collectorClientId, q: "nothing-matches-this" });
     expect(none.status).toBe(422);
     const unmounted = t.db.select().from(objects).where(isNull(objects.currentMountingId)).all().length;
     expect(unmounted).toBeGreaterThan(0);

@@ -5,24 +5,21 @@ import { spawnSync } from "node:child_process";
 import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { and, eq, isNotNull } from "drizzle-orm";
-import { createTestApp, makeClient, makeObject, signIn, type Agent } from "../setup/test-app.ts";
-import { DEMO_PASSWORD, seedDemo } from "../../server/db/seed.ts";
+import { createTestApp, demoAgents, makeClient, makeObject, type Agent, type RoleAgents } from "../setup/test-app.ts";
+import { seedDemo } from "../../server/db/seed.ts";
 import { clients, custodyReceipts, mountings, objects, user } from "../../server/db/schema.ts";
 import { getSettings, saveSettings } from "../../server/features/settings/settings.repo.ts";
 import { formatMoney } from "../../shared/domain/money.ts";
 import { renderScheduleForBench } from "../../server/features/documents/schedule.tsx";
 import { handlingCautions } from "../../server/features/documents/custody-receipt.tsx";
+import { at, first } from "../setup/lists.ts";
+import { binary } from "../setup/http.ts";
 
 const t = createTestApp({ env: { PUBLIC_URL: "http://reversa.example.test" } });
-const as = {} as Record<"admin" | "framer" | "collector" | "registrar", Agent>;
+let as: RoleAgents;
 const tmp = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-more-docs-"));
 afterAll(() => fs.rmSync(tmp, { recursive: true, force: true }));
 
-const binary = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on("data", (c: Buffer) => chunks.push(c));
-  res.on("end", () => cb(null, Buffer.concat(chunks)));
-};
 const post = (agent: Agent, url: string, body?: object) => {
   const r = agent.post(url);
   return (body ? r.send(body) : r).buffer(true).parse(binary as never);
@@ -69,10 +66,7 @@ let varga: string;
 
 beforeAll(async () => {
   await seedDemo(t.db);
-  as.admin = await signIn(t.agent(), "admin@reversa.test", DEMO_PASSWORD);
-  as.framer = await signIn(t.agent(), "framer@reversa.test", DEMO_PASSWORD);
-  as.collector = await signIn(t.agent(), "collector@reversa.test", DEMO_PASSWORD);
-  as.registrar = await signIn(t.agent(), "registrar@reversa.test", DEMO_PASSWORD);
+  as = await demoAgents(t);
   wrenfold = t.db.select().from(user).where(eq(user.email, "registrar@reversa.test")).get()!.clientId!;
   varga = t.db.select().from(user).where(eq(user.email, "collector@reversa.test")).get()!.clientId!;
 });
@@ -83,18 +77,18 @@ function sumRows(text: string, numbers: string[]): Map<string, number> {
   const sums = new Map<string, number>();
   const wanted = new Set(numbers);
   for (const line of text.split("\n")) {
-    const first = line.trim().split(" ")[0];
-    if (!wanted.has(first)) continue;
+    const number = first(line.trim().split(" "));
+    if (!wanted.has(number)) continue;
     const m = line.trim().match(MONEY);
     if (!m) continue;
-    const minor = Math.round(Number(m[2].replace(/,/g, "")) * 100);
-    sums.set(m[1].trim(), (sums.get(m[1].trim()) ?? 0) + minor);
+    const minor = Math.round(Number(at(m, 2).replace(/,/g, "")) * 100);
+    sums.set(at(m, 1).trim(), (sums.get(at(m, 1).trim()) ?? 0) + minor);
   }
   return sums;
 }
 function totalsIn(text: string): Map<string, number> {
   const out = new Map<string, number>();
-  for (const m of text.matchAll(/Total ((?:[A-Z]{1,3})?[$£€¥]|[A-Z]{3}\s)(\d[\d,]*(?:\.\d+)?)/g)) out.set(m[1].trim(), Math.round(Number(m[2].replace(/,/g, "")) * 100));
+  for (const m of text.matchAll(/Total ((?:[A-Z]{1,3})?[$£€¥]|[A-Z]{3}\s)(\d[\d,]*(?:\.\d+)?)/g)) out.set(at(m, 1).trim(), Math.round(Number(at(m, 2).replace(/,/g, "")) * 100));
   return out;
 }
 
@@ -134,7 +128,7 @@ describe("the schedule of values", () => {
     const { text } = await expectDocument(res, "schedule-of-values");
     expect(text).toContain("2 selected objects");
     const other = t.db.select().from(objects).where(eq(objects.clientId, varga)).get()!;
-    expect((await post(as.framer, `/api/clients/${wrenfold}/documents/schedule`, { objectIds: [rows[0].id, other.id] })).status).toBe(404);
+    expect((await post(as.framer, `/api/clients/${wrenfold}/documents/schedule`, { objectIds: [first(rows).id, other.id] })).status).toBe(404);
     expect((await post(as.framer, `/api/clients/${wrenfold}/documents/schedule`, { status: "nowhere" })).status).toBe(422);
   });
 
@@ -325,10 +319,10 @@ describe("the custody receipt", () => {
   it("asks for two people and never the top rail for a heavy frame, and says nothing of glass or weight where neither applies", () => {
     const heavy = handlingCautions({ glass: false, weightKg: 14.2 });
     expect(heavy.map((c) => c.title)).toEqual(["Heavy frame (about 14 kg)"]);
-    expect(heavy[0].text).toMatch(/two people.*Never lift it by the top rail/s);
+    expect(first(heavy).text).toMatch(/two people.*Never lift it by the top rail/s);
     expect(handlingCautions({ glass: false, weightKg: 3 })).toEqual([]);
     // Broken glass: the frame laid flat, nothing lifted off the work, the framer or a conservator called (common practice (no source)).
-    const glass = handlingCautions({ glass: true, weightKg: null })[0].text;
+    const glass = first(handlingCautions({ glass: true, weightKg: null })).text;
     expect(glass).toMatch(/lay the frame flat/);
     expect(glass).toMatch(/do not lift pieces off the work/);
     expect(glass).toMatch(/Call the framer or a conservator/);
@@ -350,7 +344,7 @@ describe("the workshop sheet", () => {
     const unit = getSettings(t.db).unit;
     expect(text).toContain(unit === "mm" ? "813 × 1016 mm" : "32 × 40 in");
     expect(text).toMatch(/sharps container/);
-    const other = await post(as.framer, "/api/documents/workshop-sheet", { mountingIds: [rows[0].mountings.id], boardSheetId: "40x60in" });
+    const other = await post(as.framer, "/api/documents/workshop-sheet", { mountingIds: [first(rows).mountings.id], boardSheetId: "40x60in" });
     expect((await expectDocument(other, "workshop-sheet")).text).toContain(unit === "mm" ? "1016 × 1524 mm" : "40 × 60 in");
   });
 

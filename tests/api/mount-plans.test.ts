@@ -1,9 +1,10 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
-import { agentFor, createTestApp, expectErrorShape, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
+import { agentsFor, createTestApp, expectErrorShape, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
 import { mountPlans } from "../../server/db/schema.ts";
 import type { MountPlan, MountPlanInput } from "../../shared/schemas/mount-plan.ts";
 import type { StudioSettings } from "../../shared/schemas/settings.ts";
+import { first } from "../setup/lists.ts";
 
 const t = createTestApp();
 
@@ -26,12 +27,7 @@ beforeAll(async () => {
     institutions: makeObject(t.db, studio.institution.id, { title: "Survey of the east meadow" }),
     others: makeObject(t.db, studio.otherInstitution.id, { title: "Parish boundary deed" }),
   };
-  as = {
-    admin: await agentFor(t, studio.people.admin),
-    framer: await agentFor(t, studio.people.framer),
-    collector: await agentFor(t, studio.people.collector),
-    registrar: await agentFor(t, studio.people.registrar),
-  };
+  as = await agentsFor(t, studio.people);
 });
 
 const calculate = (agent: Agent, body: unknown) => agent.post("/api/mount-plans/calculate").send(body as object);
@@ -329,7 +325,7 @@ describe("plan drafts: GET and PUT /api/objects/:id/plan", () => {
     expect(get.status).toBe(200);
     expect(get.body.draft).toEqual(put.body);
     // The stored row keeps the input only; the numbers are computed when it is read.
-    expect(rowsFor(ids.collectors)[0].input).not.toHaveProperty("aperture");
+    expect(first(rowsFor(ids.collectors)).input).not.toHaveProperty("aperture");
   });
 
   it("when a second save gives no version, then it answers 409 and the draft is unchanged", async () => {
@@ -360,7 +356,7 @@ describe("plan drafts: GET and PUT /api/objects/:id/plan", () => {
     const res = await as.framer.put(`/api/objects/${ids.collectors}/plan`).send({ input: { ...DRAFT, fitOuter: { width: 100, height: 500 } }, version: 2 });
     expect(res.status).toBe(422);
     expect(Object.keys(expectErrorShape(res.body, "validation_failed").fields ?? {})).toEqual(["input.fitOuter.width"]);
-    const row = rowsFor(ids.collectors)[0];
+    const row = first(rowsFor(ids.collectors));
     expect(row.version).toBe(2);
     expect(row.input).not.toHaveProperty("fitOuter");
   });
@@ -380,7 +376,7 @@ describe("plan drafts: GET and PUT /api/objects/:id/plan", () => {
     expect(theirs.status).toBe(403);
     expectErrorShape(theirs.body, "forbidden");
     expect(rowsFor(ids.institutions)).toEqual([]);
-    expect(rowsFor(ids.collectors)[0].version).toBe(2);
+    expect(first(rowsFor(ids.collectors)).version).toBe(2);
   });
 
   it("when a registrar or collector reaches for another client's object, then GET and PUT answer 404", async () => {

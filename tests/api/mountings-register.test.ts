@@ -1,4 +1,5 @@
 import { beforeAll, describe, expect, it } from "vitest";
+import { A4_CORNERS, A4_HINGED } from "../../server/db/factories.ts";
 import { agentFor, createTestApp, expectErrorShape, makeObject, makeStudio, type Agent, type Person } from "../setup/test-app.ts";
 import type { MountingDataInput, MountingListItem, MountingListPage, MountingRecord } from "../../shared/schemas/mountings.ts";
 
@@ -10,35 +11,9 @@ let registrar: Agent;
 let collector: Agent;
 let people: Record<"admin" | "framer" | "registrar" | "collector", Person>;
 
-// A4 = 210 × 297 mm (ISO 216) with a 5 mm overlap a side (common practice, no source); two T-hinges of
-// Japanese tissue with wheat starch paste along the top edge (Library of Congress, "Matting and Hinging
-// Works of Art on Paper"); UV-filtering glass (NEDCC leaflet 4.10). Batch numbers are invented.
-const HINGED: MountingDataInput = {
-  plan: { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 60 } },
-  boards: {
-    window: { grade: "museum", buffered: false, ply: 4, batch: "MB-2291" },
-    backing: { grade: "museum", buffered: false, ply: 4, batch: "MB-2292" },
-  },
-  attachment: {
-    method: "t-hinge",
-    tissue: "Kozo, Japanese tissue",
-    adhesive: "wheat-starch-paste",
-    hinges: [
-      { edge: "top", offsetMm: 40, widthMm: 25 },
-      { edge: "top", offsetMm: 145, widthMm: 25 },
-    ],
-  },
-  glazing: { type: "uv-glass", thicknessMm: 2 },
-  undoNotes: "Release both T-hinges with a damp blotter over the paste; lift the sheet once the paste has softened.",
-};
-/** Polyester corners hold the sheet without adhesive; conservation board; anti-reflective UV glass. */
-const CORNERS: MountingDataInput = {
-  ...HINGED,
-  boards: { window: { grade: "conservation", buffered: true, ply: 8, batch: "CB-7710" }, backing: { grade: "conservation", buffered: true, ply: 4 } },
-  attachment: { method: "corners", hinges: [] },
-  glazing: { type: "ar-uv-glass", thicknessMm: 3 },
-  undoNotes: "Slide the sheet out of the four polyester corners; nothing is stuck to it.",
-};
+// The A4 print hinged, and in corners (sources beside the values in server/db/factories.ts); batch numbers are invented.
+const HINGED = A4_HINGED;
+const CORNERS = A4_CORNERS;
 const withBatches = (data: MountingDataInput, windowBatch: string, backingBatch?: string): MountingDataInput => ({
   ...data,
   boards: { ...data.boards, window: { ...data.boards.window, batch: windowBatch }, backing: { ...data.boards.backing, batch: backingBatch } },

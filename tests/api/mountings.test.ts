@@ -1,6 +1,8 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
-import { agentFor, createTestApp, expectErrorShape, makeClient, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
+import { A4_CORNERS, A4_HINGED } from "../../server/db/factories.ts";
+import { accessMatrix, readRow, writeRow, type MatrixRow } from "../setup/access-matrix.ts";
+import { agentsFor, createTestApp, expectErrorShape, makeClient, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
 import { events, mountingRevisions, mountings, objects } from "../../server/db/schema.ts";
 import type { MountingDataInput, MountingRecord } from "../../shared/schemas/mountings.ts";
 import type { Check } from "../../shared/schemas/mount-plan.ts";
@@ -11,37 +13,9 @@ type Role = "admin" | "framer" | "registrar" | "collector";
 let studio: Awaited<ReturnType<typeof makeStudio>>;
 let as: Record<Role, Agent>;
 
-// A4 = 210 × 297 mm (ISO 216); 5 mm overlap a side: common practice (no source), so the window is 200 × 287 mm.
-// Two T-hinges of Japanese tissue with wheat starch paste along the top edge (Library of Congress,
-// "Matting and Hinging Works of Art on Paper"); UV-filtering glass (NEDCC leaflet 4.10).
-const DATA: MountingDataInput = {
-  plan: { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 60 } },
-  boards: {
-    window: { grade: "museum", buffered: false, ply: 4, colour: "Antique white", maker: "Bainbridge", batch: "MB-2291" },
-    backing: { grade: "museum", buffered: false, ply: 4, batch: "MB-2292" },
-  },
-  attachment: {
-    method: "t-hinge",
-    tissue: "Kozo, Japanese tissue",
-    tissueWeightGsm: 12,
-    adhesive: "wheat-starch-paste",
-    hinges: [
-      { edge: "top", offsetMm: 40, widthMm: 25 },
-      { edge: "top", offsetMm: 145, widthMm: 25 },
-    ],
-  },
-  glazing: { type: "uv-glass", thicknessMm: 2 },
-  undoNotes: "Release both T-hinges with a damp blotter over the paste; lift the sheet once the paste has softened.",
-};
-
-/** A second mount: corners under a conservation board and anti-reflective UV glass. */
-const REFRAME: MountingDataInput = {
-  ...DATA,
-  boards: { window: { grade: "conservation", buffered: true, ply: 8, batch: "CB-7710" }, backing: { grade: "conservation", buffered: true, ply: 4 } },
-  attachment: { method: "corners", hinges: [] },
-  glazing: { type: "ar-uv-glass", thicknessMm: 3 },
-  undoNotes: "Slide the sheet out of the four polyester corners; nothing is stuck to it.",
-};
+// The A4 print's two mounts, hinged and then in corners, with their sources beside the values in server/db/factories.ts.
+const DATA = A4_HINGED;
+const REFRAME = A4_CORNERS;
 
 const with_ = (over: Partial<MountingDataInput>): MountingDataInput => ({ ...DATA, ...over });
 const createBody = (data: MountingDataInput = DATA, over: Record<string, unknown> = {}) => ({ reason: "first-mounting", mountedOn: "2026-03-02", data, ...over });
@@ -85,12 +59,7 @@ let otherPrivate: string;
 beforeAll(async () => {
   studio = await makeStudio(t);
   otherPrivate = makeClient(t.db, { kind: "private", name: "Basil Owner" }).id;
-  as = {
-    admin: await agentFor(t, studio.people.admin),
-    framer: await agentFor(t, studio.people.framer),
-    registrar: await agentFor(t, studio.people.registrar),
-    collector: await agentFor(t, studio.people.collector),
-  };
+  as = await agentsFor(t, studio.people);
 });
 
 describe("the life cycle of a mounting record", () => {
@@ -562,48 +531,17 @@ describe("records the contract refuses", () => {
 });
 
 describe("who may do what with mounting records", () => {
-  // Each role reaches for the object it would own: studio staff any object, a registrar their
-  // institution's (or another's), a collector their own (or another private client's).
-  type Who = "admin" | "framer" | "registrar-own" | "registrar-other" | "collector-own" | "collector-other" | "signed-out";
-  const WHO: Who[] = ["admin", "framer", "registrar-own", "registrar-other", "collector-own", "collector-other", "signed-out"];
-
-  function subject(who: Who): { agent: Agent; objectId: string } {
-    const on = (clientId: string) => makeObject(t.db, clientId);
-    switch (who) {
-      case "admin":
-        return { agent: as.admin, objectId: on(studio.collectorClient.id) };
-      case "framer":
-        return { agent: as.framer, objectId: on(studio.institution.id) };
-      case "registrar-own":
-        return { agent: as.registrar, objectId: on(studio.institution.id) };
-      case "registrar-other":
-        return { agent: as.registrar, objectId: on(studio.otherInstitution.id) };
-      case "collector-own":
-        return { agent: as.collector, objectId: on(studio.collectorClient.id) };
-      case "collector-other":
-        return { agent: as.collector, objectId: on(otherPrivate) };
-      case "signed-out":
-        return { agent: t.agent(), objectId: on(studio.collectorClient.id) };
-    }
-  }
-
-  const refusal = (status: number) => ({ 401: "unauthenticated", 403: "forbidden", 404: "not_found" })[status as 401 | 403 | 404];
-
-  type Row = { route: string; expected: Record<Who, number>; run: (agent: Agent, objectId: string) => Promise<{ status: number; body: unknown; written: () => boolean }> };
-
   /** Did the request leave any trace (row version, revision, status or event)? */
   const snapshot = (objectId: string) => JSON.stringify({ m: mountingsOf(objectId).map((m) => [m.id, m.version, m.status, m.currentRevision]), e: eventsOf(objectId).length });
 
-  const ROWS: Row[] = [
-    {
-      route: "GET /api/objects/:id/mountings",
-      expected: { admin: 200, framer: 200, "registrar-own": 200, "registrar-other": 404, "collector-own": 200, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        await completedOn(objectId);
-        const res = await agent.get(`/api/objects/${objectId}/mountings`);
-        return { status: res.status, body: res.body, written: () => false };
-      },
-    },
+  const completed = (objectId: string) => completedOn(objectId);
+  const draft = (objectId: string) => draftOn(objectId);
+  const OWN_READ = { admin: 200, framer: 200, "registrar-own": 200, "registrar-other": 404, "collector-own": 200, "collector-other": 404, "signed-out": 401 };
+  // A client-side user cannot see a draft, so cannot learn that one exists by trying to write to it.
+  const STUDIO_DRAFT = { admin: 200, framer: 200, "registrar-own": 404, "registrar-other": 404, "collector-own": 404, "collector-other": 404, "signed-out": 401 };
+
+  const ROWS: MatrixRow[] = [
+    readRow("GET /api/objects/:id/mountings", OWN_READ, completed, (agent, _m, objectId) => agent.get(`/api/objects/${objectId}/mountings`)),
     {
       route: "POST /api/objects/:id/mountings",
       expected: { admin: 201, framer: 201, "registrar-own": 403, "registrar-other": 404, "collector-own": 403, "collector-other": 404, "signed-out": 401 },
@@ -612,114 +550,39 @@ describe("who may do what with mounting records", () => {
         return { status: res.status, body: res.body, written: () => mountingsOf(objectId).length > 0 };
       },
     },
-    {
-      route: "GET /api/mountings/:id (completed)",
-      expected: { admin: 200, framer: 200, "registrar-own": 200, "registrar-other": 404, "collector-own": 200, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        const m = await completedOn(objectId);
-        const res = await agent.get(`/api/mountings/${m.id}`);
-        return { status: res.status, body: res.body, written: () => false };
-      },
-    },
-    {
-      route: "GET /api/mountings/:id/revisions (completed)",
-      expected: { admin: 200, framer: 200, "registrar-own": 200, "registrar-other": 404, "collector-own": 200, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        const m = await completedOn(objectId);
-        const res = await agent.get(`/api/mountings/${m.id}/revisions`);
-        return { status: res.status, body: res.body, written: () => false };
-      },
-    },
-    {
-      route: "GET /api/mountings/:id (draft)",
-      expected: { admin: 200, framer: 200, "registrar-own": 404, "registrar-other": 404, "collector-own": 404, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        const d = await draftOn(objectId);
-        const res = await agent.get(`/api/mountings/${d.id}`);
-        return { status: res.status, body: res.body, written: () => false };
-      },
-    },
-    {
-      route: "GET /api/mountings/:id/revisions (draft)",
-      expected: { admin: 200, framer: 200, "registrar-own": 404, "registrar-other": 404, "collector-own": 404, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        const d = await draftOn(objectId);
-        const res = await agent.get(`/api/mountings/${d.id}/revisions`);
-        return { status: res.status, body: res.body, written: () => false };
-      },
-    },
-    {
-      // A client-side user cannot see a draft, so cannot learn that one exists by trying to write to it.
-      route: "PUT /api/mountings/:id (draft)",
-      expected: { admin: 200, framer: 200, "registrar-own": 404, "registrar-other": 404, "collector-own": 404, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        const d = await draftOn(objectId);
-        const before = snapshot(objectId);
-        const res = await agent.put(`/api/mountings/${d.id}`).send({ ...createBody(with_({ notes: "Edited" })), version: d.version });
-        return { status: res.status, body: res.body, written: () => snapshot(objectId) !== before };
-      },
-    },
-    {
-      route: "PUT /api/mountings/:id (completed)",
-      expected: { admin: 409, framer: 409, "registrar-own": 403, "registrar-other": 404, "collector-own": 403, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        const m = await completedOn(objectId);
-        const before = snapshot(objectId);
-        const res = await agent.put(`/api/mountings/${m.id}`).send({ ...createBody(with_({ notes: "Edited" })), version: m.version });
-        return { status: res.status, body: res.body, written: () => snapshot(objectId) !== before };
-      },
-    },
-    {
-      route: "POST /api/mountings/:id/complete",
-      expected: { admin: 200, framer: 200, "registrar-own": 404, "registrar-other": 404, "collector-own": 404, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        const d = await draftOn(objectId);
-        const before = snapshot(objectId);
-        const res = await agent.post(`/api/mountings/${d.id}/complete`).send({ version: d.version });
-        return { status: res.status, body: res.body, written: () => snapshot(objectId) !== before };
-      },
-    },
-    {
-      route: "POST /api/mountings/:id/corrections",
-      expected: { admin: 201, framer: 201, "registrar-own": 403, "registrar-other": 404, "collector-own": 403, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        const m = await completedOn(objectId);
-        const before = snapshot(objectId);
-        const res = await agent
-          .post(`/api/mountings/${m.id}/corrections`)
-          .send({ version: m.version, correctionReason: "Hinge widths measured again.", data: with_({ notes: "Corrected" }) });
-        return { status: res.status, body: res.body, written: () => snapshot(objectId) !== before };
-      },
-    },
-    {
-      route: "POST /api/mountings/:id/remove",
-      expected: { admin: 200, framer: 200, "registrar-own": 403, "registrar-other": 404, "collector-own": 403, "collector-other": 404, "signed-out": 401 },
-      run: async (agent, objectId) => {
-        const m = await completedOn(objectId);
-        const before = snapshot(objectId);
-        const res = await agent.post(`/api/mountings/${m.id}/remove`).send({ version: m.version, endedOn: "2026-04-01", endReason: "Taken out for conservation." });
-        return { status: res.status, body: res.body, written: () => snapshot(objectId) !== before };
-      },
-    },
+    readRow("GET /api/mountings/:id (completed)", OWN_READ, completed, (agent, m) => agent.get(`/api/mountings/${m.id}`)),
+    readRow("GET /api/mountings/:id/revisions (completed)", OWN_READ, completed, (agent, m) => agent.get(`/api/mountings/${m.id}/revisions`)),
+    readRow("GET /api/mountings/:id (draft)", STUDIO_DRAFT, draft, (agent, d) => agent.get(`/api/mountings/${d.id}`)),
+    readRow("GET /api/mountings/:id/revisions (draft)", STUDIO_DRAFT, draft, (agent, d) => agent.get(`/api/mountings/${d.id}/revisions`)),
+    writeRow("PUT /api/mountings/:id (draft)", STUDIO_DRAFT, snapshot, draft, (agent, d) =>
+      agent.put(`/api/mountings/${d.id}`).send({ ...createBody(with_({ notes: "Edited" })), version: d.version }),
+    ),
+    writeRow(
+      "PUT /api/mountings/:id (completed)",
+      { admin: 409, framer: 409, "registrar-own": 403, "registrar-other": 404, "collector-own": 403, "collector-other": 404, "signed-out": 401 },
+      snapshot,
+      completed,
+      (agent, m) => agent.put(`/api/mountings/${m.id}`).send({ ...createBody(with_({ notes: "Edited" })), version: m.version }),
+    ),
+    writeRow("POST /api/mountings/:id/complete", STUDIO_DRAFT, snapshot, draft, (agent, d) => agent.post(`/api/mountings/${d.id}/complete`).send({ version: d.version })),
+    writeRow(
+      "POST /api/mountings/:id/corrections",
+      { admin: 201, framer: 201, "registrar-own": 403, "registrar-other": 404, "collector-own": 403, "collector-other": 404, "signed-out": 401 },
+      snapshot,
+      completed,
+      (agent, m) =>
+        agent.post(`/api/mountings/${m.id}/corrections`).send({ version: m.version, correctionReason: "Hinge widths measured again.", data: with_({ notes: "Corrected" }) }),
+    ),
+    writeRow(
+      "POST /api/mountings/:id/remove",
+      { admin: 200, framer: 200, "registrar-own": 403, "registrar-other": 404, "collector-own": 403, "collector-other": 404, "signed-out": 401 },
+      snapshot,
+      completed,
+      (agent, m) => agent.post(`/api/mountings/${m.id}/remove`).send({ version: m.version, endedOn: "2026-04-01", endReason: "Taken out for conservation." }),
+    ),
   ];
 
-  const CASES = ROWS.flatMap((row) => WHO.map((who) => ({ route: row.route, who, status: row.expected[who], row })));
-
-  it.each(CASES)("when $who calls $route, then it answers $status", async ({ who, status, row }) => {
-    const { agent, objectId } = subject(who);
-    const res = await row.run(agent, objectId);
-    expect(res.status).toBe(status);
-    const code = refusal(status);
-    if (code) {
-      expectErrorShape(res.body, code);
-      expect(res.written(), "a refused request left a trace").toBe(false);
-    } else if (status === 409) {
-      expectErrorShape(res.body, "conflict");
-      expect(res.written()).toBe(false);
-    } else if (row.route.startsWith("POST") || row.route.startsWith("PUT")) {
-      expect(res.written(), "an allowed write left no trace").toBe(true);
-    }
-  });
+  accessMatrix(t, ROWS, () => ({ studio, as, otherPrivateClientId: otherPrivate }));
 
   it("when an admin records a mounting, then the record names the admin as framer", async () => {
     const res = await as.admin.post(`/api/objects/${makeObject(t.db, studio.institution.id)}/mountings`).send(createBody());

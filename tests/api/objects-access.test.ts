@@ -1,5 +1,5 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import { agentFor, createTestApp, expectErrorShape, makeObject, makePerson, makeStudio, type Agent } from "../setup/test-app.ts";
+import { agentFor, agentsFor, createTestApp, expectErrorShape, makeObject, makePerson, makeStudio, type Agent } from "../setup/test-app.ts";
 import type { ObjectRecord } from "../../shared/schemas/objects.ts";
 
 const t = createTestApp();
@@ -23,12 +23,7 @@ beforeAll(async () => {
     institutions: makeObject(t.db, studio.institution.id, { title: "Survey of the east meadow", ...VALUED, valuationMinor: 2800000 }),
     others: makeObject(t.db, studio.otherInstitution.id, { title: "Parish boundary deed", ...VALUED, valuationMinor: 500000 }),
   };
-  as = {
-    admin: await agentFor(t, studio.people.admin),
-    framer: await agentFor(t, studio.people.framer),
-    collector: await agentFor(t, studio.people.collector),
-    registrar: await agentFor(t, studio.people.registrar),
-  };
+  as = await agentsFor(t, studio.people);
 });
 
 describe("studio staff", () => {

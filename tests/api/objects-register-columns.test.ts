@@ -1,45 +1,26 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
+import { A4_HINGED } from "../../server/db/factories.ts";
 import { agentFor, createTestApp, expectErrorShape, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
 import { objects } from "../../server/db/schema.ts";
-import { REGISTER_BOARD_GRADES, REGISTER_GLAZINGS, REGISTER_METHODS, type ObjectListItem } from "../../shared/schemas/objects.ts";
+import { REGISTER_BOARD_GRADES, REGISTER_GLAZINGS, REGISTER_METHODS } from "../../shared/schemas/objects.ts";
 import { ATTACHMENT_METHODS, BOARD_GRADES } from "../../shared/schemas/mount-plan.ts";
-import { ATTACHMENT_METHOD_LABELS, GLAZING_TYPES, type MountingDataInput, type MountingRecord } from "../../shared/schemas/mountings.ts";
+import { ATTACHMENT_METHOD_LABELS, GLAZING_TYPES, type MountingRecord } from "../../shared/schemas/mountings.ts";
+import { first, present } from "../setup/lists.ts";
+import { listObjects as list, objectNumbers as numbers } from "../setup/registers.ts";
 
 const t = createTestApp();
 let framer: Agent;
 let collector: Agent;
 const id: Record<string, string> = {};
 
-type ListBody = { items: ObjectListItem[]; total: number; page: number; pageSize: number };
-async function list(agent: Agent, query: string): Promise<ListBody> {
-  const res = await agent.get(`/api/objects?${query}`);
-  if (res.status !== 200) throw new Error(`GET /api/objects?${query} answered ${res.status}: ${JSON.stringify(res.body)}`);
-  return res.body as ListBody;
-}
-const numbers = (body: ListBody) => body.items.map((i) => i.objectNumber);
-
 /** Sets an object's register columns directly, as the mountings service (and later the condition feature) keeps them. */
 function setRegister(objectId: string, cols: Partial<typeof objects.$inferInsert>) {
   t.db.update(objects).set(cols).where(eq(objects.id, objectId)).run();
 }
 
-// A4 (ISO 216), 5 mm overlap (common practice, no source); T-hinges with wheat starch paste
-// (Library of Congress, "Matting and Hinging Works of Art on Paper"); UV-filtering glass (NEDCC leaflet 4.10).
-const HINGED: MountingDataInput = {
-  plan: { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 60 } },
-  boards: { window: { grade: "museum", buffered: false, ply: 4, batch: "MB-2291" }, backing: { grade: "museum", buffered: false, ply: 4 } },
-  attachment: {
-    method: "t-hinge",
-    adhesive: "wheat-starch-paste",
-    hinges: [
-      { edge: "top", offsetMm: 40, widthMm: 25 },
-      { edge: "top", offsetMm: 145, widthMm: 25 },
-    ],
-  },
-  glazing: { type: "uv-glass", thicknessMm: 2 },
-  undoNotes: "Release both T-hinges with a damp blotter over the paste.",
-};
+// The A4 print hinged (sources beside the values in server/db/factories.ts).
+const HINGED = A4_HINGED;
 
 beforeAll(async () => {
   const s = await makeStudio(t);
@@ -75,7 +56,7 @@ describe("register columns", () => {
   });
 
   it("when an object was never mounted, then its mount columns are empty and the old columns are all still there", async () => {
-    const f = (await list(framer, "q=2026-0006")).items[0];
+    const f = first((await list(framer, "q=2026-0006")).items);
     expect(f).toMatchObject({
       objectNumber: "2026-0006",
       title: "Heron",
@@ -149,7 +130,7 @@ describe("mount filters", () => {
 describe("date sorts", () => {
   // Objects without the date come after the dated ones in both directions, in id order (the tie-breaker).
   const byId = (dir: "asc" | "desc", ...keys: string[]) => {
-    const sorted = keys.map((k) => ({ k, id: id[k] })).sort((x, y) => (x.id < y.id ? -1 : 1));
+    const sorted = keys.map((k) => ({ k, id: present(id[k], `object ${k}`) })).sort((x, y) => (x.id < y.id ? -1 : 1));
     return (dir === "asc" ? sorted : sorted.reverse()).map(({ k }) => `2026-000${"abcdefg".indexOf(k) + 1}`);
   };
 

@@ -1,20 +1,13 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { agentFor, createTestApp, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
-import type { ObjectListItem, ObjectRecord } from "../../shared/schemas/objects.ts";
+import type { ObjectRecord } from "../../shared/schemas/objects.ts";
+import { listObjects as list, objectNumbers as numbers } from "../setup/registers.ts";
 
 const t = createTestApp();
 let framer: Agent;
 let collector: Agent;
 let a: string;
 let b: string;
-
-type ListBody = { items: ObjectListItem[]; total: number; page: number; pageSize: number };
-async function list(agent: Agent, query: string): Promise<ListBody> {
-  const res = await agent.get(`/api/objects?${query}`);
-  if (res.status !== 200) throw new Error(`GET /api/objects?${query} answered ${res.status}: ${JSON.stringify(res.body)}`);
-  return res.body as ListBody;
-}
-const numbers = (body: ListBody) => body.items.map((i) => i.objectNumber);
 
 beforeAll(async () => {
   const s = await makeStudio(t);

@@ -7,10 +7,13 @@ import { eq, sql } from "drizzle-orm";
 import sharp from "sharp";
 import exifr from "exifr";
 import type { Response } from "supertest";
-import { agentFor, createTestApp, expectErrorShape, makeObject, makeStudio, type Agent, type TestApp } from "../setup/test-app.ts";
+import { agentFor, agentsFor, createTestApp, expectErrorShape, makeObject, makeStudio, type Agent, type TestApp } from "../setup/test-app.ts";
 import { conditionReports, photos } from "../../server/db/schema.ts";
 import { uploadTempDir } from "../../server/features/photos/photos.routes.ts";
 import type { Photo } from "../../shared/schemas/photos.ts";
+import { at } from "../setup/lists.ts";
+import { getBinary as binary } from "../setup/http.ts";
+import { filesUnder } from "../setup/files.ts";
 
 // Each app gets its own uploads folder, so "nothing was written" is judged against this file's uploads only.
 const uploadsDir = (name: string) => path.join(inject("testDbDir"), `uploads-photos-${name}-${randomUUID().slice(0, 8)}`);
@@ -44,7 +47,7 @@ const CRC_TABLE = Array.from({ length: 256 }, (_, n) => {
 });
 function crc32(buf: Buffer): number {
   let c = 0xffffffff;
-  for (const b of buf) c = CRC_TABLE[(c ^ b) & 0xff] ^ (c >>> 8);
+  for (const b of buf) c = at(CRC_TABLE, (c ^ b) & 0xff) ^ (c >>> 8);
   return (c ^ 0xffffffff) >>> 0;
 }
 function pngChunk(type: string, data: Buffer): Buffer {
@@ -92,13 +95,6 @@ async function paddedJpeg(bytes: number): Promise<Buffer> {
 
 const sha256 = (b: Buffer) => createHash("sha256").update(b).digest("hex");
 
-function filesUnder(root: string): string[] {
-  if (!fs.existsSync(root)) return [];
-  return (fs.readdirSync(root, { recursive: true, withFileTypes: true }) as fs.Dirent[])
-    .filter((e) => e.isFile())
-    .map((e) => path.relative(root, path.join(e.parentPath, e.name)))
-    .sort();
-}
 const photoCount = (app: TestApp) => app.db.select({ n: sql<number>`count(*)` }).from(photos).get()!.n;
 const tempFiles = () => (fs.existsSync(uploadTempDir()) ? fs.readdirSync(uploadTempDir()) : []);
 
@@ -114,15 +110,6 @@ function upload(agent: Agent, objectId: string, file: Attach | null, fields: Rec
   if (file) req = req.attach("file", file.buffer, { filename: file.filename, ...(file.contentType ? { contentType: file.contentType } : {}) });
   return req;
 }
-const binary = (agent: Agent, url: string) =>
-  agent
-    .get(url)
-    .buffer(true)
-    .parse((res, cb) => {
-      const chunks: Buffer[] = [];
-      res.on("data", (c: Buffer) => chunks.push(c));
-      res.on("end", () => cb(null, Buffer.concat(chunks)));
-    });
 
 /** Asserts the refusal: status, code, a full sentence in fields.file, and nothing left behind. */
 async function expectRefused(app: TestApp, dir: string, send: () => Promise<Response>, status: number, code: string, message: RegExp) {
@@ -141,12 +128,7 @@ afterAll(() => fs.rmSync(uploadTempDir(), { recursive: true, force: true }));
 
 beforeAll(async () => {
   studio = await makeStudio(t);
-  as = {
-    admin: await agentFor(t, studio.people.admin),
-    framer: await agentFor(t, studio.people.framer),
-    collector: await agentFor(t, studio.people.collector),
-    registrar: await agentFor(t, studio.people.registrar),
-  };
+  as = await agentsFor(t, studio.people);
   obj = {
     collector: makeObject(t.db, studio.collectorClient.id),
     institution: makeObject(t.db, studio.institution.id),

@@ -9,6 +9,7 @@ import { recordPlanInput } from "../../shared/domain/mounting.ts";
 import type { MountingDataInput, MountingRecord } from "../../shared/schemas/mountings.ts";
 import { MountingDataSchema } from "../../shared/schemas/mountings.ts";
 import type { MountPlan } from "../../shared/schemas/mount-plan.ts";
+import { binary } from "../setup/http.ts";
 
 // One record, four surfaces: the record page's API, the dossier (read back with pdftotext), the
 // registrar's mountings export and POST /api/mount-plans/calculate with the same input and
@@ -20,11 +21,6 @@ let admin: Agent;
 let clientId: string;
 const tmp = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-consistency-"));
 
-const binary = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on("data", (c: Buffer) => chunks.push(c));
-  res.on("end", () => cb(null, Buffer.concat(chunks)));
-};
 function pdfText(pdf: Buffer): string {
   const file = path.join(tmp, `${randomUUID()}.pdf`);
   fs.writeFileSync(file, pdf);
@@ -100,11 +96,13 @@ function expectSame(s: Awaited<ReturnType<typeof surfaces>>) {
   }
   // The export: the same verdicts counted, each one not passed named with its reason.
   const count = (v: string) => s.record.checks.filter((c) => c.verdict === v).length;
-  const words = [
-    ["pass", "pass"],
-    ["warn", "caution"],
-    ["fail", "fail"],
-  ]
+  const words = (
+    [
+      ["pass", "pass"],
+      ["warn", "caution"],
+      ["fail", "fail"],
+    ] as const
+  )
     .filter(([v]) => count(v) > 0)
     .map(([v, w]) => `${count(v)} ${w}`);
   expect(s.row["Conservation checks"]).toBe(words.join(", "));

@@ -12,6 +12,7 @@ import { useHistoryKey } from "../../server/features/history/history.chain.ts";
 import { Text } from "../../server/lib/pdf/text.tsx";
 import { closeRenderPool, renderPdf, renderPoolStats, RENDER_THREADS } from "../../server/features/documents/render-pool.ts";
 import { signInCookie, startServer, type RunningServer } from "../setup/spawn-server.ts";
+import { at } from "../setup/lists.ts";
 
 afterAll(closeRenderPool);
 
@@ -112,7 +113,7 @@ describe("the server keeps answering while the heaviest document renders", () =>
     expect(answeredWhileRendering.length).toBeGreaterThan(5);
     latencies.sort((a, b) => a - b);
     console.info(
-      `while the 5,000-object schedule rendered: ${latencies.length} health + register pairs, median ${latencies[Math.floor(latencies.length / 2)].toFixed(0)} ms, slowest ${latencies.at(-1)!.toFixed(0)} ms`,
+      `while the 5,000-object schedule rendered: ${latencies.length} health + register pairs, median ${at(latencies, Math.floor(latencies.length / 2)).toFixed(0)} ms, slowest ${latencies.at(-1)!.toFixed(0)} ms`,
     );
   }, 900_000);
 });

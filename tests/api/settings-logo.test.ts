@@ -6,19 +6,14 @@ import { randomUUID } from "node:crypto";
 import { beforeAll, describe, expect, it } from "vitest";
 import request from "supertest";
 import sharp from "sharp";
-import { agentFor, createTestApp, expectErrorShape, makeStudio, signIn, type Agent } from "../setup/test-app.ts";
-import { DEMO_PASSWORD, seedDemo } from "../../server/db/seed.ts";
-import { findObjectIdByNumber } from "../../server/features/objects/objects.repo.ts";
+import { createTestApp, expectErrorShape, makeMounting, makeObject, makeSignedInStudio, type Agent, type RoleAgents } from "../setup/test-app.ts";
+import { binary } from "../setup/http.ts";
 
 const t = createTestApp();
-let as: Record<"admin" | "framer" | "collector", Agent>;
+let as: RoleAgents;
+/** A mounted object of the collector's, whose dossier shows the logo or not. */
+let objectId: string;
 const tmp = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-logo-"));
-
-const binary = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on("data", (c: Buffer) => chunks.push(c));
-  res.on("end", () => cb(null, Buffer.concat(chunks)));
-};
 
 const png = (width: number, height: number) =>
   sharp({ create: { width, height, channels: 4, background: { r: 180, g: 40, b: 60, alpha: 1 } } })
@@ -37,20 +32,17 @@ function imagesOnPage1(pdf: Buffer): number {
 const upload = (agent: Agent, bytes: Buffer, filename: string, contentType: string) => agent.put("/api/settings/logo").attach("file", bytes, { filename, contentType });
 
 beforeAll(async () => {
-  await seedDemo(t.db);
-  const s = await makeStudio(t);
-  as = {
-    admin: await signIn(t.agent(), "admin@reversa.test", DEMO_PASSWORD),
-    framer: await agentFor(t, s.people.framer),
-    collector: await agentFor(t, s.people.collector),
-  };
+  const signedIn = await makeSignedInStudio(t);
+  as = signedIn.as;
+  objectId = makeObject(t.db, signedIn.studio.collectorClient.id, { title: "Harbour at dusk" });
+  makeMounting(t.db, signedIn.studio.people.framer, objectId);
 });
 
 describe("the studio's logo", () => {
   let dossierWithout: Buffer;
   const dossier = async () => {
     const res = await as.admin
-      .post(`/api/objects/${findObjectIdByNumber(t.db, "2026-0003")!}/documents/dossier`)
+      .post(`/api/objects/${objectId}/documents/dossier`)
       .buffer(true)
       .parse(binary as never);
     expect(res.status, String(res.body)).toBe(200);

@@ -1,5 +1,5 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import { agentFor, createTestApp, expectErrorShape, makeStudio, type Agent } from "../setup/test-app.ts";
+import { agentsFor, createTestApp, expectErrorShape, makeStudio, type Agent } from "../setup/test-app.ts";
 import type { StudioSettings } from "../../shared/schemas/settings.ts";
 
 const t = createTestApp();
@@ -24,12 +24,7 @@ const SETTINGS: StudioSettings = {
 
 beforeAll(async () => {
   const s = await makeStudio(t);
-  as = {
-    admin: await agentFor(t, s.people.admin),
-    framer: await agentFor(t, s.people.framer),
-    collector: await agentFor(t, s.people.collector),
-    registrar: await agentFor(t, s.people.registrar),
-  };
+  as = await agentsFor(t, s.people);
 });
 
 describe("GET /api/settings", () => {

@@ -7,6 +7,7 @@ import { asc, eq } from "drizzle-orm";
 import { agentFor, createTestApp, makeClient, makePerson, type Agent } from "../setup/test-app.ts";
 import { events } from "../../server/db/schema.ts";
 import { plainEventHash } from "../../server/features/history/history.chain.ts";
+import { at } from "../setup/lists.ts";
 
 // `npm run verify-history` is `tsx server/db/verify-history-cli.ts`; run it as a separate process
 // against this file's database, as an operator would against the studio's.
@@ -80,7 +81,15 @@ describe("npm run verify-history catches a database writer without the key", () 
   });
 
   it("when one event was changed by hand, then it exits non-zero and names that event's seq and object", () => {
-    const target = t.db.select().from(events).where(eq(events.objectId, objectIds[1])).orderBy(asc(events.seq)).all()[1];
+    const target = at(
+      t.db
+        .select()
+        .from(events)
+        .where(eq(events.objectId, at(objectIds, 1)))
+        .orderBy(asc(events.seq))
+        .all(),
+      1,
+    );
     sqlite().exec("DROP TRIGGER IF EXISTS events_no_update");
     sqlite().prepare("UPDATE events SET summary = ? WHERE seq = ?").run("Catalogue changed: nothing to see.", target.seq);
     const r = runCli();
@@ -104,7 +113,7 @@ describe("npm run verify-history catches a database writer without the key", () 
         at: r.at,
         actorId: r.actor_id,
         actorName: r.actor_name,
-        summary: r.seq === rows[1].seq ? "Nothing happened." : r.summary,
+        summary: r.seq === at(rows, 1).seq ? "Nothing happened." : r.summary,
         data: JSON.parse(String(r.data)),
         prevHash: prev,
         occurredOn: r.occurred_on ?? undefined,
@@ -123,12 +132,8 @@ describe("npm run verify-history catches a database writer without the key", () 
   it("when the last events are deleted and the head moved back, then the checkpoints catch it", () => {
     sqlite().exec("DROP TRIGGER IF EXISTS events_no_delete");
     const rows = sqlite().prepare("select seq, hash from events where object_id = ? order by seq").all(objectIds[0]) as { seq: number; hash: string }[];
-    sqlite()
-      .prepare("delete from events where seq = ?")
-      .run(rows[rows.length - 1].seq);
-    sqlite()
-      .prepare("update objects set history_head = ? where id = ?")
-      .run(rows[rows.length - 2].hash, objectIds[0]);
+    sqlite().prepare("delete from events where seq = ?").run(at(rows, -1).seq);
+    sqlite().prepare("update objects set history_head = ? where id = ?").run(at(rows, -2).hash, objectIds[0]);
     const r = runCli();
     restore();
     expect(r.status).toBe(1);

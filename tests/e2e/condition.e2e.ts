@@ -1,45 +1,37 @@
 import { describe, expect, inject, it } from "vitest";
 import sharp from "sharp";
-import { signIn, browserSession } from "./support/browser.ts";
+import { browserSession, finish, openObject } from "./support/browser.ts";
 
 const baseUrl = inject("baseUrl");
 const browser = browserSession(baseUrl);
 
 describe("condition journeys", () => {
   it("when a framer compares the two demo reports of 2026-0001, then the abrasion shows as new and the tear as worsened", async () => {
-    const { page, w } = await browser.fresh();
-    await signIn(page, baseUrl, "framer@reversa.test");
-    await page.goto(`${baseUrl}/objects?q=2026-0001`);
-    await page.getByRole("link", { name: "2026-0001" }).click();
+    const { page, w } = await browser.signedIn("framer@reversa.test");
+    await openObject(page, baseUrl, "2026-0001");
     await expect.poll(() => page.getByTestId("condition-reports").getByRole("listitem").count()).toBe(2);
     await page.getByRole("link", { name: "Compare two reports" }).click();
     const table = page.getByTestId("comparison");
     await table.getByRole("row", { name: /New.*abrasion/i }).waitFor();
     await table.getByRole("row", { name: /Worsened.*tear/i }).waitFor();
     await table.getByRole("row", { name: /Unchanged.*foxing/i }).waitFor();
-    expect(w.consoleErrors).toEqual([]);
-    await page.close();
+    await finish(page, w);
   });
 
   it("when an object has a mould finding, then its page shows the handling caution", async () => {
-    const { page, w } = await browser.fresh();
-    await signIn(page, baseUrl, "framer@reversa.test");
-    await page.goto(`${baseUrl}/objects?q=2026-0009`);
-    await page.getByRole("link", { name: "2026-0009" }).click();
+    const { page, w } = await browser.signedIn("framer@reversa.test");
+    await openObject(page, baseUrl, "2026-0009");
     await page.getByText("Handling caution").first().waitFor();
     await page
       .getByText(/nitrile gloves and a respirator/)
       .first()
       .waitFor();
-    expect(w.consoleErrors).toEqual([]);
-    await page.close();
+    await finish(page, w);
   });
 
   it("when a framer uploads a photo and pins a finding on it, then the signed report shows the numbered marker", async () => {
-    const { page, w } = await browser.fresh();
-    await signIn(page, baseUrl, "framer@reversa.test");
-    await page.goto(`${baseUrl}/objects?q=2026-0002`);
-    await page.getByRole("link", { name: "2026-0002" }).click();
+    const { page, w } = await browser.signedIn("framer@reversa.test");
+    await openObject(page, baseUrl, "2026-0002");
     const jpeg = await sharp({ create: { width: 600, height: 800, channels: 3, background: { r: 230, g: 220, b: 200 } } })
       .jpeg()
       .toBuffer();
@@ -63,8 +55,6 @@ describe("condition journeys", () => {
     await page.getByText("Signed", { exact: true }).waitFor();
     await page.getByTestId("photo-markers").locator('[data-marker="1"]').waitFor();
     await page.getByTestId("findings").getByText("foxing").waitFor();
-    expect(w.consoleErrors).toEqual([]);
-    expect(w.foreignRequests).toEqual([]);
-    await page.close();
+    await finish(page, w);
   });
 });

@@ -3,24 +3,23 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { describe, expect, inject, it } from "vitest";
-import { signIn, browserSession } from "./support/browser.ts";
+import { browserSession, finish, openObject } from "./support/browser.ts";
+import { at, present } from "../setup/lists.ts";
 
 const baseUrl = inject("baseUrl");
 const browser = browserSession(baseUrl);
 
 describe("documents journey", () => {
   it("when the collector issues their object's dossier, then its code checks out on the public page and a made-up code does not", async () => {
-    const { page, w } = await browser.fresh();
-    await signIn(page, baseUrl, "collector@reversa.test");
-    await page.goto(`${baseUrl}/objects?q=2026-0003`);
-    await page.getByRole("link", { name: "2026-0003" }).click();
+    const { page, w } = await browser.signedIn("collector@reversa.test");
+    await openObject(page, baseUrl, "2026-0003");
     const download = page.waitForEvent("download");
     await page.getByRole("button", { name: "Object dossier (PDF)" }).click();
     const file = await download;
     expect(file.suggestedFilename()).toMatch(/^dossier-2026-0003-.+\.pdf$/);
     const status = page.getByText(/Issued with verification code/);
     await status.waitFor();
-    const code = (await status.textContent())!.match(/code ([0-9A-F-]+)/)![1];
+    const code = at(present((await status.textContent())?.match(/code ([0-9A-F-]+)/), "the verification code in the status"), 1);
     await page.getByTestId("documents").getByText(code).waitFor();
 
     // Signed out, anyone holding the document can check it.
@@ -30,14 +29,11 @@ describe("documents journey", () => {
     await page.getByText(/Object dossier for object 2026-0003/).waitFor();
     await page.goto(`${baseUrl}/verify/AAAA-BBBB-CCCC`);
     await page.getByText("Unknown code").waitFor();
-    expect(w.consoleErrors).toEqual([]);
-    expect(w.foreignRequests).toEqual([]);
-    await page.close();
+    await finish(page, w);
   });
 
   it("when the registrar filters their collection and asks for the schedule, then it lists exactly the objects on screen", async () => {
-    const { page, w } = await browser.fresh();
-    await signIn(page, baseUrl, "registrar@reversa.test");
+    const { page, w } = await browser.signedIn("registrar@reversa.test");
     await page.goto(`${baseUrl}/objects`);
     await page.locator('section[aria-label="Objects"] tbody tr').first().waitFor();
     const filteredList = page.waitForResponse((r) => r.url().includes("/api/objects?") && r.url().includes("status=with-owner"));
@@ -57,20 +53,16 @@ describe("documents journey", () => {
     expect(text).toContain("status: with the owner");
     const listed = [...text.matchAll(/^\s*(\d{4}-\d{4})\b/gm)].map((m) => m[1]);
     expect(listed.sort()).toEqual(shown.sort());
-    expect(w.consoleErrors).toEqual([]);
-    await page.close();
+    await finish(page, w);
   });
 
   it("when the studio runs on this machine's own address, then the framer is warned before printing labels and no label button is offered", async () => {
-    const { page, w } = await browser.fresh();
-    await signIn(page, baseUrl, "framer@reversa.test");
-    await page.goto(`${baseUrl}/objects?q=2026-0003`);
-    await page.getByRole("link", { name: "2026-0003" }).click();
+    const { page, w } = await browser.signedIn("framer@reversa.test");
+    await openObject(page, baseUrl, "2026-0003");
     // The e2e server's PUBLIC_URL is a 127.0.0.1 address: a QR code to it would open nothing anywhere else.
     await page.getByText("Labels are not ready to print").waitFor();
     await page.getByText(/PUBLIC_URL is http:\/\/127\.0\.0\.1/).waitFor();
     expect(await page.getByRole("button", { name: "Back label (PDF)" }).count()).toBe(0);
-    expect(w.consoleErrors).toEqual([]);
-    await page.close();
+    await finish(page, w);
   });
 });

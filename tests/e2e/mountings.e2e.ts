@@ -1,16 +1,14 @@
 import { describe, expect, inject, it } from "vitest";
-import { signIn, browserSession } from "./support/browser.ts";
+import { browserSession, finish, openObject } from "./support/browser.ts";
 
 const baseUrl = inject("baseUrl");
 const browser = browserSession(baseUrl);
 
 describe("reframing journey", () => {
   it("when a framer reframes a mounted object, then the new record supersedes the old, whose drawing and hinges stay readable from the history", async () => {
-    const { page, w } = await browser.fresh();
-    await signIn(page, baseUrl, "framer@reversa.test");
+    const { page, w } = await browser.signedIn("framer@reversa.test");
     // 2026-0014 was mounted once in the demo studio (two T-hinges at the top).
-    await page.goto(`${baseUrl}/objects?q=2026-0014`);
-    await page.getByRole("link", { name: "2026-0014" }).click();
+    await openObject(page, baseUrl, "2026-0014");
     await page.getByTestId("current-mount").getByText("2 T-hinges").waitFor();
     await page.getByRole("link", { name: "Record a reframing" }).click();
     await page.getByRole("heading", { name: "Record a reframing" }).waitFor();
@@ -52,23 +50,18 @@ describe("reframing journey", () => {
     await page.getByText("superseded by a later mounting").waitFor();
     await expect(page.locator('[data-testid="plan-drawing"] rect[data-role="hinge"]').count()).resolves.toBe(2);
     await page.getByText("1. top edge").waitFor();
-    expect(w.consoleErrors).toEqual([]);
-    expect(w.foreignRequests).toEqual([]);
-    await page.close();
+    await finish(page, w);
   });
 
   it("when the collector opens their mounted object, then they read the mount and history but cannot change it", async () => {
-    const { page, w } = await browser.fresh();
-    await signIn(page, baseUrl, "collector@reversa.test");
-    await page.goto(`${baseUrl}/objects?q=2026-0003`);
-    await page.getByRole("link", { name: "2026-0003" }).click();
+    const { page, w } = await browser.signedIn("collector@reversa.test");
+    await openObject(page, baseUrl, "2026-0003");
     await page.getByTestId("current-mount").getByText("T-hinges").waitFor();
     await page.getByTestId("timeline").getByText("Reframed", { exact: true }).waitFor();
     await expect(page.getByRole("link", { name: "Record a reframing" }).count()).resolves.toBe(0);
     await page.getByRole("link", { name: "Open the mounting record" }).first().click();
     await page.getByTestId("undo-notes").waitFor();
     await expect(page.getByRole("link", { name: "Correct the record" }).count()).resolves.toBe(0);
-    expect(w.consoleErrors).toEqual([]);
-    await page.close();
+    await finish(page, w);
   });
 });

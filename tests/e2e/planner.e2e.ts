@@ -1,5 +1,5 @@
 import { describe, expect, inject, it } from "vitest";
-import { signIn, browserSession } from "./support/browser.ts";
+import { browserSession, finish, openObject } from "./support/browser.ts";
 
 const baseUrl = inject("baseUrl");
 const browser = browserSession(baseUrl);
@@ -8,8 +8,7 @@ const windowRect = (page: import("playwright-core").Page) => page.locator('[data
 
 describe("planner journey", () => {
   it("when a framer types a sheet size in inches, then the aperture and the drawing update as they type", async () => {
-    const { page, w } = await browser.fresh();
-    await signIn(page, baseUrl, "framer@reversa.test");
+    const { page, w } = await browser.signedIn("framer@reversa.test");
     await page.getByRole("link", { name: "Planner" }).click();
     await page.getByRole("heading", { name: "Planner" }).waitFor();
     const aperture = page.getByTestId("num-Window (aperture)");
@@ -34,16 +33,12 @@ describe("planner journey", () => {
     await page.getByRole("radio", { name: "inches" }).click();
     await expect(page.getByLabel("Sheet width (in)").inputValue()).resolves.toBe("8");
     await expect(page.getByLabel("Overlap (in)", { exact: true }).inputValue()).resolves.toBe("3/16");
-    expect(w.consoleErrors).toEqual([]);
-    expect(w.foreignRequests).toEqual([]);
-    await page.close();
+    await finish(page, w);
   });
 
   it("when a framer plans from an object and saves the draft, then the object page shows the plan", async () => {
-    const { page, w } = await browser.fresh();
-    await signIn(page, baseUrl, "framer@reversa.test");
-    await page.goto(`${baseUrl}/objects?q=botanical%20rose`);
-    await page.getByRole("link", { name: "2026-0014" }).click();
+    const { page, w } = await browser.signedIn("framer@reversa.test");
+    await openObject(page, baseUrl, "2026-0014", "botanical rose");
     await page.getByRole("link", { name: "Plan the mount" }).click();
     // The sheet (230 × 310 mm) comes from the object record.
     await expect(page.getByLabel("Sheet width (mm)").inputValue()).resolves.toBe("230");
@@ -53,7 +48,6 @@ describe("planner journey", () => {
     await page.getByText("Draft saved", { exact: true }).waitFor();
     await page.getByRole("link", { name: "2026-0014" }).click();
     await page.getByText("Window 220 × 300 mm · outer 340 × 420 mm").waitFor();
-    expect(w.consoleErrors).toEqual([]);
-    await page.close();
+    await finish(page, w);
   });
 });

@@ -1,5 +1,5 @@
 import { describe, expect, inject, it } from "vitest";
-import { signIn, browserSession } from "./support/browser.ts";
+import { browserSession, finish, signIn } from "./support/browser.ts";
 
 const baseUrl = inject("baseUrl");
 const browser = browserSession(baseUrl);
@@ -52,9 +52,7 @@ describe("framer journey: record an object and find it", () => {
     await page.getByLabel("Search objects").fill(number);
     await page.getByRole("link", { name: number }).click();
     await page.getByRole("heading", { name: "Quince branch, e2e study" }).waitFor();
-    expect(w.consoleErrors).toEqual([]);
-    expect(w.foreignRequests).toEqual([]);
-    await page.close();
+    await finish(page, w);
   });
 
   it("when the object number is already taken, then the form says so beside the field and keeps what was typed", async () => {

@@ -3,6 +3,7 @@ import os from "node:os";
 import path from "node:path";
 import { randomUUID } from "node:crypto";
 import { spawnSync } from "node:child_process";
+import { at, first } from "./lists.ts";
 
 /**
  * Reads a PDF back the way a reader meets it, with poppler: the pages, their size, every word with
@@ -40,18 +41,18 @@ export function pdfPages(pdf: Buffer): PdfPage[] {
   const html = run("pdftotext", ["-bbox-layout", pdfFile(pdf), "-"]);
   const pages: PdfPage[] = [];
   for (const pm of html.matchAll(/<page ([^>]*)>([\s\S]*?)<\/page>/g)) {
-    const page: PdfPage = { width: num(pm[1], "width"), height: num(pm[1], "height"), lines: [] };
-    for (const lm of pm[2].matchAll(/<line ([^>]*)>([\s\S]*?)<\/line>/g)) {
-      const words = [...lm[2].matchAll(/<word ([^>]*)>([\s\S]*?)<\/word>/g)].map((w) => ({
-        text: unescapeXml(w[2]),
-        xMin: num(w[1], "xMin"),
-        yMin: num(w[1], "yMin"),
-        xMax: num(w[1], "xMax"),
-        yMax: num(w[1], "yMax"),
+    const page: PdfPage = { width: num(at(pm, 1), "width"), height: num(at(pm, 1), "height"), lines: [] };
+    for (const lm of at(pm, 2).matchAll(/<line ([^>]*)>([\s\S]*?)<\/line>/g)) {
+      const words = [...at(lm, 2).matchAll(/<word ([^>]*)>([\s\S]*?)<\/word>/g)].map((w) => ({
+        text: unescapeXml(at(w, 2)),
+        xMin: num(at(w, 1), "xMin"),
+        yMin: num(at(w, 1), "yMin"),
+        xMax: num(at(w, 1), "xMax"),
+        yMax: num(at(w, 1), "yMax"),
       }));
       if (!words.length) continue;
-      const yMin = num(lm[1], "yMin");
-      const yMax = num(lm[1], "yMax");
+      const yMin = num(at(lm, 1), "yMin");
+      const yMax = num(at(lm, 1), "yMax");
       page.lines.push({ words, text: words.map((w) => w.text).join(" "), yMin, yMax, height: Math.max(...words.map((w) => w.yMax - w.yMin)) });
     }
     page.lines.sort((a, b) => a.yMin - b.yMin);
@@ -70,7 +71,7 @@ export function pdfFonts(pdf: Buffer): { name: string; embedded: boolean }[] {
     .map((l) => {
       const cols = l.trim().split(/\s+/);
       // name type [encoding] emb sub uni object ID: emb is the fifth column from the end.
-      return { name: cols[0], embedded: cols[cols.length - 5] === "yes" };
+      return { name: first(cols, "a pdffonts row"), embedded: cols[cols.length - 5] === "yes" };
     });
 }
 

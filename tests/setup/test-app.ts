@@ -6,11 +6,12 @@ import request from "supertest";
 import { createApp } from "../../server/app.ts";
 import { openDatabase, type DbHandle } from "../../server/db/client.ts";
 import { loadConfig } from "../../server/lib/config.ts";
-import { makeClient, makeObject, makeUser } from "../../server/db/factories.ts";
+import { makeClient, makeConditionReport, makeCustodyReceipt, makeMounting, makeObject, makePhoto, makeUser } from "../../server/db/factories.ts";
+import { DEMO_PASSWORD, DEMO_USERS } from "../../server/db/seed.ts";
 import type { Role } from "../../shared/schemas/auth.ts";
 import type { ClientRecord } from "../../shared/schemas/clients.ts";
 
-export { makeClient, makeObject, makeUser };
+export { makeClient, makeConditionReport, makeCustodyReceipt, makeMounting, makeObject, makePhoto, makeUser };
 export type Agent = request.Agent;
 
 export type TestApp = {
@@ -69,13 +70,15 @@ export async function signIn(agent: Agent, email: string, password: string): Pro
 
 export const PASSWORD = "correct horse battery";
 
-export type Person = { id: string; email: string; role: Role; clientId: string | null };
+/** A user made for a test; it is also the SessionUser the factories take as the actor. */
+export type Person = { id: string; name: string; email: string; role: Role; clientId: string | null };
 
 /** Makes one user with PASSWORD through the shared factory. */
 export async function makePerson(t: TestApp, role: Role, clientId: string | null = null): Promise<Person> {
   const email = `${role}-${randomUUID().slice(0, 8)}@reversa.test`;
-  const id = await makeUser(t.db, { email, name: `Test ${role}`, role, clientId, password: PASSWORD });
-  return { id, email, role, clientId };
+  const name = `Test ${role}`;
+  const id = await makeUser(t.db, { email, name, role, clientId, password: PASSWORD });
+  return { id, name, email, role, clientId };
 }
 
 /** Signs a new agent in as the person. */
@@ -98,6 +101,32 @@ export async function makeStudio(t: TestApp) {
     registrar: await makePerson(t, "registrar", institution.id),
   };
   return { collectorClient, institution, otherInstitution, people };
+}
+
+/** One signed-in agent for each role. */
+export type RoleAgents = Record<Role, Agent>;
+
+/** Signs one agent in for each person of a studio, one after the other (password hashing is CPU-bound). */
+export async function agentsFor(t: TestApp, people: Record<Role, Person>): Promise<RoleAgents> {
+  return {
+    admin: await agentFor(t, people.admin),
+    framer: await agentFor(t, people.framer),
+    registrar: await agentFor(t, people.registrar),
+    collector: await agentFor(t, people.collector),
+  };
+}
+
+/** `makeStudio` with one signed-in agent per role beside it (`as.framer`, …). */
+export async function makeSignedInStudio(t: TestApp) {
+  const studio = await makeStudio(t);
+  return { studio, as: await agentsFor(t, studio.people) };
+}
+
+/** After `seedDemo`: one agent signed in as each demo user (admin@reversa.test, …) with the demo password. */
+export async function demoAgents(t: TestApp): Promise<RoleAgents> {
+  const as: Partial<RoleAgents> = {};
+  for (const u of DEMO_USERS) as[u.role] = await signIn(t.agent(), u.email, DEMO_PASSWORD);
+  return as as RoleAgents;
 }
 
 /** The one error shape: `{ error: { code, message, fields? } }` with nothing else beside it. */

@@ -1,4 +1,4 @@
-import { afterAll, beforeAll } from "vitest";
+import { afterAll, beforeAll, expect } from "vitest";
 import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
 import fs from "node:fs";
 import os from "node:os";
@@ -20,7 +20,7 @@ export async function launch(): Promise<{ browser: Browser; context: BrowserCont
   context.setDefaultTimeout(120_000);
   context.setDefaultNavigationTimeout(120_000);
   return {
-    browser: context.browser()!,
+    browser: context.browser() as Browser,
     context,
     close: async () => {
       await context.close();
@@ -65,9 +65,29 @@ export function browserSession(baseUrl: string) {
   });
   return {
     async fresh(): Promise<{ page: Page; w: Watch }> {
-      await ctx!.context.clearCookies();
-      const page = await ctx!.context.newPage();
+      if (!ctx) throw new Error("browserSession: the browser is not launched yet (call fresh() inside a test)");
+      await ctx.context.clearCookies();
+      const page = await ctx.context.newPage();
       return { page, w: watch(page, baseUrl) };
     },
+    /** A fresh page signed in as a demo user (`framer@reversa.test`, …), and its watch. */
+    async signedIn(email: string): Promise<{ page: Page; w: Watch }> {
+      const fresh = await this.fresh();
+      await signIn(fresh.page, baseUrl, email);
+      return fresh;
+    },
   };
+}
+
+/** Searches the register for `search` (the object number unless given) and opens the object by its number's link. */
+export async function openObject(page: Page, baseUrl: string, objectNumber: string, search = objectNumber) {
+  await page.goto(`${baseUrl}/objects?q=${encodeURIComponent(search)}`);
+  await page.getByRole("link", { name: objectNumber }).click();
+}
+
+/** The end of a journey: no console error, no request to another origin; then the page closes. */
+export async function finish(page: Page, w: Watch) {
+  expect(w.consoleErrors).toEqual([]);
+  expect(w.foreignRequests).toEqual([]);
+  await page.close();
 }

@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { cuttingList, type CutPiece } from "../../../shared/domain/mount-plan/yield.ts";
 import { fewestSheets } from "./support/guillotine-brute.ts";
+import { at } from "../../setup/lists.ts";
 
 // Guillotine cuts (edge to edge) with kerf: docs/trade-reference.md §11. The comparison is with an
 // exhaustive search written apart from the product (support/guillotine-brute.ts). Board sizes are
@@ -49,7 +50,7 @@ describe("the cutting list uses the fewest sheets", () => {
             expect(p.y).toBeGreaterThanOrEqual(-1e-9);
             expect(p.x + p.width).toBeLessThanOrEqual(SHEET.width + 1e-9);
             expect(p.y + p.height).toBeLessThanOrEqual(SHEET.height + 1e-9);
-            const b = boards[Number(p.pieceId.slice(1))];
+            const b = at(boards, Number(p.pieceId.slice(1)), "boards");
             expect(p.rotated ? [p.height, p.width] : [p.width, p.height]).toEqual([b.w, b.h]);
             seen.push(p.pieceId);
             for (const q of s.placements) {

@@ -4,6 +4,7 @@ import { computePlan, type PlanContext, type PlanGeometry } from "../../../share
 import { planDrawing } from "../../../shared/domain/mount-plan/drawing.ts";
 import { MountPlanInputSchema, SIDES, type MountPlan, type MountPlanInput, type SideName } from "../../../shared/schemas/mount-plan.ts";
 import { lengthInputValue, MM_PER_INCH, parseLength, type Unit } from "../../../shared/domain/units.ts";
+import { at } from "../../setup/lists.ts";
 
 // 1 in = 25.4 mm exactly (1959 agreement; NIST Handbook 44, Appendix C).
 // Studio defaults 5 mm minimum overlap and 2 mm clearance: common practice (no source).
@@ -156,8 +157,14 @@ describe("mount plan properties", () => {
     );
     fc.assert(
       fc.property(arb, ({ unit, precision, w, h, o, m }) => {
-        const [l, t, r, b] = o.map((x) => ({ mode: "overlap" as const, overlap: x.value }));
-        const { geometry } = compute({ unit, precision, sheet: { width: w.value, height: h.value }, minOverlap: m.value, window: { left: l, top: t, right: r, bottom: b } });
+        const side = (i: number) => ({ mode: "overlap" as const, overlap: at(o, i).value });
+        const { geometry } = compute({
+          unit,
+          precision,
+          sheet: { width: w.value, height: h.value },
+          minOverlap: m.value,
+          window: { left: side(0), top: side(1), right: side(2), bottom: side(3) },
+        });
         expect(o.every((x) => x.mm >= m.mm)).toBe(true);
         const tol = noise(geometry.stepMm);
         expect(geometry.aperture.width).toBeLessThanOrEqual(w.mm - 2 * m.mm + tol);
@@ -301,7 +308,8 @@ describe("mount plan properties", () => {
       })
       .map(({ display, double }) => ({ ...c, display, input: { ...c.input, ...(double ? { doubleMount: { reveal: double.value } } : {}) } })),
   );
-  const read = (text: string, unit: Unit): number => {
+  const read = (text: string | undefined, unit: Unit): number => {
+    if (text === undefined) throw new Error("no such figure in the plan's display");
     const r = parseLength(text.replace(/ (mm|in)$/, ""), unit);
     if (!r.ok) throw new Error(`unreadable figure ${text}`);
     return r.mm;

@@ -4,6 +4,7 @@ import { planDrawing, type Shape } from "../../../shared/domain/mount-plan/drawi
 import { FRAME_PRESETS, SHEET_PRESETS } from "../../../shared/domain/mount-plan/presets.ts";
 import { MountPlanInputSchema, type Check, type MountPlan, type MountPlanInput } from "../../../shared/schemas/mount-plan.ts";
 import { MM_PER_INCH } from "../../../shared/domain/units.ts";
+import { at, first } from "../../setup/lists.ts";
 
 // The studio defaults: 5 mm minimum overlap a side and 2 mm total rebate clearance, both
 // common practice (no source) and studio settings (docs/trade-reference.md §2).
@@ -93,7 +94,7 @@ describe("window in overlap mode", () => {
     const shows = plan.findings.filter((f) => f.code === "window-shows-border");
     expect(shows.map((f) => f.side)).toEqual(["left", "top", "right", "bottom"]);
     expect(shows.every((f) => f.severity === "info")).toBe(true);
-    expect(shows[0].message).toMatch(/^Left edge: 7 mm of the sheet's border shows/);
+    expect(first(shows).message).toMatch(/^Left edge: 7 mm of the sheet's border shows/);
   });
 
   it("when the sheet's own border is narrower than the overlap, then the plan says the window covers the image", () => {
@@ -101,7 +102,7 @@ describe("window in overlap mode", () => {
     const covers = plan.findings.filter((f) => f.code === "window-covers-image");
     expect(covers).toHaveLength(1);
     expect(covers[0]).toMatchObject({ side: "left", severity: "warn" });
-    expect(covers[0].message).toContain("3 mm of the image");
+    expect(first(covers).message).toContain("3 mm of the image");
   });
 });
 
@@ -122,7 +123,7 @@ describe("size presets", () => {
       [16, 22],
       [22, 28],
       [28, 36],
-    ]) {
+    ] as const) {
       const p = FRAME_PRESETS.find((f) => f.id === `${w}x${h}in`);
       expect(p, `${w}×${h} in`).toBeDefined();
       expect(p!.width).toBeCloseTo(w * IN, 9);
@@ -155,8 +156,8 @@ describe("window in hide-border mode", () => {
     const f = plan.findings.filter((x) => x.code === "window-shows-border");
     expect(f).toHaveLength(1);
     expect(f[0]).toMatchObject({ side: "right", severity: "error" });
-    expect(f[0].message).toContain("Right edge");
-    expect(f[0].message).toContain("2 mm");
+    expect(first(f).message).toContain("Right edge");
+    expect(first(f).message).toContain("2 mm");
     expect(plan.level).toBe("fail");
   });
 });
@@ -171,7 +172,7 @@ describe("window in float mode", () => {
     const floats = plan.findings.filter((f) => f.code === "float");
     expect(floats.map((f) => f.side)).toEqual(["left", "top", "right", "bottom"]);
     expect(floats.every((f) => f.severity === "info")).toBe(true);
-    expect(floats[0].message).toContain("10 mm reveal");
+    expect(first(floats).message).toContain("10 mm reveal");
     expect(checkOf(plan, "overlap-minimum")).toMatchObject({ verdict: "pass", reason: "The sheet floats on every side; no side is held by the window." });
   });
 
@@ -234,10 +235,10 @@ describe("custom window", () => {
     expect(checkOf(plan, "overlap-minimum").reason).toContain("3 mm on the left");
     const below = plan.findings.filter((f) => f.code === "overlap-below-minimum");
     expect(below).toHaveLength(1);
-    expect(below[0].side).toBe("left");
-    expect(below[0].severity).toBe("error");
-    expect(below[0].message).toContain("Left edge");
-    expect(below[0].message).toContain("3 mm");
+    expect(first(below).side).toBe("left");
+    expect(first(below).severity).toBe("error");
+    expect(first(below).message).toContain("Left edge");
+    expect(first(below).message).toContain("3 mm");
     expect(plan.level).toBe("fail");
   });
 
@@ -247,7 +248,7 @@ describe("custom window", () => {
     expect(plan.overlap.left).toBe(-4);
     const off = plan.findings.filter((f) => f.code === "window-off-sheet");
     expect(off.map((f) => [f.side, f.field, f.severity])).toEqual([["left", "window.left", "error"]]);
-    expect(off[0].message).toContain("Left edge: the window runs 4 mm past the edge of the sheet");
+    expect(first(off).message).toContain("Left edge: the window runs 4 mm past the edge of the sheet");
     expect(plan.level).toBe("fail");
   });
 
@@ -256,7 +257,7 @@ describe("custom window", () => {
     const off = plan.findings.filter((f) => f.code === "window-off-sheet");
     expect(off).toHaveLength(1);
     expect(off[0]).toMatchObject({ severity: "error", field: "window.left" });
-    expect(off[0].message).toContain("wholly off the sheet");
+    expect(first(off).message).toContain("wholly off the sheet");
   });
 
   it("when a custom window is wider than the sheet, then it is an error at window.width", () => {
@@ -307,7 +308,7 @@ describe("borders and outer size", () => {
     const low = plan.findings.filter((f) => f.code === "border-below-minimum");
     expect(low.map((f) => f.side)).toEqual(["left"]);
     expect(low[0]).toMatchObject({ severity: "warn" });
-    expect(low[0].message).toContain("40 mm");
+    expect(first(low).message).toContain("40 mm");
   });
 
   // 16 × 20 in ready-made frame (docs/trade-reference.md §8); 8 × 10 in sheet (CCI Notes 11/5); 1 in = 25.4 mm (NIST HB 44 App. C).
@@ -411,7 +412,7 @@ describe("frame: rebate, sight and moulding", () => {
     const lip = plan.findings.filter((f) => f.code === "lip-covers-window");
     expect(lip.map((f) => f.side)).toEqual(["left"]);
     expect(lip[0]).toMatchObject({ severity: "error" });
-    expect(lip[0].message).toContain("Left edge");
+    expect(first(lip).message).toContain("Left edge");
     expect(plan.level).toBe("fail");
     expect(codes(planOf({ ...A4_OVERLAP_5, borders: { all: 50 } }).plan)).not.toContain("lip-covers-window");
   });
@@ -814,7 +815,7 @@ describe("the drawing model", () => {
   });
 
   it("when there is a double mount, then the top board is drawn; when there is none, then it is not", () => {
-    expect(drawingOf(CASES[1][1]).drawing.shapes.some((s) => s.role === "top-board")).toBe(true);
+    expect(drawingOf(at(CASES, 1)[1]).drawing.shapes.some((s) => s.role === "top-board")).toBe(true);
     expect(drawingOf(A4_OVERLAP_5).drawing.shapes.some((s) => s.role === "top-board")).toBe(false);
   });
 

@@ -4,6 +4,7 @@ import { hingesWanted } from "../../../shared/domain/mount-plan/checks.ts";
 import { paperWeightOf, planObjectOf } from "../../../shared/domain/mounting.ts";
 import { lightClass } from "../../../shared/domain/light.ts";
 import { MountPlanInputSchema, type MountPlanInput } from "../../../shared/schemas/mount-plan.ts";
+import { first } from "../../setup/lists.ts";
 
 // Studio defaults 5 mm minimum overlap and 2 mm clearance: common practice (no source). A4 = 210 × 297 mm (ISO 216).
 const CTX: PlanContext = { minOverlapMm: 5, rebateClearanceMm: 2 };
@@ -22,7 +23,7 @@ describe("geometry that cannot be built (docs/trade-reference.md §3)", () => {
       ["left", "borders.side", "error"],
       ["right", "borders.side", "error"],
     ]);
-    expect(f[0].message).toContain("Left edge: the sheet reaches 10 mm past the outer edge");
+    expect(first(f).message).toContain("Left edge: the sheet reaches 10 mm past the outer edge");
   });
 
   it("when a fitted outer size is smaller than the sheet, then it is an error at fitOuter", () => {
@@ -43,14 +44,14 @@ describe("geometry that cannot be built (docs/trade-reference.md §3)", () => {
       ["left", "warn"],
       ["right", "warn"],
     ]);
-    expect(f[0].field).toBe("window.all.into");
+    expect(first(f).field).toBe("window.all.into");
   });
 
   it("when a double mount's top border is narrower than the lip covers, then the lip error names the top board", () => {
     // 10 mm borders, 6 mm reveal: the top board shows 4 mm; a 6 mm lip less 1 mm clearance covers 5 mm.
     const f = errorsOf({ ...A4, borders: { all: 10 }, doubleMount: { reveal: 6 } }, "lip-covers-window");
     expect(f).toHaveLength(4);
-    expect(f[0].message).toContain("top board's 4 mm border");
+    expect(first(f).message).toContain("top board's 4 mm border");
     expect(errorsOf({ ...A4, borders: { all: 10 } }, "lip-covers-window")).toEqual([]);
   });
 });

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { MAX_PLACEMENTS, STANDARD_BOARD_SHEETS, blanksPerSheet, cuttingList, type CutPiece, type Placement, type Size } from "../../../shared/domain/mount-plan/yield.ts";
+import { at, first } from "../../setup/lists.ts";
 
 // 1 in = 25.4 mm exactly (1959 agreement; NIST Handbook 44, Appendix C).
 const IN = 25.4;
@@ -39,9 +40,9 @@ function expectValidLayout(placements: Placement[], sheet: Size, kerf: number): 
   // Sweep left to right: only placements starting before a's right edge plus the kerf can be too close to it.
   const byX = [...placements].sort((p, q) => p.x - q.x);
   for (let i = 0; i < byX.length; i++) {
-    const a = byX[i];
-    for (let j = i + 1; j < byX.length && byX[j].x < a.x + a.width + kerf - EPS; j++) {
-      const b = byX[j];
+    const a = at(byX, i);
+    for (let j = i + 1; j < byX.length && at(byX, j).x < a.x + a.width + kerf - EPS; j++) {
+      const b = at(byX, j);
       const apart = a.y + a.height + kerf <= b.y + EPS || b.y + b.height + kerf <= a.y + EPS;
       if (!apart) throw new Error(`placements overlap or sit closer than the ${kerf} mm kerf: ${JSON.stringify([a, b])}`);
     }
@@ -98,10 +99,10 @@ describe("STANDARD_BOARD_SHEETS", () => {
     // 1120 × 815 mm: common practice (no source).
     const sizes = STANDARD_BOARD_SHEETS.map((s) => [s.width, s.height]);
     expect(sizes).toHaveLength(3);
-    expect(sizes[0][0]).toBeCloseTo(812.8, 9);
-    expect(sizes[0][1]).toBeCloseTo(1016, 9);
-    expect(sizes[1][0]).toBeCloseTo(1016, 9);
-    expect(sizes[1][1]).toBeCloseTo(1524, 9);
+    expect(first(sizes)[0]).toBeCloseTo(812.8, 9);
+    expect(first(sizes)[1]).toBeCloseTo(1016, 9);
+    expect(at(sizes, 1)[0]).toBeCloseTo(1016, 9);
+    expect(at(sizes, 1)[1]).toBeCloseTo(1524, 9);
     expect(sizes[2]).toEqual([1120, 815]);
     expect(new Set(STANDARD_BOARD_SHEETS.map((s) => s.id)).size).toBe(3);
     for (const s of STANDARD_BOARD_SHEETS) expect(s.label).not.toBe("");
@@ -363,8 +364,8 @@ describe("cuttingList: check values", () => {
     );
     expect(list.sheetCount).toBe(1);
     expect(list.utilisation).toBeCloseTo(0.75, 9);
-    expect(list.sheets[0].utilisation).toBeCloseTo(0.75, 9);
-    expectValidLayout(list.sheets[0].placements, SHEET_32x40, 0);
+    expect(first(list.sheets).utilisation).toBeCloseTo(0.75, 9);
+    expectValidLayout(first(list.sheets).placements, SHEET_32x40, 0);
   });
 
   it("when a piece is larger than the sheet either way round, then it is unplaced with a sentence naming it and the sheet, and the rest are cut", () => {
@@ -377,12 +378,12 @@ describe("cuttingList: check values", () => {
       2,
     );
     expect(list.unplaced).toHaveLength(1);
-    expect(list.unplaced[0].id).toBe("big");
-    expect(list.unplaced[0].reason).toContain("Atlas plate");
-    expect(list.unplaced[0].reason).toContain("900 × 1200 mm");
-    expect(list.unplaced[0].reason).toContain("812.8 × 1016 mm");
+    expect(first(list.unplaced).id).toBe("big");
+    expect(first(list.unplaced).reason).toContain("Atlas plate");
+    expect(first(list.unplaced).reason).toContain("900 × 1200 mm");
+    expect(first(list.unplaced).reason).toContain("812.8 × 1016 mm");
     expect(list.sheetCount).toBe(1);
-    expect(list.sheets[0].placements.map((p) => p.pieceId)).toEqual(["ok"]);
+    expect(first(list.sheets).placements.map((p) => p.pieceId)).toEqual(["ok"]);
   });
 
   it("when there are no pieces, then there are no sheets and utilisation is 0", () => {

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { MATERIAL_TONES, PALETTE } from "../../../shared/drawing/palette.ts";
 import { arrowHeadPoints, drawnRect, embeddedWeight, PLAN_STYLE, PRINT_STYLE, scaledDash, textRotation } from "../../../shared/drawing/plan-style.ts";
+import { at } from "../../setup/lists.ts";
 
 describe("palette", () => {
   it("when the drawing's styles are read, then every colour in them is a palette token or a material tone", () => {
@@ -61,12 +62,13 @@ describe("plan drawing geometry", () => {
   });
 
   it("when an arrowhead is drawn along the x axis, then its tip is the line's end and its barbs half a font size back", () => {
-    const [tip, a, b] = arrowHeadPoints(0, 0, 10, 0, 4)
+    const points = arrowHeadPoints(0, 0, 10, 0, 4)
       .split(" ")
       .map((p) => p.split(",").map(Number));
+    const [tip, a, b] = [at(points, 0), at(points, 1), at(points, 2)];
     expect(tip).toEqual([10, 0]);
-    expect(a[0]).toBeCloseTo(10 - 2 * Math.cos(0.4), 9);
-    expect(a[1]).toBeCloseTo(2 * Math.sin(0.4), 9);
-    expect(b[1]).toBeCloseTo(-2 * Math.sin(0.4), 9);
+    expect(at(a, 0)).toBeCloseTo(10 - 2 * Math.cos(0.4), 9);
+    expect(at(a, 1)).toBeCloseTo(2 * Math.sin(0.4), 9);
+    expect(at(b, 1)).toBeCloseTo(-2 * Math.sin(0.4), 9);
   });
 });

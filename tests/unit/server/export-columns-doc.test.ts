@@ -2,6 +2,7 @@ import fs from "node:fs";
 import { describe, expect, it } from "vitest";
 import { DATASETS, MANIFEST_COLUMNS } from "../../../server/features/exports/exports.service.ts";
 import { EXPORT_COLUMNS } from "../../../server/features/exports/exports.columns.ts";
+import { at } from "../../setup/lists.ts";
 
 // The contributor rule: every export column is described for the people who receive it (docs/exports.md).
 describe("docs/exports.md", () => {
@@ -16,7 +17,7 @@ describe("docs/exports.md", () => {
       const named = section
         .split("\n")
         .filter((l) => l.startsWith("| "))
-        .map((l) => l.split("|")[1].trim());
+        .map((l) => at(l.split("|"), 1).trim());
       for (const { key } of EXPORT_COLUMNS[dataset]) {
         const covered = named.some((n) => n.split(", ").includes(key) || expandSlashes(n).includes(key));
         expect(covered, `${dataset}: "${key}"`).toBe(true);
@@ -32,5 +33,7 @@ describe("docs/exports.md", () => {
 function expandSlashes(name: string): string[] {
   const m = /^(.*?)(\w+(?: \/ \w+)+)(.*)$/.exec(name);
   if (!m) return [];
-  return m[2].split(" / ").map((w) => `${m[1]}${w}${m[3]}`);
+  return at(m, 2)
+    .split(" / ")
+    .map((w) => `${m[1]}${w}${m[3]}`);
 }

@@ -4,6 +4,7 @@ import path from "node:path";
 import { createHash } from "node:crypto";
 import { afterAll, beforeEach, describe, expect, it } from "vitest";
 import { createStorage, isStorageKey, storageKey } from "../../../server/lib/storage.ts";
+import { filesUnder } from "../../setup/files.ts";
 
 const base = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-storage-test-"));
 afterAll(() => fs.rmSync(base, { recursive: true, force: true }));
@@ -15,14 +16,6 @@ beforeEach(() => {
 });
 
 const sha = (b: Buffer) => createHash("sha256").update(b).digest("hex");
-/** Every file under a folder, as paths relative to it. */
-function filesUnder(root: string): string[] {
-  if (!fs.existsSync(root)) return [];
-  return (fs.readdirSync(root, { recursive: true, withFileTypes: true }) as fs.Dirent[])
-    .filter((e) => e.isFile())
-    .map((e) => path.relative(root, path.join(e.parentPath, e.name)))
-    .sort();
-}
 
 describe("createStorage().put", () => {
   it("when bytes are put, then they are stored once under their SHA-256, sharded by its first two byte pairs", async () => {

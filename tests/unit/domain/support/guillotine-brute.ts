@@ -1,3 +1,4 @@
+import { at } from "../../../setup/lists.ts";
 /**
  * An exhaustive search for the fewest full sheets a batch of boards needs with guillotine cuts,
  * written apart from the product's code so the two can be compared. Small batches only (≤ 8).
@@ -28,7 +29,8 @@ export function fewestSheets(boards: Board[], sheet: { width: number; height: nu
     for (let i = 0; i < n; i++) {
       if (!(mask & (1 << i))) continue;
       const next = new Set<number>();
-      for (const s of sums) for (const add of [0, grown[i].w, grown[i].h]) next.add(Math.round((s + add) * 1e6) / 1e6);
+      const g = at(grown, i);
+      for (const s of sums) for (const add of [0, g.w, g.h]) next.add(Math.round((s + add) * 1e6) / 1e6);
       sums = [...next];
     }
     const out = sums.filter((s) => s > 0).sort((a, b) => a - b);
@@ -58,10 +60,10 @@ export function fewestSheets(boards: Board[], sheet: { width: number; height: nu
     if (known !== undefined) return known;
     let ok = false;
     let area = 0;
-    for (let i = 0; i < n; i++) if (mask & (1 << i)) area += grown[i].w * grown[i].h;
+    for (let i = 0; i < n; i++) if (mask & (1 << i)) area += at(grown, i).w * at(grown, i).h;
     if (area <= w * h + EPS) {
       if ((mask & (mask - 1)) === 0) {
-        const b = grown[31 - Math.clz32(mask)];
+        const b = at(grown, 31 - Math.clz32(mask));
         ok = (b.w <= w + EPS && b.h <= h + EPS) || (b.h <= w + EPS && b.w <= h + EPS);
       } else {
         const low = mask & -mask;
