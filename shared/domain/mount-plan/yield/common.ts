@@ -45,3 +45,14 @@ export function requireKerf(kerf: number): void {
 export function fitCount(length: number, item: number): number {
   return Math.floor((length + EPS) / item);
 }
+
+/**
+ * `xs[i]` for an index the search keeps in range (a loop bound, an index into the same list): the
+ * packers' arrays are read this way instead of `xs[i]!`, so a wrong index is an error at once
+ * rather than an `undefined` or a NaN further on.
+ */
+export function item<T>(xs: ArrayLike<T>, i: number): T {
+  const x = xs[i];
+  if (x === undefined) throw new RangeError(`Index ${i} is outside a list of ${xs.length}.`);
+  return x;
+}
