@@ -20,8 +20,10 @@ export type CuttingList = { sheets: CuttingSheet[]; sheetCount: number; utilisat
 /** Float noise allowance on lengths in mm (values here are at most a few thousand mm). */
 export const EPS = 1e-9;
 
-/** Standard full board sheets (docs/trade-reference.md §11). */
-export const STANDARD_BOARD_SHEETS: { id: string; label: string; width: number; height: number }[] = [
+/** A full board sheet as sold. */
+export type BoardSheet = { id: string; label: string; width: number; height: number };
+/** Standard full board sheets (docs/trade-reference.md §11); never empty, the first is the default. */
+export const STANDARD_BOARD_SHEETS: [BoardSheet, ...BoardSheet[]] = [
   // 32 × 40 in and 40 × 60 in: suppliers' sizes; 1 in = 25.4 mm exactly (1959 agreement; NIST HB 44 App. C).
   { id: "32x40in", label: "32 × 40 in", width: 32 * MM_PER_INCH, height: 40 * MM_PER_INCH },
   { id: "40x60in", label: "40 × 60 in", width: 40 * MM_PER_INCH, height: 60 * MM_PER_INCH },
