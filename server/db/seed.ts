@@ -653,7 +653,9 @@ export async function seedDemo(db: Db): Promise<boolean> {
   for (const u of DEMO_USERS) {
     ids[u.role] = await makeUser(db, { email: u.email, name: u.name, role: u.role, clientId: "client" in u ? clients[u.client].id : null, password: DEMO_PASSWORD });
   }
-  const framer: SessionUser = { id: ids.framer, name: "Jonah Pell", email: "framer@reversa.test", role: "framer", clientId: null };
+  const framerId = ids.framer;
+  if (!framerId) throw new Error("The demo users include no framer.");
+  const framer: SessionUser = { id: framerId, name: "Jonah Pell", email: "framer@reversa.test", role: "framer", clientId: null };
 
   OBJECTS.forEach(({ owner, ...o }, i) => {
     const objectNumber = `2026-${String(i + 1).padStart(4, "0")}`;

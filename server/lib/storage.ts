@@ -28,8 +28,8 @@ export type Storage = ReturnType<typeof createStorage>;
 /** True for a well-formed key whose shard folders match its hash. */
 export function isStorageKey(key: unknown): key is string {
   if (typeof key !== "string") return false;
-  const m = KEY.exec(key);
-  return !!m && m[3].startsWith(m[1] + m[2]);
+  const [, shard1, shard2, hash] = KEY.exec(key) ?? [];
+  return hash?.startsWith(`${shard1}${shard2}`) === true;
 }
 
 export function storageKey(sha256: string, ext: StorageExt): string {

@@ -43,7 +43,7 @@ export function lightGuidance(sensitivities: string[], objectType?: string, phot
 /** When the next condition check falls due: the studio interval after the last check (or mounting), sooner on loan. */
 export function nextCheckDue(from: string, status: string, intervals: { checkIntervalMonths: number; checkIntervalOnLoanMonths: number }): string {
   const months = status === "on-loan" ? intervals.checkIntervalOnLoanMonths : intervals.checkIntervalMonths;
-  const [y, m, d] = from.split("-").map(Number);
+  const [y = NaN, m = NaN, d = NaN] = from.split("-").map(Number);
   const target = new Date(Date.UTC(y, m - 1 + months, 1));
   const last = new Date(Date.UTC(target.getUTCFullYear(), target.getUTCMonth() + 1, 0)).getUTCDate();
   target.setUTCDate(Math.min(d, last));

@@ -37,7 +37,8 @@ export type CatalogueFacts = {
 /** A paper weight written in the support ("cotton rag, 300 g/m²", "250gsm"), in g/m²; null when none is given. */
 export function paperWeightOf(support: string | null | undefined): number | null {
   const m = (support ?? "").match(/(\d{2,4}(?:[.,]\d+)?)\s*(?:g\s*\/\s*m[²2]|gsm\b)/i);
-  const v = m ? Number(m[1].replace(",", ".")) : NaN;
+  const digits = m?.[1];
+  const v = digits ? Number(digits.replace(",", ".")) : NaN;
   return Number.isFinite(v) && v > 0 && v <= 2000 ? v : null;
 }
 

@@ -23,7 +23,7 @@ import { appendEvent, type Actor } from "../history/history.chain.ts";
 import * as repo from "./custody.repo.ts";
 
 const utcDay = (s: string) => {
-  const [y, m, d] = s.split("-").map(Number);
+  const [y = NaN, m = NaN, d = NaN] = s.split("-").map(Number);
   return Date.UTC(y, m - 1, d);
 };
 export const daysBetween = (from: string, to: string) => Math.round((utcDay(to) - utcDay(from)) / 86_400_000);

@@ -229,11 +229,15 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
             </KV>
             <KV labelWidth={88} label="Image borders">
               {object.borderLeftMm !== null || object.borderTopMm !== null
-                ? (["L", "T", "R", "B"] as const)
-                    .map((k, i) => {
-                      const v = [object.borderLeftMm, object.borderTopMm, object.borderRightMm, object.borderBottomMm][i];
-                      return `${k} ${v === null ? "—" : len(v)}`;
-                    })
+                ? (
+                    [
+                      ["L", object.borderLeftMm],
+                      ["T", object.borderTopMm],
+                      ["R", object.borderRightMm],
+                      ["B", object.borderBottomMm],
+                    ] as const
+                  )
+                    .map(([k, v]) => `${k} ${v === null ? "—" : len(v)}`)
                     .join(" · ")
                 : null}
             </KV>

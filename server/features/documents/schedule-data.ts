@@ -95,7 +95,11 @@ export function totalsOf(rows: Pick<ScheduleRow, "valueMinor" | "currency" | "ba
     t.minor += r.valueMinor;
     t.count++;
     const label = r.basis ?? NO_BASIS;
-    const part = t.byBasis.find((b) => b.basis === label) ?? t.byBasis[t.byBasis.push({ basis: label, minor: 0, count: 0 }) - 1];
+    let part = t.byBasis.find((b) => b.basis === label);
+    if (!part) {
+      part = { basis: label, minor: 0, count: 0 };
+      t.byBasis.push(part);
+    }
     part.minor += r.valueMinor;
     part.count++;
     if (!r.basis) t.noBasis++;

@@ -70,15 +70,17 @@ function rowHeight(r: ScheduleRow): number {
  */
 function paginate(rows: ScheduleRow[], pageHeight: number): ScheduleRow[][] {
   const body = pageHeight - 86 - 54 - 24; // page padding (theme) and the table's header row
-  const pages: ScheduleRow[][] = [[]];
+  let page: ScheduleRow[] = [];
+  const pages: ScheduleRow[][] = [page];
   let left = body - 52; // the title and the intro line on the first page
   for (const r of rows) {
     const h = rowHeight(r);
-    if (h > left && pages[pages.length - 1].length > 0) {
-      pages.push([]);
+    if (h > left && page.length > 0) {
+      page = [];
+      pages.push(page);
       left = body;
     }
-    pages[pages.length - 1].push(r);
+    page.push(r);
     left -= h;
   }
   return pages;
@@ -191,7 +193,7 @@ function Totals({ data }: { data: ScheduleData }) {
             <View style={t.totalRow}>
               <Text style={t.td}>
                 {x.currency} · {x.count} object{x.count === 1 ? "" : "s"}
-                {x.bases.length === 1 && !x.noBasis ? ` · ${x.bases[0].toLowerCase()}` : ""}
+                {x.bases.length === 1 && !x.noBasis ? ` · ${(x.bases[0] ?? "").toLowerCase()}` : ""}
               </Text>
               <Text style={[t.totalStrong, tabular]}>Total {formatMoney(x.minor, x.currency)}</Text>
             </View>

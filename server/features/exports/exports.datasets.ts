@@ -82,10 +82,11 @@ function objectRow(o: ObjectRow, client: ClientRecord): Row {
 }
 
 function mountingRows(db: Db, user: SessionUser, objs: ObjectRow[]): Row[] {
-  if (!objs.length) return [];
+  const [first] = objs;
+  if (!first) return [];
   const byId = new Map(objs.map((o) => [o.id, o]));
   // Drafts are studio work: to anyone who may not write them they do not exist (as in the mountings service).
-  const withDrafts = can(user, "mounting:read", { clientId: objs[0].clientId, draft: true });
+  const withDrafts = can(user, "mounting:read", { clientId: first.clientId, draft: true });
   const rows = db
     .select({ m: mountings, data: mountingRevisions.data })
     .from(mountings)
@@ -179,10 +180,11 @@ const EMPTY_PLAN_CELLS: Row = Object.fromEntries(
 );
 
 function conditionRows(db: Db, user: SessionUser, objs: ObjectRow[]): Row[] {
-  if (!objs.length) return [];
+  const [first] = objs;
+  if (!first) return [];
   const byId = new Map(objs.map((o) => [o.id, o]));
   // Drafts only to those who may write them, as in the condition service.
-  const withDrafts = can(user, "condition:read", { clientId: objs[0].clientId, draft: true });
+  const withDrafts = can(user, "condition:read", { clientId: first.clientId, draft: true });
   const rows = db
     .select({ r: conditionReports, data: conditionRevisions.data })
     .from(conditionReports)

@@ -278,7 +278,8 @@ export function createExportsService(db: Db, config: Pick<Config, "uploadsDir">,
           const parts = [
             ...(["object dossier", "condition report", "custody receipt"] as const).map((k) => {
               const of = docs.filter((d) => d.kind === k);
-              return of.length === 0 ? null : of.length === 1 ? `${k} ${of[0].code}` : `${of.length} ${k}s (${of.map((d) => d.code).join(", ")})`;
+              const [only] = of;
+              return only === undefined ? null : of.length === 1 ? `${k} ${only.code}` : `${of.length} ${k}s (${of.map((d) => d.code).join(", ")})`;
             }),
             photoCount ? `${photoCount} photo${photoCount === 1 ? "" : "s"}` : null,
           ].filter(Boolean);

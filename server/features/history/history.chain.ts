@@ -188,8 +188,8 @@ export function listEvents(db: Db, objectId: string, q: HistoryQuery): { items: 
     .all();
   const more = rows.length > q.limit;
   const items = rows.slice(0, q.limit).map(toEvent);
-  const last = items[items.length - 1];
-  return { items, nextBefore: more ? `${last.occurredOn}:${last.seq}` : null };
+  const last = items.at(-1);
+  return { items, nextBefore: more && last ? `${last.occurredOn}:${last.seq}` : null };
 }
 
 /**
@@ -205,7 +205,8 @@ export function verifyChains(db: Db, objectId?: string, keyOverride?: Buffer): C
   for (;;) {
     const where = objectId ? and(eq(events.objectId, objectId), gt(events.seq, after)) : gt(events.seq, after);
     const rows = db.select().from(events).where(where).orderBy(asc(events.seq)).limit(BATCH).all();
-    if (rows.length === 0) break;
+    const newest = rows.at(-1);
+    if (!newest) break;
     for (const r of rows) {
       const expectedPrev = last.get(r.objectId) ?? null;
       if (r.prevHash !== expectedPrev) {
@@ -226,7 +227,7 @@ export function verifyChains(db: Db, objectId?: string, keyOverride?: Buffer): C
       last.set(r.objectId, r.hash);
       checked++;
     }
-    after = rows[rows.length - 1].seq;
+    after = newest.seq;
   }
   // Each object's newest event must be the one its head records: events cut from the end show here.
   const heads = objectId
@@ -258,11 +259,11 @@ export function verifyCheckpoints(db: Db, file: string, key: Buffer): { ok: true
   if (!fs.existsSync(file)) return { ok: true, checked: 0 };
   const latest = new Map<string, { c: Checkpoint; line: number }>();
   const lines = fs.readFileSync(file, "utf8").split("\n");
-  for (let i = 0; i < lines.length; i++) {
-    if (!lines[i].trim()) continue;
+  for (const [i, text] of lines.entries()) {
+    if (!text.trim()) continue;
     let c: Checkpoint;
     try {
-      c = JSON.parse(lines[i]) as Checkpoint;
+      c = JSON.parse(text) as Checkpoint;
     } catch {
       return { ok: false, line: i + 1, objectId: null, reason: "the checkpoints file has a line that is not a checkpoint (it was edited)" };
     }
@@ -294,8 +295,8 @@ export function verifyCheckpoints(db: Db, file: string, key: Buffer): { ok: true
  */
 export function keyPlainChains(db: Db, key: Buffer): number {
   const rows = db.select().from(events).orderBy(asc(events.seq)).all();
-  if (rows.length === 0) return 0;
-  const probe = rows[rows.length - 1];
+  const probe = rows.at(-1);
+  if (!probe) return 0;
   if (eventHash(contentOf(probe), key) === probe.hash) return 0; // already keyed
   const last = new Map<string, string>();
   for (const r of rows) {

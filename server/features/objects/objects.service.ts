@@ -142,7 +142,7 @@ export function createObjectsService(db: Db) {
       const changed = diffValues(before, patch);
       const ok = inTransaction(db, (tx) => {
         if (!repo.updateObject(tx, id, version, patch)) return false;
-        const valuationChanges = changed.filter((c) => (VALUATION_KEYS as readonly string[]).includes(c.path.split(".")[0]));
+        const valuationChanges = changed.filter((c) => (VALUATION_KEYS as readonly string[]).includes(c.path.split(".")[0] ?? c.path));
         const catalogueChanges = changed.filter((c) => !valuationChanges.includes(c));
         if (catalogueChanges.length) {
           appendEvent(tx, {

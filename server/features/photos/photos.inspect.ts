@@ -110,13 +110,12 @@ type Claim = { mime: string; said: string };
 
 function claims(declared: DeclaredFile): Claim[] {
   const out: Claim[] = [];
-  const m = /\.([A-Za-z0-9]{1,8})$/.exec(declared.originalName.trim());
-  if (m) {
-    const ext = m[1].toLowerCase();
+  const ext = /\.([A-Za-z0-9]{1,8})$/.exec(declared.originalName.trim())?.[1]?.toLowerCase();
+  if (ext) {
     const mime = EXT_MIME[ext];
     out.push({ mime: mime ?? `.${ext}`, said: mime ? typeName(mime) : `a “.${ext}” file` });
   }
-  const mt = declared.mimetype.toLowerCase().split(";")[0].trim();
+  const mt = (declared.mimetype.toLowerCase().split(";")[0] ?? "").trim();
   if (!VAGUE_MIME.has(mt)) out.push({ mime: mt === "image/jpg" || mt === "image/pjpeg" ? "image/jpeg" : mt, said: typeName(mt) });
   return out;
 }
@@ -155,7 +154,7 @@ export function exifDateToIso(value: unknown, offset?: unknown): string | null {
   if (typeof value !== "string") return null;
   const m = /^(\d{4}):(\d{2}):(\d{2})[ T](\d{2}):(\d{2}):(\d{2})/.exec(value.trim());
   if (!m) return null;
-  const [, y, mo, d, h, mi, s] = m.map(Number);
+  const [, y = 0, mo = 0, d = 0, h = 0, mi = 0, s = 0] = m.map(Number);
   if (y < 1826 || mo < 1 || mo > 12 || d < 1 || d > 31 || h > 23 || mi > 59 || s > 60) return null;
   const iso = `${m[1]}-${m[2]}-${m[3]}T${m[4]}:${m[5]}:${m[6]}`;
   const off = typeof offset === "string" && /^[+-]\d{2}:\d{2}$/.test(offset.trim()) ? offset.trim() : "";

@@ -67,7 +67,10 @@ export function KV({ label, children, labelWidth = 130 }: { label: string; child
 
 /** A simple table: column widths in points or flex weights. */
 export function Table({ cols, rows }: { cols: { label: string; width?: number; flex?: number; align?: "left" | "right" }[]; rows: ReactNode[][] }) {
-  const style = (i: number) => ({ ...t.cell, ...(cols[i].width ? { width: cols[i].width } : { flex: cols[i].flex ?? 1 }), textAlign: cols[i].align ?? "left" }) as Style;
+  const style = (i: number) => {
+    const c = cols[i];
+    return { ...t.cell, ...(c?.width ? { width: c.width } : { flex: c?.flex ?? 1 }), textAlign: c?.align ?? "left" } as Style;
+  };
   return (
     <>
       {/* A table never starts in the last lines of a page: its header and first rows go over together. */}

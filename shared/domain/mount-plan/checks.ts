@@ -143,11 +143,12 @@ export function conservationChecks(g: PlanGeometry, input: MountPlanParsed, f: F
       v = worstVerdict([v, "warn"]);
       notes.push("choose unbuffered board for a cyanotype");
     }
+    const said = notes.join("; ");
     checks.push({
       id: "photo-board",
       rule: "Photographs: board has passed the PAT; unbuffered board for sensitive processes",
       verdict: v,
-      reason: notes.length ? `${notes[0][0].toUpperCase()}${notes.join("; ").slice(1)}.` : "The board has passed the Photographic Activity Test and suits the process.",
+      reason: notes.length ? `${said.charAt(0).toUpperCase()}${said.slice(1)}.` : "The board has passed the Photographic Activity Test and suits the process.",
       source: SOURCES.photo,
     });
   } else {

@@ -39,7 +39,7 @@ function Row({ label, children }: { label: string; children: ReactNode }) {
 function imageArea(o: ObjectRecord, unit: Unit): string | null {
   const b = [o.borderLeftMm, o.borderTopMm, o.borderRightMm, o.borderBottomMm];
   if (b.every((v) => v === null)) return null;
-  const [l, t, r, bt] = b.map((v) => v ?? 0);
+  const [l = 0, t = 0, r = 0, bt = 0] = b.map((v) => v ?? 0);
   const size = formatSize(o.sheetWidthMm - l - r, o.sheetHeightMm - t - bt, unit);
   const sides = `borders: left ${formatLength(l, unit)}, top ${formatLength(t, unit)}, right ${formatLength(r, unit)}, bottom ${formatLength(bt, unit)}`;
   return `${size} (${sides})`;

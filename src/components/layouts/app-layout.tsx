@@ -69,7 +69,7 @@ export function AppLayout() {
       </a>
       <aside className="print:hidden border-b border-stone bg-paper-deep md:sticky md:top-0 md:flex md:h-screen md:w-60 md:flex-col md:border-b-0 md:border-r">
         <div className="flex items-center justify-between px-5 py-4">
-          <NavLink to={items[0].to} aria-label="Reversa, home">
+          <NavLink to={items[0]?.to ?? "/"} aria-label="Reversa, home">
             <Logo />
           </NavLink>
           <button type="button" className="rounded px-2 py-1 text-sm text-graphite md:hidden" aria-expanded={open} aria-controls="main-nav" onClick={() => setOpen((o) => !o)}>

@@ -2,7 +2,7 @@
  * How many blanks of one size a full board sheet gives (docs/trade-reference.md §11): an exact search
  * over guillotine (edge-to-edge) cuts at "normal pattern" positions, bounded by a count of cuts tried.
  */
-import { EPS, fitCount, requireKerf, requirePositive, type Placement, type Size } from "./common.ts";
+import { EPS, fitCount, item, requireKerf, requirePositive, type Placement, type Size } from "./common.ts";
 
 /**
  * The guillotine search below is bounded by a count of cut positions tried, not a clock, so the
@@ -46,22 +46,22 @@ export function blanksPerSheet(blank: Size, sheet: Size, kerf: number, maxPlacem
   // Every cut can be slid to a "normal pattern" (a sum of grown blank sides) without losing a
   // blank, so those sums are the only cut positions and the only part sizes worth trying.
   const limit = Math.max(sw, sh);
-  const patterns = normalPatterns(square ? [bw] : [bw, bh], limit) ?? wholeRowsAndColumns(bw, bh, limit) ?? gridsOnly(bw, bh, sw, sh);
+  const patterns = normalPatterns(bw, square ? undefined : bh, limit) ?? wholeRowsAndColumns(bw, bh, limit) ?? gridsOnly(bw, bh, sw, sh);
   /** The largest pattern ≤ length, as an index into `patterns`. */
   const floorIndex = (length: number): number => {
     let lo = 0;
     let hi = patterns.length - 1;
     while (lo < hi) {
       const mid = (lo + hi + 1) >> 1;
-      if (patterns[mid] <= length + EPS) lo = mid;
+      if (item(patterns, mid) <= length + EPS) lo = mid;
       else hi = mid - 1;
     }
     return lo;
   };
   const cellArea = bw * bh;
-  const bound = (a: number, b: number) => Math.floor((patterns[a] * patterns[b]) / cellArea + EPS);
+  const bound = (a: number, b: number) => Math.floor((item(patterns, a) * item(patterns, b)) / cellArea + EPS);
   const grid = (a: number, b: number, rotated: boolean): number =>
-    rotated ? fitCount(patterns[a], bh) * fitCount(patterns[b], bw) : fitCount(patterns[a], bw) * fitCount(patterns[b], bh);
+    rotated ? fitCount(item(patterns, a), bh) * fitCount(item(patterns, b), bw) : fitCount(item(patterns, a), bw) * fitCount(item(patterns, b), bh);
 
   const a0 = floorIndex(sw);
   const b0 = floorIndex(sh);
@@ -74,7 +74,7 @@ export function blanksPerSheet(blank: Size, sheet: Size, kerf: number, maxPlacem
 
   const solve = (a: number, b: number): number => {
     const key = a * rows + b;
-    const known = best[key];
+    const known = item(best, key);
     if (known >= 0) return known;
     let value = grid(a, b, false);
     let pick = 0;
@@ -92,12 +92,12 @@ export function blanksPerSheet(blank: Size, sheet: Size, kerf: number, maxPlacem
       cuts: for (let dir = 0; dir < 2; dir++) {
         const vertical = dir === 0;
         const along = vertical ? a : b;
-        const half = patterns[along] / 2 + EPS;
+        const half = item(patterns, along) / 2 + EPS;
         const top = floorIndex(half);
-        let q = floorIndex(patterns[along] - patterns[top]); // grows as p shrinks
+        let q = floorIndex(item(patterns, along) - item(patterns, top)); // grows as p shrinks
         for (let p = top; p >= 1; p--) {
           if (++cutsTried > MAX_CUTS_TRIED) break cuts;
-          while (q + 1 < patterns.length && patterns[q + 1] <= patterns[along] - patterns[p] + EPS) q++;
+          while (q + 1 < patterns.length && item(patterns, q + 1) <= item(patterns, along) - item(patterns, p) + EPS) q++;
           const boundSum = vertical ? bound(p, b) + bound(q, b) : bound(a, p) + bound(a, q);
           if (boundSum <= value) continue;
           const first = vertical ? solve(p, b) : solve(a, p);
@@ -121,13 +121,13 @@ export function blanksPerSheet(blank: Size, sheet: Size, kerf: number, maxPlacem
   const placements: Placement[] = [];
   const place = (x: number, y: number, a: number, b: number): void => {
     if (placements.length >= maxPlacements) return;
-    const pick = choice[a * rows + b];
+    const pick = item(choice, a * rows + b);
     if (pick < 2) {
       const rotated = pick === 1;
       const cw = rotated ? bh : bw;
       const ch = rotated ? bw : bh;
-      const across = fitCount(patterns[a], cw);
-      const down = fitCount(patterns[b], ch);
+      const across = fitCount(item(patterns, a), cw);
+      const down = fitCount(item(patterns, b), ch);
       for (let j = 0; j < down; j++) {
         for (let i = 0; i < across; i++) {
           if (placements.length >= maxPlacements) return;
@@ -146,10 +146,10 @@ export function blanksPerSheet(blank: Size, sheet: Size, kerf: number, maxPlacem
     const at = (pick - 2) >> 1;
     if ((pick & 1) === 0) {
       place(x, y, at, b);
-      place(x + patterns[at], y, floorIndex(patterns[a] - patterns[at]), b);
+      place(x + item(patterns, at), y, floorIndex(item(patterns, a) - item(patterns, at)), b);
     } else {
       place(x, y, a, at);
-      place(x, y + patterns[at], a, floorIndex(patterns[b] - patterns[at]));
+      place(x, y + item(patterns, at), a, floorIndex(item(patterns, b) - item(patterns, at)));
     }
   };
   place(0, 0, a0, b0);
@@ -158,10 +158,9 @@ export function blanksPerSheet(blank: Size, sheet: Size, kerf: number, maxPlacem
   return { perSheet, placements, utilisation: (perSheet * blank.width * blank.height) / (sheet.width * sheet.height) };
 }
 
-/** All sums i·s₀ + j·s₁ ≤ limit (0 included), sorted, with float twins merged; null when there are too many. */
-function normalPatterns(sides: number[], limit: number): number[] | null {
+/** All sums i·s₀ + j·s₁ ≤ limit (0 included; s₁ absent: multiples of s₀), sorted, with float twins merged; null when there are too many. */
+function normalPatterns(s0: number, s1: number | undefined, limit: number): number[] | null {
   const values: number[] = [];
-  const [s0, s1] = sides;
   for (let i = 0; i * s0 <= limit + EPS; i++) {
     if (s1 === undefined) values.push(i * s0);
     else {
@@ -192,6 +191,9 @@ function gridsOnly(s0: number, s1: number, sw: number, sh: number): number[] {
 function mergeSorted(values: number[]): number[] {
   values.sort((x, y) => x - y);
   const out: number[] = [];
-  for (const v of values) if (out.length === 0 || v - out[out.length - 1] > EPS) out.push(v);
+  for (const v of values) {
+    const last = out.at(-1);
+    if (last === undefined || v - last > EPS) out.push(v);
+  }
   return out;
 }

@@ -20,8 +20,10 @@ export type CuttingList = { sheets: CuttingSheet[]; sheetCount: number; utilisat
 /** Float noise allowance on lengths in mm (values here are at most a few thousand mm). */
 export const EPS = 1e-9;
 
-/** Standard full board sheets (docs/trade-reference.md §11). */
-export const STANDARD_BOARD_SHEETS: { id: string; label: string; width: number; height: number }[] = [
+/** A full board sheet as sold. */
+export type BoardSheet = { id: string; label: string; width: number; height: number };
+/** Standard full board sheets (docs/trade-reference.md §11); never empty, the first is the default. */
+export const STANDARD_BOARD_SHEETS: [BoardSheet, ...BoardSheet[]] = [
   // 32 × 40 in and 40 × 60 in: suppliers' sizes; 1 in = 25.4 mm exactly (1959 agreement; NIST HB 44 App. C).
   { id: "32x40in", label: "32 × 40 in", width: 32 * MM_PER_INCH, height: 40 * MM_PER_INCH },
   { id: "40x60in", label: "40 × 60 in", width: 40 * MM_PER_INCH, height: 60 * MM_PER_INCH },
@@ -44,4 +46,15 @@ export function requireKerf(kerf: number): void {
 /** How many of `item` fit along `length`, both already grown by the kerf. */
 export function fitCount(length: number, item: number): number {
   return Math.floor((length + EPS) / item);
+}
+
+/**
+ * `xs[i]` for an index the search keeps in range (a loop bound, an index into the same list): the
+ * packers' arrays are read this way instead of `xs[i]!`, so a wrong index is an error at once
+ * rather than an `undefined` or a NaN further on.
+ */
+export function item<T>(xs: ArrayLike<T>, i: number): T {
+  const x = xs[i];
+  if (x === undefined) throw new RangeError(`Index ${i} is outside a list of ${xs.length}.`);
+  return x;
 }

@@ -6,7 +6,7 @@
  */
 import { formatMm } from "../../units.ts";
 import { blanksPerSheet } from "./blanks-per-sheet.ts";
-import { EPS, requireKerf, requirePositive, type CutPiece, type CuttingList, type CuttingSheet, type Placement, type Size } from "./common.ts";
+import { EPS, item, requireKerf, requirePositive, type CutPiece, type CuttingList, type CuttingSheet, type Placement, type Size } from "./common.ts";
 import { EXACT_MAX_BLANKS, exactPack, type Packing } from "./exact-pack.ts";
 
 type Rect = { x: number; y: number; w: number; h: number };
@@ -28,9 +28,13 @@ type Work = { left: number };
 const MAX_PACK_WORK = 4_000_000;
 const OPEN_SHEET_WINDOW = 8;
 
-const RULES: { order: Order; fit: Fit; split: Split }[] = (["area", "long-side", "perimeter"] as Order[]).flatMap((order) =>
+type Rule = { order: Order; fit: Fit; split: Split };
+const RULES: Rule[] = (["area", "long-side", "perimeter"] as Order[]).flatMap((order) =>
   (["area", "short-side"] as Fit[]).flatMap((fit) => (["shorter-leftover", "longer-leftover", "big-offcut", "even-offcuts"] as Split[]).map((split) => ({ order, fit, split }))),
 );
+
+/** The rule of the main packer, which always finishes: the first of RULES. */
+const MAIN_RULE: Rule = { order: "area", fit: "area", split: "shorter-leftover" };
 
 /**
  * Packs a batch of blanks onto the fewest full sheets it can find with guillotine cuts and kerf, rotating pieces when that helps. Pieces larger than the sheet in both orientations are returned in `unplaced` with a sentence naming the piece and the sheet size.
@@ -61,7 +65,7 @@ export function cuttingList(pieces: CutPiece[], sheet: Size, kerf: number): Cutt
 
   // Candidates, all deterministic; the one with the fewest sheets wins, the first on a tie.
   // The first rule always finishes; the single-size layouts, then the other rules, are tried while their work lasts.
-  const [first, ...others] = RULES;
+  const [first = MAIN_RULE, ...others] = RULES;
   let chosen = guillotinePack(sortUnits(units, first.order), sheet, kerf, first.fit, first.split, { left: MAX_PACK_WORK }, true) ?? [];
   const consider = (packed: Packing | null) => {
     if (packed && packed.length < chosen.length) chosen = packed;
@@ -103,7 +107,8 @@ const sameSize = (u: Unit, w: number, h: number) => (Math.abs(u.w - w) <= EPS &&
 /** A single-size layout's slots filled with these units (at most one per slot). */
 function fillSlots(slots: Placement[], units: Unit[]): Placement[] {
   return units.map((u, k) => {
-    const slot = slots[k];
+    // A layout lists min(perSheet, batch) slots and a sheet takes at most perSheet units, so every unit has one.
+    const slot = item(slots, k);
     // The layout's flag is relative to its own blank; a copy entered the other way round flips it.
     const rotated = !(Math.abs(slot.width - u.w) <= EPS && Math.abs(slot.height - u.h) <= EPS);
     return { ...slot, pieceId: u.id, rotated };
@@ -174,7 +179,11 @@ function guillotinePack(units: Unit[], sheet: Size, kerf: number, fit: Fit, spli
   let open: Sheet[] = [];
   // The shortest side among the units still to place: an offcut narrower than that is dropped for good.
   const shortestLeft: number[] = new Array(units.length);
-  for (let i = units.length - 1, m = Infinity; i >= 0; i--) shortestLeft[i] = m = Math.min(m, units[i].w + kerf, units[i].h + kerf);
+  for (let i = units.length - 1, m = Infinity; i >= 0; i--) {
+    const u = item(units, i);
+    m = Math.min(m, u.w + kerf, u.h + kerf);
+    shortestLeft[i] = m;
+  }
   const summarise = (s: Sheet, shortest: number): void => {
     s.free = s.free.filter((f) => Math.min(f.w, f.h) + EPS >= shortest);
     s.maxW = s.maxH = s.maxShort = 0;
@@ -185,27 +194,26 @@ function guillotinePack(units: Unit[], sheet: Size, kerf: number, fit: Fit, spli
     }
   };
 
-  for (let i = 0; i < units.length; i++) {
-    const u = units[i];
+  for (const [i, u] of units.entries()) {
     if (work.left <= 0 && !mustFinish) return null;
-    if (i > 0 && shortestLeft[i] > shortestLeft[i - 1] + EPS) {
-      for (const s of open) summarise(s, shortestLeft[i]);
+    const shortest = item(shortestLeft, i);
+    if (i > 0 && shortest > item(shortestLeft, i - 1) + EPS) {
+      for (const s of open) summarise(s, shortest);
       work.left -= open.length;
     }
     // Out of work: from here on only the newest few sheets are looked at; the older ones are closed.
     if (work.left <= 0 && open.length > OPEN_SHEET_WINDOW) open = open.slice(-OPEN_SHEET_WINDOW);
-    open = open.filter((s) => s.maxShort + EPS >= shortestLeft[i]);
+    open = open.filter((s) => s.maxShort + EPS >= shortest);
     const orientations = u.w === u.h ? [false] : [false, true];
     let bestScore: [number, number] | null = null;
     let at: { s: Sheet; r: number; rotated: boolean } | null = null;
-    for (let o = 0; o < open.length; o++) {
-      const s = open[o];
+    for (const s of open) {
       work.left -= 1;
       // Cheap test first: most sheets late in a batch have no offcut large enough.
       if (!orientations.some((rot) => (rot ? u.h : u.w) + kerf <= s.maxW + EPS && (rot ? u.w : u.h) + kerf <= s.maxH + EPS)) continue;
       work.left -= s.free.length;
       for (let r = 0; r < s.free.length; r++) {
-        const f = s.free[r];
+        const f = s.free[r]!; // the loop bound (the hot loop)
         for (const rotated of orientations) {
           const w = (rotated ? u.h : u.w) + kerf;
           const h = (rotated ? u.w : u.h) + kerf;
@@ -228,12 +236,12 @@ function guillotinePack(units: Unit[], sheet: Size, kerf: number, fit: Fit, spli
       at = { s, r: 0, rotated: !upright };
     }
     const target = at.s;
-    const f = target.free[at.r];
+    const f = item(target.free, at.r);
     const w = (at.rotated ? u.h : u.w) + kerf;
     const h = (at.rotated ? u.w : u.h) + kerf;
     target.placements.push({ pieceId: u.id, x: f.x, y: f.y, width: at.rotated ? u.h : u.w, height: at.rotated ? u.w : u.h, rotated: at.rotated });
     target.free.splice(at.r, 1, ...splitFree(f, w, h, split));
-    summarise(target, i + 1 < units.length ? shortestLeft[i + 1] : Infinity);
+    summarise(target, shortestLeft[i + 1] ?? Infinity); // none left to place: Infinity
     work.left -= target.free.length;
   }
   return sheets.map((s) => s.placements);
@@ -280,7 +288,7 @@ function repackEmptiest(packing: Packing, units: Unit[], sheet: Size, kerf: numb
       const chosen = order.slice(0, take);
       const count = chosen.reduce((s, c) => s + c.n, 0);
       if (count > EXACT_MAX_BLANKS) continue;
-      const group = chosen.flatMap((c) => current[c.i].map((p) => ({ id: p.pieceId, w: p.rotated ? p.height : p.width, h: p.rotated ? p.width : p.height })));
+      const group = chosen.flatMap((c) => item(current, c.i).map((p) => ({ id: p.pieceId, w: p.rotated ? p.height : p.width, h: p.rotated ? p.width : p.height })));
       const packed = exactPack(group, sheet, kerf);
       if (packed && packed.length < take) {
         const drop = new Set(chosen.map((c) => c.i));

@@ -3,7 +3,7 @@
  * (docs/trade-reference.md §11). The cutting list (cutting-list.ts) uses it for small batches and to
  * repack the emptiest sheets of larger ones.
  */
-import { EPS, type Placement, type Size } from "./common.ts";
+import { EPS, item, type Placement, type Size } from "./common.ts";
 
 /** Sheets, each its placements. */
 export type Packing = Placement[][];
@@ -34,7 +34,10 @@ export function exactPack(units: { id: string; w: number; h: number }[], sheet: 
   const add = (list: BoxNode[], node: BoxNode) => {
     if (node.w > W + EPS || node.h > H + EPS) return;
     for (const o of list) if (o.w <= node.w + EPS && o.h <= node.h + EPS) return;
-    for (let i = list.length - 1; i >= 0; i--) if (node.w <= list[i].w + EPS && node.h <= list[i].h + EPS) list.splice(i, 1);
+    for (let i = list.length - 1; i >= 0; i--) {
+      const o = list[i]!; // i counts down from the last index: in range, and this is the hot loop
+      if (node.w <= o.w + EPS && node.h <= o.h + EPS) list.splice(i, 1);
+    }
     list.push(node);
   };
   // Masks by number of blanks, so both parts of a split are known before the whole.
@@ -43,7 +46,7 @@ export function exactPack(units: { id: string; w: number; h: number }[], sheet: 
     const list: BoxNode[] = [];
     if ((mask & (mask - 1)) === 0) {
       const i = 31 - Math.clz32(mask);
-      const u = units[i];
+      const u = item(units, i);
       add(list, { w: u.w + kerf, h: u.h + kerf, kind: 0, a: i, ai: 0, b: 0, bi: 0, rotated: false });
       if (Math.abs(u.w - u.h) > EPS) add(list, { w: u.h + kerf, h: u.w + kerf, kind: 0, a: i, ai: 0, b: 0, bi: 0, rotated: true });
     } else {
@@ -52,15 +55,16 @@ export function exactPack(units: { id: string; w: number; h: number }[], sheet: 
       for (let a = (mask - 1) & mask; a > 0; a = (a - 1) & mask) {
         if ((a & low) === 0) continue;
         const b = mask ^ a;
-        const la = boxes[a];
-        const lb = boxes[b];
+        // Both parts hold fewer blanks than the mask, so their lists are made already.
+        const la = item(boxes, a);
+        const lb = item(boxes, b);
         if (!la.length || !lb.length) continue;
         work += la.length * lb.length;
         if (work > MAX_EXACT_WORK) return null;
         for (let ai = 0; ai < la.length; ai++) {
+          const p = la[ai]!; // loop bounds (the hot loop)
           for (let bi = 0; bi < lb.length; bi++) {
-            const p = la[ai];
-            const q = lb[bi];
+            const q = lb[bi]!;
             add(list, { w: p.w + q.w, h: Math.max(p.h, q.h), kind: 1, a, ai, b, bi, rotated: false });
             add(list, { w: Math.max(p.w, q.w), h: p.h + q.h, kind: 2, a, ai, b, bi, rotated: false });
           }
@@ -74,12 +78,13 @@ export function exactPack(units: { id: string; w: number; h: number }[], sheet: 
   const pick = new Int32Array(full + 1);
   best[0] = 0;
   const solve = (mask: number): number => {
-    if (best[mask] >= 0) return best[mask];
+    const known = item(best, mask);
+    if (known >= 0) return known;
     const low = mask & -mask;
     let value = Infinity;
     let chosen = 0;
     for (let s = mask; s > 0; s = (s - 1) & mask) {
-      if ((s & low) === 0 || boxes[s].length === 0) continue;
+      if ((s & low) === 0 || item(boxes, s).length === 0) continue;
       const v = 1 + solve(mask ^ s);
       if (v < value) {
         value = v;
@@ -93,19 +98,19 @@ export function exactPack(units: { id: string; w: number; h: number }[], sheet: 
   solve(full);
   const packing: Packing = [];
   const lay = (mask: number, idx: number, x: number, y: number, out: Placement[]) => {
-    const node = boxes[mask][idx];
+    const node = item(item(boxes, mask), idx);
     if (node.kind === 0) {
-      const u = units[node.a];
+      const u = item(units, node.a);
       out.push({ pieceId: u.id, x, y, width: node.rotated ? u.h : u.w, height: node.rotated ? u.w : u.h, rotated: node.rotated });
       return;
     }
-    const first = boxes[node.a][node.ai];
+    const first = item(item(boxes, node.a), node.ai);
     lay(node.a, node.ai, x, y, out);
     if (node.kind === 1) lay(node.b, node.bi, x + first.w, y, out);
     else lay(node.b, node.bi, x, y + first.h, out);
   };
   for (let mask = full; mask; ) {
-    const s = pick[mask];
+    const s = item(pick, mask);
     const out: Placement[] = [];
     lay(s, 0, 0, 0, out);
     out.sort((p, q) => p.y - q.y || p.x - q.x);

@@ -100,7 +100,8 @@ function ReceiptForm({ objectId, status, ownerName, studioName, onDone, onCancel
   const record = useRecordCustody(objectId);
   const kinds = kindsFor(status);
   const parties: Parties = { owner: ownerName, studio: studioName };
-  const first = kinds[0];
+  // Each status offers at least one hand-over; "intake" only stands in for the type.
+  const first = kinds[0] ?? "intake";
   const form = useForm<Values, unknown, CustodyCreate>({
     resolver: zodResolver(CustodyCreateSchema),
     mode: "onTouched",

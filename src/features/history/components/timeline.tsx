@@ -25,7 +25,7 @@ function eventLink(e: HistoryEvent): { to: string; label: string } | null {
 /** The object's history, newest first: every mounting, reframing, check and move, with who and when. */
 export function Timeline({ objectId }: { objectId: string }) {
   const [group, setGroup] = useState(0);
-  const q = useHistory(objectId, GROUPS[group].types);
+  const q = useHistory(objectId, GROUPS[group]?.types ?? []);
   const items = q.data?.pages.flatMap((p) => p.items) ?? [];
   return (
     <div className="space-y-3">

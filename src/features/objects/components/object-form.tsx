@@ -101,7 +101,10 @@ function objectResolver(unit: () => Unit): Resolver<ObjectFormValues, unknown, O
     const all = { ...(parsed.success ? {} : issuesToFields(parsed.error.issues)), ...fieldErrors };
     if (Object.keys(all).length === 0 && parsed.success) return { values: parsed.data, errors: {} };
     const errors: FieldErrors<ObjectFormValues> = {};
-    for (const [k, message] of Object.entries(all)) (errors as Record<string, { type: string; message: string }>)[k.split(".")[0]] = { type: "validate", message };
+    for (const [k, message] of Object.entries(all)) {
+      const [field = k] = k.split(".");
+      (errors as Record<string, { type: string; message: string }>)[field] = { type: "validate", message };
+    }
     return { values: {}, errors };
   };
 }

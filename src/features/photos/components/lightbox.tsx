@@ -73,9 +73,9 @@ export function Lightbox({ photos, index, onIndexChange, onClose, canEdit = fals
     if (e.key === "Tab") {
       // showModal() already makes the page behind inert; this keeps Tab from leaving for the browser's own bar.
       const nodes = Array.from(dialogRef.current?.querySelectorAll<HTMLElement>(FOCUSABLE) ?? []).filter((n) => n.offsetParent !== null);
-      if (nodes.length === 0) return;
       const first = nodes[0];
-      const last = nodes[nodes.length - 1];
+      const last = nodes.at(-1);
+      if (!first || !last) return;
       if (e.shiftKey && document.activeElement === first) {
         e.preventDefault();
         last.focus();
@@ -254,9 +254,8 @@ const ZoomViewer = forwardRef<ViewerHandle, { photo: Photo }>(function ZoomViewe
     if (!prev) return;
     const p = local(e);
     pointers.current.set(e.pointerId, p);
-    const all = [...pointers.current.values()];
-    if (all.length >= 2) {
-      const [a, b] = all;
+    const [a, b] = pointers.current.values();
+    if (a && b) {
       const dist = Math.hypot(a.x - b.x, a.y - b.y);
       if (gesture.current.pinch) zoomAt((z) => z * (dist / gesture.current.pinch), (a.x + b.x) / 2, (a.y + b.y) / 2);
       gesture.current.pinch = dist;

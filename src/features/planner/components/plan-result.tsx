@@ -69,7 +69,7 @@ export function PlanResultView({ result, errors, model, unit, settings, onSave, 
                   ["Window (aperture)", plan.display.aperture],
                   ...SIDES.map((s) => [
                     `${SIDE_LABEL[s]} ${plan.overlap[s] < 0 ? "reveal" : "overlap"}`,
-                    plan.overlap[s] < 0 ? plan.display[`overlap.${s}`].replace("−", "") : plan.display[`overlap.${s}`],
+                    plan.overlap[s] < 0 ? (plan.display[`overlap.${s}`] ?? "").replace("−", "") : plan.display[`overlap.${s}`],
                   ]),
                   ["Borders L · T · R · B", SIDES.map((s) => plan.display[`borders.${s}`]).join(" · ")],
                   ...(plan.display.topWindow ? [["Top board window", plan.display.topWindow]] : []),
