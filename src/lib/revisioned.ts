@@ -105,7 +105,7 @@ export function revisionedResolver<V extends FieldValues & { correctionReason: s
     const parsed = schemas.create.safeParse(toBody(values));
     const fields = parsed.success ? {} : issuesToFields(parsed.error.issues);
     const reason = schemas.correction.shape.correctionReason.safeParse(values.correctionReason);
-    if (correcting && !reason.success) fields.correctionReason = reason.error.issues[0].message;
+    if (correcting && !reason.success) fields.correctionReason = reason.error.issues[0]?.message ?? "Say why this correction is made.";
     if (parsed.success && Object.keys(fields).length === 0)
       return {
         values: { ...(parsed.data as object), correctionReason: reason.success ? reason.data : values.correctionReason.trim() } as z.output<S> & { correctionReason: string },

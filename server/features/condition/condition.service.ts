@@ -44,8 +44,9 @@ const NOT_A_DAY = "That day is not in the calendar; use a date such as 2026-11-3
 /** One 422 naming every field at fault, in the one error shape. */
 function invalid(fields: Record<string, string>): AppError {
   const keys = Object.keys(fields);
+  const [only] = keys;
   const message =
-    keys.length === 1 ? `Check ${keys[0]}: ${fields[keys[0]]}` : `Check the ${keys.length} highlighted fields: ${keys.slice(0, 4).join(", ")}${keys.length > 4 ? "…" : ""}.`;
+    keys.length === 1 && only ? `Check ${only}: ${fields[only]}` : `Check the ${keys.length} highlighted fields: ${keys.slice(0, 4).join(", ")}${keys.length > 4 ? "…" : ""}.`;
   return new AppError("validation_failed", message, fields);
 }
 

@@ -30,14 +30,15 @@ export function createMountingsService(db: Db) {
     const prefix = "data.plan.";
     if (!r.ok) {
       const fields = Object.fromEntries(Object.entries(r.fields).map(([k, v]) => [`${prefix}${k}`, v]));
-      const first = Object.entries(fields)[0];
-      throw new AppError("validation_failed", `Check ${first[0]}: ${first[1]}`, fields);
+      const [first] = Object.entries(fields);
+      throw new AppError("validation_failed", first ? `Check ${first[0]}: ${first[1]}` : "The plan cannot be computed.", fields);
     }
     if (opts.built) {
       const bad = r.plan.findings.filter((f) => f.severity === "error" && UNBUILDABLE.has(f.code));
-      if (bad.length) {
+      const [firstBad] = bad;
+      if (firstBad) {
         const fields = Object.fromEntries(bad.map((f) => [`${prefix}${f.field ?? "window"}`, f.message]));
-        throw new AppError("validation_failed", `This mount cannot be built as planned: ${bad[0].message}`, fields);
+        throw new AppError("validation_failed", `This mount cannot be built as planned: ${firstBad.message}`, fields);
       }
     }
     return r.plan;

@@ -127,7 +127,10 @@ export function revisionedService<Row extends RecordBase, Rev extends RevisionBa
     revisions(user: SessionUser, id: string): RevisionWithChanges<OutRev>[] {
       const { row, o } = load(user, id);
       const revs = f.repo.revisionsOf(db, id).map((r) => f.toRevision(r, o, row));
-      return revs.map((r, i) => ({ ...r, changes: i === 0 ? [] : diffValues(revs[i - 1].data, r.data) }));
+      return revs.map((r, i) => {
+        const previous = revs[i - 1];
+        return { ...r, changes: previous ? diffValues(previous.data, r.data) : [] };
+      });
     },
 
     /** A new draft: `check` returns the data to store (or throws), `insert` writes it and returns the id. */

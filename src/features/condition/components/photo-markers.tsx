@@ -77,10 +77,12 @@ export function PhotoMarkers({ src, alt, markers, editable = false, selectedId, 
           onKeyDown={(e) => {
             if (!editable || !onMove) return;
             const step = e.shiftKey ? 0.05 : 0.01;
-            const d = { ArrowLeft: [-step, 0], ArrowRight: [step, 0], ArrowUp: [0, -step], ArrowDown: [0, step] }[e.key];
+            const moves: Record<string, [number, number]> = { ArrowLeft: [-step, 0], ArrowRight: [step, 0], ArrowUp: [0, -step], ArrowDown: [0, step] };
+            const d = moves[e.key];
             if (d) {
               e.preventDefault();
-              onMove(m.id, Math.min(1, Math.max(0, m.x + d[0])), Math.min(1, Math.max(0, m.y + d[1])));
+              const [dx, dy] = d;
+              onMove(m.id, Math.min(1, Math.max(0, m.x + dx)), Math.min(1, Math.max(0, m.y + dy)));
             }
           }}
           data-marker={m.n}

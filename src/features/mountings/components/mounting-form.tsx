@@ -228,7 +228,7 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
                   <SelectField label={`Hinge ${i + 1} edge`} {...register(`data.attachment.hinges.${i}.edge`)}>
                     {SIDES.map((s) => (
                       <option key={s} value={s}>
-                        {s[0].toUpperCase() + s.slice(1)}
+                        {s.charAt(0).toUpperCase() + s.slice(1)}
                       </option>
                     ))}
                   </SelectField>
