@@ -284,6 +284,11 @@ describe.each(CONFIGS)("documents on $paperSize in $unit, with a long record", (
     expectReadable(`workshop-${tag}`, pdf, cfg);
   });
 
+  it("a short workshop sheet (4 mountings) leaves no half-empty page before its cutting list", async () => {
+    const pdf = await issue("/api/documents/workshop-sheet", { mountingIds: mountingIds.slice(0, 4) });
+    expectReadable(`workshop-short-${tag}`, pdf, cfg);
+  });
+
   it("the label sheet is readable page by page", async () => {
     const pdf = await issue("/api/documents/label-sheet", { objectIds: objectIds.slice(0, 20) });
     keep(`labels-${tag}`, pdf);

@@ -179,6 +179,9 @@ function SheetDiagram({ sheet, placements }: { sheet: { width: number; height: n
   );
 }
 
+/** Room for a board's heading line and one sheet drawn 150 pt wide (a tall sheet is about 190 pt high). */
+const FIRST_SHEET_PT = 230;
+
 export function WorkshopSheetDocument({ meta, data }: { meta: DocMeta; data: WorkshopData }) {
   // The board sheet in the studio's unit, like every other length on the sheet.
   const sheetSize = formatSize(data.sheet.width, data.sheet.height, data.unit, { denominator: 64 });
@@ -204,49 +207,59 @@ export function WorkshopSheetDocument({ meta, data }: { meta: DocMeta; data: Wor
         <MountingBlock key={it.detail.row.id} it={it} unit={data.unit} />
       ))}
 
-      <Text style={s.h2} break={data.items.length > 3}>
+      {/* No forced page break: the list follows on where there is room instead of leaving half a page empty
+          behind the last mounting, and the heading moves on unless a board's first sheet fits under it. */}
+      <Text style={s.h2} minPresenceAhead={FIRST_SHEET_PT}>
         Cutting list
       </Text>
       {data.groups.length === 0 ? <Text style={{ fontSize: 9, lineHeight: 1.4, marginBottom: 4 }}>No board to cut: none of these plans could be computed.</Text> : null}
-      {data.groups.map((g) => (
-        <View key={g.board} style={{ marginBottom: 8 }}>
-          <View style={{ flexDirection: "row", justifyContent: "space-between", borderBottomWidth: 0.75, borderBottomColor: INK, paddingBottom: 2, marginBottom: 3 }} wrap={false}>
-            <Text style={{ fontSize: 9, fontWeight: 700 }}>{g.board}</Text>
-            <Text style={[cell, tab]}>
-              {g.list.sheetCount} sheet{g.list.sheetCount === 1 ? "" : "s"} · shaded: offcut · utilisation {(g.list.utilisation * 100).toFixed(1)} %
-            </Text>
-          </View>
-          {g.list.sheets.map((sh) => (
-            <View key={sh.index} style={{ flexDirection: "row", gap: 12, paddingVertical: 4, borderBottomWidth: 0.4, borderBottomColor: STONE }} wrap={false}>
-              <SheetDiagram sheet={data.sheet} placements={sh.placements} />
-              <View style={{ flex: 1 }}>
-                <View style={{ flexDirection: "row", marginBottom: 2 }}>
-                  <Text style={[cell, { fontWeight: 600, flex: 1 }]}>
-                    Sheet {sh.index + 1} · {sheetSize}
-                  </Text>
-                  <Text style={[cell, tab, { width: 90, textAlign: "right" }]}>{(sh.utilisation * 100).toFixed(1)} % used</Text>
-                </View>
-                {sh.placements.map((p, i) => {
-                  const piece = g.pieces[Number(p.pieceId)];
-                  return (
-                    <View key={i} style={{ flexDirection: "row", paddingVertical: 1 }}>
-                      <Text style={[cell, tab, { width: 16, fontWeight: 700 }]}>{i + 1}</Text>
-                      <Text style={[cell, { flex: 1 }]}>{piece?.label ?? p.pieceId}</Text>
-                      <Text style={[cell, tab, { width: 110, textAlign: "right" }]}>{formatSize(p.width, p.height, data.unit, { denominator: 64 })}</Text>
-                      <Text style={[cell, tab, { width: 60, textAlign: "right", color: GRAPHITE }]}>{p.rotated ? "turned" : ""}</Text>
-                    </View>
-                  );
-                })}
+      {data.groups.map((g) => {
+        const [first, ...rest] = g.list.sheets;
+        const sheetRow = (sh: (typeof g.list.sheets)[number]) => (
+          <View key={sh.index} style={{ flexDirection: "row", gap: 12, paddingVertical: 4, borderBottomWidth: 0.4, borderBottomColor: STONE }} wrap={false}>
+            <SheetDiagram sheet={data.sheet} placements={sh.placements} />
+            <View style={{ flex: 1 }}>
+              <View style={{ flexDirection: "row", marginBottom: 2 }}>
+                <Text style={[cell, { fontWeight: 600, flex: 1 }]}>
+                  Sheet {sh.index + 1} · {sheetSize}
+                </Text>
+                <Text style={[cell, tab, { width: 90, textAlign: "right" }]}>{(sh.utilisation * 100).toFixed(1)} % used</Text>
               </View>
+              {sh.placements.map((p, i) => {
+                const piece = g.pieces[Number(p.pieceId)];
+                return (
+                  <View key={i} style={{ flexDirection: "row", paddingVertical: 1 }}>
+                    <Text style={[cell, tab, { width: 16, fontWeight: 700 }]}>{i + 1}</Text>
+                    <Text style={[cell, { flex: 1 }]}>{piece?.label ?? p.pieceId}</Text>
+                    <Text style={[cell, tab, { width: 110, textAlign: "right" }]}>{formatSize(p.width, p.height, data.unit, { denominator: 64 })}</Text>
+                    <Text style={[cell, tab, { width: 60, textAlign: "right", color: GRAPHITE }]}>{p.rotated ? "turned" : ""}</Text>
+                  </View>
+                );
+              })}
             </View>
-          ))}
-          {g.list.unplaced.map((u) => (
-            <Text key={u.id} style={[cell, { color: "#9a2b2b" }]}>
-              {g.pieces[Number(u.id)]?.label}: {u.reason}
-            </Text>
-          ))}
-        </View>
-      ))}
+          </View>
+        );
+        return (
+          <View key={g.board} style={{ marginBottom: 8 }}>
+            {/* The board's heading line never ends a page: it stays with the board's first sheet. */}
+            <View wrap={false}>
+              <View style={{ flexDirection: "row", justifyContent: "space-between", borderBottomWidth: 0.75, borderBottomColor: INK, paddingBottom: 2, marginBottom: 3 }}>
+                <Text style={{ fontSize: 9, fontWeight: 700 }}>{g.board}</Text>
+                <Text style={[cell, tab]}>
+                  {g.list.sheetCount} sheet{g.list.sheetCount === 1 ? "" : "s"} · shaded: offcut · utilisation {(g.list.utilisation * 100).toFixed(1)} %
+                </Text>
+              </View>
+              {first ? sheetRow(first) : null}
+            </View>
+            {rest.map(sheetRow)}
+            {g.list.unplaced.map((u) => (
+              <Text key={u.id} style={[cell, { color: "#9a2b2b" }]}>
+                {g.pieces[Number(u.id)]?.label}: {u.reason}
+              </Text>
+            ))}
+          </View>
+        );
+      })}
     </DocShell>
   );
 }
