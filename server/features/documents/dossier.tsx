@@ -37,25 +37,12 @@ import { createConditionService } from "../condition/condition.service.ts";
 import { findPhoto, listForObject as photosOfObject } from "../photos/photos.repo.ts";
 import { createDocumentsService } from "./documents.service.ts";
 import { Caution, KV, Lines, para, RatingTag, Table, VerdictTag } from "../../lib/pdf/blocks.tsx";
-import { FindingsTable, loadPhoto, PhotoGrid, valuationLine, type LoadedPhoto } from "./record-blocks.tsx";
+import { boardLine, FindingsTable, loadPhoto, PhotoGrid, recommendationRows, valuationLine, type LoadedPhoto } from "./record-blocks.tsx";
 import { NOT_TREATMENT } from "./condition-pdf.tsx";
 
 /** Said before the framer's undo notes: the owner keeps the record, the bench does the work. */
 export const UNDO_IS_BENCH_WORK =
   "For the framer or conservator who will take this mount apart: undoing it is bench work, not something for the owner to try at home. Ask the studio, or a qualified conservator, to do it.";
-
-/** The report's recommendations with their labels, the referral to a conservator last, leaving out the empty ones. */
-function recommendationRows(d: ConditionReport["current"]["data"]): [string, string][] {
-  const r = d.recommendations;
-  const rows: [string, string | null][] = [
-    ["Display", r.display],
-    ["Handling", r.handling],
-    ["Environment", r.environment],
-    ["Light", d.lightNotes],
-    ["Referral to a conservator", r.referral],
-  ];
-  return rows.filter((x): x is [string, string] => !!x[1]);
-}
 
 /** Reads what the user may read; a refusal (403/404) of a section leaves that section out rather than the whole dossier. */
 function orNothing<T>(f: () => T, fallback: T): T {
@@ -66,11 +53,6 @@ function orNothing<T>(f: () => T, fallback: T): T {
     throw e;
   }
 }
-
-const boardLine = (b: Board) =>
-  [BOARD_GRADE_LABELS[b.grade], `${b.ply}-ply`, b.buffered ? "buffered" : "unbuffered", b.colour, b.maker, b.batch && `batch ${b.batch}`, b.patPassed ? "PAT passed" : null]
-    .filter(Boolean)
-    .join(" · ");
 
 type PlanView = { plan: MountPlan; geometry: PlanGeometry; model: DrawingModel; data: MountingData | null };
 

@@ -2,7 +2,8 @@ import fs from "node:fs";
 import { Image, View } from "@react-pdf/renderer";
 import { Text } from "../../lib/pdf/text.tsx";
 import type { Config } from "../../lib/config.ts";
-import { SEVERITY_LABELS, ZONE_LABELS, type ConditionData, type Finding } from "../../../shared/schemas/condition.ts";
+import { SEVERITY_LABELS, ZONE_LABELS, type ConditionData, type ConditionReport, type Finding } from "../../../shared/schemas/condition.ts";
+import { BOARD_GRADE_LABELS, type Board } from "../../../shared/schemas/mountings.ts";
 import type { ObjectRecord } from "../../../shared/schemas/objects.ts";
 import { formatMoney } from "../../../shared/domain/money.ts";
 import { VALUATION_BASIS_LABELS } from "../../../shared/schemas/objects.ts";
@@ -126,3 +127,22 @@ export function valuationText(o: Pick<ObjectRecord, "valuationMinor" | "valuatio
   const basis = o.valuationBasis ? ` (${((VALUATION_BASIS_LABELS as Record<string, string>)[o.valuationBasis] ?? o.valuationBasis).toLowerCase()})` : "";
   return `${formatMoney(o.valuationMinor, o.valuationCurrency)}${basis}${o.valuationDate ? `, valued ${o.valuationDate}` : ""}${o.valuer ? ` by ${o.valuer}` : ""}`;
 }
+
+/** The report's recommendations with their labels, the referral to a conservator last, leaving out the empty ones. */
+export function recommendationRows(d: ConditionReport["current"]["data"]): [string, string][] {
+  const r = d.recommendations;
+  const rows: [string, string | null][] = [
+    ["Display", r.display],
+    ["Handling", r.handling],
+    ["Environment", r.environment],
+    ["Light", d.lightNotes],
+    ["Referral to a conservator", r.referral],
+  ];
+  return rows.filter((x): x is [string, string] => !!x[1]);
+}
+
+/** A board as one line: grade, thickness, buffering, colour, maker, batch and the PAT result. */
+export const boardLine = (b: Board) =>
+  [BOARD_GRADE_LABELS[b.grade], `${b.ply}-ply`, b.buffered ? "buffered" : "unbuffered", b.colour, b.maker, b.batch && `batch ${b.batch}`, b.patPassed ? "PAT passed" : null]
+    .filter(Boolean)
+    .join(" · ");
