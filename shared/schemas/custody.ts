@@ -61,6 +61,19 @@ export const ReceiptListQuerySchema = PageQuerySchema.extend({
 }).refine((q) => !q.from || !q.to || q.from <= q.to, { path: ["to"], message: "The end date is before the start date." });
 export type ReceiptListQuery = z.infer<typeof ReceiptListQuerySchema>;
 
+/**
+ * The custody page's address: two lists on one page, the in-studio list's page (`page`) and the receipts'
+ * filter and page (`rpage`), each field read as the API reads it.
+ */
+export const CustodyPageSearchSchema = z.object({
+  page: PageQuerySchema.shape.page,
+  rpage: PageQuerySchema.shape.page,
+  direction: ReceiptListQuerySchema.shape.direction,
+  kind: ReceiptListQuerySchema.shape.kind,
+  from: ReceiptListQuerySchema.shape.from,
+  to: ReceiptListQuerySchema.shape.to,
+});
+
 export type InStudioItem = {
   objectId: string;
   objectNumber: string;

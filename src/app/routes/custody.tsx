@@ -1,7 +1,5 @@
 import { Link, Navigate } from "react-router";
-import { z } from "zod";
-import { CUSTODY_KINDS, CUSTODY_KIND_LABELS, ReceiptListQuerySchema } from "@shared/schemas/custody.ts";
-import { PageQuerySchema } from "@shared/schemas/common.ts";
+import { CUSTODY_KINDS, CUSTODY_KIND_LABELS, CustodyPageSearchSchema } from "@shared/schemas/custody.ts";
 import { can } from "@shared/permissions.ts";
 import { useMe } from "@/features/session/api/session.ts";
 import { useCustodyReceipts, useInStudio, type InStudioItem } from "@/features/custody/api/custody.ts";
@@ -18,8 +16,7 @@ import { useSearchState } from "@/lib/use-search-state.ts";
 const IN_STUDIO_PAGE = 50;
 const RECEIPTS_PAGE = 25;
 /** Two lists on one page: the in-studio list's page, and the receipts' filter and page (`rpage`). */
-const { direction, kind, from, to } = ReceiptListQuerySchema.shape;
-const SearchSchema = z.object({ page: PageQuerySchema.shape.page, rpage: PageQuerySchema.shape.page, direction, kind, from, to });
+const SearchSchema = CustodyPageSearchSchema;
 const DIRECTIONS = ["in", "out"] as const;
 const DIRECTION_LABELS = { in: "In", out: "Out" };
 
