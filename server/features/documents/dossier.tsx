@@ -9,12 +9,10 @@ import {
   ADHESIVE_LABELS,
   ATTACHMENT_METHOD_LABELS,
   BACKING_TYPE_LABELS,
-  BOARD_GRADE_LABELS,
   GLAZING_TYPE_LABELS,
   MOUNTING_REASON_LABELS,
   MOUNTING_STATUS_LABELS,
   SEALING_TYPE_LABELS,
-  type Board,
   type MountingData,
   type MountingRecord,
 } from "../../../shared/schemas/mountings.ts";
