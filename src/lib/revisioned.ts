@@ -38,16 +38,19 @@ export type RevisionedApi<Rec extends { id: string; objectId: string }, Rev, Cre
 
 export function revisionedApi<Rec extends { id: string; objectId: string }, Rev, Create, D>(root: readonly unknown[], paths: Paths) {
   const keys = revisionedKeys(root);
-  const oneQuery = (id: string) => queryOptions({ queryKey: keys.one(id), queryFn: () => api.get<Rec>(`${paths.base}/${enc(id)}`) });
+  // An id not known yet (""; a page still loading what it belongs to) asks for nothing.
+  const oneQuery = (id: string) => queryOptions({ queryKey: keys.one(id), queryFn: () => api.get<Rec>(`${paths.base}/${enc(id)}`), enabled: id !== "" });
   const objectQuery = (objectId: string) =>
     queryOptions({
       queryKey: keys.object(objectId),
       queryFn: () => api.get<{ items: Rec[] }>(`/api/objects/${enc(objectId)}/${paths.ofObject}`).then((r) => r.items),
+      enabled: objectId !== "",
     });
   const revisionsQuery = (id: string) =>
     queryOptions({
       queryKey: keys.revisions(id),
       queryFn: () => api.get<{ items: RevisionWithChanges<Rev>[] }>(`${paths.base}/${enc(id)}/revisions`).then((r) => r.items),
+      enabled: id !== "",
     });
   /** `sends` is for the types only (what the mutations send); it is never set. */
   return { keys, paths, oneQuery, objectQuery, revisionsQuery, sends: undefined as { create: Create; data: D } | undefined };

@@ -21,7 +21,9 @@ export const objectListQuery = (params: ObjectListParams) =>
     placeholderData: keepPreviousData,
   });
 
-export const objectQuery = (id: string) => queryOptions({ queryKey: objectKeys.one(id), queryFn: () => api.get<ObjectRecord>(`/api/objects/${encodeURIComponent(id)}`) });
+/** One object; an id not known yet ("") asks for nothing (it would read the register instead). */
+export const objectQuery = (id: string) =>
+  queryOptions({ queryKey: objectKeys.one(id), queryFn: () => api.get<ObjectRecord>(`/api/objects/${encodeURIComponent(id)}`), enabled: id !== "" });
 
 export const useObjects = (params: ObjectListParams) => useQuery(objectListQuery(params));
 export const useObject = (id: string) => useQuery(objectQuery(id));

@@ -12,6 +12,7 @@ export const objectPlanQuery = (objectId: string) =>
   queryOptions({
     queryKey: planKeys.object(objectId),
     queryFn: () => api.get<{ draft: SavedPlan | null }>(`/api/objects/${encodeURIComponent(objectId)}/plan`).then((r) => r.draft),
+    enabled: objectId !== "",
   });
 
 export const useObjectPlan = (objectId: string) => useQuery(objectPlanQuery(objectId));
