@@ -65,3 +65,19 @@ describe("reframing journey", () => {
     await finish(page, w);
   });
 });
+
+describe("correcting a completed record", () => {
+  it("when a framer opens the correction form of a completed record, then it loads from the record without a failed request", async () => {
+    const { page, w } = await browser.signedIn("framer@reversa.test");
+    // 2026-0003 carries a completed mounting in the demo studio.
+    await openObject(page, baseUrl, "2026-0003");
+    await page.getByRole("link", { name: "Open the mounting record" }).click();
+    await page.getByRole("link", { name: "Correct the record" }).click();
+    await page.getByRole("heading", { name: "Correct the mounting record" }).waitFor();
+    await page.getByLabel("Reason for the correction").waitFor();
+    // The form learns its object from the record: nothing is asked for before that is known
+    // (no /api/objects/ or /api/objects//plan), so no request fails and the console stays clean.
+    await page.waitForLoadState("networkidle");
+    await finish(page, w);
+  });
+});
