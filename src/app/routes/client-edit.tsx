@@ -9,6 +9,7 @@ import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx
 import { Button } from "@/components/ui/button.tsx";
 import { Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { useServerErrors } from "@/lib/form-errors.ts";
+import { EnumOptions } from "@/components/ui/options.tsx";
 
 function ClientForm({ initial }: { initial?: ClientRecord }) {
   const navigate = useNavigate();
@@ -41,11 +42,7 @@ function ClientForm({ initial }: { initial?: ClientRecord }) {
         </div>
       )}
       <SelectField label="Kind" error={e.kind?.message} {...form.register("kind")}>
-        {CLIENT_KINDS.map((k) => (
-          <option key={k} value={k}>
-            {CLIENT_KIND_LABELS[k]}
-          </option>
-        ))}
+        <EnumOptions values={CLIENT_KINDS} labels={CLIENT_KIND_LABELS} />
       </SelectField>
       <TextField label="Name" error={e.name?.message} {...form.register("name")} />
       <TextField label="Contact person" error={e.contactName?.message} {...form.register("contactName")} />

@@ -3,8 +3,7 @@ import { z } from "zod";
 import { CONDITION_CONTEXTS, CONDITION_CONTEXT_LABELS, ConditionListQuerySchema, RATINGS, RATING_LABELS } from "@shared/schemas/condition.ts";
 import { useConditionRegister, type ConditionRegisterItem } from "@/features/condition/api/condition.ts";
 import { RatingBadge } from "@/features/condition/components/report-view.tsx";
-import { FilterSelect } from "@/components/ui/field.tsx";
-import { DateFilter, EnumFilter } from "@/components/ui/filters.tsx";
+import { DateFilter, EnumFilter, RecordFilter } from "@/components/ui/filters.tsx";
 import { DataTable, type Column } from "@/components/ui/data-table.tsx";
 import { ListSection } from "@/components/ui/list-page.tsx";
 import { EmptyState } from "@/components/ui/feedback.tsx";
@@ -69,14 +68,7 @@ export function Component() {
       <div className="flex flex-wrap items-center gap-3 text-sm">
         <EnumFilter label="Rating" any="Any rating" values={RATINGS} labels={RATING_LABELS} value={rating} onChange={(v) => set({ rating: v })} />
         <EnumFilter label="Context" any="Any context" values={CONDITION_CONTEXTS} labels={CONDITION_CONTEXT_LABELS} value={context} onChange={(v) => set({ context: v })} />
-        <FilterSelect aria-label="Examiner" value={examinerId ?? ""} onChange={(e) => set({ examinerId: e.target.value || undefined })}>
-          <option value="">Any examiner</option>
-          {q.data?.examiners.map((x) => (
-            <option key={x.id} value={x.id}>
-              {x.name}
-            </option>
-          ))}
-        </FilterSelect>
+        <RecordFilter label="Examiner" any="Any examiner" items={q.data?.examiners} value={examinerId} onChange={(v) => set({ examinerId: v })} />
         <DateFilter label="From " ariaLabel="From" wrapClassName="flex items-center gap-1" inputClassName={DATE_INPUT} value={from} onChange={(v) => set({ from: v })} />
         <DateFilter label="to " ariaLabel="To" wrapClassName="flex items-center gap-1" inputClassName={DATE_INPUT} value={to} onChange={(v) => set({ to: v })} />
         <label className="flex items-center gap-2">

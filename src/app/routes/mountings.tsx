@@ -15,8 +15,8 @@ import { can } from "@shared/permissions.ts";
 import { useMe } from "@/features/session/api/session.ts";
 import { useMountingsRegister } from "@/features/mountings-register/api/mountings-register.ts";
 import { DocumentButton } from "@/features/documents/components/document-button.tsx";
-import { FilterSelect, SearchInput } from "@/components/ui/field.tsx";
-import { ClearFilters, DateFilter, EnumFilter } from "@/components/ui/filters.tsx";
+import { SearchInput } from "@/components/ui/field.tsx";
+import { ClearFilters, DateFilter, EnumFilter, RecordFilter } from "@/components/ui/filters.tsx";
 import { DataTable, type Column } from "@/components/ui/data-table.tsx";
 import { ListSection, PageHeader } from "@/components/ui/list-page.tsx";
 import { ButtonLink } from "@/components/ui/button.tsx";
@@ -122,14 +122,7 @@ export function Component() {
           Board batch
         </label>
         <SearchInput id="mountings-batch" placeholder="Board batch, e.g. MB-2291" value={search.text} onChange={(e) => search.setText(e.target.value)} className="max-w-56" />
-        <FilterSelect aria-label="Framer" value={framerId ?? ""} onChange={(e) => update({ framerId: e.target.value || undefined })}>
-          <option value="">Any framer</option>
-          {list.data?.framers.map((f) => (
-            <option key={f.id} value={f.id}>
-              {f.name}
-            </option>
-          ))}
-        </FilterSelect>
+        <RecordFilter label="Framer" any="Any framer" items={list.data?.framers} value={framerId} onChange={(v) => update({ framerId: v })} />
         <DateFilter label="Mounted from" value={from} onChange={(v) => update({ from: v })} />
         <DateFilter label="to" value={to} onChange={(v) => update({ to: v })} />
         <EnumFilter label="Method" any="Any method" values={ATTACHMENT_METHODS} labels={ATTACHMENT_METHOD_LABELS} value={method} onChange={(v) => update({ method: v })} />

@@ -30,6 +30,7 @@ import { errorAt, useServerErrors } from "@/lib/form-errors.ts";
 import { RevisionedFormHead } from "@/components/revisioned.tsx";
 import { revisionedResolver, type RevisionedFormMode } from "@/lib/revisioned.ts";
 import { ADHESIVE_LABELS, ATTACHMENT_METHOD_LABELS as ATTACHMENT_LABELS } from "@shared/schemas/mountings.ts";
+import { EnumOptions } from "@/components/ui/options.tsx";
 
 type FormData = Omit<MountingDataInput, "plan">;
 export type MountingFormValues = { reason: string; mountedOn: string; correctionReason: string; data: FormData };
@@ -167,11 +168,7 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
         />
         <section className="grid grid-cols-2 gap-3 rounded-card bg-paper-sheet p-4 shadow-card">
           <SelectField label="Reason" disabled={mode === "correct"} error={err("reason")} {...register("reason")}>
-            {MOUNTING_REASONS.map((r) => (
-              <option key={r} value={r}>
-                {MOUNTING_REASON_LABELS[r]}
-              </option>
-            ))}
+            <EnumOptions values={MOUNTING_REASONS} labels={MOUNTING_REASON_LABELS} />
           </SelectField>
           <TextField label="Date mounted" type="date" disabled={mode === "correct"} error={err("mountedOn")} {...register("mountedOn")} />
         </section>
@@ -187,19 +184,10 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
           <h2 className="font-semibold">Attachment</h2>
           <div className="grid grid-cols-2 gap-3">
             <SelectField label="Method" error={err("data.attachment.method")} {...register("data.attachment.method")}>
-              {ATTACHMENT_METHODS.map((m) => (
-                <option key={m} value={m}>
-                  {ATTACHMENT_LABELS[m]}
-                </option>
-              ))}
+              <EnumOptions values={ATTACHMENT_METHODS} labels={ATTACHMENT_LABELS} />
             </SelectField>
             <SelectField label="Adhesive" error={err("data.attachment.adhesive")} {...register("data.attachment.adhesive", { setValueAs: (v) => (v === "" ? null : v) })}>
-              <option value="">None given</option>
-              {ADHESIVES.map((a) => (
-                <option key={a} value={a}>
-                  {ADHESIVE_LABELS[a]}
-                </option>
-              ))}
+              <EnumOptions values={ADHESIVES} labels={ADHESIVE_LABELS} blank="None given" />
             </SelectField>
             <TextField label="Tissue" error={err("data.attachment.tissue")} {...register("data.attachment.tissue")} />
             <TextField label="Tissue weight (g/m²)" inputMode="decimal" error={err("data.attachment.tissueWeightGsm")} {...register("data.attachment.tissueWeightGsm", num)} />
@@ -258,11 +246,7 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
         <section className="grid grid-cols-2 gap-3 rounded-card bg-paper-sheet p-4 shadow-card">
           <h2 className="col-span-full font-semibold">Glazing, spacer and frame</h2>
           <SelectField label="Glazing" error={err("data.glazing.type")} {...register("data.glazing.type")}>
-            {GLAZING_TYPES.map((g) => (
-              <option key={g} value={g}>
-                {GLAZING_TYPE_LABELS[g]}
-              </option>
-            ))}
+            <EnumOptions values={GLAZING_TYPES} labels={GLAZING_TYPE_LABELS} />
           </SelectField>
           <TextField label="Glazing thickness (mm)" inputMode="decimal" error={err("data.glazing.thicknessMm")} {...register("data.glazing.thicknessMm", num)} />
           <TextField label="Spacer" error={err("data.spacer.type")} {...register("data.spacer.type")} />
@@ -272,18 +256,10 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
           <TextField label="Moulding face (mm)" inputMode="decimal" error={err("data.frame.faceWidthMm")} {...register("data.frame.faceWidthMm", num)} />
           <TextField label="Rebate depth (mm)" inputMode="decimal" error={err("data.frame.rebateDepthMm")} {...register("data.frame.rebateDepthMm", num)} />
           <SelectField label="Backing" error={err("data.backing.type")} {...register("data.backing.type")}>
-            {BACKING_TYPES.map((b) => (
-              <option key={b} value={b}>
-                {BACKING_TYPE_LABELS[b]}
-              </option>
-            ))}
+            <EnumOptions values={BACKING_TYPES} labels={BACKING_TYPE_LABELS} />
           </SelectField>
           <SelectField label="Sealing" error={err("data.sealing.type")} {...register("data.sealing.type")}>
-            {SEALING_TYPES.map((b) => (
-              <option key={b} value={b}>
-                {SEALING_TYPE_LABELS[b]}
-              </option>
-            ))}
+            <EnumOptions values={SEALING_TYPES} labels={SEALING_TYPE_LABELS} />
           </SelectField>
           <TextField label="Hanging hardware" error={err("data.hanging.hardware")} {...register("data.hanging.hardware")} />
           <TextField label="Wire" error={err("data.hanging.wire")} {...register("data.hanging.wire")} />

@@ -21,7 +21,7 @@ import { minorDigits, parseMoney } from "@shared/domain/money.ts";
 import { issuesToFields } from "@shared/schemas/errors.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
 import { FormActions } from "@/components/ui/button.tsx";
-import { EnumOptions } from "@/components/ui/options.tsx";
+import { EnumOptions, RecordOptions, byName } from "@/components/ui/options.tsx";
 import { Segmented } from "@/components/ui/segmented.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
 import { useServerErrors } from "@/lib/form-errors.ts";
@@ -216,11 +216,7 @@ export function ObjectForm({ defaultValues, studioUnit, clients, canEditOwner, s
         <h2 className="col-span-full text-base font-semibold">Owner and whereabouts</h2>
         <SelectField label="Owner" disabled={!canEditOwner} error={e.clientId?.message} {...register("clientId")}>
           <option value="">Choose the owner…</option>
-          {clients.map((c) => (
-            <option key={c.id} value={c.id}>
-              {c.name}
-            </option>
-          ))}
+          <RecordOptions items={clients} text={byName} />
         </SelectField>
         <SelectField
           label="Status"

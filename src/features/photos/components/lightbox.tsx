@@ -6,6 +6,7 @@ import { SelectField, TextField } from "@/components/ui/field.tsx";
 import { formatDate } from "@/lib/format.ts";
 import { ApiError } from "@/lib/api-client.ts";
 import { useUpdatePhoto } from "../api/photos.ts";
+import { EnumOptions } from "@/components/ui/options.tsx";
 
 /** The web version's longest side (server/features/photos/photos.service.ts, VERSION_MAX_SIDE.web). */
 const WEB_MAX_SIDE = 2048;
@@ -355,11 +356,7 @@ function EditPhoto({ photo }: { photo: Photo }) {
       }}
     >
       <SelectField label="Kind" value={kind} onChange={(e) => setKind(e.target.value as PhotoKind)} wrapClassName="w-48">
-        {PHOTO_KINDS.map((k) => (
-          <option key={k} value={k}>
-            {PHOTO_KIND_LABELS[k]}
-          </option>
-        ))}
+        <EnumOptions values={PHOTO_KINDS} labels={PHOTO_KIND_LABELS} />
       </SelectField>
       <TextField
         label="Caption"

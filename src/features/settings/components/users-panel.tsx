@@ -11,6 +11,7 @@ import { Notice } from "@/components/ui/feedback.tsx";
 import { ApiError } from "@/lib/api-client.ts";
 import { useServerErrors } from "@/lib/form-errors.ts";
 import { useCreateUser, useUsers } from "../api/users.ts";
+import { EnumOptions, RecordOptions, byName } from "@/components/ui/options.tsx";
 
 type Input = z.input<typeof UserCreateSchema>;
 
@@ -64,11 +65,7 @@ export function UsersPanel({ clients }: { clients: ClientRecord[] }) {
         <TextField label="Name" error={e.name?.message} {...form.register("name")} />
         <TextField label="E-mail address" type="email" error={e.email?.message} {...form.register("email")} />
         <SelectField label="Role" error={e.role?.message} {...form.register("role")}>
-          {ROLES.map((r) => (
-            <option key={r} value={r}>
-              {ROLE_LABELS[r]}
-            </option>
-          ))}
+          <EnumOptions values={ROLES} labels={ROLE_LABELS} />
         </SelectField>
         <SelectField
           label="Client"
@@ -77,11 +74,7 @@ export function UsersPanel({ clients }: { clients: ClientRecord[] }) {
           {...form.register("clientId", { setValueAs: (v) => (v === "" ? null : v) })}
         >
           <option value="">{role === "collector" || role === "registrar" ? "Choose…" : "— (studio staff)"}</option>
-          {choices.map((c) => (
-            <option key={c.id} value={c.id}>
-              {c.name}
-            </option>
-          ))}
+          <RecordOptions items={choices} text={byName} />
         </SelectField>
         <TextField
           label="First password"
