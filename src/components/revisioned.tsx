@@ -4,7 +4,7 @@ import { can, type Action, type Actor } from "@shared/permissions.ts";
 import type { ApiError } from "@/lib/api-client.ts";
 import { Button, ButtonLink } from "@/components/ui/button.tsx";
 import { TextAreaField } from "@/components/ui/field.tsx";
-import { Notice } from "@/components/ui/feedback.tsx";
+import { ErrorNotice, Notice } from "@/components/ui/feedback.tsx";
 
 /** Above a revisioned record's page or form: its object's number (a link to the object) and title. */
 export function ObjectLine({ objectId, objectNumber, title }: { objectId: string; objectNumber: string; title: string }) {
@@ -35,11 +35,7 @@ export function RevisionedFormHead({
 }) {
   return (
     <>
-      {error && (
-        <Notice tone="fail" title="Not saved">
-          {error.message}
-        </Notice>
-      )}
+      {error && <ErrorNotice title="Not saved" error={error} />}
       {correcting && (
         <div className="rounded-card bg-paper-sheet p-4 shadow-card">
           <Notice tone="info" title="A correction">
@@ -65,11 +61,7 @@ export function editGate<O extends { clientId: string | null }>(
   if (object.error || !object.data)
     return {
       ok: false,
-      refusal: (
-        <Notice tone="fail" title="Object not found">
-          {object.error?.message}
-        </Notice>
-      ),
+      refusal: <ErrorNotice title="Object not found" error={object.error} />,
     };
   if (!can(user, action, { clientId: object.data.clientId }))
     return {

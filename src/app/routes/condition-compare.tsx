@@ -8,7 +8,7 @@ import { PhotoMarkers } from "@/features/condition/components/photo-markers.tsx"
 import { RatingBadge } from "@/features/condition/components/report-view.tsx";
 import { FilterSelect } from "@/components/ui/field.tsx";
 import { RecordOptions } from "@/components/ui/options.tsx";
-import { EmptyState, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { EmptyState, ErrorNotice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { formatDate } from "@/lib/format.ts";
 import { objectPhotosQuery } from "@/features/photos/api/photos.ts";
 
@@ -73,7 +73,7 @@ export function Component() {
         <ReportPicker label="Earlier" value={from} reports={signed} onPick={(v) => pick("from", v)} />
         <ReportPicker label="Later" value={to} reports={signed} onPick={(v) => pick("to", v)} />
       </div>
-      {cmp.isError && <Notice tone="fail">{cmp.error.message}</Notice>}
+      {cmp.isError && <ErrorNotice error={cmp.error} />}
       {cmp.data && (
         <>
           <p className="flex flex-wrap gap-2 text-sm" data-testid="comparison-counts">

@@ -7,7 +7,7 @@ import { useMe } from "@/features/session/api/session.ts";
 import { useObject } from "@/features/objects/api/objects.ts";
 import { useReport, useReportRevisions, useSignReport } from "@/features/condition/api/condition.ts";
 import { RatingBadge, ReportView } from "@/features/condition/components/report-view.tsx";
-import { Badge, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { Badge, ErrorNotice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { objectPhotosQuery } from "@/features/photos/api/photos.ts";
 import { DocumentButton } from "@/features/documents/components/document-button.tsx";
 import { formatDate, formatDateTime } from "@/lib/format.ts";
@@ -25,12 +25,7 @@ export function Component() {
   const [shown, setShown] = useState<number | null>(null);
 
   if (r.isPending) return <SkeletonRows />;
-  if (r.isError)
-    return (
-      <Notice tone="fail" title="Condition report not found">
-        {r.error.message}
-      </Notice>
-    );
+  if (r.isError) return <ErrorNotice title="Condition report not found" error={r.error} />;
   const rep = r.data;
   const writable = !!object.data && can(user, "condition:write", { clientId: object.data.clientId });
   const revision = shown !== null ? (revisions.data?.find((x) => x.revision === shown) ?? rep.current) : rep.current;
@@ -66,11 +61,7 @@ export function Component() {
           )}
         </div>
       </header>
-      {sign.error && (
-        <Notice tone="fail" title="Not signed">
-          {sign.error.message}
-        </Notice>
-      )}
+      {sign.error && <ErrorNotice title="Not signed" error={sign.error} />}
       {revisions.data && <RevisionsList revisions={revisions.data} shown={revision.revision} onShow={setShown} />}
       <ReportView data={revision.data} photos={photos.data ?? []} cautions={rep.cautions} />
     </div>

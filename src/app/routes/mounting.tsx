@@ -8,7 +8,7 @@ import { useStudio } from "@/features/settings/api/settings.ts";
 import { useObject } from "@/features/objects/api/objects.ts";
 import { useCompleteMounting, useMounting, useRemoveMounting, useRevisions } from "@/features/mountings/api/mountings.ts";
 import { MountingView } from "@/features/mountings/components/mounting-view.tsx";
-import { Badge, Card, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { Badge, Card, ErrorNotice, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { Button } from "@/components/ui/button.tsx";
 import { TextField } from "@/components/ui/field.tsx";
 import { formatDate } from "@/lib/format.ts";
@@ -31,12 +31,7 @@ export function Component() {
   const [endedOn, setEndedOn] = useState(studioToday);
 
   if (m.isPending || !settings) return <SkeletonRows />;
-  if (m.isError)
-    return (
-      <Notice tone="fail" title="Mounting record not found">
-        {m.error.message}
-      </Notice>
-    );
+  if (m.isError) return <ErrorNotice title="Mounting record not found" error={m.error} />;
   const rec = m.data;
   const writable = !!object.data && can(user, "mounting:write", { clientId: object.data.clientId });
   const revs = revisions.data;
@@ -84,11 +79,7 @@ export function Component() {
           </RevisionedActions>
         )}
       </header>
-      {error && (
-        <Notice tone="fail" title="Not done">
-          {error.message}
-        </Notice>
-      )}
+      {error && <ErrorNotice title="Not done" error={error} />}
       {rec.status === "draft" && (
         <Notice tone="warn" title="Draft">
           This record is a draft. Completing it locks it and makes it the object's current mount{writable ? "; any earlier mounting becomes superseded" : ""}.

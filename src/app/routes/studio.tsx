@@ -12,7 +12,7 @@ import { useRemoveLogo, useSaveSettings, useSettings, useUploadLogo } from "@/fe
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
 import { Button } from "@/components/ui/button.tsx";
 import { Segmented } from "@/components/ui/segmented.tsx";
-import { Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { ErrorNotice, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { useServerErrors } from "@/lib/form-errors.ts";
 import { useSaveTerm, useTerms } from "@/features/condition/api/condition.ts";
 import { UsersPanel } from "@/features/settings/components/users-panel.tsx";
@@ -33,11 +33,7 @@ function SettingsForm({ initial, readOnly }: { initial: StudioSettings; readOnly
           The studio settings are saved.
         </Notice>
       )}
-      {save.isError && (
-        <Notice tone="fail" title="Not saved">
-          {save.error.message}
-        </Notice>
-      )}
+      {save.isError && <ErrorNotice title="Not saved" error={save.error} />}
       <fieldset disabled={readOnly} className="grid gap-4 rounded-card bg-paper-sheet p-5 shadow-card md:grid-cols-2">
         <h2 className="col-span-full text-base font-semibold">Studio</h2>
         <TextField label="Studio name" error={e.studioName?.message} {...form.register("studioName")} />
@@ -196,11 +192,7 @@ function FramePresets({ settings, readOnly }: { settings: StudioSettingsRecord; 
           The frame sizes are saved.
         </Notice>
       )}
-      {save.isError && (
-        <Notice tone="fail" title="Not saved">
-          {save.error.message}
-        </Notice>
-      )}
+      {save.isError && <ErrorNotice title="Not saved" error={save.error} />}
       {rows.length === 0 && <p className="text-sm text-graphite">No sizes yet.</p>}
       {rows.map((r, i) => (
         // biome-ignore lint/suspicious/noArrayIndexKey: the inputs are controlled and errors are addressed by row number, so position is the row's identity
@@ -304,7 +296,7 @@ export function Component() {
   const { data: user } = useMe();
   const settings = useSettings();
   if (settings.isPending) return <SkeletonRows />;
-  if (settings.isError) return <Notice tone="fail">{settings.error.message}</Notice>;
+  if (settings.isError) return <ErrorNotice error={settings.error} />;
   const readOnly = !can(user, "settings:update");
   return (
     <div className="space-y-5">

@@ -1,7 +1,7 @@
 import { forwardRef, useCallback, useEffect, useId, useImperativeHandle, useLayoutEffect, useRef, useState, type KeyboardEvent, type PointerEvent } from "react";
 import { PHOTO_KINDS, PHOTO_KIND_LABELS, type Photo, type PhotoKind } from "@shared/schemas/photos.ts";
 import { Button, buttonClass } from "@/components/ui/button.tsx";
-import { Notice } from "@/components/ui/feedback.tsx";
+import { ErrorNotice } from "@/components/ui/feedback.tsx";
 import { SelectField, TextField } from "@/components/ui/field.tsx";
 import { formatDate } from "@/lib/format.ts";
 import { ApiError } from "@/lib/api-client.ts";
@@ -370,11 +370,7 @@ function EditPhoto({ photo }: { photo: Photo }) {
         {update.isPending ? "Saving…" : "Save"}
       </Button>
       <div className="basis-full empty:hidden">
-        {update.isError && (
-          <Notice tone="fail" title="The change was not saved">
-            {update.error.message}
-          </Notice>
-        )}
+        {update.isError && <ErrorNotice title="The change was not saved" error={update.error} />}
         {update.isSuccess && !changed && <p className="text-sm text-pass">✓ Saved.</p>}
       </div>
     </form>

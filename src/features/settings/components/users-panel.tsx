@@ -7,7 +7,7 @@ import type { ClientRecord } from "@shared/schemas/clients.ts";
 import type { z } from "zod";
 import { SelectField, TextField } from "@/components/ui/field.tsx";
 import { Button } from "@/components/ui/button.tsx";
-import { Notice } from "@/components/ui/feedback.tsx";
+import { ErrorNotice, Notice } from "@/components/ui/feedback.tsx";
 import { ApiError } from "@/lib/api-client.ts";
 import { useServerErrors } from "@/lib/form-errors.ts";
 import { useCreateUser, useUsers } from "../api/users.ts";
@@ -56,11 +56,7 @@ export function UsersPanel({ clients }: { clients: ClientRecord[] }) {
           {done}
         </Notice>
       )}
-      {create.isError && !(create.error instanceof ApiError && Object.keys(create.error.fields).length) && (
-        <Notice tone="fail" title="Not made">
-          {create.error.message}
-        </Notice>
-      )}
+      {create.isError && !(create.error instanceof ApiError && Object.keys(create.error.fields).length) && <ErrorNotice title="Not made" error={create.error} />}
       <form onSubmit={submit} noValidate className="grid gap-3 md:grid-cols-2">
         <TextField label="Name" error={e.name?.message} {...form.register("name")} />
         <TextField label="E-mail address" type="email" error={e.email?.message} {...form.register("email")} />
