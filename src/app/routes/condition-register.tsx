@@ -4,7 +4,7 @@ import { CONDITION_CONTEXTS, CONDITION_CONTEXT_LABELS, ConditionListQuerySchema,
 import { useConditionRegister, type ConditionRegisterItem } from "@/features/condition/api/condition.ts";
 import { RatingBadge } from "@/features/condition/components/report-view.tsx";
 import { DateFilter, EnumFilter, RecordFilter } from "@/components/ui/filters.tsx";
-import { DataTable, type Column } from "@/components/ui/data-table.tsx";
+import { DataTable, objectNumberColumn, type Column } from "@/components/ui/data-table.tsx";
 import { ListSection } from "@/components/ui/list-page.tsx";
 import { EmptyState } from "@/components/ui/feedback.tsx";
 import { Pagination } from "@/components/ui/pagination.tsx";
@@ -33,17 +33,7 @@ const COLUMNS: Column<ConditionRegisterItem>[] = [
       </Link>
     ),
   },
-  {
-    key: "number",
-    header: "Object number",
-    th: "whitespace-nowrap",
-    td: "whitespace-nowrap font-semibold num",
-    cell: (r) => (
-      <Link className={link} to={`/objects/${r.objectId}`}>
-        {r.objectNumber}
-      </Link>
-    ),
-  },
+  objectNumberColumn(),
   { key: "title", header: "Title", th: "whitespace-nowrap", cell: (r) => r.objectTitle },
   { key: "context", header: "Context", th: "whitespace-nowrap", td: "text-ink-soft", cell: (r) => CONDITION_CONTEXT_LABELS[r.context] },
   { key: "rating", header: "Rating", th: "whitespace-nowrap", cell: (r) => <RatingBadge rating={r.rating} /> },

@@ -1,4 +1,4 @@
-import { Link, Navigate } from "react-router";
+import { Navigate } from "react-router";
 import { z } from "zod";
 import { CUSTODY_KINDS, CUSTODY_KIND_LABELS, ReceiptListQuerySchema } from "@shared/schemas/custody.ts";
 import { PageQuerySchema } from "@shared/schemas/common.ts";
@@ -8,7 +8,7 @@ import { useCustodyReceipts, useInStudio, type InStudioItem } from "@/features/c
 import { ReceiptsTable } from "@/features/custody/components/custody-list.tsx";
 import { ButtonLink } from "@/components/ui/button.tsx";
 import { ClearFilters, DateFilter, EnumFilter } from "@/components/ui/filters.tsx";
-import { DataTable, type Column } from "@/components/ui/data-table.tsx";
+import { DataTable, objectNumberColumn, type Column } from "@/components/ui/data-table.tsx";
 import { PageHeader, QueryView } from "@/components/ui/list-page.tsx";
 import { Card, EmptyState } from "@/components/ui/feedback.tsx";
 import { Pagination } from "@/components/ui/pagination.tsx";
@@ -24,17 +24,7 @@ const DIRECTIONS = ["in", "out"] as const;
 const DIRECTION_LABELS = { in: "In", out: "Out" };
 
 const IN_STUDIO_COLUMNS: Column<InStudioItem>[] = [
-  {
-    key: "number",
-    header: "Object number",
-    th: "whitespace-nowrap",
-    td: "whitespace-nowrap font-semibold num",
-    cell: (o) => (
-      <Link to={`/objects/${o.objectId}`} className="text-accent hover:underline">
-        {o.objectNumber}
-      </Link>
-    ),
-  },
+  objectNumberColumn(),
   {
     key: "title",
     header: "Title",

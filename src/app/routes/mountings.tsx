@@ -1,4 +1,3 @@
-import { Link } from "react-router";
 import { ATTACHMENT_METHODS } from "@shared/schemas/mount-plan.ts";
 import {
   ATTACHMENT_METHOD_LABELS,
@@ -17,7 +16,7 @@ import { useMountingsRegister } from "@/features/mountings-register/api/mounting
 import { DocumentButton } from "@/features/documents/components/document-button.tsx";
 import { SearchInput } from "@/components/ui/field.tsx";
 import { ClearFilters, DateFilter, EnumFilter, RecordFilter } from "@/components/ui/filters.tsx";
-import { DataTable, type Column } from "@/components/ui/data-table.tsx";
+import { DataTable, objectNumberColumn, type Column } from "@/components/ui/data-table.tsx";
 import { ListSection, PageHeader } from "@/components/ui/list-page.tsx";
 import { ButtonLink } from "@/components/ui/button.tsx";
 import { Badge, EmptyState, Notice } from "@/components/ui/feedback.tsx";
@@ -54,17 +53,7 @@ function Batches({ m, searched }: { m: MountingListItem; searched?: string }) {
 
 const columns = (batch: string | undefined): Column<MountingListItem>[] => [
   { key: "mounted", header: "Mounted", align: "right", th: "whitespace-nowrap", td: "whitespace-nowrap num", cell: (m) => formatDate(m.mountedOn) },
-  {
-    key: "number",
-    header: "Object number",
-    th: "whitespace-nowrap",
-    td: "whitespace-nowrap font-semibold num",
-    cell: (m) => (
-      <Link to={`/objects/${m.objectId}`} className="text-accent hover:underline">
-        {m.objectNumber}
-      </Link>
-    ),
-  },
+  objectNumberColumn(),
   { key: "title", header: "Title", cell: (m) => m.objectTitle },
   { key: "framer", header: "Framer", td: "text-ink-soft", cell: (m) => m.framerName },
   { key: "reason", header: "Reason", td: "text-ink-soft", cell: (m) => label(MOUNTING_REASON_LABELS, m.reason) },
