@@ -81,15 +81,14 @@ export function editGate<O extends { clientId: string | null }>(
  */
 export function RevisionedActions({
   draft,
-  editTo,
-  correctTo,
+  recordTo,
   correctLabel,
   lock,
   children,
 }: {
   draft: boolean;
-  editTo: string;
-  correctTo: string;
+  /** The record's page; its draft is edited at …/edit and it is corrected at …/correct. */
+  recordTo: string;
   correctLabel: string;
   lock: { label: string; onLock: () => void; pending: boolean };
   children?: ReactNode;
@@ -97,7 +96,7 @@ export function RevisionedActions({
   return (
     <div className="flex flex-wrap gap-2">
       {draft && (
-        <ButtonLink to={editTo} variant="secondary">
+        <ButtonLink to={`${recordTo}/edit`} variant="secondary">
           Edit draft
         </ButtonLink>
       )}
@@ -107,7 +106,7 @@ export function RevisionedActions({
         </Button>
       )}
       {!draft && (
-        <ButtonLink to={correctTo} variant="secondary">
+        <ButtonLink to={`${recordTo}/correct`} variant="secondary">
           {correctLabel}
         </ButtonLink>
       )}

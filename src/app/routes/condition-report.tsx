@@ -53,8 +53,7 @@ export function Component() {
           {writable && (
             <RevisionedActions
               draft={rep.status === "draft"}
-              editTo={`/condition/${rep.id}/edit`}
-              correctTo={`/condition/${rep.id}/correct`}
+              recordTo={`/condition/${rep.id}`}
               correctLabel="Correct the report"
               lock={{ label: "Sign and lock", onLock: () => sign.mutate(rep.version), pending: sign.isPending }}
             />

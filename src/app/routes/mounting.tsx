@@ -66,8 +66,7 @@ export function Component() {
         {writable && (
           <RevisionedActions
             draft={rec.status === "draft"}
-            editTo={`/mountings/${rec.id}/edit`}
-            correctTo={`/mountings/${rec.id}/correct`}
+            recordTo={`/mountings/${rec.id}`}
             correctLabel="Correct the record"
             lock={{ label: "Complete and lock", onLock: () => complete.mutate(rec.version), pending: complete.isPending }}
           >
