@@ -1,4 +1,4 @@
-import { useState } from "react";
+import { type ReactNode, useState } from "react";
 import { useForm } from "react-hook-form";
 import { lengthInputValue, parseLength } from "@shared/domain/units.ts";
 import { zodResolver } from "@hookform/resolvers/zod";
@@ -17,6 +17,21 @@ import { useServerErrors } from "@/lib/form-errors.ts";
 import { useSaveTerm, useTerms } from "@/features/condition/api/condition.ts";
 import { UsersPanel } from "@/features/settings/components/users-panel.tsx";
 import { useClients } from "@/features/clients/api/clients.ts";
+import { SettingsSection } from "@/features/settings/components/settings-section.tsx";
+
+/** A save's outcome: "Saved" with what was saved, or why it was not. */
+function SaveNotices({ saved, error, children }: { saved: boolean; error: Error | null; children: ReactNode }) {
+  return (
+    <>
+      {saved && (
+        <Notice tone="pass" title="Saved">
+          {children}
+        </Notice>
+      )}
+      {error && <ErrorNotice title="Not saved" error={error} />}
+    </>
+  );
+}
 
 function SettingsForm({ initial, readOnly }: { initial: StudioSettings; readOnly: boolean }) {
   const save = useSaveSettings();
@@ -28,12 +43,9 @@ function SettingsForm({ initial, readOnly }: { initial: StudioSettings; readOnly
   });
   return (
     <form onSubmit={submit} noValidate className="max-w-3xl space-y-4">
-      {save.isSuccess && !form.formState.isDirty && (
-        <Notice tone="pass" title="Saved">
-          The studio settings are saved.
-        </Notice>
-      )}
-      {save.isError && <ErrorNotice title="Not saved" error={save.error} />}
+      <SaveNotices saved={save.isSuccess && !form.formState.isDirty} error={save.error}>
+        The studio settings are saved.
+      </SaveNotices>
       <fieldset disabled={readOnly} className="grid gap-4 rounded-card bg-paper-sheet p-5 shadow-card md:grid-cols-2">
         <h2 className="col-span-full text-base font-semibold">Studio</h2>
         <TextField label="Studio name" error={e.studioName?.message} {...form.register("studioName")} />
@@ -110,8 +122,7 @@ function Vocabulary({ readOnly }: { readOnly: boolean }) {
     save.mutate({ list, term: draft.trim(), caution: null, active: true }, { onSuccess: () => setDraft(""), onError: (e) => setError(e.message) });
   };
   return (
-    <section className="max-w-3xl space-y-3 rounded-card bg-paper-sheet p-5 shadow-card" aria-label="Condition vocabulary">
-      <h2 className="text-base font-semibold">Condition vocabulary</h2>
+    <SettingsSection title="Condition vocabulary">
       <p className="text-sm text-graphite">The words findings are recorded in. Photographs use both lists. A retired term stays on old reports but is no longer offered.</p>
       <Segmented
         kind="tab"
@@ -150,7 +161,7 @@ function Vocabulary({ readOnly }: { readOnly: boolean }) {
         </div>
       )}
       <p className="text-xs text-graphite">▲ shows a handling caution (mould, insects) on reports with that finding.</p>
-    </section>
+    </SettingsSection>
   );
 }
 
@@ -184,15 +195,11 @@ function FramePresets({ settings, readOnly }: { settings: StudioSettingsRecord; 
     if (Object.keys(errs).length === 0) save.mutate({ ...settings, framePresets: presets });
   }
   return (
-    <section className="max-w-3xl space-y-3 rounded-card bg-paper-sheet p-5 shadow-card" aria-label="The studio's frame sizes">
-      <h2 className="text-base font-semibold">The studio's frame sizes</h2>
+    <SettingsSection title="The studio's frame sizes">
       <p className="text-sm text-graphite">Ready-made sizes the studio stocks; the planner offers them beside the standard ones. Sizes in {u === "in" ? "inches" : "mm"}.</p>
-      {save.isSuccess && (
-        <Notice tone="pass" title="Saved">
-          The frame sizes are saved.
-        </Notice>
-      )}
-      {save.isError && <ErrorNotice title="Not saved" error={save.error} />}
+      <SaveNotices saved={save.isSuccess} error={save.error}>
+        The frame sizes are saved.
+      </SaveNotices>
       {rows.length === 0 && <p className="text-sm text-graphite">No sizes yet.</p>}
       {rows.map((r, i) => (
         // biome-ignore lint/suspicious/noArrayIndexKey: the inputs are controlled and errors are addressed by row number, so position is the row's identity
@@ -224,7 +231,7 @@ function FramePresets({ settings, readOnly }: { settings: StudioSettingsRecord; 
           </Button>
         </div>
       )}
-    </section>
+    </SettingsSection>
   );
 }
 
@@ -236,8 +243,7 @@ function Logo({ hasLogo, version }: { hasLogo: boolean; version: number }) {
   const error = upload.error?.message ?? remove.error?.message ?? null;
   const busy = upload.isPending || remove.isPending;
   return (
-    <section className="max-w-3xl space-y-3 rounded-card bg-paper-sheet p-5 shadow-card" aria-label="Logo on documents">
-      <h2 className="text-base font-semibold">Logo on documents</h2>
+    <SettingsSection title="Logo on documents">
       <p className="text-sm text-graphite">
         Shown beside the studio's name at the top of every document. A PNG or JPEG of at most 2 MB and 4000 × 4000 pixels; it is stored as a PNG 600 pixels wide at most.
       </p>
@@ -288,7 +294,7 @@ function Logo({ hasLogo, version }: { hasLogo: boolean; version: number }) {
           Uploading the logo…
         </p>
       )}
-    </section>
+    </SettingsSection>
   );
 }
 

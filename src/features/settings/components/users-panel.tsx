@@ -12,6 +12,7 @@ import { ApiError } from "@/lib/api-client.ts";
 import { useServerErrors } from "@/lib/form-errors.ts";
 import { useCreateUser, useUsers } from "../api/users.ts";
 import { EnumOptions, RecordOptions, byName } from "@/components/ui/options.tsx";
+import { SettingsSection } from "./settings-section.tsx";
 
 type Input = z.input<typeof UserCreateSchema>;
 
@@ -36,8 +37,7 @@ export function UsersPanel({ clients }: { clients: ClientRecord[] }) {
   });
   const choices = clients.filter((c) => (role === "collector" ? c.kind === "private" : c.kind === "institution"));
   return (
-    <section className="max-w-3xl space-y-3 rounded-card bg-paper-sheet p-5 shadow-card" aria-label="People and roles">
-      <h2 className="text-base font-semibold">People and roles</h2>
+    <SettingsSection title="People and roles">
       <ul className="divide-y divide-stone-light text-sm" data-testid="users">
         {(users.data ?? []).map((u) => (
           <li key={u.id} className="flex flex-wrap justify-between gap-2 py-1.5">
@@ -86,6 +86,6 @@ export function UsersPanel({ clients }: { clients: ClientRecord[] }) {
           </Button>
         </div>
       </form>
-    </section>
+    </SettingsSection>
   );
 }
