@@ -18,6 +18,30 @@ export function ObjectLine({ objectId, objectNumber, title }: { objectId: string
   );
 }
 
+/** A revisioned record's page head: its object, its title, a line of facts (status, who, revision…), and its actions on the right. */
+export function RecordHead({
+  record,
+  title,
+  facts,
+  actions,
+}: {
+  record: { objectId: string; objectNumber: string; objectTitle: string };
+  title: ReactNode;
+  facts: ReactNode;
+  actions?: ReactNode;
+}) {
+  return (
+    <header className="flex flex-wrap items-end justify-between gap-3">
+      <div>
+        <ObjectLine objectId={record.objectId} objectNumber={record.objectNumber} title={record.objectTitle} />
+        <h1 className="text-2xl font-bold tracking-tight">{title}</h1>
+        <p className="mt-1 flex flex-wrap items-center gap-2 text-sm text-graphite">{facts}</p>
+      </div>
+      {actions}
+    </header>
+  );
+}
+
 /**
  * The top of a revisioned record's form: why the last save failed, and, for a correction, what a
  * correction does (`note`) and the reason it must give (the "say why" field, `correctionReason`).

@@ -13,8 +13,9 @@ import { Button } from "@/components/ui/button.tsx";
 import { TextField } from "@/components/ui/field.tsx";
 import { formatDate } from "@/lib/format.ts";
 import { RevisionsList } from "@/components/revisions-list.tsx";
-import { ObjectLine, RevisionedActions } from "@/components/revisioned.tsx";
+import { RecordHead, RevisionedActions } from "@/components/revisioned.tsx";
 import { ApiError } from "@/lib/api-client.ts";
+import { shownRevision } from "@/lib/revisioned.ts";
 
 export function Component() {
   const { id = "" } = useParams();
@@ -35,18 +36,16 @@ export function Component() {
   const rec = m.data;
   const writable = !!object.data && can(user, "mounting:write", { clientId: object.data.clientId });
   const revs = revisions.data;
-  const showing = shown !== null && revs ? (revs.find((r) => r.revision === shown) ?? rec.current) : rec.current;
+  const showing = shownRevision(shown, revs, rec.current);
   const error = complete.error ?? remove.error;
 
   return (
     <div className="space-y-5">
-      <header className="flex flex-wrap items-end justify-between gap-3">
-        <div>
-          <ObjectLine objectId={rec.objectId} objectNumber={rec.objectNumber} title={rec.objectTitle} />
-          <h1 className="text-2xl font-bold tracking-tight">
-            {MOUNTING_REASON_LABELS[rec.reason]} · {formatDate(rec.mountedOn)}
-          </h1>
-          <p className="mt-1 flex flex-wrap items-center gap-2 text-sm text-graphite">
+      <RecordHead
+        record={rec}
+        title={`${MOUNTING_REASON_LABELS[rec.reason]} · ${formatDate(rec.mountedOn)}`}
+        facts={
+          <>
             <Badge tone={rec.status === "completed" ? "accent" : rec.status === "draft" ? "warn" : "neutral"}>{MOUNTING_STATUS_LABELS[rec.status]}</Badge>
             <span>by {rec.framerName}</span>
             {rec.currentRevision > 1 && <span>· revision {rec.currentRevision}</span>}
@@ -61,23 +60,25 @@ export function Component() {
                 {rec.endReason ? `: ${rec.endReason}` : ""}
               </span>
             )}
-          </p>
-        </div>
-        {writable && (
-          <RevisionedActions
-            draft={rec.status === "draft"}
-            recordTo={`/mountings/${rec.id}`}
-            correctLabel="Correct the record"
-            lock={{ label: "Complete and lock", onLock: () => complete.mutate(rec.version), pending: complete.isPending }}
-          >
-            {rec.status === "completed" && (
-              <Button variant="secondary" onClick={() => setRemoving(true)}>
-                Taken out of mount…
-              </Button>
-            )}
-          </RevisionedActions>
-        )}
-      </header>
+          </>
+        }
+        actions={
+          writable && (
+            <RevisionedActions
+              draft={rec.status === "draft"}
+              recordTo={`/mountings/${rec.id}`}
+              correctLabel="Correct the record"
+              lock={{ label: "Complete and lock", onLock: () => complete.mutate(rec.version), pending: complete.isPending }}
+            >
+              {rec.status === "completed" && (
+                <Button variant="secondary" onClick={() => setRemoving(true)}>
+                  Taken out of mount…
+                </Button>
+              )}
+            </RevisionedActions>
+          )
+        }
+      />
       {error && <ErrorNotice title="Not done" error={error} />}
       {rec.status === "draft" && (
         <Notice tone="warn" title="Draft">
