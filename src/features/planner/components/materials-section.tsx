@@ -3,6 +3,7 @@ import { OBJECT_TYPES, OBJECT_TYPE_LABELS, PHOTO_PROCESSES, PHOTO_PROCESS_LABELS
 import { ADHESIVE_LABELS, ATTACHMENT_METHOD_LABELS } from "@shared/schemas/mountings.ts";
 import { SelectField, TextField } from "@/components/ui/field.tsx";
 import { Group, type SectionProps } from "./planner-parts.tsx";
+import { CheckboxGroup } from "@/components/ui/checkbox-group.tsx";
 import { EnumOptions } from "@/components/ui/options.tsx";
 
 /** The object and the materials, which the conservation checks read. */
@@ -17,17 +18,7 @@ export function MaterialsSection({ register, values }: SectionProps) {
           <EnumOptions values={PHOTO_PROCESSES} labels={PHOTO_PROCESS_LABELS} blank="—" />
         </SelectField>
       </div>
-      <fieldset>
-        <legend className="mb-1 text-sm font-medium text-ink-soft">Sensitivities</legend>
-        <div className="flex flex-wrap gap-3">
-          {SENSITIVITIES.map((s) => (
-            <label key={s} className="inline-flex items-center gap-1.5 text-sm">
-              <input type="checkbox" value={s} className="h-4 w-4" {...register("object.sensitivities")} />
-              {SENSITIVITY_LABELS[s]}
-            </label>
-          ))}
-        </div>
-      </fieldset>
+      <CheckboxGroup legend="Sensitivities" look="compact" values={SENSITIVITIES} labels={SENSITIVITY_LABELS} field={register("object.sensitivities")} />
       <div className="grid grid-cols-2 gap-3">
         <SelectField label="Board grade" {...register("materials.boardGrade")}>
           <option value="">Not chosen</option>
