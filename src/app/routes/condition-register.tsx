@@ -5,7 +5,7 @@ import { useConditionRegister, type ConditionRegisterItem } from "@/features/con
 import { RatingBadge } from "@/features/condition/components/report-view.tsx";
 import { DateFilter, EnumFilter, RecordFilter } from "@/components/ui/filters.tsx";
 import { DataTable, objectNumberColumn, type Column } from "@/components/ui/data-table.tsx";
-import { ListSection } from "@/components/ui/list-page.tsx";
+import { ListSection, noItems } from "@/components/ui/list-page.tsx";
 import { EmptyState } from "@/components/ui/feedback.tsx";
 import { Pagination } from "@/components/ui/pagination.tsx";
 import { formatDate } from "@/lib/format.ts";
@@ -71,7 +71,7 @@ export function Component() {
       <ListSection
         label="Condition reports"
         query={q}
-        isEmpty={(d) => d.items.length === 0}
+        isEmpty={noItems}
         empty={
           <EmptyState title="No condition reports match">Reports are written from an object's page, on arrival, before and after mounting, and at every hand-over.</EmptyState>
         }

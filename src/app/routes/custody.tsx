@@ -9,7 +9,7 @@ import { ReceiptsTable } from "@/features/custody/components/custody-list.tsx";
 import { ButtonLink } from "@/components/ui/button.tsx";
 import { ClearFilters, DateFilter, EnumFilter } from "@/components/ui/filters.tsx";
 import { DataTable, objectNumberColumn, type Column } from "@/components/ui/data-table.tsx";
-import { PageHeader, QueryView } from "@/components/ui/list-page.tsx";
+import { noItems, PageHeader, QueryView } from "@/components/ui/list-page.tsx";
 import { Card, EmptyState } from "@/components/ui/feedback.tsx";
 import { Pagination } from "@/components/ui/pagination.tsx";
 import { formatDate } from "@/lib/format.ts";
@@ -83,7 +83,7 @@ export function Component() {
             query={inStudio}
             rows={5}
             errorTitle="The list could not be loaded"
-            isEmpty={(d) => d.items.length === 0}
+            isEmpty={noItems}
             empty={
               <EmptyState title="Nothing in the studio" action={<ButtonLink to="/objects">Find the object in the register</ButtonLink>}>
                 Every object the studio holds is listed here, the longest-held first, with who brought it in and its condition on arrival. When a work comes in, open it in the
@@ -120,7 +120,7 @@ export function Component() {
             query={receipts}
             rows={5}
             errorTitle="The receipts could not be loaded"
-            isEmpty={(d) => d.items.length === 0}
+            isEmpty={noItems}
             empty={
               filtered ? (
                 <EmptyState title="No receipt matches">Widen the dates, or clear the filters.</EmptyState>

@@ -17,7 +17,7 @@ import { DocumentButton } from "@/features/documents/components/document-button.
 import { SearchInput } from "@/components/ui/field.tsx";
 import { ClearFilters, DateFilter, EnumFilter, RecordFilter } from "@/components/ui/filters.tsx";
 import { DataTable, objectNumberColumn, type Column } from "@/components/ui/data-table.tsx";
-import { ListSection, PageHeader } from "@/components/ui/list-page.tsx";
+import { ListSection, noItems, PageHeader } from "@/components/ui/list-page.tsx";
 import { ButtonLink } from "@/components/ui/button.tsx";
 import { Badge, EmptyState, Notice } from "@/components/ui/feedback.tsx";
 import { Pagination } from "@/components/ui/pagination.tsx";
@@ -141,7 +141,7 @@ export function Component() {
         busy={list.isFetching}
         query={list}
         errorTitle="The mountings register could not be loaded"
-        isEmpty={(d) => d.items.length === 0}
+        isEmpty={noItems}
         empty={
           batch ? (
             <EmptyState title={`No mounting used board from batch ${batch}`}>

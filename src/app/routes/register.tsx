@@ -19,7 +19,7 @@ import { useClients } from "@/features/clients/api/clients.ts";
 import { ObjectsTable, type SortKey } from "@/features/objects/components/objects-table.tsx";
 import { SearchInput } from "@/components/ui/field.tsx";
 import { ClearFilters, EnumFilter, RecordFilter } from "@/components/ui/filters.tsx";
-import { ListSection, PageHeader } from "@/components/ui/list-page.tsx";
+import { ListSection, noItems, PageHeader } from "@/components/ui/list-page.tsx";
 import { ButtonLink } from "@/components/ui/button.tsx";
 import { EmptyState } from "@/components/ui/feedback.tsx";
 import { Pagination } from "@/components/ui/pagination.tsx";
@@ -143,7 +143,7 @@ export function Component() {
         busy={list.isFetching}
         query={list}
         errorTitle="The register could not be loaded"
-        isEmpty={(d) => d.items.length === 0}
+        isEmpty={noItems}
         empty={
           due && !(debouncedQ || status || objectType || clientId || method || boardGrade || glazing) ? (
             <EmptyState title="No object is due for a check">Every object with a planned check has it after today.</EmptyState>

@@ -14,6 +14,9 @@ export function PageHeader({ title, intro, actions, gap = "gap-4" }: { title: Re
   );
 }
 
+/** The usual `isEmpty` of a paged list: no items on this page. */
+export const noItems = (page: { items: readonly unknown[] }) => page.items.length === 0;
+
 type Query<T> = { isPending: boolean; isError: boolean; error: Error | null; data: T | undefined };
 
 /** What a list shows while it loads, when it fails, when it is empty, and otherwise its rows. */
