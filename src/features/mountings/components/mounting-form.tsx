@@ -1,5 +1,5 @@
 import { useMemo } from "react";
-import { useFieldArray, useForm, useWatch } from "react-hook-form";
+import { type FieldPath, useFieldArray, useForm, useWatch } from "react-hook-form";
 import { studioToday } from "@/lib/today.ts";
 import {
   BACKING_TYPES,
@@ -91,6 +91,10 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
   const watched = useWatch({ control }) as MountingFormValues;
   const e = formState.errors;
   const err = (p: string) => errorAt(e, p);
+  /** A measure typed as a decimal; an emptied field is null. */
+  const measure = (path: FieldPath<MountingFormValues>, label: string, className?: string) => (
+    <TextField label={label} inputMode="decimal" className={className} error={err(path)} {...register(path, num)} />
+  );
 
   // Live: the plan recomputed with the materials as they are chosen, the same function the server uses.
   const live = useMemo(() => {
@@ -190,7 +194,7 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
               <EnumOptions values={ADHESIVES} labels={ADHESIVE_LABELS} blank="None given" />
             </SelectField>
             <TextField label="Tissue" error={err("data.attachment.tissue")} {...register("data.attachment.tissue")} />
-            <TextField label="Tissue weight (g/m²)" inputMode="decimal" error={err("data.attachment.tissueWeightGsm")} {...register("data.attachment.tissueWeightGsm", num)} />
+            {measure("data.attachment.tissueWeightGsm", "Tissue weight (g/m²)")}
           </div>
           {HINGED.includes(method) && (
             <div className="space-y-2">
@@ -220,20 +224,8 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
                       </option>
                     ))}
                   </SelectField>
-                  <TextField
-                    label="From corner"
-                    inputMode="decimal"
-                    className="num"
-                    error={err(`data.attachment.hinges.${i}.offsetMm`)}
-                    {...register(`data.attachment.hinges.${i}.offsetMm`, num)}
-                  />
-                  <TextField
-                    label="Width"
-                    inputMode="decimal"
-                    className="num"
-                    error={err(`data.attachment.hinges.${i}.widthMm`)}
-                    {...register(`data.attachment.hinges.${i}.widthMm`, num)}
-                  />
+                  {measure(`data.attachment.hinges.${i}.offsetMm`, "From corner", "num")}
+                  {measure(`data.attachment.hinges.${i}.widthMm`, "Width", "num")}
                   <Button variant="quiet" aria-label={`Remove hinge ${i + 1}`} onClick={() => hinges.remove(i)}>
                     Remove
                   </Button>
@@ -248,13 +240,13 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
           <SelectField label="Glazing" error={err("data.glazing.type")} {...register("data.glazing.type")}>
             <EnumOptions values={GLAZING_TYPES} labels={GLAZING_TYPE_LABELS} />
           </SelectField>
-          <TextField label="Glazing thickness (mm)" inputMode="decimal" error={err("data.glazing.thicknessMm")} {...register("data.glazing.thicknessMm", num)} />
+          {measure("data.glazing.thicknessMm", "Glazing thickness (mm)")}
           <TextField label="Spacer" error={err("data.spacer.type")} {...register("data.spacer.type")} />
-          <TextField label="Spacer depth (mm)" inputMode="decimal" error={err("data.spacer.depthMm")} {...register("data.spacer.depthMm", num)} />
+          {measure("data.spacer.depthMm", "Spacer depth (mm)")}
           <TextField label="Moulding" error={err("data.frame.moulding")} {...register("data.frame.moulding")} />
           <TextField label="Finish" error={err("data.frame.finish")} {...register("data.frame.finish")} />
-          <TextField label="Moulding face (mm)" inputMode="decimal" error={err("data.frame.faceWidthMm")} {...register("data.frame.faceWidthMm", num)} />
-          <TextField label="Rebate depth (mm)" inputMode="decimal" error={err("data.frame.rebateDepthMm")} {...register("data.frame.rebateDepthMm", num)} />
+          {measure("data.frame.faceWidthMm", "Moulding face (mm)")}
+          {measure("data.frame.rebateDepthMm", "Rebate depth (mm)")}
           <SelectField label="Backing" error={err("data.backing.type")} {...register("data.backing.type")}>
             <EnumOptions values={BACKING_TYPES} labels={BACKING_TYPE_LABELS} />
           </SelectField>
