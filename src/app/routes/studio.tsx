@@ -6,6 +6,7 @@ import { StudioSettingsSchema, type StudioSettings, type StudioSettingsRecord } 
 import type { z } from "zod";
 
 type SettingsInput = z.input<typeof StudioSettingsSchema>;
+type NumberSetting = "minOverlapMm" | "checkIntervalMonths" | "checkIntervalOnLoanMonths" | "rebateClearanceMm";
 import { can } from "@shared/permissions.ts";
 import { useMe } from "@/features/session/api/session.ts";
 import { useRemoveLogo, useSaveSettings, useSettings, useUploadLogo } from "@/features/settings/api/settings.ts";
@@ -38,6 +39,10 @@ function SettingsForm({ initial, readOnly }: { initial: StudioSettings; readOnly
   const form = useForm<SettingsInput, unknown, StudioSettings>({ resolver: zodResolver(StudioSettingsSchema), defaultValues: initial });
   const e = form.formState.errors;
   const server = useServerErrors(form);
+  /** A number setting, read back as a number; `step` where it takes halves (the millimetre ones). */
+  const numberField = (name: NumberSetting, label: string, hint?: string, step?: string) => (
+    <TextField label={label} type="number" step={step} error={e[name]?.message} hint={hint} {...form.register(name, { valueAsNumber: true })} />
+  );
   const submit = form.handleSubmit(async ({ framePresets: _kept, ...values }) => {
     if (await server.run(() => save.mutateAsync(values))) form.reset(values as SettingsInput);
   });
@@ -70,35 +75,10 @@ function SettingsForm({ initial, readOnly }: { initial: StudioSettings; readOnly
           <option value="Letter">US Letter (8 1/2 × 11 in)</option>
         </SelectField>
         <TextField label="Currency" maxLength={3} error={e.currency?.message} hint="ISO 4217 code" {...form.register("currency")} />
-        <TextField
-          label="Minimum overlap (mm)"
-          type="number"
-          step="0.5"
-          error={e.minOverlapMm?.message}
-          hint="How far the window must cover the sheet on each overlapped side. 5 mm is common practice."
-          {...form.register("minOverlapMm", { valueAsNumber: true })}
-        />
-        <TextField
-          label="Condition check every (months)"
-          type="number"
-          error={e.checkIntervalMonths?.message}
-          hint="After the last check, or the mounting when there is none."
-          {...form.register("checkIntervalMonths", { valueAsNumber: true })}
-        />
-        <TextField
-          label="…for objects on loan (months)"
-          type="number"
-          error={e.checkIntervalOnLoanMonths?.message}
-          {...form.register("checkIntervalOnLoanMonths", { valueAsNumber: true })}
-        />
-        <TextField
-          label="Rebate clearance (mm, in total)"
-          type="number"
-          step="0.5"
-          error={e.rebateClearanceMm?.message}
-          hint="Added to the package size to give the frame rebate; 1–3 mm is usual."
-          {...form.register("rebateClearanceMm", { valueAsNumber: true })}
-        />
+        {numberField("minOverlapMm", "Minimum overlap (mm)", "How far the window must cover the sheet on each overlapped side. 5 mm is common practice.", "0.5")}
+        {numberField("checkIntervalMonths", "Condition check every (months)", "After the last check, or the mounting when there is none.")}
+        {numberField("checkIntervalOnLoanMonths", "…for objects on loan (months)")}
+        {numberField("rebateClearanceMm", "Rebate clearance (mm, in total)", "Added to the package size to give the frame rebate; 1–3 mm is usual.", "0.5")}
       </fieldset>
       {!readOnly && (
         <Button type="submit" disabled={form.formState.isSubmitting}>
