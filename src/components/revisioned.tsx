@@ -4,7 +4,7 @@ import { can, type Action, type Actor } from "@shared/permissions.ts";
 import type { ApiError } from "@/lib/api-client.ts";
 import { Button, ButtonLink } from "@/components/ui/button.tsx";
 import { TextAreaField } from "@/components/ui/field.tsx";
-import { Notice } from "@/components/ui/feedback.tsx";
+import { ErrorNotice, Notice } from "@/components/ui/feedback.tsx";
 
 /** Above a revisioned record's page or form: its object's number (a link to the object) and title. */
 export function ObjectLine({ objectId, objectNumber, title }: { objectId: string; objectNumber: string; title: string }) {
@@ -15,6 +15,30 @@ export function ObjectLine({ objectId, objectNumber, title }: { objectId: string
       </Link>{" "}
       · {title}
     </p>
+  );
+}
+
+/** A revisioned record's page head: its object, its title, a line of facts (status, who, revision…), and its actions on the right. */
+export function RecordHead({
+  record,
+  title,
+  facts,
+  actions,
+}: {
+  record: { objectId: string; objectNumber: string; objectTitle: string };
+  title: ReactNode;
+  facts: ReactNode;
+  actions?: ReactNode;
+}) {
+  return (
+    <header className="flex flex-wrap items-end justify-between gap-3">
+      <div>
+        <ObjectLine objectId={record.objectId} objectNumber={record.objectNumber} title={record.objectTitle} />
+        <h1 className="text-2xl font-bold tracking-tight">{title}</h1>
+        <p className="mt-1 flex flex-wrap items-center gap-2 text-sm text-graphite">{facts}</p>
+      </div>
+      {actions}
+    </header>
   );
 }
 
@@ -35,11 +59,7 @@ export function RevisionedFormHead({
 }) {
   return (
     <>
-      {error && (
-        <Notice tone="fail" title="Not saved">
-          {error.message}
-        </Notice>
-      )}
+      {error && <ErrorNotice title="Not saved" error={error} />}
       {correcting && (
         <div className="rounded-card bg-paper-sheet p-4 shadow-card">
           <Notice tone="info" title="A correction">
@@ -65,11 +85,7 @@ export function editGate<O extends { clientId: string | null }>(
   if (object.error || !object.data)
     return {
       ok: false,
-      refusal: (
-        <Notice tone="fail" title="Object not found">
-          {object.error?.message}
-        </Notice>
-      ),
+      refusal: <ErrorNotice title="Object not found" error={object.error} />,
     };
   if (!can(user, action, { clientId: object.data.clientId }))
     return {
@@ -89,15 +105,14 @@ export function editGate<O extends { clientId: string | null }>(
  */
 export function RevisionedActions({
   draft,
-  editTo,
-  correctTo,
+  recordTo,
   correctLabel,
   lock,
   children,
 }: {
   draft: boolean;
-  editTo: string;
-  correctTo: string;
+  /** The record's page; its draft is edited at …/edit and it is corrected at …/correct. */
+  recordTo: string;
   correctLabel: string;
   lock: { label: string; onLock: () => void; pending: boolean };
   children?: ReactNode;
@@ -105,7 +120,7 @@ export function RevisionedActions({
   return (
     <div className="flex flex-wrap gap-2">
       {draft && (
-        <ButtonLink to={editTo} variant="secondary">
+        <ButtonLink to={`${recordTo}/edit`} variant="secondary">
           Edit draft
         </ButtonLink>
       )}
@@ -115,7 +130,7 @@ export function RevisionedActions({
         </Button>
       )}
       {!draft && (
-        <ButtonLink to={correctTo} variant="secondary">
+        <ButtonLink to={`${recordTo}/correct`} variant="secondary">
           {correctLabel}
         </ButtonLink>
       )}

@@ -119,6 +119,10 @@ export function revisionedResolver<V extends FieldValues & { correctionReason: s
 }
 
 /** What a revisioned record's form is doing: a new draft, a draft rewritten in place, or a correction of a locked record. */
+/** The revision a record's page shows: the one picked in its revisions list (once the list has loaded), else the current one. */
+export const shownRevision = <C, R extends { revision: number }>(shown: number | null, revisions: R[] | undefined, current: C): C | R =>
+  shown !== null && revisions ? (revisions.find((r) => r.revision === shown) ?? current) : current;
+
 export type RevisionedFormMode = "new" | "draft" | "correct";
 
 /** The mode from the page's path: …/new, …/:id/edit (a draft) or …/:id/correct. */

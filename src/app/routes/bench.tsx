@@ -6,7 +6,7 @@ import { useObjects } from "@/features/objects/api/objects.ts";
 import { ObjectsTable } from "@/features/objects/components/objects-table.tsx";
 import { ButtonLink } from "@/components/ui/button.tsx";
 import { Card, EmptyState, Notice } from "@/components/ui/feedback.tsx";
-import { PageHeader, QueryView } from "@/components/ui/list-page.tsx";
+import { noItems, PageHeader, QueryView } from "@/components/ui/list-page.tsx";
 
 /** Bench: today's work — what is in the studio now. */
 export function Component() {
@@ -37,7 +37,7 @@ export function Component() {
         <QueryView
           query={inStudio}
           rows={5}
-          isEmpty={(d) => d.items.length === 0}
+          isEmpty={noItems}
           empty={
             <EmptyState title="Nothing in the studio" action={<ButtonLink to="/objects/new">Receive an object</ButtonLink>}>
               Objects you receive show here until they go back to their owner.

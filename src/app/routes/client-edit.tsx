@@ -7,8 +7,9 @@ import { useMe } from "@/features/session/api/session.ts";
 import { useClient, useSaveClient } from "@/features/clients/api/clients.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
 import { Button } from "@/components/ui/button.tsx";
-import { Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { ErrorNotice, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { useServerErrors } from "@/lib/form-errors.ts";
+import { EnumOptions } from "@/components/ui/options.tsx";
 
 function ClientForm({ initial }: { initial?: ClientRecord }) {
   const navigate = useNavigate();
@@ -35,17 +36,11 @@ function ClientForm({ initial }: { initial?: ClientRecord }) {
     <form onSubmit={submit} noValidate className="grid max-w-3xl gap-4 rounded-card bg-paper-sheet p-5 shadow-card md:grid-cols-2">
       {server.error && (
         <div className="col-span-full">
-          <Notice tone="fail" title="Not saved">
-            {server.error.message}
-          </Notice>
+          <ErrorNotice title="Not saved" error={server.error} />
         </div>
       )}
       <SelectField label="Kind" error={e.kind?.message} {...form.register("kind")}>
-        {CLIENT_KINDS.map((k) => (
-          <option key={k} value={k}>
-            {CLIENT_KIND_LABELS[k]}
-          </option>
-        ))}
+        <EnumOptions values={CLIENT_KINDS} labels={CLIENT_KIND_LABELS} />
       </SelectField>
       <TextField label="Name" error={e.name?.message} {...form.register("name")} />
       <TextField label="Contact person" error={e.contactName?.message} {...form.register("contactName")} />
@@ -76,7 +71,7 @@ export function Component() {
       </Notice>
     );
   if (id && client.isPending) return <SkeletonRows />;
-  if (id && client.isError) return <Notice tone="fail">{client.error.message}</Notice>;
+  if (id && client.isError) return <ErrorNotice error={client.error} />;
   return (
     <div className="space-y-5">
       <h1 className="text-2xl font-bold tracking-tight">{id ? "Edit client" : "New client"}</h1>

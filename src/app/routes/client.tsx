@@ -7,7 +7,7 @@ import { useClient } from "@/features/clients/api/clients.ts";
 import { useObjects } from "@/features/objects/api/objects.ts";
 import { ObjectsTable } from "@/features/objects/components/objects-table.tsx";
 import { ButtonLink } from "@/components/ui/button.tsx";
-import { Card, EmptyState, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { Card, EmptyState, ErrorNotice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { DocumentButton } from "@/features/documents/components/document-button.tsx";
 import { ExportsPanel } from "@/features/documents/components/exports-panel.tsx";
 
@@ -18,12 +18,7 @@ export function Component() {
   const client = useClient(id);
   const objects = useObjects({ clientId: id, pageSize: 100 });
   if (client.isPending) return <SkeletonRows />;
-  if (client.isError)
-    return (
-      <Notice tone="fail" title="Client not found">
-        {client.error.message}
-      </Notice>
-    );
+  if (client.isError) return <ErrorNotice title="Client not found" error={client.error} />;
   const c = client.data;
   return (
     <div className="space-y-6">

@@ -1,13 +1,14 @@
 import { Link, useParams, useSearchParams } from "react-router";
 import { useQuery } from "@tanstack/react-query";
-import { CONDITION_CONTEXT_LABELS, SEVERITY_LABELS, ZONE_LABELS, type Finding } from "@shared/schemas/condition.ts";
+import { CONDITION_CONTEXT_LABELS, SEVERITY_LABELS, ZONE_LABELS, type ConditionContext, type Finding } from "@shared/schemas/condition.ts";
 import type { ComparisonStatus } from "@shared/domain/condition.ts";
 import { PHOTO_KIND_LABELS } from "@shared/schemas/photos.ts";
 import { useObjectCondition, useComparison } from "@/features/condition/api/condition.ts";
 import { PhotoMarkers } from "@/features/condition/components/photo-markers.tsx";
 import { RatingBadge } from "@/features/condition/components/report-view.tsx";
 import { FilterSelect } from "@/components/ui/field.tsx";
-import { EmptyState, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { RecordOptions } from "@/components/ui/options.tsx";
+import { EmptyState, ErrorNotice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { formatDate } from "@/lib/format.ts";
 import { objectPhotosQuery } from "@/features/photos/api/photos.ts";
 
@@ -19,6 +20,20 @@ const STATUS: Record<ComparisonStatus, { label: string; mark: string; cls: strin
   "no-longer-seen": { label: "No longer seen", mark: "−", cls: "bg-pass-soft text-pass" },
 };
 const where = (f: Finding) => (f.location.kind === "zone" ? ZONE_LABELS[f.location.zone] : "on a photo");
+
+type SignedReport = { id: string; reportDate: string; context: ConditionContext };
+
+/** One end of the comparison: a signed report chosen by its date and context. */
+function ReportPicker({ label, value, reports, onPick }: { label: string; value: string; reports: SignedReport[]; onPick: (id: string) => void }) {
+  return (
+    <label className="flex items-center gap-2">
+      {label}{" "}
+      <FilterSelect value={value} onChange={(e) => onPick(e.target.value)}>
+        <RecordOptions items={reports} text={(r) => `${formatDate(r.reportDate)} · ${CONDITION_CONTEXT_LABELS[r.context]}`} />
+      </FilterSelect>
+    </label>
+  );
+}
 
 /** Two reports of one object side by side: what is new, worse, the same, better or gone. */
 export function Component() {
@@ -41,7 +56,6 @@ export function Component() {
       },
       { replace: true },
     );
-  const label = (r: (typeof signed)[number]) => `${formatDate(r.reportDate)} · ${CONDITION_CONTEXT_LABELS[r.context]}`;
   const counts: Partial<Record<ComparisonStatus, number>> = {};
   for (const f of cmp.data?.findings ?? []) counts[f.status] = (counts[f.status] ?? 0) + 1;
 
@@ -56,28 +70,10 @@ export function Component() {
         <h1 className="text-2xl font-bold tracking-tight">Compare condition reports</h1>
       </header>
       <div className="flex flex-wrap items-center gap-3 text-sm">
-        <label className="flex items-center gap-2">
-          Earlier{" "}
-          <FilterSelect value={from} onChange={(e) => pick("from", e.target.value)}>
-            {signed.map((r) => (
-              <option key={r.id} value={r.id}>
-                {label(r)}
-              </option>
-            ))}
-          </FilterSelect>
-        </label>
-        <label className="flex items-center gap-2">
-          Later{" "}
-          <FilterSelect value={to} onChange={(e) => pick("to", e.target.value)}>
-            {signed.map((r) => (
-              <option key={r.id} value={r.id}>
-                {label(r)}
-              </option>
-            ))}
-          </FilterSelect>
-        </label>
+        <ReportPicker label="Earlier" value={from} reports={signed} onPick={(v) => pick("from", v)} />
+        <ReportPicker label="Later" value={to} reports={signed} onPick={(v) => pick("to", v)} />
       </div>
-      {cmp.isError && <Notice tone="fail">{cmp.error.message}</Notice>}
+      {cmp.isError && <ErrorNotice error={cmp.error} />}
       {cmp.data && (
         <>
           <p className="flex flex-wrap gap-2 text-sm" data-testid="comparison-counts">

@@ -3,10 +3,9 @@ import { z } from "zod";
 import { CONDITION_CONTEXTS, CONDITION_CONTEXT_LABELS, ConditionListQuerySchema, RATINGS, RATING_LABELS } from "@shared/schemas/condition.ts";
 import { useConditionRegister, type ConditionRegisterItem } from "@/features/condition/api/condition.ts";
 import { RatingBadge } from "@/features/condition/components/report-view.tsx";
-import { FilterSelect } from "@/components/ui/field.tsx";
-import { DateFilter, EnumFilter } from "@/components/ui/filters.tsx";
-import { DataTable, type Column } from "@/components/ui/data-table.tsx";
-import { ListSection } from "@/components/ui/list-page.tsx";
+import { DateFilter, EnumFilter, RecordFilter } from "@/components/ui/filters.tsx";
+import { DataTable, objectNumberColumn, type Column } from "@/components/ui/data-table.tsx";
+import { ListSection, noItems } from "@/components/ui/list-page.tsx";
 import { EmptyState } from "@/components/ui/feedback.tsx";
 import { Pagination } from "@/components/ui/pagination.tsx";
 import { formatDate } from "@/lib/format.ts";
@@ -34,17 +33,7 @@ const COLUMNS: Column<ConditionRegisterItem>[] = [
       </Link>
     ),
   },
-  {
-    key: "number",
-    header: "Object number",
-    th: "whitespace-nowrap",
-    td: "whitespace-nowrap font-semibold num",
-    cell: (r) => (
-      <Link className={link} to={`/objects/${r.objectId}`}>
-        {r.objectNumber}
-      </Link>
-    ),
-  },
+  objectNumberColumn(),
   { key: "title", header: "Title", th: "whitespace-nowrap", cell: (r) => r.objectTitle },
   { key: "context", header: "Context", th: "whitespace-nowrap", td: "text-ink-soft", cell: (r) => CONDITION_CONTEXT_LABELS[r.context] },
   { key: "rating", header: "Rating", th: "whitespace-nowrap", cell: (r) => <RatingBadge rating={r.rating} /> },
@@ -69,14 +58,7 @@ export function Component() {
       <div className="flex flex-wrap items-center gap-3 text-sm">
         <EnumFilter label="Rating" any="Any rating" values={RATINGS} labels={RATING_LABELS} value={rating} onChange={(v) => set({ rating: v })} />
         <EnumFilter label="Context" any="Any context" values={CONDITION_CONTEXTS} labels={CONDITION_CONTEXT_LABELS} value={context} onChange={(v) => set({ context: v })} />
-        <FilterSelect aria-label="Examiner" value={examinerId ?? ""} onChange={(e) => set({ examinerId: e.target.value || undefined })}>
-          <option value="">Any examiner</option>
-          {q.data?.examiners.map((x) => (
-            <option key={x.id} value={x.id}>
-              {x.name}
-            </option>
-          ))}
-        </FilterSelect>
+        <RecordFilter label="Examiner" any="Any examiner" items={q.data?.examiners} value={examinerId} onChange={(v) => set({ examinerId: v })} />
         <DateFilter label="From " ariaLabel="From" wrapClassName="flex items-center gap-1" inputClassName={DATE_INPUT} value={from} onChange={(v) => set({ from: v })} />
         <DateFilter label="to " ariaLabel="To" wrapClassName="flex items-center gap-1" inputClassName={DATE_INPUT} value={to} onChange={(v) => set({ to: v })} />
         <label className="flex items-center gap-2">
@@ -89,7 +71,7 @@ export function Component() {
       <ListSection
         label="Condition reports"
         query={q}
-        isEmpty={(d) => d.items.length === 0}
+        isEmpty={noItems}
         empty={
           <EmptyState title="No condition reports match">Reports are written from an object's page, on arrival, before and after mounting, and at every hand-over.</EmptyState>
         }

@@ -7,12 +7,13 @@ import { useMe } from "@/features/session/api/session.ts";
 import { useObject } from "@/features/objects/api/objects.ts";
 import { useReport, useReportRevisions, useSignReport } from "@/features/condition/api/condition.ts";
 import { RatingBadge, ReportView } from "@/features/condition/components/report-view.tsx";
-import { Badge, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { Badge, ErrorNotice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { objectPhotosQuery } from "@/features/photos/api/photos.ts";
 import { DocumentButton } from "@/features/documents/components/document-button.tsx";
 import { formatDate, formatDateTime } from "@/lib/format.ts";
 import { RevisionsList } from "@/components/revisions-list.tsx";
-import { ObjectLine, RevisionedActions } from "@/components/revisioned.tsx";
+import { RecordHead, RevisionedActions } from "@/components/revisioned.tsx";
+import { shownRevision } from "@/lib/revisioned.ts";
 
 export function Component() {
   const { id = "" } = useParams();
@@ -25,52 +26,42 @@ export function Component() {
   const [shown, setShown] = useState<number | null>(null);
 
   if (r.isPending) return <SkeletonRows />;
-  if (r.isError)
-    return (
-      <Notice tone="fail" title="Condition report not found">
-        {r.error.message}
-      </Notice>
-    );
+  if (r.isError) return <ErrorNotice title="Condition report not found" error={r.error} />;
   const rep = r.data;
   const writable = !!object.data && can(user, "condition:write", { clientId: object.data.clientId });
-  const revision = shown !== null ? (revisions.data?.find((x) => x.revision === shown) ?? rep.current) : rep.current;
+  const revision = shownRevision(shown, revisions.data, rep.current);
 
   return (
     <div className="space-y-5">
-      <header className="flex flex-wrap items-end justify-between gap-3">
-        <div>
-          <ObjectLine objectId={rep.objectId} objectNumber={rep.objectNumber} title={rep.objectTitle} />
-          <h1 className="text-2xl font-bold tracking-tight">
-            Condition {CONDITION_CONTEXT_LABELS[rep.context].toLowerCase()} · {formatDate(rep.reportDate)}
-          </h1>
-          <p className="mt-1 flex flex-wrap items-center gap-2 text-sm text-graphite">
+      <RecordHead
+        record={rep}
+        title={`Condition ${CONDITION_CONTEXT_LABELS[rep.context].toLowerCase()} · ${formatDate(rep.reportDate)}`}
+        facts={
+          <>
             <Badge tone={rep.status === "signed" ? "accent" : "warn"}>{rep.status === "signed" ? "Signed" : "Draft"}</Badge>
             <RatingBadge rating={rep.rating} />
             <span>Examined by {rep.examinerName}</span>
             {rep.signedAt && <span>· signed {formatDateTime(rep.signedAt)}</span>}
             {rep.currentRevision > 1 && <span>· revision {rep.currentRevision}</span>}
-          </p>
-        </div>
-        <div className="flex flex-wrap items-start gap-2">
-          {rep.status === "signed" && (
-            <DocumentButton url={`/api/condition/${rep.id}/document`} label="Report for the insurer (PDF)" fallbackName={`condition-${rep.objectNumber}.pdf`} />
-          )}
-          {writable && (
-            <RevisionedActions
-              draft={rep.status === "draft"}
-              editTo={`/condition/${rep.id}/edit`}
-              correctTo={`/condition/${rep.id}/correct`}
-              correctLabel="Correct the report"
-              lock={{ label: "Sign and lock", onLock: () => sign.mutate(rep.version), pending: sign.isPending }}
-            />
-          )}
-        </div>
-      </header>
-      {sign.error && (
-        <Notice tone="fail" title="Not signed">
-          {sign.error.message}
-        </Notice>
-      )}
+          </>
+        }
+        actions={
+          <div className="flex flex-wrap items-start gap-2">
+            {rep.status === "signed" && (
+              <DocumentButton url={`/api/condition/${rep.id}/document`} label="Report for the insurer (PDF)" fallbackName={`condition-${rep.objectNumber}.pdf`} />
+            )}
+            {writable && (
+              <RevisionedActions
+                draft={rep.status === "draft"}
+                recordTo={`/condition/${rep.id}`}
+                correctLabel="Correct the report"
+                lock={{ label: "Sign and lock", onLock: () => sign.mutate(rep.version), pending: sign.isPending }}
+              />
+            )}
+          </div>
+        }
+      />
+      {sign.error && <ErrorNotice title="Not signed" error={sign.error} />}
       {revisions.data && <RevisionsList revisions={revisions.data} shown={revision.revision} onShow={setShown} />}
       <ReportView data={revision.data} photos={photos.data ?? []} cautions={rep.cautions} />
     </div>

@@ -1,4 +1,4 @@
-import { Link, Navigate } from "react-router";
+import { Navigate } from "react-router";
 import { CUSTODY_KINDS, CUSTODY_KIND_LABELS, CustodyPageSearchSchema } from "@shared/schemas/custody.ts";
 import { can } from "@shared/permissions.ts";
 import { useMe } from "@/features/session/api/session.ts";
@@ -6,8 +6,8 @@ import { useCustodyReceipts, useInStudio, type InStudioItem } from "@/features/c
 import { ReceiptsTable } from "@/features/custody/components/custody-list.tsx";
 import { ButtonLink } from "@/components/ui/button.tsx";
 import { ClearFilters, DateFilter, EnumFilter } from "@/components/ui/filters.tsx";
-import { DataTable, type Column } from "@/components/ui/data-table.tsx";
-import { PageHeader, QueryView } from "@/components/ui/list-page.tsx";
+import { DataTable, objectNumberColumn, type Column } from "@/components/ui/data-table.tsx";
+import { noItems, PageHeader, QueryView } from "@/components/ui/list-page.tsx";
 import { Card, EmptyState } from "@/components/ui/feedback.tsx";
 import { Pagination } from "@/components/ui/pagination.tsx";
 import { formatDate } from "@/lib/format.ts";
@@ -21,17 +21,7 @@ const DIRECTIONS = ["in", "out"] as const;
 const DIRECTION_LABELS = { in: "In", out: "Out" };
 
 const IN_STUDIO_COLUMNS: Column<InStudioItem>[] = [
-  {
-    key: "number",
-    header: "Object number",
-    th: "whitespace-nowrap",
-    td: "whitespace-nowrap font-semibold num",
-    cell: (o) => (
-      <Link to={`/objects/${o.objectId}`} className="text-accent hover:underline">
-        {o.objectNumber}
-      </Link>
-    ),
-  },
+  objectNumberColumn(),
   {
     key: "title",
     header: "Title",
@@ -90,7 +80,7 @@ export function Component() {
             query={inStudio}
             rows={5}
             errorTitle="The list could not be loaded"
-            isEmpty={(d) => d.items.length === 0}
+            isEmpty={noItems}
             empty={
               <EmptyState title="Nothing in the studio" action={<ButtonLink to="/objects">Find the object in the register</ButtonLink>}>
                 Every object the studio holds is listed here, the longest-held first, with who brought it in and its condition on arrival. When a work comes in, open it in the
@@ -127,7 +117,7 @@ export function Component() {
             query={receipts}
             rows={5}
             errorTitle="The receipts could not be loaded"
-            isEmpty={(d) => d.items.length === 0}
+            isEmpty={noItems}
             empty={
               filtered ? (
                 <EmptyState title="No receipt matches">Widen the dates, or clear the filters.</EmptyState>

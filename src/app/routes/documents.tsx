@@ -2,7 +2,7 @@ import { useAllDocuments } from "@/features/documents/api/documents.ts";
 import { DocumentsList } from "@/features/documents/components/documents-list.tsx";
 import { ButtonLink } from "@/components/ui/button.tsx";
 import { PageHeader } from "@/components/ui/list-page.tsx";
-import { Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { ErrorNotice, SkeletonRows } from "@/components/ui/feedback.tsx";
 
 export function Component() {
   const docs = useAllDocuments();
@@ -19,7 +19,7 @@ export function Component() {
         }
       />
       <section className="rounded-card bg-paper-sheet p-4 shadow-card">
-        {docs.isPending ? <SkeletonRows /> : docs.isError ? <Notice tone="fail">{docs.error.message}</Notice> : <DocumentsList items={docs.data} showObject />}
+        {docs.isPending ? <SkeletonRows /> : docs.isError ? <ErrorNotice error={docs.error} /> : <DocumentsList items={docs.data} showObject />}
       </section>
     </div>
   );

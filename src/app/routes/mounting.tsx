@@ -8,13 +8,14 @@ import { useStudio } from "@/features/settings/api/settings.ts";
 import { useObject } from "@/features/objects/api/objects.ts";
 import { useCompleteMounting, useMounting, useRemoveMounting, useRevisions } from "@/features/mountings/api/mountings.ts";
 import { MountingView } from "@/features/mountings/components/mounting-view.tsx";
-import { Badge, Card, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { Badge, Card, ErrorNotice, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { Button } from "@/components/ui/button.tsx";
 import { TextField } from "@/components/ui/field.tsx";
 import { formatDate } from "@/lib/format.ts";
 import { RevisionsList } from "@/components/revisions-list.tsx";
-import { ObjectLine, RevisionedActions } from "@/components/revisioned.tsx";
+import { RecordHead, RevisionedActions } from "@/components/revisioned.tsx";
 import { ApiError } from "@/lib/api-client.ts";
+import { shownRevision } from "@/lib/revisioned.ts";
 
 export function Component() {
   const { id = "" } = useParams();
@@ -31,27 +32,20 @@ export function Component() {
   const [endedOn, setEndedOn] = useState(studioToday);
 
   if (m.isPending || !settings) return <SkeletonRows />;
-  if (m.isError)
-    return (
-      <Notice tone="fail" title="Mounting record not found">
-        {m.error.message}
-      </Notice>
-    );
+  if (m.isError) return <ErrorNotice title="Mounting record not found" error={m.error} />;
   const rec = m.data;
   const writable = !!object.data && can(user, "mounting:write", { clientId: object.data.clientId });
   const revs = revisions.data;
-  const showing = shown !== null && revs ? (revs.find((r) => r.revision === shown) ?? rec.current) : rec.current;
+  const showing = shownRevision(shown, revs, rec.current);
   const error = complete.error ?? remove.error;
 
   return (
     <div className="space-y-5">
-      <header className="flex flex-wrap items-end justify-between gap-3">
-        <div>
-          <ObjectLine objectId={rec.objectId} objectNumber={rec.objectNumber} title={rec.objectTitle} />
-          <h1 className="text-2xl font-bold tracking-tight">
-            {MOUNTING_REASON_LABELS[rec.reason]} · {formatDate(rec.mountedOn)}
-          </h1>
-          <p className="mt-1 flex flex-wrap items-center gap-2 text-sm text-graphite">
+      <RecordHead
+        record={rec}
+        title={`${MOUNTING_REASON_LABELS[rec.reason]} · ${formatDate(rec.mountedOn)}`}
+        facts={
+          <>
             <Badge tone={rec.status === "completed" ? "accent" : rec.status === "draft" ? "warn" : "neutral"}>{MOUNTING_STATUS_LABELS[rec.status]}</Badge>
             <span>by {rec.framerName}</span>
             {rec.currentRevision > 1 && <span>· revision {rec.currentRevision}</span>}
@@ -66,29 +60,26 @@ export function Component() {
                 {rec.endReason ? `: ${rec.endReason}` : ""}
               </span>
             )}
-          </p>
-        </div>
-        {writable && (
-          <RevisionedActions
-            draft={rec.status === "draft"}
-            editTo={`/mountings/${rec.id}/edit`}
-            correctTo={`/mountings/${rec.id}/correct`}
-            correctLabel="Correct the record"
-            lock={{ label: "Complete and lock", onLock: () => complete.mutate(rec.version), pending: complete.isPending }}
-          >
-            {rec.status === "completed" && (
-              <Button variant="secondary" onClick={() => setRemoving(true)}>
-                Taken out of mount…
-              </Button>
-            )}
-          </RevisionedActions>
-        )}
-      </header>
-      {error && (
-        <Notice tone="fail" title="Not done">
-          {error.message}
-        </Notice>
-      )}
+          </>
+        }
+        actions={
+          writable && (
+            <RevisionedActions
+              draft={rec.status === "draft"}
+              recordTo={`/mountings/${rec.id}`}
+              correctLabel="Correct the record"
+              lock={{ label: "Complete and lock", onLock: () => complete.mutate(rec.version), pending: complete.isPending }}
+            >
+              {rec.status === "completed" && (
+                <Button variant="secondary" onClick={() => setRemoving(true)}>
+                  Taken out of mount…
+                </Button>
+              )}
+            </RevisionedActions>
+          )
+        }
+      />
+      {error && <ErrorNotice title="Not done" error={error} />}
       {rec.status === "draft" && (
         <Notice tone="warn" title="Draft">
           This record is a draft. Completing it locks it and makes it the object's current mount{writable ? "; any earlier mounting becomes superseded" : ""}.

@@ -1,4 +1,3 @@
-import { Link } from "react-router";
 import { ATTACHMENT_METHODS } from "@shared/schemas/mount-plan.ts";
 import {
   ATTACHMENT_METHOD_LABELS,
@@ -15,10 +14,10 @@ import { can } from "@shared/permissions.ts";
 import { useMe } from "@/features/session/api/session.ts";
 import { useMountingsRegister } from "@/features/mountings-register/api/mountings-register.ts";
 import { DocumentButton } from "@/features/documents/components/document-button.tsx";
-import { FilterSelect, SearchInput } from "@/components/ui/field.tsx";
-import { ClearFilters, DateFilter, EnumFilter } from "@/components/ui/filters.tsx";
-import { DataTable, type Column } from "@/components/ui/data-table.tsx";
-import { ListSection, PageHeader } from "@/components/ui/list-page.tsx";
+import { SearchInput } from "@/components/ui/field.tsx";
+import { ClearFilters, DateFilter, EnumFilter, RecordFilter } from "@/components/ui/filters.tsx";
+import { DataTable, objectNumberColumn, type Column } from "@/components/ui/data-table.tsx";
+import { ListSection, noItems, PageHeader } from "@/components/ui/list-page.tsx";
 import { ButtonLink } from "@/components/ui/button.tsx";
 import { Badge, EmptyState, Notice } from "@/components/ui/feedback.tsx";
 import { Pagination } from "@/components/ui/pagination.tsx";
@@ -54,17 +53,7 @@ function Batches({ m, searched }: { m: MountingListItem; searched?: string }) {
 
 const columns = (batch: string | undefined): Column<MountingListItem>[] => [
   { key: "mounted", header: "Mounted", align: "right", th: "whitespace-nowrap", td: "whitespace-nowrap num", cell: (m) => formatDate(m.mountedOn) },
-  {
-    key: "number",
-    header: "Object number",
-    th: "whitespace-nowrap",
-    td: "whitespace-nowrap font-semibold num",
-    cell: (m) => (
-      <Link to={`/objects/${m.objectId}`} className="text-accent hover:underline">
-        {m.objectNumber}
-      </Link>
-    ),
-  },
+  objectNumberColumn(),
   { key: "title", header: "Title", cell: (m) => m.objectTitle },
   { key: "framer", header: "Framer", td: "text-ink-soft", cell: (m) => m.framerName },
   { key: "reason", header: "Reason", td: "text-ink-soft", cell: (m) => label(MOUNTING_REASON_LABELS, m.reason) },
@@ -122,14 +111,7 @@ export function Component() {
           Board batch
         </label>
         <SearchInput id="mountings-batch" placeholder="Board batch, e.g. MB-2291" value={search.text} onChange={(e) => search.setText(e.target.value)} className="max-w-56" />
-        <FilterSelect aria-label="Framer" value={framerId ?? ""} onChange={(e) => update({ framerId: e.target.value || undefined })}>
-          <option value="">Any framer</option>
-          {list.data?.framers.map((f) => (
-            <option key={f.id} value={f.id}>
-              {f.name}
-            </option>
-          ))}
-        </FilterSelect>
+        <RecordFilter label="Framer" any="Any framer" items={list.data?.framers} value={framerId} onChange={(v) => update({ framerId: v })} />
         <DateFilter label="Mounted from" value={from} onChange={(v) => update({ from: v })} />
         <DateFilter label="to" value={to} onChange={(v) => update({ to: v })} />
         <EnumFilter label="Method" any="Any method" values={ATTACHMENT_METHODS} labels={ATTACHMENT_METHOD_LABELS} value={method} onChange={(v) => update({ method: v })} />
@@ -159,7 +141,7 @@ export function Component() {
         busy={list.isFetching}
         query={list}
         errorTitle="The mountings register could not be loaded"
-        isEmpty={(d) => d.items.length === 0}
+        isEmpty={noItems}
         empty={
           batch ? (
             <EmptyState title={`No mounting used board from batch ${batch}`}>

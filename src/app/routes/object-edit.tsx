@@ -5,7 +5,7 @@ import { useStudio } from "@/features/settings/api/settings.ts";
 import { useClients } from "@/features/clients/api/clients.ts";
 import { useObject, useUpdateObject } from "@/features/objects/api/objects.ts";
 import { ObjectForm, toFormValues } from "@/features/objects/components/object-form.tsx";
-import { Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { ErrorNotice, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
 
 export function Component() {
   const { id = "" } = useParams();
@@ -16,12 +16,7 @@ export function Component() {
   const update = useUpdateObject(id);
   const navigate = useNavigate();
 
-  if (object.isError)
-    return (
-      <Notice tone="fail" title="Object not found">
-        {object.error.message}
-      </Notice>
-    );
+  if (object.isError) return <ErrorNotice title="Object not found" error={object.error} />;
   if (!settings || object.isPending || clients.isPending) return <SkeletonRows />;
   const o = object.data;
   if (!can(user, "object:update", { clientId: o.clientId }))

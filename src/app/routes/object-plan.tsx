@@ -8,7 +8,7 @@ import { useObject } from "@/features/objects/api/objects.ts";
 import { useObjectPlan, useSavePlan } from "@/features/planner/api/plans.ts";
 import { Planner } from "@/features/planner/components/planner.tsx";
 import { defaultValues, fromInput, type PlannerValues } from "@/features/planner/lib/planner-values.ts";
-import { Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { ErrorNotice, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { formatDateTime } from "@/lib/format.ts";
 
 /** A new plan starts from the object record: its sheet, image area and sensitivities. */
@@ -39,12 +39,7 @@ export function Component() {
   const draft = useObjectPlan(id);
   const save = useSavePlan(id);
 
-  if (object.isError)
-    return (
-      <Notice tone="fail" title="Object not found">
-        {object.error.message}
-      </Notice>
-    );
+  if (object.isError) return <ErrorNotice title="Object not found" error={object.error} />;
   if (!settings || object.isPending || draft.isPending) return <SkeletonRows />;
   const o = object.data;
   const base = defaultValues(settings.unit, settings.minOverlapMm);

@@ -17,9 +17,9 @@ import { useObjects } from "@/features/objects/api/objects.ts";
 import { studioToday } from "@/lib/today.ts";
 import { useClients } from "@/features/clients/api/clients.ts";
 import { ObjectsTable, type SortKey } from "@/features/objects/components/objects-table.tsx";
-import { FilterSelect, SearchInput } from "@/components/ui/field.tsx";
-import { ClearFilters, EnumFilter } from "@/components/ui/filters.tsx";
-import { ListSection, PageHeader } from "@/components/ui/list-page.tsx";
+import { SearchInput } from "@/components/ui/field.tsx";
+import { ClearFilters, EnumFilter, RecordFilter } from "@/components/ui/filters.tsx";
+import { ListSection, noItems, PageHeader } from "@/components/ui/list-page.tsx";
 import { ButtonLink } from "@/components/ui/button.tsx";
 import { EmptyState } from "@/components/ui/feedback.tsx";
 import { Pagination } from "@/components/ui/pagination.tsx";
@@ -119,16 +119,7 @@ export function Component() {
           Search objects
         </label>
         <SearchInput id="register-search" placeholder="Object number, title or maker" value={search.text} onChange={(e) => search.setText(e.target.value)} className="max-w-sm" />
-        {studio && (
-          <FilterSelect aria-label="Owner" value={clientId ?? ""} onChange={(e) => update({ clientId: e.target.value || undefined })}>
-            <option value="">All owners</option>
-            {clients.data?.map((c) => (
-              <option key={c.id} value={c.id}>
-                {c.name}
-              </option>
-            ))}
-          </FilterSelect>
-        )}
+        {studio && <RecordFilter label="Owner" any="All owners" items={clients.data} value={clientId} onChange={(v) => update({ clientId: v })} />}
         <EnumFilter label="Status" any="Any status" values={OBJECT_STATUSES} labels={OBJECT_STATUS_LABELS} value={status} onChange={(v) => update({ status: v })} />
         <EnumFilter label="Object type" any="Any type" values={OBJECT_TYPES} labels={OBJECT_TYPE_LABELS} value={objectType} onChange={(v) => update({ objectType: v })} />
         <EnumFilter label="Method" any="Any method" values={REGISTER_METHODS} labels={ATTACHMENT_METHOD_LABELS} value={method} onChange={(v) => update({ method: v })} />
@@ -152,7 +143,7 @@ export function Component() {
         busy={list.isFetching}
         query={list}
         errorTitle="The register could not be loaded"
-        isEmpty={(d) => d.items.length === 0}
+        isEmpty={noItems}
         empty={
           due && !(debouncedQ || status || objectType || clientId || method || boardGrade || glazing) ? (
             <EmptyState title="No object is due for a check">Every object with a planned check has it after today.</EmptyState>

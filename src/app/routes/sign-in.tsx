@@ -5,7 +5,7 @@ import { SignInSchema, type SignIn } from "@shared/schemas/auth.ts";
 import { useMe, useSignIn } from "@/features/session/api/session.ts";
 import { TextField } from "@/components/ui/field.tsx";
 import { Button } from "@/components/ui/button.tsx";
-import { Notice } from "@/components/ui/feedback.tsx";
+import { ErrorNotice } from "@/components/ui/feedback.tsx";
 import { LogoMark } from "@/components/ui/logo.tsx";
 import { ApiError } from "@/lib/api-client.ts";
 
@@ -44,11 +44,7 @@ export function Component() {
           <p className="mt-1 text-sm text-graphite">Mount plans, mounting history and condition records for works on paper.</p>
         </div>
         <form onSubmit={onSubmit} noValidate className="space-y-4 rounded-card bg-paper-sheet p-6 shadow-card">
-          {error && (
-            <Notice tone="fail" title={error instanceof ApiError && error.status === 429 ? "Too many attempts" : "Not signed in"}>
-              {error.message}
-            </Notice>
-          )}
+          {error && <ErrorNotice title={error instanceof ApiError && error.status === 429 ? "Too many attempts" : "Not signed in"} error={error} />}
           <TextField label="E-mail address" type="email" autoComplete="username" autoFocus error={errors.email?.message} {...form.register("email")} />
           <TextField label="Password" type="password" autoComplete="current-password" error={errors.password?.message} {...form.register("password")} />
           <Button type="submit" className="w-full" disabled={signIn.isPending}>

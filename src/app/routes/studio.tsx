@@ -1,4 +1,4 @@
-import { useState } from "react";
+import { type ReactNode, useState } from "react";
 import { useForm } from "react-hook-form";
 import { lengthInputValue, parseLength } from "@shared/domain/units.ts";
 import { zodResolver } from "@hookform/resolvers/zod";
@@ -6,38 +6,51 @@ import { StudioSettingsSchema, type StudioSettings, type StudioSettingsRecord } 
 import type { z } from "zod";
 
 type SettingsInput = z.input<typeof StudioSettingsSchema>;
+type NumberSetting = "minOverlapMm" | "checkIntervalMonths" | "checkIntervalOnLoanMonths" | "rebateClearanceMm";
 import { can } from "@shared/permissions.ts";
 import { useMe } from "@/features/session/api/session.ts";
 import { useRemoveLogo, useSaveSettings, useSettings, useUploadLogo } from "@/features/settings/api/settings.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
 import { Button } from "@/components/ui/button.tsx";
 import { Segmented } from "@/components/ui/segmented.tsx";
-import { Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { ErrorNotice, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { useServerErrors } from "@/lib/form-errors.ts";
 import { useSaveTerm, useTerms } from "@/features/condition/api/condition.ts";
 import { UsersPanel } from "@/features/settings/components/users-panel.tsx";
 import { useClients } from "@/features/clients/api/clients.ts";
+import { SettingsSection } from "@/features/settings/components/settings-section.tsx";
+
+/** A save's outcome: "Saved" with what was saved, or why it was not. */
+function SaveNotices({ saved, error, children }: { saved: boolean; error: Error | null; children: ReactNode }) {
+  return (
+    <>
+      {saved && (
+        <Notice tone="pass" title="Saved">
+          {children}
+        </Notice>
+      )}
+      {error && <ErrorNotice title="Not saved" error={error} />}
+    </>
+  );
+}
 
 function SettingsForm({ initial, readOnly }: { initial: StudioSettings; readOnly: boolean }) {
   const save = useSaveSettings();
   const form = useForm<SettingsInput, unknown, StudioSettings>({ resolver: zodResolver(StudioSettingsSchema), defaultValues: initial });
   const e = form.formState.errors;
   const server = useServerErrors(form);
+  /** A number setting, read back as a number; `step` where it takes halves (the millimetre ones). */
+  const numberField = (name: NumberSetting, label: string, hint?: string, step?: string) => (
+    <TextField label={label} type="number" step={step} error={e[name]?.message} hint={hint} {...form.register(name, { valueAsNumber: true })} />
+  );
   const submit = form.handleSubmit(async ({ framePresets: _kept, ...values }) => {
     if (await server.run(() => save.mutateAsync(values))) form.reset(values as SettingsInput);
   });
   return (
     <form onSubmit={submit} noValidate className="max-w-3xl space-y-4">
-      {save.isSuccess && !form.formState.isDirty && (
-        <Notice tone="pass" title="Saved">
-          The studio settings are saved.
-        </Notice>
-      )}
-      {save.isError && (
-        <Notice tone="fail" title="Not saved">
-          {save.error.message}
-        </Notice>
-      )}
+      <SaveNotices saved={save.isSuccess && !form.formState.isDirty} error={save.error}>
+        The studio settings are saved.
+      </SaveNotices>
       <fieldset disabled={readOnly} className="grid gap-4 rounded-card bg-paper-sheet p-5 shadow-card md:grid-cols-2">
         <h2 className="col-span-full text-base font-semibold">Studio</h2>
         <TextField label="Studio name" error={e.studioName?.message} {...form.register("studioName")} />
@@ -62,35 +75,10 @@ function SettingsForm({ initial, readOnly }: { initial: StudioSettings; readOnly
           <option value="Letter">US Letter (8 1/2 × 11 in)</option>
         </SelectField>
         <TextField label="Currency" maxLength={3} error={e.currency?.message} hint="ISO 4217 code" {...form.register("currency")} />
-        <TextField
-          label="Minimum overlap (mm)"
-          type="number"
-          step="0.5"
-          error={e.minOverlapMm?.message}
-          hint="How far the window must cover the sheet on each overlapped side. 5 mm is common practice."
-          {...form.register("minOverlapMm", { valueAsNumber: true })}
-        />
-        <TextField
-          label="Condition check every (months)"
-          type="number"
-          error={e.checkIntervalMonths?.message}
-          hint="After the last check, or the mounting when there is none."
-          {...form.register("checkIntervalMonths", { valueAsNumber: true })}
-        />
-        <TextField
-          label="…for objects on loan (months)"
-          type="number"
-          error={e.checkIntervalOnLoanMonths?.message}
-          {...form.register("checkIntervalOnLoanMonths", { valueAsNumber: true })}
-        />
-        <TextField
-          label="Rebate clearance (mm, in total)"
-          type="number"
-          step="0.5"
-          error={e.rebateClearanceMm?.message}
-          hint="Added to the package size to give the frame rebate; 1–3 mm is usual."
-          {...form.register("rebateClearanceMm", { valueAsNumber: true })}
-        />
+        {numberField("minOverlapMm", "Minimum overlap (mm)", "How far the window must cover the sheet on each overlapped side. 5 mm is common practice.", "0.5")}
+        {numberField("checkIntervalMonths", "Condition check every (months)", "After the last check, or the mounting when there is none.")}
+        {numberField("checkIntervalOnLoanMonths", "…for objects on loan (months)")}
+        {numberField("rebateClearanceMm", "Rebate clearance (mm, in total)", "Added to the package size to give the frame rebate; 1–3 mm is usual.", "0.5")}
       </fieldset>
       {!readOnly && (
         <Button type="submit" disabled={form.formState.isSubmitting}>
@@ -114,8 +102,7 @@ function Vocabulary({ readOnly }: { readOnly: boolean }) {
     save.mutate({ list, term: draft.trim(), caution: null, active: true }, { onSuccess: () => setDraft(""), onError: (e) => setError(e.message) });
   };
   return (
-    <section className="max-w-3xl space-y-3 rounded-card bg-paper-sheet p-5 shadow-card" aria-label="Condition vocabulary">
-      <h2 className="text-base font-semibold">Condition vocabulary</h2>
+    <SettingsSection title="Condition vocabulary">
       <p className="text-sm text-graphite">The words findings are recorded in. Photographs use both lists. A retired term stays on old reports but is no longer offered.</p>
       <Segmented
         kind="tab"
@@ -154,7 +141,7 @@ function Vocabulary({ readOnly }: { readOnly: boolean }) {
         </div>
       )}
       <p className="text-xs text-graphite">▲ shows a handling caution (mould, insects) on reports with that finding.</p>
-    </section>
+    </SettingsSection>
   );
 }
 
@@ -188,19 +175,11 @@ function FramePresets({ settings, readOnly }: { settings: StudioSettingsRecord; 
     if (Object.keys(errs).length === 0) save.mutate({ ...settings, framePresets: presets });
   }
   return (
-    <section className="max-w-3xl space-y-3 rounded-card bg-paper-sheet p-5 shadow-card" aria-label="The studio's frame sizes">
-      <h2 className="text-base font-semibold">The studio's frame sizes</h2>
+    <SettingsSection title="The studio's frame sizes">
       <p className="text-sm text-graphite">Ready-made sizes the studio stocks; the planner offers them beside the standard ones. Sizes in {u === "in" ? "inches" : "mm"}.</p>
-      {save.isSuccess && (
-        <Notice tone="pass" title="Saved">
-          The frame sizes are saved.
-        </Notice>
-      )}
-      {save.isError && (
-        <Notice tone="fail" title="Not saved">
-          {save.error.message}
-        </Notice>
-      )}
+      <SaveNotices saved={save.isSuccess} error={save.error}>
+        The frame sizes are saved.
+      </SaveNotices>
       {rows.length === 0 && <p className="text-sm text-graphite">No sizes yet.</p>}
       {rows.map((r, i) => (
         // biome-ignore lint/suspicious/noArrayIndexKey: the inputs are controlled and errors are addressed by row number, so position is the row's identity
@@ -232,7 +211,7 @@ function FramePresets({ settings, readOnly }: { settings: StudioSettingsRecord; 
           </Button>
         </div>
       )}
-    </section>
+    </SettingsSection>
   );
 }
 
@@ -244,8 +223,7 @@ function Logo({ hasLogo, version }: { hasLogo: boolean; version: number }) {
   const error = upload.error?.message ?? remove.error?.message ?? null;
   const busy = upload.isPending || remove.isPending;
   return (
-    <section className="max-w-3xl space-y-3 rounded-card bg-paper-sheet p-5 shadow-card" aria-label="Logo on documents">
-      <h2 className="text-base font-semibold">Logo on documents</h2>
+    <SettingsSection title="Logo on documents">
       <p className="text-sm text-graphite">
         Shown beside the studio's name at the top of every document. A PNG or JPEG of at most 2 MB and 4000 × 4000 pixels; it is stored as a PNG 600 pixels wide at most.
       </p>
@@ -296,7 +274,7 @@ function Logo({ hasLogo, version }: { hasLogo: boolean; version: number }) {
           Uploading the logo…
         </p>
       )}
-    </section>
+    </SettingsSection>
   );
 }
 
@@ -304,7 +282,7 @@ export function Component() {
   const { data: user } = useMe();
   const settings = useSettings();
   if (settings.isPending) return <SkeletonRows />;
-  if (settings.isError) return <Notice tone="fail">{settings.error.message}</Notice>;
+  if (settings.isError) return <ErrorNotice error={settings.error} />;
   const readOnly = !can(user, "settings:update");
   return (
     <div className="space-y-5">

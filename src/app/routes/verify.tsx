@@ -4,7 +4,7 @@ import { useVerification } from "@/features/documents/api/documents.ts";
 import { LogoMark } from "@/components/ui/logo.tsx";
 import { Button } from "@/components/ui/button.tsx";
 import { TextField } from "@/components/ui/field.tsx";
-import { Notice, Skeleton } from "@/components/ui/feedback.tsx";
+import { ErrorNotice, Notice, Skeleton } from "@/components/ui/feedback.tsx";
 import { formatDateTime } from "@/lib/format.ts";
 
 /** Public: anyone holding a Reversa document can check that it was issued, for which object and when. */
@@ -41,11 +41,7 @@ export function Component() {
       </form>
       <div className="mt-6" aria-live="polite">
         {code && v.isPending && <Skeleton className="h-16 w-full" />}
-        {v.isError && (
-          <Notice tone="fail" title="Could not check">
-            {v.error.message}
-          </Notice>
-        )}
+        {v.isError && <ErrorNotice title="Could not check" error={v.error} />}
         {v.data &&
           (v.data.valid ? (
             <Notice tone="pass" title="This document was issued by the studio">

@@ -1,4 +1,5 @@
 import type { ReactNode } from "react";
+import { Link } from "react-router";
 
 export type Column<T> = {
   key: string;
@@ -12,6 +13,21 @@ export type Column<T> = {
   /** A header cell of its own (e.g. one that sorts), in place of the plain one. */
   head?: ReactNode;
 };
+
+/** The registers' first column: the object's number, linked to its page. */
+export function objectNumberColumn<T extends { objectId: string; objectNumber: string }>(): Column<T> {
+  return {
+    key: "number",
+    header: "Object number",
+    th: "whitespace-nowrap",
+    td: "whitespace-nowrap font-semibold num",
+    cell: (row) => (
+      <Link to={`/objects/${row.objectId}`} className="text-accent hover:underline">
+        {row.objectNumber}
+      </Link>
+    ),
+  };
+}
 
 const STICKY_HEAD = "sticky top-0 z-10 bg-paper-sheet text-ink-soft shadow-[0_1px_0_var(--color-stone)]";
 const PLAIN_HEAD = "border-b border-stone text-ink-soft";

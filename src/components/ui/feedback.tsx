@@ -24,6 +24,15 @@ export function Notice({ tone = "info", title, children }: { tone?: Tone; title?
   );
 }
 
+/** A failure: its title (or "Problem") and the error's message. */
+export function ErrorNotice({ title, error }: { title?: string; error: { message: string } | null | undefined }) {
+  return (
+    <Notice tone="fail" title={title}>
+      {error?.message}
+    </Notice>
+  );
+}
+
 export function EmptyState({ title, children, action }: { title: string; children?: ReactNode; action?: ReactNode }) {
   return (
     <div className="rounded-card border border-dashed border-stone bg-paper-sheet px-6 py-10 text-center">

@@ -1,5 +1,6 @@
 import type { ReactNode } from "react";
 import { FilterSelect } from "./field.tsx";
+import { RecordOptions, byName } from "./options.tsx";
 
 /** A filter over one of the shared lists: "any" first, then each value by its label. */
 export function EnumFilter<T extends string>({
@@ -26,6 +27,28 @@ export function EnumFilter<T extends string>({
           {name(v)}
         </option>
       ))}
+    </FilterSelect>
+  );
+}
+
+/** A filter over records (an owner, a framer, an examiner): "any" first, then each by its name. */
+export function RecordFilter({
+  label,
+  any,
+  items,
+  value,
+  onChange,
+}: {
+  label: string;
+  any: string;
+  items: readonly { id: string; name: string }[] | undefined;
+  value: string | undefined;
+  onChange: (value: string | undefined) => void;
+}) {
+  return (
+    <FilterSelect aria-label={label} value={value ?? ""} onChange={(e) => onChange(e.target.value || undefined)}>
+      <option value="">{any}</option>
+      <RecordOptions items={items ?? []} text={byName} />
     </FilterSelect>
   );
 }

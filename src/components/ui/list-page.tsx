@@ -1,5 +1,5 @@
 import type { ReactNode } from "react";
-import { Notice, SkeletonRows } from "./feedback.tsx";
+import { ErrorNotice, SkeletonRows } from "./feedback.tsx";
 
 /** A page's title, its one-line purpose, and its actions on the right. */
 export function PageHeader({ title, intro, actions, gap = "gap-4" }: { title: ReactNode; intro?: ReactNode; actions?: ReactNode; gap?: "gap-3" | "gap-4" }) {
@@ -13,6 +13,9 @@ export function PageHeader({ title, intro, actions, gap = "gap-4" }: { title: Re
     </header>
   );
 }
+
+/** The usual `isEmpty` of a paged list: no items on this page. */
+export const noItems = (page: { items: readonly unknown[] }) => page.items.length === 0;
 
 type Query<T> = { isPending: boolean; isError: boolean; error: Error | null; data: T | undefined };
 
@@ -38,12 +41,7 @@ export function QueryView<T>({
 }) {
   const pad = (node: ReactNode) => (padded ? <div className="p-4">{node}</div> : node);
   if (query.isPending) return <SkeletonRows rows={rows} />;
-  if (query.isError || query.data === undefined)
-    return pad(
-      <Notice tone="fail" title={errorTitle}>
-        {query.error?.message}
-      </Notice>,
-    );
+  if (query.isError || query.data === undefined) return pad(<ErrorNotice title={errorTitle} error={query.error} />);
   if (isEmpty(query.data)) return pad(empty);
   return <>{children(query.data)}</>;
 }

@@ -27,6 +27,7 @@ import { errorAt, useServerErrors } from "@/lib/form-errors.ts";
 import { RevisionedFormHead } from "@/components/revisioned.tsx";
 import { revisionedResolver, type RevisionedFormMode } from "@/lib/revisioned.ts";
 import { PhotoMarkers } from "./photo-markers.tsx";
+import { EnumOptions, RecordOptions } from "@/components/ui/options.tsx";
 
 export type ReportFormValues = {
   context: string;
@@ -132,20 +133,12 @@ export function ReportForm({ mode, objectType, photos, terms, mountings, examine
         />
         <section className="grid grid-cols-2 gap-3 rounded-card bg-paper-sheet p-4 shadow-card">
           <SelectField label="Context" disabled={mode === "correct"} error={err("context")} {...register("context")}>
-            {CONDITION_CONTEXTS.map((c) => (
-              <option key={c} value={c}>
-                {CONDITION_CONTEXT_LABELS[c]}
-              </option>
-            ))}
+            <EnumOptions values={CONDITION_CONTEXTS} labels={CONDITION_CONTEXT_LABELS} />
           </SelectField>
           <TextField label="Date examined" type="date" disabled={mode === "correct"} error={err("reportDate")} {...register("reportDate")} />
           <SelectField label="Mounting record" wrapClassName="col-span-2" disabled={mode === "correct"} error={err("mountingId")} {...register("mountingId")}>
             <option value="">None</option>
-            {mountings.map((m) => (
-              <option key={m.id} value={m.id}>
-                {m.label}
-              </option>
-            ))}
+            <RecordOptions items={mountings} text={(m) => m.label} />
           </SelectField>
         </section>
 
@@ -192,11 +185,7 @@ export function ReportForm({ mode, objectType, photos, terms, mountings, examine
                     ))}
                   </SelectField>
                   <SelectField label="Severity" error={err(`data.findings.${i}.severity`)} {...register(`data.findings.${i}.severity`)}>
-                    {SEVERITIES.map((s) => (
-                      <option key={s} value={s}>
-                        {SEVERITY_LABELS[s]}
-                      </option>
-                    ))}
+                    <EnumOptions values={SEVERITIES} labels={SEVERITY_LABELS} />
                   </SelectField>
                   {loc?.kind === "marker" ? (
                     <div className="col-span-2 flex items-center justify-between text-sm">
@@ -209,11 +198,7 @@ export function ReportForm({ mode, objectType, photos, terms, mountings, examine
                     </div>
                   ) : (
                     <SelectField label="Where" error={err(`data.findings.${i}.location.zone`)} {...register(`data.findings.${i}.location.zone` as Path<ReportFormValues>)}>
-                      {ZONES.map((z) => (
-                        <option key={z} value={z}>
-                          {ZONE_LABELS[z]}
-                        </option>
-                      ))}
+                      <EnumOptions values={ZONES} labels={ZONE_LABELS} />
                     </SelectField>
                   )}
                   <TextField label="Extent" error={err(`data.findings.${i}.extent`)} hint="e.g. 12 mm, three spots" {...register(`data.findings.${i}.extent`)} />

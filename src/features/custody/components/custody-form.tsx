@@ -15,6 +15,7 @@ import {
 } from "@shared/schemas/custody.ts";
 import type { ObjectStatus } from "@shared/schemas/objects.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
+import { EnumOptions } from "@/components/ui/options.tsx";
 import { Button, FormActions } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
 import { useServerErrors } from "@/lib/form-errors.ts";
@@ -152,11 +153,7 @@ function ReceiptForm({ objectId, status, ownerName, studioName, onDone, onCancel
       )}
       <div className="grid gap-4 md:grid-cols-2">
         <SelectField label="Hand-over" error={e.kind?.message} {...kindField}>
-          {kinds.map((k) => (
-            <option key={k} value={k}>
-              {CUSTODY_KIND_LABELS[k]}
-            </option>
-          ))}
+          <EnumOptions values={kinds} labels={CUSTODY_KIND_LABELS} />
         </SelectField>
         <TextField label="Date" type="date" className="num" error={e.date?.message} hint="The day the object changed hands" {...register("date")} />
         <TextField label="From" autoComplete="off" error={e.fromParty?.message} hint="Who handed the object over" {...register("fromParty")} />

@@ -1,7 +1,7 @@
 import type { ReactNode } from "react";
 import { Link } from "react-router";
 import { CUSTODY_KIND_LABELS, type CustodyKind, type CustodyReceipt } from "@shared/schemas/custody.ts";
-import { Badge, EmptyState, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { Badge, EmptyState, ErrorNotice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { DataTable, type Column } from "@/components/ui/data-table.tsx";
 import { formatDate } from "@/lib/format.ts";
 import { useObjectCustody } from "../api/custody.ts";
@@ -25,12 +25,7 @@ export function DirectionBadge({ direction }: { direction: "in" | "out" }) {
 export function CustodyList({ objectId, actions }: { objectId: string; actions?: (r: CustodyReceipt) => ReactNode }) {
   const q = useObjectCustody(objectId);
   if (q.isPending) return <SkeletonRows rows={3} />;
-  if (q.isError)
-    return (
-      <Notice tone="fail" title="The receipts could not be loaded">
-        {q.error.message}
-      </Notice>
-    );
+  if (q.isError) return <ErrorNotice title="The receipts could not be loaded" error={q.error} />;
   if (q.data.length === 0)
     return (
       <EmptyState title="No receipts yet">

@@ -1,7 +1,7 @@
 import { useState } from "react";
 import { Link } from "react-router";
 import { EVENT_TYPE_LABELS, type EventType, type HistoryEvent } from "@shared/schemas/history.ts";
-import { EmptyState, Notice, SkeletonRows } from "@/components/ui/feedback.tsx";
+import { EmptyState, ErrorNotice, SkeletonRows } from "@/components/ui/feedback.tsx";
 import { Button } from "@/components/ui/button.tsx";
 import { formatDate, formatDateTime } from "@/lib/format.ts";
 import { useHistory } from "../api/history.ts";
@@ -45,7 +45,7 @@ export function Timeline({ objectId }: { objectId: string }) {
       {q.isPending ? (
         <SkeletonRows rows={4} />
       ) : q.isError ? (
-        <Notice tone="fail">{q.error.message}</Notice>
+        <ErrorNotice error={q.error} />
       ) : items.length === 0 ? (
         <EmptyState title={group === 0 ? "No history yet" : "Nothing of this kind yet"}>
           Every mounting, reframing, condition check and move of this object is listed here, newest first.

@@ -1,5 +1,5 @@
 import { useMemo } from "react";
-import { useFieldArray, useForm, useWatch } from "react-hook-form";
+import { type FieldPath, useFieldArray, useForm, useWatch } from "react-hook-form";
 import { studioToday } from "@/lib/today.ts";
 import {
   BACKING_TYPES,
@@ -30,6 +30,7 @@ import { errorAt, useServerErrors } from "@/lib/form-errors.ts";
 import { RevisionedFormHead } from "@/components/revisioned.tsx";
 import { revisionedResolver, type RevisionedFormMode } from "@/lib/revisioned.ts";
 import { ADHESIVE_LABELS, ATTACHMENT_METHOD_LABELS as ATTACHMENT_LABELS } from "@shared/schemas/mountings.ts";
+import { EnumOptions } from "@/components/ui/options.tsx";
 
 type FormData = Omit<MountingDataInput, "plan">;
 export type MountingFormValues = { reason: string; mountedOn: string; correctionReason: string; data: FormData };
@@ -90,6 +91,10 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
   const watched = useWatch({ control }) as MountingFormValues;
   const e = formState.errors;
   const err = (p: string) => errorAt(e, p);
+  /** A measure typed as a decimal; an emptied field is null. */
+  const measure = (path: FieldPath<MountingFormValues>, label: string, className?: string) => (
+    <TextField label={label} inputMode="decimal" className={className} error={err(path)} {...register(path, num)} />
+  );
 
   // Live: the plan recomputed with the materials as they are chosen, the same function the server uses.
   const live = useMemo(() => {
@@ -167,11 +172,7 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
         />
         <section className="grid grid-cols-2 gap-3 rounded-card bg-paper-sheet p-4 shadow-card">
           <SelectField label="Reason" disabled={mode === "correct"} error={err("reason")} {...register("reason")}>
-            {MOUNTING_REASONS.map((r) => (
-              <option key={r} value={r}>
-                {MOUNTING_REASON_LABELS[r]}
-              </option>
-            ))}
+            <EnumOptions values={MOUNTING_REASONS} labels={MOUNTING_REASON_LABELS} />
           </SelectField>
           <TextField label="Date mounted" type="date" disabled={mode === "correct"} error={err("mountedOn")} {...register("mountedOn")} />
         </section>
@@ -187,22 +188,13 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
           <h2 className="font-semibold">Attachment</h2>
           <div className="grid grid-cols-2 gap-3">
             <SelectField label="Method" error={err("data.attachment.method")} {...register("data.attachment.method")}>
-              {ATTACHMENT_METHODS.map((m) => (
-                <option key={m} value={m}>
-                  {ATTACHMENT_LABELS[m]}
-                </option>
-              ))}
+              <EnumOptions values={ATTACHMENT_METHODS} labels={ATTACHMENT_LABELS} />
             </SelectField>
             <SelectField label="Adhesive" error={err("data.attachment.adhesive")} {...register("data.attachment.adhesive", { setValueAs: (v) => (v === "" ? null : v) })}>
-              <option value="">None given</option>
-              {ADHESIVES.map((a) => (
-                <option key={a} value={a}>
-                  {ADHESIVE_LABELS[a]}
-                </option>
-              ))}
+              <EnumOptions values={ADHESIVES} labels={ADHESIVE_LABELS} blank="None given" />
             </SelectField>
             <TextField label="Tissue" error={err("data.attachment.tissue")} {...register("data.attachment.tissue")} />
-            <TextField label="Tissue weight (g/m²)" inputMode="decimal" error={err("data.attachment.tissueWeightGsm")} {...register("data.attachment.tissueWeightGsm", num)} />
+            {measure("data.attachment.tissueWeightGsm", "Tissue weight (g/m²)")}
           </div>
           {HINGED.includes(method) && (
             <div className="space-y-2">
@@ -232,20 +224,8 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
                       </option>
                     ))}
                   </SelectField>
-                  <TextField
-                    label="From corner"
-                    inputMode="decimal"
-                    className="num"
-                    error={err(`data.attachment.hinges.${i}.offsetMm`)}
-                    {...register(`data.attachment.hinges.${i}.offsetMm`, num)}
-                  />
-                  <TextField
-                    label="Width"
-                    inputMode="decimal"
-                    className="num"
-                    error={err(`data.attachment.hinges.${i}.widthMm`)}
-                    {...register(`data.attachment.hinges.${i}.widthMm`, num)}
-                  />
+                  {measure(`data.attachment.hinges.${i}.offsetMm`, "From corner", "num")}
+                  {measure(`data.attachment.hinges.${i}.widthMm`, "Width", "num")}
                   <Button variant="quiet" aria-label={`Remove hinge ${i + 1}`} onClick={() => hinges.remove(i)}>
                     Remove
                   </Button>
@@ -258,32 +238,20 @@ export function MountingForm({ mode, planInput, settings, catalogue, initial, on
         <section className="grid grid-cols-2 gap-3 rounded-card bg-paper-sheet p-4 shadow-card">
           <h2 className="col-span-full font-semibold">Glazing, spacer and frame</h2>
           <SelectField label="Glazing" error={err("data.glazing.type")} {...register("data.glazing.type")}>
-            {GLAZING_TYPES.map((g) => (
-              <option key={g} value={g}>
-                {GLAZING_TYPE_LABELS[g]}
-              </option>
-            ))}
+            <EnumOptions values={GLAZING_TYPES} labels={GLAZING_TYPE_LABELS} />
           </SelectField>
-          <TextField label="Glazing thickness (mm)" inputMode="decimal" error={err("data.glazing.thicknessMm")} {...register("data.glazing.thicknessMm", num)} />
+          {measure("data.glazing.thicknessMm", "Glazing thickness (mm)")}
           <TextField label="Spacer" error={err("data.spacer.type")} {...register("data.spacer.type")} />
-          <TextField label="Spacer depth (mm)" inputMode="decimal" error={err("data.spacer.depthMm")} {...register("data.spacer.depthMm", num)} />
+          {measure("data.spacer.depthMm", "Spacer depth (mm)")}
           <TextField label="Moulding" error={err("data.frame.moulding")} {...register("data.frame.moulding")} />
           <TextField label="Finish" error={err("data.frame.finish")} {...register("data.frame.finish")} />
-          <TextField label="Moulding face (mm)" inputMode="decimal" error={err("data.frame.faceWidthMm")} {...register("data.frame.faceWidthMm", num)} />
-          <TextField label="Rebate depth (mm)" inputMode="decimal" error={err("data.frame.rebateDepthMm")} {...register("data.frame.rebateDepthMm", num)} />
+          {measure("data.frame.faceWidthMm", "Moulding face (mm)")}
+          {measure("data.frame.rebateDepthMm", "Rebate depth (mm)")}
           <SelectField label="Backing" error={err("data.backing.type")} {...register("data.backing.type")}>
-            {BACKING_TYPES.map((b) => (
-              <option key={b} value={b}>
-                {BACKING_TYPE_LABELS[b]}
-              </option>
-            ))}
+            <EnumOptions values={BACKING_TYPES} labels={BACKING_TYPE_LABELS} />
           </SelectField>
           <SelectField label="Sealing" error={err("data.sealing.type")} {...register("data.sealing.type")}>
-            {SEALING_TYPES.map((b) => (
-              <option key={b} value={b}>
-                {SEALING_TYPE_LABELS[b]}
-              </option>
-            ))}
+            <EnumOptions values={SEALING_TYPES} labels={SEALING_TYPE_LABELS} />
           </SelectField>
           <TextField label="Hanging hardware" error={err("data.hanging.hardware")} {...register("data.hanging.hardware")} />
           <TextField label="Wire" error={err("data.hanging.wire")} {...register("data.hanging.wire")} />

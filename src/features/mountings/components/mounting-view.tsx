@@ -17,6 +17,15 @@ function Row({ label, children }: { label: string; children: ReactNode }) {
   );
 }
 
+/** A row whose value is a figure, set in the tabular numerals. */
+function NumRow({ label, children }: { label: string; children: ReactNode }) {
+  return (
+    <Row label={label}>
+      <span className="num">{children}</span>
+    </Row>
+  );
+}
+
 const boardLine = (b: Board) =>
   [BOARD_GRADE_LABELS[b.grade], `${b.ply}-ply`, b.buffered ? "buffered" : "unbuffered", b.colour, b.maker, b.batch && `batch ${b.batch}`, b.patPassed ? "PAT passed" : null]
     .filter(Boolean)
@@ -52,29 +61,13 @@ export function MountingView({ revision, settings }: { revision: MountingRevisio
       </div>
       <div className="space-y-3">
         <dl className="rounded-card bg-paper-sheet p-4 text-sm shadow-card">
-          <Row label="Sheet">
-            <span className="num">{plan.display.sheet}</span>
-          </Row>
-          <Row label="Window (aperture)">
-            <span className="num">{plan.display.aperture}</span>
-          </Row>
-          <Row label="Overlap L · T · R · B">
-            <span className="num">{SIDES.map((s) => plan.display[`overlap.${s}`]).join(" · ")}</span>
-          </Row>
-          <Row label="Borders L · T · R · B">
-            <span className="num">{SIDES.map((s) => plan.display[`borders.${s}`]).join(" · ")}</span>
-          </Row>
-          {plan.display.topWindow && (
-            <Row label="Top board window">
-              <span className="num">{plan.display.topWindow}</span>
-            </Row>
-          )}
-          <Row label="Outer = glazing = backing">
-            <span className="num">{plan.display.outer}</span>
-          </Row>
-          <Row label="Rebate">
-            <span className="num">{plan.display.rebate}</span>
-          </Row>
+          <NumRow label="Sheet">{plan.display.sheet}</NumRow>
+          <NumRow label="Window (aperture)">{plan.display.aperture}</NumRow>
+          <NumRow label="Overlap L · T · R · B">{SIDES.map((s) => plan.display[`overlap.${s}`]).join(" · ")}</NumRow>
+          <NumRow label="Borders L · T · R · B">{SIDES.map((s) => plan.display[`borders.${s}`]).join(" · ")}</NumRow>
+          {plan.display.topWindow && <NumRow label="Top board window">{plan.display.topWindow}</NumRow>}
+          <NumRow label="Outer = glazing = backing">{plan.display.outer}</NumRow>
+          <NumRow label="Rebate">{plan.display.rebate}</NumRow>
           <Row label="Window board">{boardLine(d.boards.window)}</Row>
           {d.boards.top && <Row label="Top board">{boardLine(d.boards.top)}</Row>}
           <Row label="Backing board">{boardLine(d.boards.backing)}</Row>

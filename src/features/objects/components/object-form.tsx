@@ -21,7 +21,8 @@ import { minorDigits, parseMoney } from "@shared/domain/money.ts";
 import { issuesToFields } from "@shared/schemas/errors.ts";
 import { SelectField, TextAreaField, TextField } from "@/components/ui/field.tsx";
 import { FormActions } from "@/components/ui/button.tsx";
-import { EnumOptions } from "@/components/ui/options.tsx";
+import { CheckboxGroup } from "@/components/ui/checkbox-group.tsx";
+import { EnumOptions, RecordOptions, byName } from "@/components/ui/options.tsx";
 import { Segmented } from "@/components/ui/segmented.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
 import { useServerErrors } from "@/lib/form-errors.ts";
@@ -198,17 +199,7 @@ export function ObjectForm({ defaultValues, studioUnit, clients, canEditOwner, s
           <TextField label={`Bottom (${unit})`} inputMode="decimal" className="num" error={e.borderBottomMm?.message} {...register("borderBottomMm")} />
         </div>
         <TextAreaField label="Thickness and flatness" wrapClassName="mt-4" error={e.thicknessNotes?.message} {...register("thicknessNotes")} />
-        <fieldset className="mt-4">
-          <legend className="mb-1 text-sm font-medium text-ink-soft">Sensitivities</legend>
-          <div className="flex flex-wrap gap-4">
-            {SENSITIVITIES.map((s) => (
-              <label key={s} className="inline-flex items-center gap-2 text-sm">
-                <input type="checkbox" value={s} className="h-4 w-4 accent-[var(--color-accent)]" {...register("sensitivities")} />
-                {SENSITIVITY_LABELS[s]}
-              </label>
-            ))}
-          </div>
-        </fieldset>
+        <CheckboxGroup legend="Sensitivities" className="mt-4" values={SENSITIVITIES} labels={SENSITIVITY_LABELS} field={register("sensitivities")} />
       </fieldset>
 
       <fieldset className="grid gap-4 rounded-card bg-paper-sheet p-5 shadow-card md:grid-cols-3">
@@ -216,11 +207,7 @@ export function ObjectForm({ defaultValues, studioUnit, clients, canEditOwner, s
         <h2 className="col-span-full text-base font-semibold">Owner and whereabouts</h2>
         <SelectField label="Owner" disabled={!canEditOwner} error={e.clientId?.message} {...register("clientId")}>
           <option value="">Choose the owner…</option>
-          {clients.map((c) => (
-            <option key={c.id} value={c.id}>
-              {c.name}
-            </option>
-          ))}
+          <RecordOptions items={clients} text={byName} />
         </SelectField>
         <SelectField
           label="Status"

@@ -1,11 +1,12 @@
 import { forwardRef, useCallback, useEffect, useId, useImperativeHandle, useLayoutEffect, useRef, useState, type KeyboardEvent, type PointerEvent } from "react";
 import { PHOTO_KINDS, PHOTO_KIND_LABELS, type Photo, type PhotoKind } from "@shared/schemas/photos.ts";
 import { Button, buttonClass } from "@/components/ui/button.tsx";
-import { Notice } from "@/components/ui/feedback.tsx";
+import { ErrorNotice } from "@/components/ui/feedback.tsx";
 import { SelectField, TextField } from "@/components/ui/field.tsx";
 import { formatDate } from "@/lib/format.ts";
 import { ApiError } from "@/lib/api-client.ts";
 import { useUpdatePhoto } from "../api/photos.ts";
+import { EnumOptions } from "@/components/ui/options.tsx";
 
 /** The web version's longest side (server/features/photos/photos.service.ts, VERSION_MAX_SIDE.web). */
 const WEB_MAX_SIDE = 2048;
@@ -355,11 +356,7 @@ function EditPhoto({ photo }: { photo: Photo }) {
       }}
     >
       <SelectField label="Kind" value={kind} onChange={(e) => setKind(e.target.value as PhotoKind)} wrapClassName="w-48">
-        {PHOTO_KINDS.map((k) => (
-          <option key={k} value={k}>
-            {PHOTO_KIND_LABELS[k]}
-          </option>
-        ))}
+        <EnumOptions values={PHOTO_KINDS} labels={PHOTO_KIND_LABELS} />
       </SelectField>
       <TextField
         label="Caption"
@@ -373,11 +370,7 @@ function EditPhoto({ photo }: { photo: Photo }) {
         {update.isPending ? "Saving…" : "Save"}
       </Button>
       <div className="basis-full empty:hidden">
-        {update.isError && (
-          <Notice tone="fail" title="The change was not saved">
-            {update.error.message}
-          </Notice>
-        )}
+        {update.isError && <ErrorNotice title="The change was not saved" error={update.error} />}
         {update.isSuccess && !changed && <p className="text-sm text-pass">✓ Saved.</p>}
       </div>
     </form>

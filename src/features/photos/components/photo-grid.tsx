@@ -1,6 +1,6 @@
 import { useState } from "react";
 import { PHOTO_KIND_LABELS } from "@shared/schemas/photos.ts";
-import { Badge, EmptyState, Notice, Skeleton } from "@/components/ui/feedback.tsx";
+import { Badge, EmptyState, ErrorNotice, Skeleton } from "@/components/ui/feedback.tsx";
 import { useObjectPhotos } from "../api/photos.ts";
 import { Lightbox, photoLabel, takenLine } from "./lightbox.tsx";
 
@@ -26,12 +26,7 @@ export function PhotoGrid({ objectId, reportId, canUpload = false }: Props) {
         ))}
       </div>
     );
-  if (q.isError)
-    return (
-      <Notice tone="fail" title="The photos could not be loaded">
-        {q.error.message}
-      </Notice>
-    );
+  if (q.isError) return <ErrorNotice title="The photos could not be loaded" error={q.error} />;
   const photos = q.data;
   if (photos.length === 0)
     return (

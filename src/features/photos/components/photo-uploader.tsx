@@ -5,6 +5,7 @@ import { Button } from "@/components/ui/button.tsx";
 import { Notice } from "@/components/ui/feedback.tsx";
 import { formatDate } from "@/lib/format.ts";
 import { photoKeys, uploadErrorMessage, uploadPhoto, type PhotoUploadFields, type UploadProgress } from "../api/photos.ts";
+import { EnumOptions } from "@/components/ui/options.tsx";
 
 // What the file picker offers; the server judges every file by its bytes anyway.
 const ACCEPT = "image/jpeg,image/png,image/webp,image/tiff,.jpg,.jpeg,.png,.webp,.tif,.tiff";
@@ -261,11 +262,7 @@ function UploadRow({ item, onChange, onStart, onRemove }: { item: Item; onChange
               onChange={(e) => onChange({ kind: e.target.value as PhotoKind })}
               className="block w-full rounded-card border border-stone bg-paper-sheet px-2 py-1.5 text-sm text-ink focus:border-accent focus:outline-none focus:ring-2 focus:ring-accent/30 disabled:bg-paper-deep disabled:text-graphite"
             >
-              {PHOTO_KINDS.map((k) => (
-                <option key={k} value={k}>
-                  {PHOTO_KIND_LABELS[k]}
-                </option>
-              ))}
+              <EnumOptions values={PHOTO_KINDS} labels={PHOTO_KIND_LABELS} />
             </select>
           </div>
           <div>

@@ -2,6 +2,7 @@ import { SIDES } from "@shared/schemas/mount-plan.ts";
 import { FRAME_PRESETS } from "@shared/domain/mount-plan/index.ts";
 import { SelectField, TextField } from "@/components/ui/field.tsx";
 import { Group, SIDE_LABEL, type SectionProps } from "./planner-parts.tsx";
+import { RecordOptions } from "@/components/ui/options.tsx";
 
 /** The borders: all round, top-sides-bottom, each side, or fitted to a frame; weighting and a double mount. */
 export function BordersSection({ register, values, settings, errors, L, u, applyPreset }: SectionProps) {
@@ -44,11 +45,7 @@ export function BordersSection({ register, values, settings, errors, L, u, apply
             )}
             {[...new Set(FRAME_PRESETS.map((p) => p.group))].map((g) => (
               <optgroup key={g} label={g}>
-                {FRAME_PRESETS.filter((p) => p.group === g).map((p) => (
-                  <option key={p.id} value={p.id}>
-                    {p.label}
-                  </option>
-                ))}
+                <RecordOptions items={FRAME_PRESETS.filter((p) => p.group === g)} text={(p) => p.label} />
               </optgroup>
             ))}
           </SelectField>

@@ -1,6 +1,7 @@
 import { STANDARD_BOARD_SHEETS } from "@shared/domain/mount-plan/index.ts";
 import { SelectField, TextField } from "@/components/ui/field.tsx";
 import { Group, type SectionProps } from "./planner-parts.tsx";
+import { RecordOptions } from "@/components/ui/options.tsx";
 
 /** Glazing, spacer and the frame's {rebate}, lip and moulding. */
 export function FrameSection({ register, settings, L, u }: SectionProps) {
@@ -34,11 +35,7 @@ export function BoardSection({ register, values, L, u, applyPreset }: SectionPro
     <Group title="Board sheet and yield" open={false}>
       <SelectField label="Full sheet" {...register("board.preset", { onChange: (e) => applyPreset("board", e.target.value) })}>
         <option value="">Not needed</option>
-        {STANDARD_BOARD_SHEETS.map((b) => (
-          <option key={b.id} value={b.id}>
-            {b.label}
-          </option>
-        ))}
+        <RecordOptions items={STANDARD_BOARD_SHEETS} text={(b) => b.label} />
         <option value="custom">Other size</option>
       </SelectField>
       {values.board.preset && (

@@ -3,6 +3,8 @@ import { OBJECT_TYPES, OBJECT_TYPE_LABELS, PHOTO_PROCESSES, PHOTO_PROCESS_LABELS
 import { ADHESIVE_LABELS, ATTACHMENT_METHOD_LABELS } from "@shared/schemas/mountings.ts";
 import { SelectField, TextField } from "@/components/ui/field.tsx";
 import { Group, type SectionProps } from "./planner-parts.tsx";
+import { CheckboxGroup } from "@/components/ui/checkbox-group.tsx";
+import { EnumOptions } from "@/components/ui/options.tsx";
 
 /** The object and the materials, which the conservation checks read. */
 export function MaterialsSection({ register, values }: SectionProps) {
@@ -10,33 +12,13 @@ export function MaterialsSection({ register, values }: SectionProps) {
     <Group title="Object and materials (for the checks)" open={false}>
       <div className="grid grid-cols-2 gap-3">
         <SelectField label="Object type" {...register("object.objectType")}>
-          <option value="">Not given</option>
-          {OBJECT_TYPES.map((t) => (
-            <option key={t} value={t}>
-              {OBJECT_TYPE_LABELS[t]}
-            </option>
-          ))}
+          <EnumOptions values={OBJECT_TYPES} labels={OBJECT_TYPE_LABELS} blank="Not given" />
         </SelectField>
         <SelectField label="Photographic process" disabled={values.object.objectType !== "photograph"} {...register("object.photoProcess")}>
-          <option value="">—</option>
-          {PHOTO_PROCESSES.map((p) => (
-            <option key={p} value={p}>
-              {PHOTO_PROCESS_LABELS[p]}
-            </option>
-          ))}
+          <EnumOptions values={PHOTO_PROCESSES} labels={PHOTO_PROCESS_LABELS} blank="—" />
         </SelectField>
       </div>
-      <fieldset>
-        <legend className="mb-1 text-sm font-medium text-ink-soft">Sensitivities</legend>
-        <div className="flex flex-wrap gap-3">
-          {SENSITIVITIES.map((s) => (
-            <label key={s} className="inline-flex items-center gap-1.5 text-sm">
-              <input type="checkbox" value={s} className="h-4 w-4" {...register("object.sensitivities")} />
-              {SENSITIVITY_LABELS[s]}
-            </label>
-          ))}
-        </div>
-      </fieldset>
+      <CheckboxGroup legend="Sensitivities" look="compact" values={SENSITIVITIES} labels={SENSITIVITY_LABELS} field={register("object.sensitivities")} />
       <div className="grid grid-cols-2 gap-3">
         <SelectField label="Board grade" {...register("materials.boardGrade")}>
           <option value="">Not chosen</option>
@@ -55,20 +37,10 @@ export function MaterialsSection({ register, values }: SectionProps) {
           <option value="no">No</option>
         </SelectField>
         <SelectField label="Attachment" {...register("materials.attachment")}>
-          <option value="">Not chosen</option>
-          {ATTACHMENT_METHODS.map((m) => (
-            <option key={m} value={m}>
-              {ATTACHMENT_METHOD_LABELS[m]}
-            </option>
-          ))}
+          <EnumOptions values={ATTACHMENT_METHODS} labels={ATTACHMENT_METHOD_LABELS} blank="Not chosen" />
         </SelectField>
         <SelectField label="Adhesive" {...register("materials.adhesive")}>
-          <option value="">Not chosen</option>
-          {ADHESIVES.map((a) => (
-            <option key={a} value={a}>
-              {ADHESIVE_LABELS[a]}
-            </option>
-          ))}
+          <EnumOptions values={ADHESIVES} labels={ADHESIVE_LABELS} blank="Not chosen" />
         </SelectField>
         <TextField label="Number of hinges" inputMode="numeric" {...register("materials.hingeCount")} />
       </div>

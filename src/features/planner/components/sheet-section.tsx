@@ -2,6 +2,7 @@ import { SIDES } from "@shared/schemas/mount-plan.ts";
 import { SHEET_PRESETS } from "@shared/domain/mount-plan/index.ts";
 import { SelectField } from "@/components/ui/field.tsx";
 import { Group, SIDE_LABEL, type SectionProps } from "./planner-parts.tsx";
+import { RecordOptions } from "@/components/ui/options.tsx";
 
 /** The sheet: a standard size or its own, and the border around the image. */
 export function SheetSection({ register, values, L, u, applyPreset }: SectionProps) {
@@ -9,11 +10,7 @@ export function SheetSection({ register, values, L, u, applyPreset }: SectionPro
     <Group title="Sheet">
       <SelectField label="Preset" value="" onChange={(e) => applyPreset("sheet", e.target.value)}>
         <option value="">Choose a standard size…</option>
-        {SHEET_PRESETS.map((p) => (
-          <option key={p.id} value={p.id}>
-            {p.label}
-          </option>
-        ))}
+        <RecordOptions items={SHEET_PRESETS} text={(p) => p.label} />
       </SelectField>
       <div className="grid grid-cols-2 gap-3">
         {L("sheetW", `Sheet width (${u})`)}

@@ -7,10 +7,12 @@ import type { ClientRecord } from "@shared/schemas/clients.ts";
 import type { z } from "zod";
 import { SelectField, TextField } from "@/components/ui/field.tsx";
 import { Button } from "@/components/ui/button.tsx";
-import { Notice } from "@/components/ui/feedback.tsx";
+import { ErrorNotice, Notice } from "@/components/ui/feedback.tsx";
 import { ApiError } from "@/lib/api-client.ts";
 import { useServerErrors } from "@/lib/form-errors.ts";
 import { useCreateUser, useUsers } from "../api/users.ts";
+import { EnumOptions, RecordOptions, byName } from "@/components/ui/options.tsx";
+import { SettingsSection } from "./settings-section.tsx";
 
 type Input = z.input<typeof UserCreateSchema>;
 
@@ -35,8 +37,7 @@ export function UsersPanel({ clients }: { clients: ClientRecord[] }) {
   });
   const choices = clients.filter((c) => (role === "collector" ? c.kind === "private" : c.kind === "institution"));
   return (
-    <section className="max-w-3xl space-y-3 rounded-card bg-paper-sheet p-5 shadow-card" aria-label="People and roles">
-      <h2 className="text-base font-semibold">People and roles</h2>
+    <SettingsSection title="People and roles">
       <ul className="divide-y divide-stone-light text-sm" data-testid="users">
         {(users.data ?? []).map((u) => (
           <li key={u.id} className="flex flex-wrap justify-between gap-2 py-1.5">
@@ -55,20 +56,12 @@ export function UsersPanel({ clients }: { clients: ClientRecord[] }) {
           {done}
         </Notice>
       )}
-      {create.isError && !(create.error instanceof ApiError && Object.keys(create.error.fields).length) && (
-        <Notice tone="fail" title="Not made">
-          {create.error.message}
-        </Notice>
-      )}
+      {create.isError && !(create.error instanceof ApiError && Object.keys(create.error.fields).length) && <ErrorNotice title="Not made" error={create.error} />}
       <form onSubmit={submit} noValidate className="grid gap-3 md:grid-cols-2">
         <TextField label="Name" error={e.name?.message} {...form.register("name")} />
         <TextField label="E-mail address" type="email" error={e.email?.message} {...form.register("email")} />
         <SelectField label="Role" error={e.role?.message} {...form.register("role")}>
-          {ROLES.map((r) => (
-            <option key={r} value={r}>
-              {ROLE_LABELS[r]}
-            </option>
-          ))}
+          <EnumOptions values={ROLES} labels={ROLE_LABELS} />
         </SelectField>
         <SelectField
           label="Client"
@@ -77,11 +70,7 @@ export function UsersPanel({ clients }: { clients: ClientRecord[] }) {
           {...form.register("clientId", { setValueAs: (v) => (v === "" ? null : v) })}
         >
           <option value="">{role === "collector" || role === "registrar" ? "Choose…" : "— (studio staff)"}</option>
-          {choices.map((c) => (
-            <option key={c.id} value={c.id}>
-              {c.name}
-            </option>
-          ))}
+          <RecordOptions items={choices} text={byName} />
         </SelectField>
         <TextField
           label="First password"
@@ -97,6 +86,6 @@ export function UsersPanel({ clients }: { clients: ClientRecord[] }) {
           </Button>
         </div>
       </form>
-    </section>
+    </SettingsSection>
   );
 }
