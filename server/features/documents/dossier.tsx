@@ -9,12 +9,10 @@ import {
   ADHESIVE_LABELS,
   ATTACHMENT_METHOD_LABELS,
   BACKING_TYPE_LABELS,
-  BOARD_GRADE_LABELS,
   GLAZING_TYPE_LABELS,
   MOUNTING_REASON_LABELS,
   MOUNTING_STATUS_LABELS,
   SEALING_TYPE_LABELS,
-  type Board,
   type MountingData,
   type MountingRecord,
 } from "../../../shared/schemas/mountings.ts";
@@ -356,29 +354,26 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
         ) : null}
 
         <Text style={s.h2}>Mounting history</Text>
-        {mountings.length === 0 ? (
-          <Text style={para}>No mounting has been recorded.</Text>
-        ) : (
-          <Table
-            cols={[
-              { label: "Date", width: 58 },
-              { label: "Status", width: 58 },
-              { label: "Reason", width: 80 },
-              { label: "Framer", width: 72 },
-              { label: "Summary", flex: 1 },
-            ]}
-            rows={mountings.map((m) => {
-              const ended = m.endedOn ? ` Ended ${m.endedOn}${m.endReason ? `: ${m.endReason}` : ""}` : "";
-              return [
-                m.mountedOn,
-                MOUNTING_STATUS_LABELS[m.status],
-                MOUNTING_REASON_LABELS[m.reason],
-                m.framerName ?? "—",
-                `${mountSummary(m.current.data, m.current.plan)}.${ended}`,
-              ];
-            })}
-          />
-        )}
+        <Table
+          empty="No mounting has been recorded."
+          cols={[
+            { label: "Date", width: 58 },
+            { label: "Status", width: 58 },
+            { label: "Reason", width: 80 },
+            { label: "Framer", width: 72 },
+            { label: "Summary", flex: 1 },
+          ]}
+          rows={mountings.map((m) => {
+            const ended = m.endedOn ? ` Ended ${m.endedOn}${m.endReason ? `: ${m.endReason}` : ""}` : "";
+            return [
+              m.mountedOn,
+              MOUNTING_STATUS_LABELS[m.status],
+              MOUNTING_REASON_LABELS[m.reason],
+              m.framerName ?? "—",
+              `${mountSummary(m.current.data, m.current.plan)}.${ended}`,
+            ];
+          })}
+        />
       </DocShell>
     ),
   });
