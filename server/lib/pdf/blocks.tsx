@@ -65,6 +65,19 @@ export function KV({ label, children, labelWidth = 130 }: { label: string; child
   );
 }
 
+/** Label–value rows with one label width; as with KV, a row without a value is left out. */
+export function KVRows({ rows, labelWidth }: { rows: [label: string, value: ReactNode][]; labelWidth?: number }) {
+  return (
+    <>
+      {rows.map(([label, value]) => (
+        <KV key={label} label={label} labelWidth={labelWidth}>
+          {value}
+        </KV>
+      ))}
+    </>
+  );
+}
+
 /** A simple table: column widths in points or flex weights. With `empty`, no rows is that sentence instead of an empty table. */
 export function Table({ cols, rows, empty }: { cols: { label: string; width?: number; flex?: number; align?: "left" | "right" }[]; rows: ReactNode[][]; empty?: string }) {
   if (empty !== undefined && rows.length === 0) return <Text style={para}>{empty}</Text>;
