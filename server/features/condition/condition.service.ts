@@ -21,7 +21,7 @@ import { AppError, conflict, notFound } from "../../lib/errors.ts";
 import { assertCan } from "../../middleware/require-permission.ts";
 import { getSettings } from "../settings/settings.repo.ts";
 import { findObject, type ObjectRow } from "../objects/objects.repo.ts";
-import { recordFields, revisionedService, revisionFields } from "../revisioned/revisioned.service.ts";
+import { lockMessages, recordFields, revisionedService, revisionFields } from "../revisioned/revisioned.service.ts";
 import { appendEvent } from "../history/history.chain.ts";
 import * as repo from "./condition.repo.ts";
 
@@ -117,11 +117,7 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
     actions: { read: "condition:read", write: "condition:write" },
     what: "That condition report",
     stale: STALE,
-    messages: {
-      locked: "This condition report is signed and locked; make a correction instead, with a reason.",
-      alreadyLocked: "This condition report is already signed.",
-      draftCorrected: "A draft is edited directly; corrections are for signed reports.",
-    },
+    messages: lockMessages("condition report", "signed", "signed reports"),
     versionFirst: true,
     dataOf: (r) => r.data,
     toRevision,

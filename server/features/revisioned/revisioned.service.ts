@@ -44,6 +44,15 @@ export type RevisionedFeature<Row extends RecordBase, Rev extends RevisionBase, 
   toRecord(row: Row, o: ObjectRow, current: OutRev): Out;
 };
 
+/** The life cycle's 409 messages in a feature's words: `lockMessages("mounting record", "completed", "completed records")`. */
+export function lockMessages(record: string, locked: string, lockedRecords: string): RevisionedFeature<RecordBase, RevisionBase, unknown, unknown, { data: unknown }>["messages"] {
+  return {
+    locked: `This ${record} is ${locked} and locked; make a correction instead, with a reason.`,
+    alreadyLocked: `This ${record} is already ${locked}.`,
+    draftCorrected: `A draft is edited directly; corrections are for ${lockedRecords}.`,
+  };
+}
+
 /** The fields every revision answers with; `data` as the feature reads it. */
 export function revisionFields<D>(r: RevisionBase, data: D): Revision<D> {
   return { revision: r.revision, data, correctionReason: r.correctionReason, createdAt: r.createdAt.toISOString(), createdByName: r.createdByName };
