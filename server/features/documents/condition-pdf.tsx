@@ -14,7 +14,7 @@ import { getSettings } from "../settings/settings.repo.ts";
 import { createObjectsService } from "../objects/objects.service.ts";
 import { createConditionService } from "../condition/condition.service.ts";
 import { findPhoto } from "../photos/photos.repo.ts";
-import { createDocumentsService } from "./documents.service.ts";
+import { aboutObject, createDocumentsService } from "./documents.service.ts";
 import { and, desc, eq, isNotNull, lte } from "drizzle-orm";
 import { custodyReceipts } from "../../db/schema.ts";
 import { mountingInPlaceOn } from "../mountings/mountings.repo.ts";
@@ -79,9 +79,7 @@ export async function issueConditionReport(db: Db, config: Pick<Config, "uploads
     title: `Condition report ${object.objectNumber}, ${report.reportDate}`,
     user,
     inHistory: opts.inHistory,
-    objectId: object.id,
-    objectNumber: object.objectNumber,
-    clientId: object.clientId,
+    ...aboutObject(object),
     render: (meta) => (
       <DocShell meta={meta}>
         <Text style={s.h1}>{object.title}</Text>

@@ -34,7 +34,7 @@ import { findMounting } from "../mountings/mountings.repo.ts";
 import { createMountPlansService } from "../mount-plans/mount-plans.service.ts";
 import { createConditionService } from "../condition/condition.service.ts";
 import { findPhoto, listForObject as photosOfObject } from "../photos/photos.repo.ts";
-import { createDocumentsService } from "./documents.service.ts";
+import { aboutObject, createDocumentsService } from "./documents.service.ts";
 import { Caution, KV, KVRows, Lines, para, RatingTag, Table, VerdictTag } from "../../lib/pdf/blocks.tsx";
 import { boardLine, FindingsTable, loadPhoto, PhotoGrid, recommendationRows, valuationLine, type LoadedPhoto } from "./record-blocks.tsx";
 import { NOT_TREATMENT } from "./condition-pdf.tsx";
@@ -164,9 +164,7 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
     title: `Object dossier ${object.objectNumber}`,
     user,
     inHistory: opts.inHistory,
-    objectId: object.id,
-    objectNumber: object.objectNumber,
-    clientId: object.clientId,
+    ...aboutObject(object),
     render: (meta) => (
       <DocShell meta={meta}>
         <Text style={s.h1}>{object.title}</Text>
