@@ -15,7 +15,7 @@ import {
   type Term,
 } from "../../../shared/schemas/condition.ts";
 import { compareFindings, nextCheckDue, type ComparedFinding } from "../../../shared/domain/condition.ts";
-import type { Correction, RevisionWithChanges } from "../../../shared/schemas/revisioned.ts";
+import type { Correction } from "../../../shared/schemas/revisioned.ts";
 import { can, isStudio } from "../../../shared/permissions.ts";
 import { AppError, conflict, notFound } from "../../lib/errors.ts";
 import { assertCan } from "../../middleware/require-permission.ts";
@@ -169,9 +169,7 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
   }
 
   return {
-    listForObject: (user: SessionUser, objectId: string): ConditionReport[] => life.listForObject(user, objectId, repo.reportsOfObject),
-    get: (user: SessionUser, id: string): ConditionReport => life.get(user, id),
-    revisions: (user: SessionUser, id: string): RevisionWithChanges<ConditionRevision>[] => life.revisions(user, id),
+    ...life.reads(repo.reportsOfObject),
 
     create(user: SessionUser, objectId: string, body: ConditionCreate): ConditionReport {
       return life.create(user, objectId, {

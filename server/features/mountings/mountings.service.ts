@@ -13,7 +13,6 @@ import {
 } from "../../../shared/schemas/mountings.ts";
 import { UNBUILDABLE, type PlanResult } from "../../../shared/domain/mount-plan/index.ts";
 import { mountSummary, recordPlan } from "../../../shared/domain/mounting.ts";
-import type { RevisionWithChanges } from "../../../shared/schemas/revisioned.ts";
 import { AppError, conflict } from "../../lib/errors.ts";
 import { getSettings } from "../settings/settings.repo.ts";
 import type { ObjectRow } from "../objects/objects.repo.ts";
@@ -83,9 +82,7 @@ export function createMountingsService(db: Db) {
   });
 
   return {
-    listForObject: (user: SessionUser, objectId: string): MountingRecord[] => life.listForObject(user, objectId, repo.mountingsOfObject),
-    get: (user: SessionUser, id: string): MountingRecord => life.get(user, id),
-    revisions: (user: SessionUser, id: string): RevisionWithChanges<MountingRevision>[] => life.revisions(user, id),
+    ...life.reads(repo.mountingsOfObject),
 
     create(user: SessionUser, objectId: string, body: MountingCreate): MountingRecord {
       return life.create(user, objectId, {

@@ -113,7 +113,7 @@ export function revisionedService<Row extends RecordBase, Rev extends RevisionBa
     if (!inTransaction(db, fn)) throw conflict(f.stale);
   }
 
-  return {
+  const life = {
     sees,
     loadObject,
     load,
@@ -140,6 +140,15 @@ export function revisionedService<Row extends RecordBase, Rev extends RevisionBa
         const previous = revs[i - 1];
         return { ...r, changes: previous ? diffValues(previous.data, r.data) : [] };
       });
+    },
+
+    /** The three reads a feature's service answers with as they are: the records of an object (its rows found by `rowsOf`), one record, its revisions. */
+    reads(rowsOf: (db: Db, objectId: string) => Row[]) {
+      return {
+        listForObject: (user: SessionUser, objectId: string): Out[] => life.listForObject(user, objectId, rowsOf),
+        get: (user: SessionUser, id: string): Out => life.get(user, id),
+        revisions: (user: SessionUser, id: string): RevisionWithChanges<OutRev>[] => life.revisions(user, id),
+      };
     },
 
     /** A new draft: `check` returns the data to store (or throws), `insert` writes it and returns the id. */
@@ -202,4 +211,5 @@ export function revisionedService<Row extends RecordBase, Rev extends RevisionBa
       return reload(id, o);
     },
   };
+  return life;
 }
