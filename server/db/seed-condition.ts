@@ -8,6 +8,25 @@ import { createConditionService } from "../features/condition/condition.service.
 
 type Demo = { number: string; context: string; reportDate: string; otherParty?: { name: string; role: string }; data: Omit<ConditionDataInput, "signatures"> };
 
+type DemoFinding = NonNullable<Demo["data"]["findings"]>[number];
+/** 2026-0001's findings on arrival; its periodic check carries them over (same ids, as the app does) and says what changed. */
+const FOXING_0001: DemoFinding = {
+  id: "f-0001-foxing",
+  term: "foxing",
+  location: { kind: "zone", zone: "bottom-centre" },
+  extent: "Scattered spots under 2 mm in the lower margin",
+  severity: "slight",
+  notes: null,
+};
+const TEAR_0001: DemoFinding = {
+  id: "f-0001-tear",
+  term: "tear",
+  location: { kind: "zone", zone: "edge-right" },
+  extent: "12 mm, from the edge towards the image",
+  severity: "moderate",
+  notes: "Clean edges; not into the image.",
+};
+
 /**
  * Invented demo reports, oldest first per object. 2026-0001's two reports compare as: foxing unchanged,
  * tear worsened, abrasion new. 2026-0009 has mould, so its report shows the mould caution; 2026-0018 went
@@ -21,24 +40,7 @@ const DEMO: Demo[] = [
     data: {
       overallRating: "fair",
       summary: "Stable on the whole. Light foxing in the lower margin and a short tear at the right edge, outside the image. The old mount is acidic and its bevel has yellowed.",
-      findings: [
-        {
-          id: "f-0001-foxing",
-          term: "foxing",
-          location: { kind: "zone", zone: "bottom-centre" },
-          extent: "Scattered spots under 2 mm in the lower margin",
-          severity: "slight",
-          notes: null,
-        },
-        {
-          id: "f-0001-tear",
-          term: "tear",
-          location: { kind: "zone", zone: "edge-right" },
-          extent: "12 mm, from the edge towards the image",
-          severity: "moderate",
-          notes: "Clean edges; not into the image.",
-        },
-      ],
+      findings: [FOXING_0001, TEAR_0001],
       recommendations: {
         display: "Display at 50 lux or less, away from daylight.",
         handling: "Support the sheet on a board when moving it; do not lift by the torn edge.",
@@ -57,22 +59,8 @@ const DEMO: Demo[] = [
       summary:
         "Back in the studio after the frame was knocked in transit. The tear at the right edge has run further; the foxing is as before; a small abrasion at the top left corner where the frame was struck.",
       findings: [
-        {
-          id: "f-0001-foxing",
-          term: "foxing",
-          location: { kind: "zone", zone: "bottom-centre" },
-          extent: "Scattered spots under 2 mm in the lower margin",
-          severity: "slight",
-          notes: "No change since March.",
-        },
-        {
-          id: "f-0001-tear",
-          term: "tear",
-          location: { kind: "zone", zone: "edge-right" },
-          extent: "20 mm, now reaching the image edge",
-          severity: "severe",
-          notes: "Lengthened by about 8 mm since March.",
-        },
+        { ...FOXING_0001, notes: "No change since March." },
+        { ...TEAR_0001, extent: "20 mm, now reaching the image edge", severity: "severe", notes: "Lengthened by about 8 mm since March." },
         {
           id: "f-0001-abrasion",
           term: "abrasion",

@@ -21,6 +21,18 @@ const OWNER_PEOPLE: Record<string, string> = {
 
 type Step = { kind: CustodyKind; date: string; condition: string; party?: string; signedBy?: string; location?: string; notes?: string };
 
+/** An intake into the studio, and the return to the owner that ends a visit (the owner hands over and signs). */
+const intake = (date: string, condition: string, more: Pick<Step, "notes" | "location"> = {}): Step => ({ kind: "intake", date, condition, ...more });
+const returned = (date: string, condition: string, more: Pick<Step, "notes" | "location"> = {}): Step => ({ kind: "return-to-owner", date, condition, ...more });
+/** A hand-over to someone other than the owner (a loan, a conservator), who signs for it. */
+const handedTo = (kind: CustodyKind, date: string, to: { party: string; signedBy: string }, condition: string, more: Pick<Step, "notes" | "location"> = {}): Step => ({
+  kind,
+  date,
+  ...to,
+  condition,
+  ...more,
+});
+
 /**
  * Invented hand-overs for the demo objects, oldest first, ending in each object's seeded status:
  * an intake within 60 days before 2026-12-01 for everything in the studio, a loan-out for what is on
@@ -28,106 +40,66 @@ type Step = { kind: CustodyKind; date: string; condition: string; party?: string
  */
 const STEPS: Record<string, Step[]> = {
   "2026-0001": [
-    { kind: "intake", date: "2026-03-02", condition: "Stable; light foxing in the lower margin; old mount acidic, window bevel yellowed." },
-    { kind: "return-to-owner", date: "2026-04-10", condition: "Reframed in museum board and UV-filtering glass; no change to the sheet.", location: "Owner's home, study" },
-    { kind: "intake", date: "2026-11-18", condition: "Stable; frame knocked at the top left corner in transit, glazing intact." },
+    intake("2026-03-02", "Stable; light foxing in the lower margin; old mount acidic, window bevel yellowed."),
+    returned("2026-04-10", "Reframed in museum board and UV-filtering glass; no change to the sheet.", { location: "Owner's home, study" }),
+    intake("2026-11-18", "Stable; frame knocked at the top left corner in transit, glazing intact."),
   ],
-  "2026-0002": [
-    {
-      kind: "intake",
-      date: "2026-10-06",
-      condition: "Pastel stable on the whole; loose particles along the lower edge inside the old glass.",
-      notes: "Carried flat, face up, by the owner.",
-    },
-  ],
+  "2026-0002": [intake("2026-10-06", "Pastel stable on the whole; loose particles along the lower edge inside the old glass.", { notes: "Carried flat, face up, by the owner." })],
   "2026-0003": [
-    { kind: "intake", date: "2026-05-14", condition: "Good; pencil inscription clear; slight cockling at the plate mark." },
-    { kind: "return-to-owner", date: "2026-06-02", condition: "Hinged on T-hinges in a new window mount; as received otherwise." },
+    intake("2026-05-14", "Good; pencil inscription clear; slight cockling at the plate mark."),
+    returned("2026-06-02", "Hinged on T-hinges in a new window mount; as received otherwise."),
   ],
-  "2026-0004": [{ kind: "intake", date: "2026-11-03", condition: "Albumen print yellowed overall; card mount corners softened; no active flaking." }],
-  "2026-0005": [
-    { kind: "intake", date: "2026-02-20", condition: "Good; small surface scuff in the lower border." },
-    { kind: "return-to-owner", date: "2026-03-12", condition: "Framed; scuff unchanged." },
-  ],
-  "2026-0006": [{ kind: "intake", date: "2026-11-24", condition: "Good; colour even; no bleeding at the edges." }],
+  "2026-0004": [intake("2026-11-03", "Albumen print yellowed overall; card mount corners softened; no active flaking.")],
+  "2026-0005": [intake("2026-02-20", "Good; small surface scuff in the lower border."), returned("2026-03-12", "Framed; scuff unchanged.")],
+  "2026-0006": [intake("2026-11-24", "Good; colour even; no bleeding at the edges.")],
   "2026-0008": [
-    { kind: "intake", date: "2026-08-04", condition: "Good; sheet flat; old tape residue on the back, upper corners." },
-    {
-      kind: "loan-out",
-      date: "2026-09-15",
-      party: "Eastharbour Gallery (an invented venue)",
-      signedBy: "Priya Anand-Coll, Exhibitions",
-      condition: "Framed for the loan; sheet as received, tape residue removed.",
-      notes: "Loan agreement held by the owner.",
-    },
+    intake("2026-08-04", "Good; sheet flat; old tape residue on the back, upper corners."),
+    handedTo(
+      "loan-out",
+      "2026-09-15",
+      { party: "Eastharbour Gallery (an invented venue)", signedBy: "Priya Anand-Coll, Exhibitions" },
+      "Framed for the loan; sheet as received, tape residue removed.",
+      { notes: "Loan agreement held by the owner." },
+    ),
   ],
   "2026-0009": [
-    {
-      kind: "intake",
-      date: "2026-10-02",
-      condition: "Fragile; old fold lines with small tears at two folds; light surface dirt.",
-      notes: "Carried in a rigid folder; two people for the crate.",
-    },
+    intake("2026-10-02", "Fragile; old fold lines with small tears at two folds; light surface dirt.", { notes: "Carried in a rigid folder; two people for the crate." }),
   ],
-  "2026-0010": [{ kind: "intake", date: "2026-10-02", condition: "Stable; slight fading along the top edge where the old window sat." }],
-  "2026-0013": [{ kind: "intake", date: "2026-10-21", condition: "Image faded to warm brown; sheet stable; no silvering." }],
-  "2026-0014": [
-    { kind: "intake", date: "2026-04-27", condition: "Good; hand colour bright; minor foxing in the top margin." },
-    { kind: "return-to-owner", date: "2026-05-19", condition: "Mounted for the print room; as received otherwise." },
-  ],
-  "2026-0015": [
-    { kind: "intake", date: "2026-04-27", condition: "Good; small crease at the lower right corner." },
-    { kind: "return-to-owner", date: "2026-05-19", condition: "Mounted for the print room; crease unchanged." },
-  ],
+  "2026-0010": [intake("2026-10-02", "Stable; slight fading along the top edge where the old window sat.")],
+  "2026-0013": [intake("2026-10-21", "Image faded to warm brown; sheet stable; no silvering.")],
+  "2026-0014": [intake("2026-04-27", "Good; hand colour bright; minor foxing in the top margin."), returned("2026-05-19", "Mounted for the print room; as received otherwise.")],
+  "2026-0015": [intake("2026-04-27", "Good; small crease at the lower right corner."), returned("2026-05-19", "Mounted for the print room; crease unchanged.")],
   "2026-0016": [
-    { kind: "intake", date: "2026-07-08", condition: "Silk threads loose in two letters; card support brittle at the edges." },
-    {
-      kind: "to-conservator",
-      date: "2026-07-30",
-      party: "Lena Marsh, textile conservator (invented)",
-      signedBy: "Lena Marsh",
-      condition: "As received; packed flat between tissue in a rigid box.",
-      location: "With the textile conservator",
-    },
+    intake("2026-07-08", "Silk threads loose in two letters; card support brittle at the edges."),
+    handedTo(
+      "to-conservator",
+      "2026-07-30",
+      { party: "Lena Marsh, textile conservator (invented)", signedBy: "Lena Marsh" },
+      "As received; packed flat between tissue in a rigid box.",
+      { location: "With the textile conservator" },
+    ),
   ],
-  "2026-0017": [{ kind: "intake", date: "2026-11-09", condition: "Chalk stable; a few particles loose at the lower edge; no smudging." }],
+  "2026-0017": [intake("2026-11-09", "Chalk stable; a few particles loose at the lower edge; no smudging.")],
   "2026-0018": [
-    { kind: "intake", date: "2026-06-15", condition: "Good; colour even; no surface marks." },
-    {
-      kind: "loan-out",
-      date: "2026-08-26",
-      party: "Harbour Lights touring exhibition (invented)",
-      signedBy: "Owen Taverner, Registrar",
-      condition: "Framed for touring; print as received.",
+    intake("2026-06-15", "Good; colour even; no surface marks."),
+    handedTo("loan-out", "2026-08-26", { party: "Harbour Lights touring exhibition (invented)", signedBy: "Owen Taverner, Registrar" }, "Framed for touring; print as received.", {
       location: "Touring exhibition, venue 2",
-    },
+    }),
   ],
-  "2026-0019": [{ kind: "intake", date: "2026-10-14", condition: "Good; one corner of the sheet slightly dog-eared." }],
-  "2026-0021": [{ kind: "intake", date: "2026-11-27", condition: "Stable; gouache slightly cracked in the sky, not lifting." }],
-  "2026-0022": [{ kind: "intake", date: "2026-10-28", condition: "Good; tone even; sheet flat." }],
+  "2026-0019": [intake("2026-10-14", "Good; one corner of the sheet slightly dog-eared.")],
+  "2026-0021": [intake("2026-11-27", "Stable; gouache slightly cracked in the sky, not lifting.")],
+  "2026-0022": [intake("2026-10-28", "Good; tone even; sheet flat.")],
   "2026-0023": [
-    {
-      kind: "intake",
-      date: "2026-10-09",
-      condition: "Fragile; old folds with splits at two crossings; edges torn in places.",
-      notes: "Brought rolled; unrolled on arrival with the owner present.",
-    },
+    intake("2026-10-09", "Fragile; old folds with splits at two crossings; edges torn in places.", { notes: "Brought rolled; unrolled on arrival with the owner present." }),
   ],
-  "2026-0024": [{ kind: "intake", date: "2026-10-16", condition: "Ink stable; small losses along the old fold; seal intact." }],
+  "2026-0024": [intake("2026-10-16", "Ink stable; small losses along the old fold; seal intact.")],
   "2026-0025": [
-    { kind: "intake", date: "2026-01-19", condition: "Good; slight silvering at the edges." },
-    { kind: "return-to-owner", date: "2026-02-09", condition: "Framed for the reading room display; silvering unchanged.", location: "Reading room display" },
+    intake("2026-01-19", "Good; slight silvering at the edges."),
+    returned("2026-02-09", "Framed for the reading room display; silvering unchanged.", { location: "Reading room display" }),
   ],
-  "2026-0026": [{ kind: "intake", date: "2026-11-12", condition: "Good; light surface dirt; small tear at the top edge." }],
-  "2026-0027": [
-    {
-      kind: "intake",
-      date: "2026-11-12",
-      condition: "Stable; varnish slightly crazed at one corner; plate cracked, old repair.",
-      notes: "Glass plate: carried in its case, gloves on.",
-    },
-  ],
-  "2026-0029": [{ kind: "intake", date: "2026-11-30", condition: "Charcoal smudged at the lower right before arrival; no loose media." }],
+  "2026-0026": [intake("2026-11-12", "Good; light surface dirt; small tear at the top edge.")],
+  "2026-0027": [intake("2026-11-12", "Stable; varnish slightly crazed at one corner; plate cracked, old repair.", { notes: "Glass plate: carried in its case, gloves on." })],
+  "2026-0029": [intake("2026-11-30", "Charcoal smudged at the lower right before arrival; no loose media.")],
 };
 
 /**

@@ -18,59 +18,59 @@ const museum = (batch: string, extra: object = {}) => ({
   ...extra,
 });
 const topHinges = (w: number, n = 2) => Array.from({ length: n }, (_, i) => ({ edge: "top" as const, offsetMm: Math.round(((i + 0.5) * w) / n - 12), widthMm: 25 }));
+/** Window and backing cut from the same batch of museum board. */
+const museumBoards = (batch: string, extra: object = {}) => ({ window: museum(batch, extra), backing: museum(batch, extra) });
+/** Two (or n) T-hinges of kozo tissue with wheat starch paste along the top of a sheet w mm wide. */
+const kozoTHinges = (w: number, tissueWeightGsm: number) => ({
+  method: "t-hinge" as const,
+  tissue: "Kozo tissue",
+  tissueWeightGsm,
+  adhesive: "wheat-starch-paste" as const,
+  hinges: topHinges(w),
+});
 
-type Demo = { number: string; mountings: { reason: string; mountedOn: string; plan: MountPlanInput; data: Omit<MountingDataInput, "plan"> }[] };
+type DemoMounting = { reason: string; mountedOn: string; plan: MountPlanInput; data: Omit<MountingDataInput, "plan"> };
+type Demo = { number: string; mountings: DemoMounting[] };
+
+/** 2026-0003's first mounting (2021); its 2026 glazing change keeps the hinges and the plan, with UV glass. */
+const harbourWall2021: DemoMounting = {
+  reason: "first-mounting",
+  mountedOn: "2021-03-10",
+  plan: {
+    unit: "mm",
+    sheet: { width: 330, height: 420 },
+    imageBorders: { left: 52, top: 48, right: 52, bottom: 70 },
+    window: { all: { mode: "overlap", overlap: 6 } },
+    borders: { all: 70 },
+    bottomWeight: 15,
+    glazing: { material: "glass", thickness: 2, uvFiltering: false },
+  },
+  data: {
+    boards: museumBoards("WB-2011-07"),
+    attachment: kozoTHinges(330, 11),
+    glazing: { type: "float-glass", thicknessMm: 2 },
+    backing: { type: "archival-corrugated" },
+    sealing: { type: "gummed-tape" },
+    hanging: { hardware: "D-rings", wire: "Multi-strand wire" },
+    undoNotes: "Two T-hinges at the top edge, wheat starch paste. Release each hinge with a damp blotter from the back; do not pull.",
+  },
+};
+const harbourWall2026: DemoMounting = {
+  reason: "glazing-change",
+  mountedOn: "2026-10-02",
+  plan: { ...harbourWall2021.plan, glazing: { material: "glass", thickness: 2, uvFiltering: true } },
+  data: {
+    ...harbourWall2021.data,
+    boards: museumBoards("MB-2026-114"),
+    attachment: kozoTHinges(330, 11),
+    glazing: { type: "uv-glass", thicknessMm: 2 },
+    sealing: { type: "barrier-film" },
+    undoNotes: "The 2021 hinges were kept. Release each T-hinge with a damp blotter from the back; the new UV glass lifts out once the barrier film is slit.",
+  },
+};
 
 const DEMO: Demo[] = [
-  {
-    number: "2026-0003",
-    mountings: [
-      {
-        reason: "first-mounting",
-        mountedOn: "2021-03-10",
-        plan: {
-          unit: "mm",
-          sheet: { width: 330, height: 420 },
-          imageBorders: { left: 52, top: 48, right: 52, bottom: 70 },
-          window: { all: { mode: "overlap", overlap: 6 } },
-          borders: { all: 70 },
-          bottomWeight: 15,
-          glazing: { material: "glass", thickness: 2, uvFiltering: false },
-        },
-        data: {
-          boards: { window: museum("WB-2011-07"), backing: museum("WB-2011-07") },
-          attachment: { method: "t-hinge", tissue: "Kozo tissue", tissueWeightGsm: 11, adhesive: "wheat-starch-paste", hinges: topHinges(330) },
-          glazing: { type: "float-glass", thicknessMm: 2 },
-          backing: { type: "archival-corrugated" },
-          sealing: { type: "gummed-tape" },
-          hanging: { hardware: "D-rings", wire: "Multi-strand wire" },
-          undoNotes: "Two T-hinges at the top edge, wheat starch paste. Release each hinge with a damp blotter from the back; do not pull.",
-        },
-      },
-      {
-        reason: "glazing-change",
-        mountedOn: "2026-10-02",
-        plan: {
-          unit: "mm",
-          sheet: { width: 330, height: 420 },
-          imageBorders: { left: 52, top: 48, right: 52, bottom: 70 },
-          window: { all: { mode: "overlap", overlap: 6 } },
-          borders: { all: 70 },
-          bottomWeight: 15,
-          glazing: { material: "glass", thickness: 2, uvFiltering: true },
-        },
-        data: {
-          boards: { window: museum("MB-2026-114"), backing: museum("MB-2026-114") },
-          attachment: { method: "t-hinge", tissue: "Kozo tissue", tissueWeightGsm: 11, adhesive: "wheat-starch-paste", hinges: topHinges(330) },
-          glazing: { type: "uv-glass", thicknessMm: 2 },
-          backing: { type: "archival-corrugated" },
-          sealing: { type: "barrier-film" },
-          hanging: { hardware: "D-rings", wire: "Multi-strand wire" },
-          undoNotes: "The 2021 hinges were kept. Release each T-hinge with a damp blotter from the back; the new UV glass lifts out once the barrier film is slit.",
-        },
-      },
-    ],
-  },
+  { number: "2026-0003", mountings: [harbourWall2021, harbourWall2026] },
   {
     number: "2026-0005",
     mountings: [
@@ -86,7 +86,7 @@ const DEMO: Demo[] = [
           glazing: { material: "glass", thickness: "3/32", uvFiltering: true },
         },
         data: {
-          boards: { window: museum("PB-2024-03", { patPassed: true }), backing: museum("PB-2024-03", { patPassed: true }) },
+          boards: museumBoards("PB-2024-03", { patPassed: true }),
           attachment: { method: "corners", adhesive: "none", hinges: [] },
           glazing: { type: "ar-uv-glass", thicknessMm: 2.5 },
           spacer: { type: "Hidden spacer", depthMm: 6 },
@@ -112,8 +112,8 @@ const DEMO: Demo[] = [
           glazing: { material: "glass", thickness: 2, uvFiltering: true },
         },
         data: {
-          boards: { window: museum("MB-2024-88"), backing: museum("MB-2024-88") },
-          attachment: { method: "t-hinge", tissue: "Kozo tissue", tissueWeightGsm: 9, adhesive: "wheat-starch-paste", hinges: topHinges(230) },
+          boards: museumBoards("MB-2024-88"),
+          attachment: kozoTHinges(230, 9),
           glazing: { type: "uv-glass", thicknessMm: 2 },
           backing: { type: "archival-corrugated" },
           sealing: { type: "barrier-film" },
@@ -138,7 +138,7 @@ const DEMO: Demo[] = [
           glazing: { material: "acrylic", thickness: 3, uvFiltering: true },
         },
         data: {
-          boards: { window: museum("MB-2024-91"), backing: museum("MB-2024-91") },
+          boards: museumBoards("MB-2024-91"),
           attachment: { method: "v-hinge", tissue: "Gampi tissue", tissueWeightGsm: 12, adhesive: "methyl-cellulose", hinges: topHinges(432, 3) },
           glazing: { type: "uv-acrylic", thicknessMm: 3 },
           spacer: { type: "Wooden spacer, sealed", depthMm: 8 },

@@ -2,7 +2,7 @@ import { sql } from "drizzle-orm";
 import type { Db } from "./client.ts";
 import { user } from "./schema.ts";
 import { makeClient, makeObject, makeUser } from "./factories.ts";
-import { saveSettings } from "../features/settings/settings.repo.ts";
+import { DEFAULT_STUDIO_SETTINGS, saveSettings } from "../features/settings/settings.repo.ts";
 import type { SessionUser } from "../../shared/schemas/auth.ts";
 import { appendEvent } from "../features/history/history.chain.ts";
 import { seedMountings } from "./seed-mountings.ts";
@@ -24,18 +24,12 @@ export async function seedDemo(db: Db): Promise<boolean> {
   const n = db.select({ n: sql<number>`count(*)` }).from(user).get()?.n ?? 0;
   if (n > 0) return false;
 
+  // The demo studio works in the defaults (mm, mount, A4, GBP…): only its name, address, contact and frame sizes are its own.
   saveSettings(db, {
+    ...DEFAULT_STUDIO_SETTINGS,
     studioName: "Tidewell & Marr Conservation Framing",
     studioAddress: "Unit 4, Ropewalk Yard, Eastharbour (an invented demo studio)",
     studioContact: "01632 960 417 · bench@tidewell-marr.example",
-    unit: "mm",
-    vocabulary: "mount",
-    paperSize: "A4",
-    currency: "GBP",
-    minOverlapMm: 5,
-    rebateClearanceMm: 2,
-    checkIntervalMonths: 24,
-    checkIntervalOnLoanMonths: 12,
     framePresets: [
       { label: "Studio stock: 40 × 50 cm", widthMm: 400, heightMm: 500 },
       { label: "Studio stock: 50 × 70 cm", widthMm: 500, heightMm: 700 },

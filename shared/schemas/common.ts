@@ -8,7 +8,15 @@ import { isCalendarDate } from "../domain/dates.ts";
 export const isoDate = (example = "2026-11-30") =>
   z.string({ message: `Use a real date such as ${example}.` }).refine(isCalendarDate, { message: `Use a real date such as ${example}.` });
 
-export const IdParamSchema = z.object({ id: z.string().min(1).max(64) });
+/** A record's id as the API takes it (the ids it makes are UUIDs). */
+const idText = () => z.string().min(1).max(64);
+export const IdParamSchema = z.object({ id: idText() });
+/** A reference that may be left out or null (a report's mounting, a user's client); either way it reads as null. */
+export const optionalId = () =>
+  idText()
+    .nullable()
+    .optional()
+    .transform((v) => v ?? null);
 
 /** Optional free text: trims, and turns an empty string into null. */
 export const optionalText = (max: number) =>

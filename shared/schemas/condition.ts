@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { optionalText, requiredText, isoDate as isoDateOf } from "./common.ts";
+import { optionalId, optionalText, requiredText, isoDate as isoDateOf } from "./common.ts";
 import { revisionedSchemas, type Revision } from "./revisioned.ts";
 
 export const CONDITION_CONTEXTS = ["arrival", "before-mounting", "after-mounting", "periodic-check", "loan-out", "loan-return", "incident", "claim"] as const;
@@ -129,13 +129,7 @@ const conditionSchemas = revisionedSchemas(
   {
     context: z.enum(CONDITION_CONTEXTS, { message: "Choose why the object is examined." }),
     reportDate: isoDate,
-    mountingId: z
-      .string()
-      .min(1)
-      .max(64)
-      .nullable()
-      .optional()
-      .transform((v) => v ?? null),
+    mountingId: optionalId(),
   },
   "Say why the report is corrected.",
 );

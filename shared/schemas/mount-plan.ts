@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { MM_PER_INCH, parseLength, UNITS, type Unit } from "../domain/units.ts";
 import { OBJECT_TYPES, PHOTO_PROCESSES, SENSITIVITIES } from "./objects.ts";
+import { ATTACHMENT_METHODS, BOARD_GRADES } from "./mount-values.ts";
 
 /**
  * The mount plan contract (POST /api/mount-plans/calculate). Lengths are numbers or strings
@@ -47,18 +48,7 @@ export const BordersSchema = z.union(
 );
 
 export const GLAZING_MATERIALS = ["glass", "acrylic"] as const;
-export const BOARD_GRADES = ["museum", "conservation", "other"] as const;
-export const ATTACHMENT_METHODS = [
-  "t-hinge",
-  "v-hinge",
-  "pendant-hinge",
-  "pass-through-hinge",
-  "corners",
-  "edge-strips",
-  "sink-mount",
-  "polyester-straps",
-  "pressure-sensitive-tape",
-] as const;
+export { ATTACHMENT_METHODS, BOARD_GRADES };
 export const ADHESIVES = ["wheat-starch-paste", "rice-starch-paste", "methyl-cellulose", "none", "pressure-sensitive", "other"] as const;
 export const PROHIBITED_MATERIALS = ["foam-board", "kraft-paper", "pressure-sensitive-tape", "self-adhesive-transfer-tape"] as const;
 export const HINGE_EDGES = ["top", "top-and-sides", "all-edges"] as const;

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { ADHESIVES, ATTACHMENT_METHODS, MountPlanInputSchema, SIDES, type MountPlan } from "./mount-plan.ts";
+import { GLAZING_TYPES } from "./mount-values.ts";
 import { optionalText, requiredText, isoDate as isoDateOf } from "./common.ts";
 import type { CatalogueFacts } from "../domain/mounting.ts";
 import { revisionedSchemas, VersionSchema, type Revision } from "./revisioned.ts";
@@ -26,7 +27,7 @@ export const MOUNTING_STATUS_LABELS: Record<MountingStatus, string> = {
 
 export const BOARD_GRADE_LABELS = { museum: "Museum (cotton)", conservation: "Conservation (purified pulp)", other: "Other" } as const;
 export const PLIES = [2, 4, 6, 8] as const;
-export const GLAZING_TYPES = ["float-glass", "uv-glass", "ar-uv-glass", "acrylic", "uv-acrylic", "none"] as const;
+export { GLAZING_TYPES };
 export const GLAZING_TYPE_LABELS: Record<(typeof GLAZING_TYPES)[number], string> = {
   "float-glass": "Float glass",
   "uv-glass": "UV-filtering glass",

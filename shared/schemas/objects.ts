@@ -1,8 +1,7 @@
 import { z } from "zod";
 import { optionalText, requiredText, isoDate as isoDateOf } from "./common.ts";
 import { isCurrencyCode } from "../domain/money.ts";
-import type { ATTACHMENT_METHODS, BOARD_GRADES } from "./mount-plan.ts";
-import type { GLAZING_TYPES } from "./mountings.ts";
+import { ATTACHMENT_METHODS, BOARD_GRADES, GLAZING_TYPES } from "./mount-values.ts";
 
 export const OBJECT_TYPES = ["print", "drawing", "watercolour", "pastel", "photograph", "document", "textile-on-paper", "other"] as const;
 export const OBJECT_TYPE_LABELS: Record<(typeof OBJECT_TYPES)[number], string> = {
@@ -175,34 +174,13 @@ export type ObjectCreateInput = z.input<typeof ObjectCreateSchema>;
 export const ObjectUpdateSchema = ObjectBaseSchema.extend({ version: z.number().int().min(1) }).superRefine(checkCross);
 export type ObjectUpdate = z.infer<typeof ObjectUpdateSchema>;
 
-/**
- * The current mount's values the register filters by: the mounting contract's lists (ATTACHMENT_METHODS,
- * BOARD_GRADES, GLAZING_TYPES) written out again, because mount-plan.ts imports this file and a value
- * import back would be a cycle. The type-only check below stops the build if they drift apart.
- */
-export const REGISTER_METHODS = [
-  "t-hinge",
-  "v-hinge",
-  "pendant-hinge",
-  "pass-through-hinge",
-  "corners",
-  "edge-strips",
-  "sink-mount",
-  "polyester-straps",
-  "pressure-sensitive-tape",
-] as const;
-export const REGISTER_BOARD_GRADES = ["museum", "conservation", "other"] as const;
-export const REGISTER_GLAZINGS = ["float-glass", "uv-glass", "ar-uv-glass", "acrylic", "uv-acrylic", "none"] as const;
+/** The current mount's values the register filters by: the mounting contract's own lists. */
+export const REGISTER_METHODS = ATTACHMENT_METHODS;
+export const REGISTER_BOARD_GRADES = BOARD_GRADES;
+export const REGISTER_GLAZINGS = GLAZING_TYPES;
 export type RegisterMethod = (typeof REGISTER_METHODS)[number];
 export type RegisterBoardGrade = (typeof REGISTER_BOARD_GRADES)[number];
 export type RegisterGlazing = (typeof REGISTER_GLAZINGS)[number];
-type SameSet<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
-type Holds<T extends true> = T;
-export type RegisterListsMatch = Holds<
-  SameSet<RegisterMethod, (typeof ATTACHMENT_METHODS)[number]> &
-    SameSet<RegisterBoardGrade, (typeof BOARD_GRADES)[number]> &
-    SameSet<RegisterGlazing, (typeof GLAZING_TYPES)[number]>
->;
 
 export const OBJECT_SORTS = ["objectNumber", "title", "maker", "updatedAt", "status", "lastMountedOn", "checkDueOn"] as const;
 export const ObjectListQuerySchema = z.object({

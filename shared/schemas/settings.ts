@@ -6,6 +6,10 @@ import { isCurrencyCode } from "../domain/money.ts";
 export const VOCABULARIES = ["mount", "mat"] as const;
 export const PAPER_SIZES = ["A4", "Letter"] as const;
 
+/** A check interval: whole months, 1 to 120. */
+const months = () =>
+  z.number({ message: "Enter a number of months." }).int({ message: "Use whole months." }).min(1, { message: "At least 1 month." }).max(120, { message: "At most 120 months." });
+
 export const StudioSettingsSchema = z.object({
   studioName: requiredText(200, "Give the studio's name."),
   studioAddress: optionalText(500),
@@ -22,18 +26,8 @@ export const StudioSettingsSchema = z.object({
     .number({ message: "Enter the rebate clearance in mm." })
     .min(0, { message: "Rebate clearance cannot be negative." })
     .max(10, { message: "Rebate clearance must be at most 10 mm." }),
-  checkIntervalMonths: z
-    .number({ message: "Enter a number of months." })
-    .int({ message: "Use whole months." })
-    .min(1, { message: "At least 1 month." })
-    .max(120, { message: "At most 120 months." })
-    .default(24),
-  checkIntervalOnLoanMonths: z
-    .number({ message: "Enter a number of months." })
-    .int({ message: "Use whole months." })
-    .min(1, { message: "At least 1 month." })
-    .max(120, { message: "At most 120 months." })
-    .default(12),
+  checkIntervalMonths: months().default(24),
+  checkIntervalOnLoanMonths: months().default(12),
   framePresets: z
     .array(
       z.object({

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { RoleSchema, type Role } from "./auth.ts";
-import { requiredText } from "./common.ts";
+import { optionalId, requiredText } from "./common.ts";
 
 /** At least 12 characters: Reversa's rule, above the floor of 8 in NIST SP 800-63B (from memory). */
 export const PASSWORD_MIN_LENGTH = 12;
@@ -11,13 +11,7 @@ export const UserCreateSchema = z
     name: requiredText(200, "Give the person's name."),
     email: z.email({ message: "Enter a valid e-mail address." }).transform((v) => v.toLowerCase()),
     role: RoleSchema,
-    clientId: z
-      .string()
-      .min(1)
-      .max(64)
-      .nullable()
-      .optional()
-      .transform((v) => v ?? null),
+    clientId: optionalId(),
     password: z
       .string({ message: "Give a first password." })
       .min(PASSWORD_MIN_LENGTH, { message: `Use at least ${PASSWORD_MIN_LENGTH} characters: a phrase of a few unrelated words is easiest to remember.` })

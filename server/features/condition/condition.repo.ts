@@ -1,6 +1,7 @@
 import { and, desc, eq, gt, gte, inArray, lte, sql, type SQL } from "drizzle-orm";
 import { randomUUID } from "node:crypto";
 import type { Db } from "../../db/client.ts";
+import { countWhere, newestFirstPage } from "../../db/register-page.ts";
 import { conditionReports, conditionRevisions, conditionTerms, mountings, objects, photos, user } from "../../db/schema.ts";
 import type { ConditionCreate, ConditionData, ConditionListQuery } from "../../../shared/schemas/condition.ts";
 import { revisionedRepo } from "../revisioned/revisioned.repo.ts";
@@ -151,7 +152,7 @@ export function listReports(db: Db, q: ConditionListQuery, scope: RegisterScope)
   if (q.unresolved === false) where.push(eq(conditionReports.unresolvedCount, 0));
   if (q.dueBy) where.push(sql`${conditionReports.objectId} in (select ${objects.id} from ${objects} where ${objects.checkDueOn} <= ${q.dueBy})`);
   const cond = where.length ? and(...where) : undefined;
-  const items = db
+  const select = db
     .select({
       id: conditionReports.id,
       objectId: conditionReports.objectId,
@@ -167,14 +168,10 @@ export function listReports(db: Db, q: ConditionListQuery, scope: RegisterScope)
     })
     .from(conditionReports)
     .innerJoin(objects, eq(objects.id, conditionReports.objectId))
-    .where(cond)
-    .orderBy(desc(conditionReports.reportDate), desc(conditionReports.id))
-    .limit(q.pageSize)
-    .offset((q.page - 1) * q.pageSize)
-    .all();
+    .$dynamic();
+  const items = newestFirstPage(select, conditionReports.reportDate, conditionReports.id, cond, q).all();
   // Every report has its object (a not-null foreign key), so the count needs no join.
-  const total = db.select({ n: sql<number>`count(*)` }).from(conditionReports).where(cond).get()?.n ?? 0;
-  return { items, total };
+  return { items, total: countWhere(db, conditionReports, cond) };
 }
 
 /** The people who examined the reports in scope, for the examiner filter (names as their accounts have them now). */

@@ -15,13 +15,13 @@ import {
   type Term,
 } from "../../../shared/schemas/condition.ts";
 import { compareFindings, nextCheckDue, type ComparedFinding } from "../../../shared/domain/condition.ts";
-import type { Correction, RevisionWithChanges } from "../../../shared/schemas/revisioned.ts";
+import type { Correction } from "../../../shared/schemas/revisioned.ts";
 import { can, isStudio } from "../../../shared/permissions.ts";
 import { AppError, conflict, notFound } from "../../lib/errors.ts";
 import { assertCan } from "../../middleware/require-permission.ts";
 import { getSettings } from "../settings/settings.repo.ts";
 import { findObject, type ObjectRow } from "../objects/objects.repo.ts";
-import { recordFields, revisionedService, revisionFields } from "../revisioned/revisioned.service.ts";
+import { lockMessages, recordFields, revisionedService, revisionFields } from "../revisioned/revisioned.service.ts";
 import { appendEvent } from "../history/history.chain.ts";
 import * as repo from "./condition.repo.ts";
 
@@ -117,11 +117,7 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
     actions: { read: "condition:read", write: "condition:write" },
     what: "That condition report",
     stale: STALE,
-    messages: {
-      locked: "This condition report is signed and locked; make a correction instead, with a reason.",
-      alreadyLocked: "This condition report is already signed.",
-      draftCorrected: "A draft is edited directly; corrections are for signed reports.",
-    },
+    messages: lockMessages("condition report", "signed", "signed reports"),
     versionFirst: true,
     dataOf: (r) => r.data,
     toRevision,
@@ -173,9 +169,7 @@ export function createConditionService(db: Db, clock: () => Date = () => new Dat
   }
 
   return {
-    listForObject: (user: SessionUser, objectId: string): ConditionReport[] => life.listForObject(user, objectId, repo.reportsOfObject),
-    get: (user: SessionUser, id: string): ConditionReport => life.get(user, id),
-    revisions: (user: SessionUser, id: string): RevisionWithChanges<ConditionRevision>[] => life.revisions(user, id),
+    ...life.reads(repo.reportsOfObject),
 
     create(user: SessionUser, objectId: string, body: ConditionCreate): ConditionReport {
       return life.create(user, objectId, {

@@ -2,7 +2,7 @@ import { and, desc, eq, gte, inArray, lte, sql, type SQL } from "drizzle-orm";
 import { randomUUID } from "node:crypto";
 import type { Db } from "../../db/client.ts";
 import { clients, custodyReceipts, objects } from "../../db/schema.ts";
-import type { CustodyCreate, CustodyKind } from "../../../shared/schemas/custody.ts";
+import type { CustodyCreate, CustodyKind, InStudioItem } from "../../../shared/schemas/custody.ts";
 
 export type ReceiptRow = typeof custodyReceipts.$inferSelect & { objectNumber: string; objectTitle: string };
 
@@ -119,19 +119,12 @@ export function listReceipts(db: Db, q: ReceiptFilter): { items: ReceiptRow[]; t
   return { items, total };
 }
 
-export type InStudioRow = {
-  objectId: string;
-  objectNumber: string;
-  title: string;
-  clientId: string;
-  clientName: string;
-  location: string | null;
+/** An in-studio item as one flat row: its object's fields as the item has them, and the receipt's columns (null without one). */
+export type InStudioRow = Pick<InStudioItem, "objectId" | "objectNumber" | "title" | "clientId" | "clientName" | "location" | "since"> & {
   receiptId: string | null;
   receivedOn: string | null;
   fromParty: string | null;
   condition: string | null;
-  /** The receipt's date, or the day the object was recorded when it came in without a receipt. */
-  since: string;
 };
 
 /**

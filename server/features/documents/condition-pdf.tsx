@@ -14,7 +14,7 @@ import { getSettings } from "../settings/settings.repo.ts";
 import { createObjectsService } from "../objects/objects.service.ts";
 import { createConditionService } from "../condition/condition.service.ts";
 import { findPhoto } from "../photos/photos.repo.ts";
-import { createDocumentsService } from "./documents.service.ts";
+import { aboutObject, createDocumentsService } from "./documents.service.ts";
 import { and, desc, eq, isNotNull, lte } from "drizzle-orm";
 import { custodyReceipts } from "../../db/schema.ts";
 import { mountingInPlaceOn } from "../mountings/mountings.repo.ts";
@@ -79,9 +79,7 @@ export async function issueConditionReport(db: Db, config: Pick<Config, "uploads
     title: `Condition report ${object.objectNumber}, ${report.reportDate}`,
     user,
     inHistory: opts.inHistory,
-    objectId: object.id,
-    objectNumber: object.objectNumber,
-    clientId: object.clientId,
+    ...aboutObject(object),
     render: (meta) => (
       <DocShell meta={meta}>
         <Text style={s.h1}>{object.title}</Text>
@@ -133,24 +131,21 @@ export async function issueConditionReport(db: Db, config: Pick<Config, "uploads
               Previous signed report: {prev.reportDate}, {CONDITION_CONTEXT_LABELS[prev.context].toLowerCase()}, examined by {prev.examinerName}; rated{" "}
               {RATING_LABELS[prev.rating].toLowerCase()}, now {RATING_LABELS[report.rating].toLowerCase()}.
             </Text>
-            {compared.length === 0 ? (
-              <Text style={para}>Neither report records a finding.</Text>
-            ) : (
-              <Table
-                cols={[
-                  { label: "Finding", flex: 1.3 },
-                  { label: "Status", width: 80 },
-                  { label: "Before", flex: 1 },
-                  { label: "Now", flex: 1 },
-                ]}
-                rows={compared.map((c) => [
-                  (c.after ?? c.before)!.term,
-                  <ComparisonTag key="status" status={c.status} />,
-                  c.before ? `${SEVERITY_LABELS[c.before.severity]}${c.before.extent ? `, ${c.before.extent}` : ""}` : "—",
-                  c.after ? `${SEVERITY_LABELS[c.after.severity]}${c.after.extent ? `, ${c.after.extent}` : ""}${c.after.resolved ? ", resolved" : ""}` : "—",
-                ])}
-              />
-            )}
+            <Table
+              empty="Neither report records a finding."
+              cols={[
+                { label: "Finding", flex: 1.3 },
+                { label: "Status", width: 80 },
+                { label: "Before", flex: 1 },
+                { label: "Now", flex: 1 },
+              ]}
+              rows={compared.map((c) => [
+                (c.after ?? c.before)!.term,
+                <ComparisonTag key="status" status={c.status} />,
+                c.before ? `${SEVERITY_LABELS[c.before.severity]}${c.before.extent ? `, ${c.before.extent}` : ""}` : "—",
+                c.after ? `${SEVERITY_LABELS[c.after.severity]}${c.after.extent ? `, ${c.after.extent}` : ""}${c.after.resolved ? ", resolved" : ""}` : "—",
+              ])}
+            />
           </>
         ) : (
           <Text style={para}>This is the first signed condition report of this object in Reversa.</Text>

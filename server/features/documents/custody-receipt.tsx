@@ -19,7 +19,7 @@ import { findObject } from "../objects/objects.repo.ts";
 import { mountingInPlaceOn } from "../mountings/mountings.repo.ts";
 import { getSettings } from "../settings/settings.repo.ts";
 import { valuationText } from "./record-blocks.tsx";
-import { createDocumentsService } from "./documents.service.ts";
+import { aboutObject, createDocumentsService } from "./documents.service.ts";
 import { mountingDetail } from "../mountings/mounting-detail.ts";
 
 // A unitless lineHeight in react-pdf 4 multiplies the font size set on the same style (18 when inherited), so both are given here.
@@ -169,9 +169,7 @@ export async function issueCustodyReceipt(db: Db, clock: () => Date, uploadsDir:
     kind: "custody-receipt",
     title: `Custody receipt — ${object.objectNumber}, ${receipt.date}`,
     user,
-    objectId: object.id,
-    objectNumber: object.objectNumber,
-    clientId: object.clientId,
+    ...aboutObject(object),
     inHistory: opts.inHistory,
     render: (meta) => <CustodyReceiptDocument meta={meta} data={data} />,
   });

@@ -26,6 +26,13 @@ export type IssueRequest = {
   render: (meta: DocMeta) => ReactElement<DocumentProps> | DocumentJob;
 };
 
+/** The object a document is about, as an IssueRequest names it (its verification record and its history event). */
+export const aboutObject = (o: { id: string; objectNumber: string; clientId: string }): Pick<IssueRequest, "objectId" | "objectNumber" | "clientId"> => ({
+  objectId: o.id,
+  objectNumber: o.objectNumber,
+  clientId: o.clientId,
+});
+
 /** `uploadsDir` is where the studio's logo is read from; without it documents are issued without the logo. */
 export function createDocumentsService(db: Db, clock: () => Date = () => new Date(), uploadsDir?: string) {
   return {

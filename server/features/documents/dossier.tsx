@@ -1,3 +1,4 @@
+import type { ReactNode } from "react";
 import { View } from "@react-pdf/renderer";
 import { Text } from "../../lib/pdf/text.tsx";
 import type { Db } from "../../db/client.ts";
@@ -33,8 +34,8 @@ import { findMounting } from "../mountings/mountings.repo.ts";
 import { createMountPlansService } from "../mount-plans/mount-plans.service.ts";
 import { createConditionService } from "../condition/condition.service.ts";
 import { findPhoto, listForObject as photosOfObject } from "../photos/photos.repo.ts";
-import { createDocumentsService } from "./documents.service.ts";
-import { Caution, KV, Lines, para, RatingTag, Table, VerdictTag } from "../../lib/pdf/blocks.tsx";
+import { aboutObject, createDocumentsService } from "./documents.service.ts";
+import { Caution, KV, KVRows, Lines, para, RatingTag, Table, VerdictTag } from "../../lib/pdf/blocks.tsx";
 import { boardLine, FindingsTable, loadPhoto, PhotoGrid, recommendationRows, valuationLine, type LoadedPhoto } from "./record-blocks.tsx";
 import { NOT_TREATMENT } from "./condition-pdf.tsx";
 
@@ -94,6 +95,67 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
   const value = showValue ? valuationLine(object) : null;
   const d = current?.current.data ?? null;
 
+  // The plan's figures beside the drawing, as the record page lists them.
+  const planRows = (v: PlanView): [string, ReactNode][] => [
+    ["Sheet", v.plan.display.sheet],
+    ["Window (aperture)", v.plan.display.aperture],
+    ["Overlap L · T · R · B", SIDES.map((x) => v.plan.display[`overlap.${x}`]).join(" · ")],
+    ["Borders L · T · R · B", SIDES.map((x) => v.plan.display[`borders.${x}`]).join(" · ")],
+    ["Outer = glazing = backing", v.plan.display.outer],
+    [w.Rebate, v.plan.display.rebate],
+    ["Top window", v.plan.display.topWindow],
+    [
+      "Hinges",
+      d && d.attachment.hinges.length > 0 ? (
+        <View key="hinges">
+          {d.attachment.hinges.map((h, i) => (
+            <Text key={i}>{`${i + 1}. ${h.edge} edge, ${len(h.offsetMm)} from the corner, ${len(h.widthMm)} wide`}</Text>
+          ))}
+        </View>
+      ) : null,
+    ],
+    ["Mounted", current ? `${current.mountedOn}${current.framerName ? ` by ${current.framerName}` : ""}` : null],
+  ];
+  // The catalogue in two columns: what the object is, then its size, care and whereabouts.
+  const catalogueColumns: [string, ReactNode][][] = [
+    [
+      ["Object number", object.objectNumber],
+      ["Title", object.title],
+      ["Maker", object.maker],
+      ["Date made", object.dateMade],
+      ["Object type", OBJECT_TYPE_LABELS[object.objectType]],
+      ["Process", object.photoProcess ? PHOTO_PROCESS_LABELS[object.photoProcess] : null],
+      ["Medium", object.medium],
+      ["Support", object.support],
+      ["Edition", object.edition],
+      ["Inscriptions", object.inscriptions],
+    ],
+    [
+      ["Sheet (W × H)", size({ width: object.sheetWidthMm, height: object.sheetHeightMm })],
+      [
+        "Image borders",
+        object.borderLeftMm !== null || object.borderTopMm !== null
+          ? (
+              [
+                ["L", object.borderLeftMm],
+                ["T", object.borderTopMm],
+                ["R", object.borderRightMm],
+                ["B", object.borderBottomMm],
+              ] as const
+            )
+              .map(([k, v]) => `${k} ${v === null ? "—" : len(v)}`)
+              .join(" · ")
+          : null,
+      ],
+      ["Thickness", object.thicknessNotes],
+      ["Sensitivities", object.sensitivities.length ? object.sensitivities.map((x) => SENSITIVITY_LABELS[x]).join(", ") : null],
+      ["Owner", object.clientName],
+      ["Status", OBJECT_STATUS_LABELS[object.status]],
+      ["Location", object.location],
+      ["Insured value", value],
+    ],
+  ];
+
   // Drawn as large as fits the column: the model's viewBox is in mm.
   const drawingWidth = view ? Math.min(270, (320 * view.model.viewBox[2]) / view.model.viewBox[3]) : 0;
 
@@ -102,9 +164,7 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
     title: `Object dossier ${object.objectNumber}`,
     user,
     inHistory: opts.inHistory,
-    objectId: object.id,
-    objectNumber: object.objectNumber,
-    clientId: object.clientId,
+    ...aboutObject(object),
     render: (meta) => (
       <DocShell meta={meta}>
         <Text style={s.h1}>{object.title}</Text>
@@ -129,39 +189,7 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
                 >{`Front view; dimensions in ${unit === "in" ? "inches" : "mm"}${d?.attachment.hinges.length ? "; hinges drawn in yellow, positions as listed" : ""}.`}</Text>
               </View>
               <View style={{ flex: 1 }}>
-                <KV labelWidth={84} label="Sheet">
-                  {view.plan.display.sheet}
-                </KV>
-                <KV labelWidth={84} label="Window (aperture)">
-                  {view.plan.display.aperture}
-                </KV>
-                <KV labelWidth={84} label="Overlap L · T · R · B">
-                  {SIDES.map((x) => view.plan.display[`overlap.${x}`]).join(" · ")}
-                </KV>
-                <KV labelWidth={84} label={`Borders L · T · R · B`}>
-                  {SIDES.map((x) => view.plan.display[`borders.${x}`]).join(" · ")}
-                </KV>
-                <KV labelWidth={84} label="Outer = glazing = backing">
-                  {view.plan.display.outer}
-                </KV>
-                <KV labelWidth={84} label={w.Rebate}>
-                  {view.plan.display.rebate}
-                </KV>
-                {view.plan.display.topWindow ? (
-                  <KV labelWidth={84} label="Top window">
-                    {view.plan.display.topWindow}
-                  </KV>
-                ) : null}
-                {d && d.attachment.hinges.length > 0 ? (
-                  <KV labelWidth={84} label="Hinges">
-                    <View>
-                      {d.attachment.hinges.map((h, i) => (
-                        <Text key={i}>{`${i + 1}. ${h.edge} edge, ${len(h.offsetMm)} from the corner, ${len(h.widthMm)} wide`}</Text>
-                      ))}
-                    </View>
-                  </KV>
-                ) : null}
-                {current ? <KV labelWidth={84} label="Mounted">{`${current.mountedOn}${current.framerName ? ` by ${current.framerName}` : ""}`}</KV> : null}
+                <KVRows labelWidth={84} rows={planRows(view)} />
               </View>
             </View>
           ) : (
@@ -171,77 +199,11 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
 
         <Text style={s.h2}>Catalogue</Text>
         <View style={{ flexDirection: "row", gap: 16 }}>
-          <View style={{ flex: 1 }}>
-            <KV labelWidth={88} label="Object number">
-              {object.objectNumber}
-            </KV>
-            <KV labelWidth={88} label="Title">
-              {object.title}
-            </KV>
-            <KV labelWidth={88} label="Maker">
-              {object.maker}
-            </KV>
-            <KV labelWidth={88} label="Date made">
-              {object.dateMade}
-            </KV>
-            <KV labelWidth={88} label="Object type">
-              {OBJECT_TYPE_LABELS[object.objectType]}
-            </KV>
-            <KV labelWidth={88} label="Process">
-              {object.photoProcess ? PHOTO_PROCESS_LABELS[object.photoProcess] : null}
-            </KV>
-            <KV labelWidth={88} label="Medium">
-              {object.medium}
-            </KV>
-            <KV labelWidth={88} label="Support">
-              {object.support}
-            </KV>
-            <KV labelWidth={88} label="Edition">
-              {object.edition}
-            </KV>
-            <KV labelWidth={88} label="Inscriptions">
-              {object.inscriptions}
-            </KV>
-          </View>
-          <View style={{ flex: 1 }}>
-            <KV labelWidth={88} label="Sheet (W × H)">
-              {size({ width: object.sheetWidthMm, height: object.sheetHeightMm })}
-            </KV>
-            <KV labelWidth={88} label="Image borders">
-              {object.borderLeftMm !== null || object.borderTopMm !== null
-                ? (
-                    [
-                      ["L", object.borderLeftMm],
-                      ["T", object.borderTopMm],
-                      ["R", object.borderRightMm],
-                      ["B", object.borderBottomMm],
-                    ] as const
-                  )
-                    .map(([k, v]) => `${k} ${v === null ? "—" : len(v)}`)
-                    .join(" · ")
-                : null}
-            </KV>
-            <KV labelWidth={88} label="Thickness">
-              {object.thicknessNotes}
-            </KV>
-            <KV labelWidth={88} label="Sensitivities">
-              {object.sensitivities.length ? object.sensitivities.map((x) => SENSITIVITY_LABELS[x]).join(", ") : null}
-            </KV>
-            <KV labelWidth={88} label="Owner">
-              {object.clientName}
-            </KV>
-            <KV labelWidth={88} label="Status">
-              {OBJECT_STATUS_LABELS[object.status]}
-            </KV>
-            <KV labelWidth={88} label="Location">
-              {object.location}
-            </KV>
-            {value ? (
-              <KV labelWidth={88} label="Insured value">
-                {value}
-              </KV>
-            ) : null}
-          </View>
+          {catalogueColumns.map((rows, i) => (
+            <View key={i} style={{ flex: 1 }}>
+              <KVRows labelWidth={88} rows={rows} />
+            </View>
+          ))}
         </View>
 
         {d ? (
@@ -354,29 +316,26 @@ export async function issueDossier(db: Db, config: Pick<Config, "uploadsDir">, c
         ) : null}
 
         <Text style={s.h2}>Mounting history</Text>
-        {mountings.length === 0 ? (
-          <Text style={para}>No mounting has been recorded.</Text>
-        ) : (
-          <Table
-            cols={[
-              { label: "Date", width: 58 },
-              { label: "Status", width: 58 },
-              { label: "Reason", width: 80 },
-              { label: "Framer", width: 72 },
-              { label: "Summary", flex: 1 },
-            ]}
-            rows={mountings.map((m) => {
-              const ended = m.endedOn ? ` Ended ${m.endedOn}${m.endReason ? `: ${m.endReason}` : ""}` : "";
-              return [
-                m.mountedOn,
-                MOUNTING_STATUS_LABELS[m.status],
-                MOUNTING_REASON_LABELS[m.reason],
-                m.framerName ?? "—",
-                `${mountSummary(m.current.data, m.current.plan)}.${ended}`,
-              ];
-            })}
-          />
-        )}
+        <Table
+          empty="No mounting has been recorded."
+          cols={[
+            { label: "Date", width: 58 },
+            { label: "Status", width: 58 },
+            { label: "Reason", width: 80 },
+            { label: "Framer", width: 72 },
+            { label: "Summary", flex: 1 },
+          ]}
+          rows={mountings.map((m) => {
+            const ended = m.endedOn ? ` Ended ${m.endedOn}${m.endReason ? `: ${m.endReason}` : ""}` : "";
+            return [
+              m.mountedOn,
+              MOUNTING_STATUS_LABELS[m.status],
+              MOUNTING_REASON_LABELS[m.reason],
+              m.framerName ?? "—",
+              `${mountSummary(m.current.data, m.current.plan)}.${ended}`,
+            ];
+          })}
+        />
       </DocShell>
     ),
   });

@@ -2,6 +2,7 @@ import { Document, Image, Link, Page, View } from "@react-pdf/renderer";
 import { Text } from "../../lib/pdf/text.tsx";
 import { format, parseISO } from "date-fns";
 import QRCode from "qrcode";
+import type { Style } from "@react-pdf/types";
 import type { DocMeta } from "../../lib/pdf/layout.tsx";
 import { ACCENT, GRAPHITE, INK, STONE, WARN } from "../../lib/pdf/theme.ts";
 
@@ -17,6 +18,13 @@ const SHEET_MIN_MARGIN = 14;
 const TITLE_MAX = 90;
 /** Cut lines: light enough not to distract on the label, dark enough to cut along. */
 const CUT_LINE = "#a39c90";
+
+/** A dashed hairline along the cells' edges: `Left` runs down the page at x = at, `Top` across it at y = at, from `from` for `length`. */
+function cutLine(side: "Left" | "Top", at: number, from: number, length: number): Style {
+  return side === "Left"
+    ? { position: "absolute", left: at - 0.2, top: from, width: 0, height: length, borderLeftWidth: 0.5, borderLeftColor: CUT_LINE, borderStyle: "dashed" }
+    : { position: "absolute", top: at - 0.2, left: from, height: 0, width: length, borderTopWidth: 0.5, borderTopColor: CUT_LINE, borderStyle: "dashed" };
+}
 
 export type LabelData = {
   objectId: string;
@@ -138,34 +146,10 @@ export function LabelSheetDocument({ meta, labels, address }: { meta: DocMeta; l
           ))}
           {/* Cut lines on the cells' edges, drawn over the labels so every label keeps its full size. */}
           {Array.from({ length: g.cols + 1 }, (_, c) => (
-            <View
-              key={`c${c}`}
-              style={{
-                position: "absolute",
-                left: g.left + c * g.w - 0.2,
-                top: g.top,
-                width: 0,
-                height: g.rows * g.h,
-                borderLeftWidth: 0.5,
-                borderLeftColor: CUT_LINE,
-                borderStyle: "dashed",
-              }}
-            />
+            <View key={`c${c}`} style={cutLine("Left", g.left + c * g.w, g.top, g.rows * g.h)} />
           ))}
           {Array.from({ length: g.rows + 1 }, (_, r) => (
-            <View
-              key={`r${r}`}
-              style={{
-                position: "absolute",
-                top: g.top + r * g.h - 0.2,
-                left: g.left,
-                height: 0,
-                width: g.cols * g.w,
-                borderTopWidth: 0.5,
-                borderTopColor: CUT_LINE,
-                borderStyle: "dashed",
-              }}
-            />
+            <View key={`r${r}`} style={cutLine("Top", g.top + r * g.h, g.left, g.cols * g.w)} />
           ))}
         </Page>
       ))}

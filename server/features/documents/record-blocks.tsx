@@ -10,7 +10,7 @@ import { VALUATION_BASIS_LABELS } from "../../../shared/schemas/objects.ts";
 import { createStorage } from "../../lib/storage.ts";
 import { ACCENT, STONE, s } from "../../lib/pdf/theme.ts";
 import type { PhotoRow } from "../photos/photos.repo.ts";
-import { Table, para } from "../../lib/pdf/blocks.tsx";
+import { Table } from "../../lib/pdf/blocks.tsx";
 
 export type LoadedPhoto = { row: PhotoRow; data: Buffer; format: "jpg" | "png" };
 
@@ -70,9 +70,9 @@ export function whereWords(f: Finding, photoNumber: (photoId: string) => number 
 
 /** Findings numbered 1…n in the report's order, the numbers used by the markers. */
 export function FindingsTable({ data, photoNumber }: { data: ConditionData; photoNumber: (photoId: string) => number | null }) {
-  if (data.findings.length === 0) return <Text style={para}>No findings were recorded.</Text>;
   return (
     <Table
+      empty="No findings were recorded."
       cols={[
         { label: "No.", width: 24 },
         { label: "Finding", flex: 1.2 },

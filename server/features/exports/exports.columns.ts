@@ -14,6 +14,15 @@ import { minorDigits } from "../../../shared/domain/money.ts";
  * Columns marked `valuation` are confidential (docs/trade-reference.md §13) and are left out, header and all, for a
  * user without "valuation:read" on the client.
  */
+/** The valuation's columns, the same in the objects and the valuations datasets. */
+const VALUATION_COLUMNS = [
+  { key: "Valuation", valuation: true },
+  { key: "Valuation currency", valuation: true },
+  { key: "Valuation date", valuation: true },
+  { key: "Valuation basis", valuation: true },
+  { key: "Valuer", valuation: true },
+] as const;
+
 export const EXPORT_COLUMNS = {
   objects: [
     { key: "Object number" },
@@ -40,11 +49,7 @@ export const EXPORT_COLUMNS = {
     { key: "Condition check date" },
     { key: "Next condition check due" },
     { key: "Last mounted on" },
-    { key: "Valuation", valuation: true },
-    { key: "Valuation currency", valuation: true },
-    { key: "Valuation date", valuation: true },
-    { key: "Valuation basis", valuation: true },
-    { key: "Valuer", valuation: true },
+    ...VALUATION_COLUMNS,
   ],
   mountings: [
     { key: "Object number" },
@@ -117,15 +122,7 @@ export const EXPORT_COLUMNS = {
     { key: "Agreed return date" },
     { key: "Notes" },
   ],
-  valuations: [
-    { key: "Object number" },
-    { key: "Title" },
-    { key: "Valuation", valuation: true },
-    { key: "Valuation currency", valuation: true },
-    { key: "Valuation date", valuation: true },
-    { key: "Valuation basis", valuation: true },
-    { key: "Valuer", valuation: true },
-  ],
+  valuations: [{ key: "Object number" }, { key: "Title" }, ...VALUATION_COLUMNS],
 } as const satisfies Record<Dataset, readonly { key: string; valuation?: boolean }[]>;
 
 export type Cell = string | number | null;

@@ -1,5 +1,6 @@
-import { and, desc, eq, gte, inArray, lte, sql, type SQL } from "drizzle-orm";
+import { and, eq, gte, inArray, lte, sql, type SQL } from "drizzle-orm";
 import type { Db } from "../../db/client.ts";
+import { countWhere, newestFirstPage } from "../../db/register-page.ts";
 import { mountingBatches, mountings, objects, user } from "../../db/schema.ts";
 import type { MountingListItem, MountingListQuery, MountingStatus } from "../../../shared/schemas/mountings.ts";
 
@@ -21,7 +22,7 @@ export function listMountings(db: Db, q: MountingListQuery): { items: MountingLi
     where.push(sql`${mountings.id} in (select ${mountingBatches.mountingId} from ${mountingBatches} where ${mountingBatches.batch} = ${q.batch} collate nocase)`);
   }
   const cond = where.length ? and(...where) : undefined;
-  const rows = db
+  const select = db
     .select({
       id: mountings.id,
       objectId: mountings.objectId,
@@ -38,13 +39,10 @@ export function listMountings(db: Db, q: MountingListQuery): { items: MountingLi
     })
     .from(mountings)
     .innerJoin(objects, eq(objects.id, mountings.objectId))
-    .where(cond)
-    .orderBy(desc(mountings.mountedOn), desc(mountings.id))
-    .limit(q.pageSize)
-    .offset((q.page - 1) * q.pageSize)
-    .all();
+    .$dynamic();
+  const rows = newestFirstPage(select, mountings.mountedOn, mountings.id, cond, q).all();
   // Every mounting has its object (a not-null foreign key), so the count needs no join.
-  const total = db.select({ n: sql<number>`count(*)` }).from(mountings).where(cond).get()?.n ?? 0;
+  const total = countWhere(db, mountings, cond);
 
   const batches = new Map<string, { role: string; batch: string }[]>();
   if (rows.length) {

@@ -13,11 +13,10 @@ import {
 } from "../../../shared/schemas/mountings.ts";
 import { UNBUILDABLE, type PlanResult } from "../../../shared/domain/mount-plan/index.ts";
 import { mountSummary, recordPlan } from "../../../shared/domain/mounting.ts";
-import type { RevisionWithChanges } from "../../../shared/schemas/revisioned.ts";
 import { AppError, conflict } from "../../lib/errors.ts";
 import { getSettings } from "../settings/settings.repo.ts";
 import type { ObjectRow } from "../objects/objects.repo.ts";
-import { recordFields, revisionedService, revisionFields } from "../revisioned/revisioned.service.ts";
+import { lockMessages, recordFields, revisionedService, revisionFields } from "../revisioned/revisioned.service.ts";
 import { appendEvent } from "../history/history.chain.ts";
 import * as repo from "./mountings.repo.ts";
 import { mountingDetail } from "./mounting-detail.ts";
@@ -76,20 +75,14 @@ export function createMountingsService(db: Db) {
     actions: { read: "mounting:read", write: "mounting:write" },
     what: "That mounting record",
     stale: STALE,
-    messages: {
-      locked: "This mounting record is completed and locked; make a correction instead, with a reason.",
-      alreadyLocked: "This mounting record is already completed.",
-      draftCorrected: "A draft is edited directly; corrections are for completed records.",
-    },
+    messages: lockMessages("mounting record", "completed", "completed records"),
     dataOf: (r: repo.RevisionRow) => MountingDataSchema.parse(r.data),
     toRevision,
     toRecord,
   });
 
   return {
-    listForObject: (user: SessionUser, objectId: string): MountingRecord[] => life.listForObject(user, objectId, repo.mountingsOfObject),
-    get: (user: SessionUser, id: string): MountingRecord => life.get(user, id),
-    revisions: (user: SessionUser, id: string): RevisionWithChanges<MountingRevision>[] => life.revisions(user, id),
+    ...life.reads(repo.mountingsOfObject),
 
     create(user: SessionUser, objectId: string, body: MountingCreate): MountingRecord {
       return life.create(user, objectId, {

@@ -44,6 +44,15 @@ export type RevisionedFeature<Row extends RecordBase, Rev extends RevisionBase, 
   toRecord(row: Row, o: ObjectRow, current: OutRev): Out;
 };
 
+/** The life cycle's 409 messages in a feature's words: `lockMessages("mounting record", "completed", "completed records")`. */
+export function lockMessages(record: string, locked: string, lockedRecords: string): RevisionedFeature<RecordBase, RevisionBase, unknown, unknown, { data: unknown }>["messages"] {
+  return {
+    locked: `This ${record} is ${locked} and locked; make a correction instead, with a reason.`,
+    alreadyLocked: `This ${record} is already ${locked}.`,
+    draftCorrected: `A draft is edited directly; corrections are for ${lockedRecords}.`,
+  };
+}
+
 /** The fields every revision answers with; `data` as the feature reads it. */
 export function revisionFields<D>(r: RevisionBase, data: D): Revision<D> {
   return { revision: r.revision, data, correctionReason: r.correctionReason, createdAt: r.createdAt.toISOString(), createdByName: r.createdByName };
@@ -104,7 +113,7 @@ export function revisionedService<Row extends RecordBase, Rev extends RevisionBa
     if (!inTransaction(db, fn)) throw conflict(f.stale);
   }
 
-  return {
+  const life = {
     sees,
     loadObject,
     load,
@@ -131,6 +140,15 @@ export function revisionedService<Row extends RecordBase, Rev extends RevisionBa
         const previous = revs[i - 1];
         return { ...r, changes: previous ? diffValues(previous.data, r.data) : [] };
       });
+    },
+
+    /** The three reads a feature's service answers with as they are: the records of an object (its rows found by `rowsOf`), one record, its revisions. */
+    reads(rowsOf: (db: Db, objectId: string) => Row[]) {
+      return {
+        listForObject: (user: SessionUser, objectId: string): Out[] => life.listForObject(user, objectId, rowsOf),
+        get: (user: SessionUser, id: string): Out => life.get(user, id),
+        revisions: (user: SessionUser, id: string): RevisionWithChanges<OutRev>[] => life.revisions(user, id),
+      };
     },
 
     /** A new draft: `check` returns the data to store (or throws), `insert` writes it and returns the id. */
@@ -193,4 +211,5 @@ export function revisionedService<Row extends RecordBase, Rev extends RevisionBa
       return reload(id, o);
     },
   };
+  return life;
 }

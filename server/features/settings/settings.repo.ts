@@ -5,7 +5,8 @@ import { studioSettings } from "../../db/schema.ts";
 import { createStorage } from "../../lib/storage.ts";
 import type { StudioSettings, StudioSettingsRecord } from "../../../shared/schemas/settings.ts";
 
-export const DEFAULT_SETTINGS: StudioSettingsRecord = {
+/** What a studio starts with before anything is saved; the demo seed starts from it too. */
+export const DEFAULT_STUDIO_SETTINGS: StudioSettings & Pick<StudioSettingsRecord, "framePresets"> = {
   studioName: "My framing studio",
   studioAddress: null,
   studioContact: null,
@@ -18,8 +19,8 @@ export const DEFAULT_SETTINGS: StudioSettingsRecord = {
   checkIntervalMonths: 24,
   checkIntervalOnLoanMonths: 12,
   framePresets: [],
-  hasLogo: false,
 };
+export const DEFAULT_SETTINGS: StudioSettingsRecord = { ...DEFAULT_STUDIO_SETTINGS, hasLogo: false };
 
 // Settings are read on most requests and written rarely: keep the row in memory, per database.
 const cache = new WeakMap<Db, StudioSettingsRecord>();
@@ -54,9 +55,8 @@ export function getLogoKey(db: Db): string | null {
 /** Sets (or, with null, clears) the logo; returns the key it replaced. Creates the settings row with the defaults if there is none. */
 export function setLogoKey(db: Db, key: string | null): string | null {
   const previous = getLogoKey(db);
-  const { hasLogo: _h, ...defaults } = DEFAULT_SETTINGS;
   db.insert(studioSettings)
-    .values({ id: 1, ...defaults, logoKey: key })
+    .values({ id: 1, ...DEFAULT_STUDIO_SETTINGS, logoKey: key })
     .onConflictDoUpdate({ target: studioSettings.id, set: { logoKey: key, updatedAt: new Date() } })
     .run();
   cache.delete(db);

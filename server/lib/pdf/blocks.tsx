@@ -65,8 +65,22 @@ export function KV({ label, children, labelWidth = 130 }: { label: string; child
   );
 }
 
-/** A simple table: column widths in points or flex weights. */
-export function Table({ cols, rows }: { cols: { label: string; width?: number; flex?: number; align?: "left" | "right" }[]; rows: ReactNode[][] }) {
+/** Label–value rows with one label width; as with KV, a row without a value is left out. */
+export function KVRows({ rows, labelWidth }: { rows: [label: string, value: ReactNode][]; labelWidth?: number }) {
+  return (
+    <>
+      {rows.map(([label, value]) => (
+        <KV key={label} label={label} labelWidth={labelWidth}>
+          {value}
+        </KV>
+      ))}
+    </>
+  );
+}
+
+/** A simple table: column widths in points or flex weights. With `empty`, no rows is that sentence instead of an empty table. */
+export function Table({ cols, rows, empty }: { cols: { label: string; width?: number; flex?: number; align?: "left" | "right" }[]; rows: ReactNode[][]; empty?: string }) {
+  if (empty !== undefined && rows.length === 0) return <Text style={para}>{empty}</Text>;
   const style = (i: number) => {
     const c = cols[i];
     return { ...t.cell, ...(c?.width ? { width: c.width } : { flex: c?.flex ?? 1 }), textAlign: c?.align ?? "left" } as Style;
