@@ -85,6 +85,12 @@ export const objects = sqliteTable(
   ],
 );
 
+/** The object a row belongs to: required, and the object cannot be deleted while rows point at it. */
+export const objectRef = () =>
+  text("object_id")
+    .notNull()
+    .references(() => objects.id, { onDelete: "restrict" });
+
 // ── Studio settings: one row ─────────────────────────────────────────────
 export const studioSettings = sqliteTable("studio_settings", {
   id: integer("id").primaryKey(),

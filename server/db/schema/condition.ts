@@ -1,7 +1,7 @@
 import { index, integer, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
-import { timestamps } from "./columns.ts";
+import { revisionColumns, timestamps } from "./columns.ts";
 import type { ConditionData } from "../../../shared/schemas/condition.ts";
-import { objects } from "./catalogue.ts";
+import { objectRef } from "./catalogue.ts";
 import { mountings } from "./mountings.ts";
 
 // ── Condition reports: draft → signed; corrections are revisions, like mounting records ──
@@ -9,9 +9,7 @@ export const conditionReports = sqliteTable(
   "condition_reports",
   {
     id: text("id").primaryKey(),
-    objectId: text("object_id")
-      .notNull()
-      .references(() => objects.id, { onDelete: "restrict" }),
+    objectId: objectRef(),
     status: text("status", { enum: ["draft", "signed"] })
       .notNull()
       .default("draft"),
@@ -42,17 +40,11 @@ export const conditionReports = sqliteTable(
 export const conditionRevisions = sqliteTable(
   "condition_revisions",
   {
-    id: text("id").primaryKey(),
     reportId: text("report_id")
       .notNull()
       .references(() => conditionReports.id, { onDelete: "restrict" }),
-    revision: integer("revision").notNull(),
-    /** Summary, findings (with stable ids across revisions), recommendations, light notes, signatures. */
-    data: text("data", { mode: "json" }).$type<ConditionData>().notNull(),
-    correctionReason: text("correction_reason"),
-    createdBy: text("created_by"),
-    createdByName: text("created_by_name"),
-    ...timestamps,
+    /** Its data: summary, findings (with stable ids across revisions), recommendations, light notes, signatures. */
+    ...revisionColumns<ConditionData>(),
   },
   (t) => [uniqueIndex("condition_revisions_uq").on(t.reportId, t.revision)],
 );
@@ -62,9 +54,7 @@ export const photos = sqliteTable(
   "photos",
   {
     id: text("id").primaryKey(),
-    objectId: text("object_id")
-      .notNull()
-      .references(() => objects.id, { onDelete: "restrict" }),
+    objectId: objectRef(),
     reportId: text("report_id").references(() => conditionReports.id, { onDelete: "restrict" }),
     kind: text("kind").notNull(),
     caption: text("caption"),

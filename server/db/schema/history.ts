@@ -1,15 +1,13 @@
 import { index, integer, sqliteTable, text } from "drizzle-orm/sqlite-core";
 import { timestamps } from "./columns.ts";
-import { objects } from "./catalogue.ts";
+import { objectRef } from "./catalogue.ts";
 
 // ── History: an append-only, hash-chained event log per object ────────────
 export const events = sqliteTable(
   "events",
   {
     seq: integer("seq").primaryKey({ autoIncrement: true }),
-    objectId: text("object_id")
-      .notNull()
-      .references(() => objects.id, { onDelete: "restrict" }),
+    objectId: objectRef(),
     type: text("type").notNull(),
     at: integer("at", { mode: "timestamp_ms" }).notNull(),
     actorId: text("actor_id"),
@@ -33,9 +31,7 @@ export const custodyReceipts = sqliteTable(
   "custody_receipts",
   {
     id: text("id").primaryKey(),
-    objectId: text("object_id")
-      .notNull()
-      .references(() => objects.id, { onDelete: "restrict" }),
+    objectId: objectRef(),
     direction: text("direction", { enum: ["in", "out"] }).notNull(),
     kind: text("kind").notNull(),
     date: text("date").notNull(),

@@ -1,17 +1,15 @@
 import { index, integer, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
-import { timestamps } from "./columns.ts";
+import { revisionColumns, timestamps } from "./columns.ts";
 import type { MountPlanInput } from "../../../shared/schemas/mount-plan.ts";
 import type { MountingData } from "../../../shared/schemas/mountings.ts";
-import { objects } from "./catalogue.ts";
+import { objectRef } from "./catalogue.ts";
 
 // ── Mount plans: the saved input of the planner; the plan itself is always recomputed from it ──
 export const mountPlans = sqliteTable(
   "mount_plans",
   {
     id: text("id").primaryKey(),
-    objectId: text("object_id")
-      .notNull()
-      .references(() => objects.id, { onDelete: "restrict" }),
+    objectId: objectRef(),
     status: text("status", { enum: ["draft"] })
       .notNull()
       .default("draft"),
@@ -30,9 +28,7 @@ export const mountings = sqliteTable(
   "mountings",
   {
     id: text("id").primaryKey(),
-    objectId: text("object_id")
-      .notNull()
-      .references(() => objects.id, { onDelete: "restrict" }),
+    objectId: objectRef(),
     status: text("status", { enum: ["draft", "completed", "superseded", "removed"] })
       .notNull()
       .default("draft"),
@@ -66,17 +62,11 @@ export const mountings = sqliteTable(
 export const mountingRevisions = sqliteTable(
   "mounting_revisions",
   {
-    id: text("id").primaryKey(),
     mountingId: text("mounting_id")
       .notNull()
       .references(() => mountings.id, { onDelete: "restrict" }),
-    revision: integer("revision").notNull(),
-    /** The whole record as entered: plan input, boards, attachment, hinges, glazing, frame, undo notes. */
-    data: text("data", { mode: "json" }).$type<MountingData>().notNull(),
-    correctionReason: text("correction_reason"),
-    createdBy: text("created_by"),
-    createdByName: text("created_by_name"),
-    ...timestamps,
+    /** Its data: the whole record as entered: plan input, boards, attachment, hinges, glazing, frame, undo notes. */
+    ...revisionColumns<MountingData>(),
   },
   (t) => [uniqueIndex("mounting_revisions_uq").on(t.mountingId, t.revision)],
 );
