@@ -79,7 +79,7 @@ export function can(actor: Actor | null | undefined, action: Action, resource?: 
     case "label:print":
     case "workshop-sheet:print":
       return studio;
-    // A draft can still change: it is read only by those who may write it (docs/trade-reference.md §13).
+    // A draft can still change: it is read only by those who may write it (docs/trade.md §13).
     case "mounting:read":
       return resource?.draft ? can(actor, "mounting:write", resource) : studio || ownsResource(actor, resource);
     case "condition:read":
@@ -90,7 +90,7 @@ export function can(actor: Actor | null | undefined, action: Action, resource?: 
     case "custody:read":
     case "client:read":
     case "valuation:read":
-      // Valuations are confidential: studio staff and the owning client's users only (docs/trade-reference.md §13).
+      // Valuations are confidential: studio staff and the owning client's users only (docs/trade.md §13).
       return studio || ownsResource(actor, resource);
     case "object:update":
     case "condition:write":

@@ -35,7 +35,7 @@ export function compareFindings(earlier: ConditionData, later: ConditionData): C
   return out;
 }
 
-/** Light and display guidance for the object's catalogue: see shared/domain/light.ts (docs/trade-reference.md §7). */
+/** Light and display guidance for the object's catalogue: see shared/domain/light.ts (docs/trade.md §7). */
 export function lightGuidance(sensitivities: string[], objectType?: string, photoProcess?: string | null): string {
   return guidanceFor({ sensitivities, objectType, photoProcess });
 }

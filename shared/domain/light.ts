@@ -1,5 +1,5 @@
 /**
- * Light sensitivity of a work on paper or a photograph, from its catalogue (docs/trade-reference.md §7).
+ * Light sensitivity of a work on paper or a photograph, from its catalogue (docs/trade.md §7).
  *
  * Display limits: very sensitive objects at most 50 lux (NISO Z39.79, as summarised by NEDCC
  * Preservation 101). Yearly exposure by responsivity category (CIE 157:2004 as widely quoted;

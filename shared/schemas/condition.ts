@@ -14,7 +14,7 @@ export const CONDITION_CONTEXT_LABELS: Record<ConditionContext, string> = {
   incident: "Incident",
   claim: "Claim",
 };
-/** Reports for loans are signed by both parties (docs/trade-reference.md §14). */
+/** Reports for loans are signed by both parties (docs/trade.md §14). */
 export const TWO_PARTY_CONTEXTS: readonly ConditionContext[] = ["loan-out", "loan-return"];
 
 /** Overall rating, best first (Spectrum 5.0 "Condition": the overall rating is the worst finding's). */

@@ -68,7 +68,7 @@ export const MaterialsSchema = z.object({
 });
 export type Materials = z.infer<typeof MaterialsSchema>;
 
-/** The object's catalogue, as far as the checks need it (docs/trade-reference.md §4). */
+/** The object's catalogue, as far as the checks need it (docs/trade.md §4). */
 export const PlanObjectSchema = z.object({
   objectType: z.enum(OBJECT_TYPES).optional(),
   photoProcess: z.enum(PHOTO_PROCESSES).nullable().optional(),
@@ -83,7 +83,7 @@ export type PlanObject = z.infer<typeof PlanObjectSchema>;
 export const PRECISIONS = { mm: [0.1, 0.5, 1], in: [8, 16, 32] } as const;
 
 /**
- * Upper bounds on every length, in mm (docs/trade-reference.md §10): a studio's largest board sheet
+ * Upper bounds on every length, in mm (docs/trade.md §10): a studio's largest board sheet
  * is about 60 × 104 in (1524 × 2642 mm), so no sheet, window, outer size or board sheet goes past
  * 3,000 mm; borders and overlaps past half of that; thicknesses past what a frame holds. Bounds
  * keep every stored plan buildable and every computation small; nothing a studio frames is near them.

@@ -21,7 +21,7 @@ beforeAll(async () => {
 });
 
 describe("reading the vocabulary", () => {
-  // docs/trade-reference.md §14: paper terms from the Smithsonian MCI and conservators' glossaries; photograph terms from NEDCC Preservation 101.
+  // docs/trade.md §14: paper terms from the Smithsonian MCI and conservators' glossaries; photograph terms from NEDCC Preservation 101.
   it.each(ROLES)("when %s reads the paper list, then the 22 terms come back in their order", async (role) => {
     const res = await as[role].get("/api/condition-terms?list=paper");
     expect(res.status).toBe(200);

@@ -25,7 +25,7 @@ let studio: Awaited<ReturnType<typeof makeStudio>>;
 let as: Record<Role, Agent>;
 let otherPrivate: string;
 
-// Terms from the seeded vocabulary (docs/trade-reference.md §14: Smithsonian MCI and conservators' glossaries; NEDCC Preservation 101 for photographs).
+// Terms from the seeded vocabulary (docs/trade.md §14: Smithsonian MCI and conservators' glossaries; NEDCC Preservation 101 for photographs).
 const FOXING: FindingInput = { id: "f-foxing", term: "foxing", location: { kind: "zone", zone: "bottom-centre" }, extent: "Scattered spots under 2 mm", severity: "slight" };
 const TEAR: FindingInput = { id: "f-tear", term: "tear", location: { kind: "zone", zone: "edge-right" }, extent: "12 mm from the edge", severity: "moderate" };
 const ABRASION: FindingInput = { id: "f-abrasion", term: "abrasion", location: { kind: "zone", zone: "top-left" }, extent: "10 × 6 mm", severity: "slight" };
@@ -528,7 +528,7 @@ describe("what a report may refer to", () => {
   });
 });
 
-describe("cautions (docs/trade-reference.md §12; NEDCC leaflet 3.8 and US CDC for mould)", () => {
+describe("cautions (docs/trade.md §12; NEDCC leaflet 3.8 and US CDC for mould)", () => {
   let objectId: string;
   beforeAll(() => {
     objectId = makeObject(t.db, studio.collectorClient.id);

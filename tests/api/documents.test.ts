@@ -175,7 +175,7 @@ describe("the object dossier", () => {
 
 describe("valuations on documents", () => {
   it("when a user may not read valuations, then no valuation line is written (today every reader may, so the gate is checked directly)", () => {
-    // Today everyone who may read an object may also see its valuation (docs/trade-reference.md §13); the services strip the
+    // Today everyone who may read an object may also see its valuation (docs/trade.md §13); the services strip the
     // fields whenever valuation:read says no, and the documents print only what is left.
     const studioUser = { id: "u", name: "U", email: "u@x.test", role: "framer" as const, clientId: null };
     expect(can(studioUser, "valuation:read", { clientId: "c" })).toBe(true);

@@ -215,7 +215,7 @@ describe("POST /api/mount-plans/calculate", () => {
 });
 
 describe("POST /api/mount-plans/cutting-list", () => {
-  // 32 × 40 in full sheet: suppliers' size. 16 × 20 in blanks: ready-made frame size (docs/trade-reference.md §8); 8 × 10 in: CCI Notes 11/5.
+  // 32 × 40 in full sheet: suppliers' size. 16 × 20 in blanks: ready-made frame size (docs/trade.md §8); 8 × 10 in: CCI Notes 11/5.
   const BATCH = {
     unit: "in",
     boardSheet: { width: 32, height: 40 },

@@ -412,7 +412,7 @@ describe("the plan's checks cover the record's materials", () => {
   });
 
   it("when a watercolour with no flag has plain float glass, then the uv-glazing check fails too (very sensitive by the light guidance)", async () => {
-    // Watercolours are very sensitive (NISO Z39.79 via NEDCC; docs/trade-reference.md §7); UV filtering for them: NEDCC 4.10.
+    // Watercolours are very sensitive (NISO Z39.79 via NEDCC; docs/trade.md §7); UV filtering for them: NEDCC 4.10.
     const wc = catalogued({ objectType: "watercolour", sensitivities: [] });
     const res = await as.framer.post(`/api/objects/${wc}/mountings`).send(createBody(with_({ glazing: { type: "float-glass", thicknessMm: 2 } })));
     expect(check(res, "uv-glazing").verdict).toBe("fail");

@@ -2,7 +2,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { agentFor, createTestApp, expectErrorShape, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
 import { mountings } from "../../server/db/schema.ts";
 
-// Bounds: docs/trade-reference.md §10 (a studio's largest board, about 60 × 104 in, sets the 3,000 mm size bound).
+// Bounds: docs/trade.md §10 (a studio's largest board, about 60 × 104 in, sets the 3,000 mm size bound).
 const t = createTestApp();
 let framer: Agent;
 let objectId: string;

@@ -14,7 +14,7 @@ import { binary } from "../setup/http.ts";
 // One record, four surfaces: the record page's API, the dossier (read back with pdftotext), the
 // registrar's mountings export and POST /api/mount-plans/calculate with the same input and
 // catalogue must give the same checks.
-// Sources of the rules: docs/trade-reference.md §5–§7. A4 = 210 × 297 mm (ISO 216).
+// Sources of the rules: docs/trade.md §5–§7. A4 = 210 × 297 mm (ISO 216).
 const t = createTestApp();
 let framer: Agent;
 let admin: Agent;

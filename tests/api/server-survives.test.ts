@@ -18,7 +18,7 @@ afterAll(async () => {
 const post = (url: string, body: unknown) =>
   fetch(`${server.baseUrl}${url}`, { method: "POST", headers: { "content-type": "application/json", cookie, origin: server.baseUrl }, body: JSON.stringify(body) });
 
-// Bounds: docs/trade-reference.md §10. The heaviest plans the bounds allow, and values past them.
+// Bounds: docs/trade.md §10. The heaviest plans the bounds allow, and values past them.
 const A4 = { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } } };
 const HEAVIEST_PLAN = {
   ...A4,

@@ -13,7 +13,7 @@ const SETTINGS: StudioSettings = {
   vocabulary: "mat",
   paperSize: "Letter",
   currency: "USD",
-  // 5 mm overlap a side: common practice (no source); docs/trade-reference.md §2 makes it a studio setting.
+  // 5 mm overlap a side: common practice (no source); docs/trade.md §2 makes it a studio setting.
   minOverlapMm: 5,
   // 2 mm total rebate clearance: common practice (no source).
   rebateClearanceMm: 2,

@@ -19,7 +19,7 @@ const RESOURCES: Record<Case, Resource | undefined> = {
   none: undefined,
 };
 
-// The expected answers, written out by hand from docs/trade-reference.md §13 (not derived from the code):
+// The expected answers, written out by hand from docs/trade.md §13 (not derived from the code):
 // each cell is [own client's record, another client's record, no record].
 type Row = Record<Role, [boolean, boolean, boolean]>;
 const Y = true;
@@ -46,14 +46,14 @@ const EXPECTED: Record<Action, Row> = {
   "condition:write": STUDIO_AND_REGISTRAR,
   "terms:manage": ADMIN_ONLY,
   "object:update": STUDIO_AND_REGISTRAR,
-  // docs/trade-reference.md §13: valuations are confidential — admin, framers and the owning client's users only.
+  // docs/trade.md §13: valuations are confidential — admin, framers and the owning client's users only.
   "valuation:read": STUDIO_AND_OWNER,
-  // docs/trade-reference.md §13: a registrar keeps catalogue data and valuations current.
+  // docs/trade.md §13: a registrar keeps catalogue data and valuations current.
   "valuation:update": STUDIO_AND_REGISTRAR,
   "client:read": STUDIO_AND_OWNER,
   "client:write": STUDIO_ONLY,
   "settings:read": EVERYONE,
-  // docs/trade-reference.md §13: studio details, users and roles are the studio admin's.
+  // docs/trade.md §13: studio details, users and roles are the studio admin's.
   "settings:update": ADMIN_ONLY,
   "user:manage": ADMIN_ONLY,
   "planner:use": EVERYONE,
@@ -65,11 +65,11 @@ const EXPECTED: Record<Action, Row> = {
   "workshop-sheet:print": STUDIO_ONLY,
   // Photos are condition evidence: written by those who write condition reports.
   "photo:write": STUDIO_AND_REGISTRAR,
-  // docs/trade-reference.md §13: the owning client's people may take their own records away.
+  // docs/trade.md §13: the owning client's people may take their own records away.
   "export:run": STUDIO_AND_OWNER,
 };
 
-// docs/trade-reference.md §13: a draft mounting record or condition report is read only by those who may write it.
+// docs/trade.md §13: a draft mounting record or condition report is read only by those who may write it.
 const DRAFT_READ: Record<"mounting:read" | "condition:read", Row> = {
   "mounting:read": STUDIO_ONLY,
   "condition:read": STUDIO_AND_REGISTRAR,

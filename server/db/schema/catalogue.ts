@@ -19,7 +19,7 @@ export const clients = sqliteTable(
   (t) => [index("clients_name_idx").on(t.name)],
 );
 
-// ── Objects: the catalogue record (docs/trade-reference.md §4). Lengths in mm. ─────────────
+// ── Objects: the catalogue record (docs/trade.md §4). Lengths in mm. ─────────────
 export const objects = sqliteTable(
   "objects",
   {

@@ -50,7 +50,7 @@ function invalid(fields: Record<string, string>): AppError {
   return new AppError("validation_failed", message, fields);
 }
 
-/** Photographs may use the paper terms as well as their own (docs/trade-reference.md §14); everything else uses the paper list. */
+/** Photographs may use the paper terms as well as their own (docs/trade.md §14); everything else uses the paper list. */
 const listsFor = (objectType: string): ("paper" | "photograph")[] => (objectType === "photograph" ? ["paper", "photograph"] : ["paper"]);
 
 const distinct = <T>(xs: T[]) => [...new Set(xs)];

@@ -23,7 +23,7 @@ import { mountingDetail } from "../mountings/mounting-detail.ts";
 import { Caution, ComparisonTag, KV, RatingTag, Table, para } from "../../lib/pdf/blocks.tsx";
 import { FindingsTable, type LoadedPhoto, PhotoGrid, loadPhoto, valuationLine } from "./record-blocks.tsx";
 
-/** The sentence every condition document carries (docs/trade-reference.md §12). */
+/** The sentence every condition document carries (docs/trade.md §12). */
 export const NOT_TREATMENT = "Condition notes are observations, not conservation treatment; refer treatment to a qualified conservator.";
 
 // ── The condition report for an insurer ───────────────────────────────────────

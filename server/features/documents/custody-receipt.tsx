@@ -55,7 +55,7 @@ const day = (iso: string) => {
   }
 };
 
-/** The handling cautions that apply to this object, placed on the receipt where the hand-over happens (docs/trade-reference.md §12). */
+/** The handling cautions that apply to this object, placed on the receipt where the hand-over happens (docs/trade.md §12). */
 export function handlingCautions(d: Pick<CustodyDocData, "glass" | "weightKg">): { title: string; text: string }[] {
   const out: { title: string; text: string }[] = [];
   if (d.glass)

@@ -11,7 +11,7 @@ import { minorDigits } from "../../../shared/domain/money.ts";
  * Everything else has a plain name. Lengths are in millimetres, with the unit in the name. Every value
  * is in words ("T-hinge", "Wheat starch paste", "Signed"), never a stored code; the only identifiers are
  * record ids, named as such. docs/exports.md lists every column.
- * Columns marked `valuation` are confidential (docs/trade-reference.md §13) and are left out, header and all, for a
+ * Columns marked `valuation` are confidential (docs/trade.md §13) and are left out, header and all, for a
  * user without "valuation:read" on the client.
  */
 /** The valuation's columns, the same in the objects and the valuations datasets. */

@@ -136,7 +136,7 @@ const checkWord = (v: Verdict) => VERDICT_WORDS[v].toLowerCase();
 /**
  * A mounting record's plan figures and checks, recomputed with recordPlan from the saved record and the
  * object's catalogue, as on the record page and in the dossier. Shown figures, so the borders and the
- * window add up to the outer size in the export too (docs/trade-reference.md §9).
+ * window add up to the outer size in the export too (docs/trade.md §9).
  */
 function planCells(d: MountingData, o: ObjectRow, settings: PlanSettings): Row {
   const r = recordPlan(d, o, settings);

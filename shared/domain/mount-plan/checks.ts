@@ -28,7 +28,7 @@ const SOURCES = {
 } as const;
 
 /**
- * Hinges wanted for a sheet (docs/trade-reference.md §6): two for a top edge up to 700 mm, and
+ * Hinges wanted for a sheet (docs/trade.md §6): two for a top edge up to 700 mm, and
  * one more for each further 350 mm of it begun — i.e. max(2, ⌈width / 350 mm⌉); and, when the
  * paper's weight is known, at least one hinge for each 40 g of sheet begun. Both are Reversa's
  * rules of thumb for "more hinges as size and weight grow" (Library of Congress guide): common
@@ -56,7 +56,7 @@ const FLOAT_METHODS = ["v-hinge", "pass-through-hinge", "edge-strips", "polyeste
 const SENSITIVE_PROCESSES = ["albumen", "salted-paper", "platinum-palladium", "dye-transfer", "collodion"];
 
 /**
- * The eight conservation-level rules of the plan (docs/trade-reference.md §5), each with a verdict, a reason in the framer's words and its source.
+ * The eight conservation-level rules of the plan (docs/trade.md §5), each with a verdict, a reason in the framer's words and its source.
  * `length` formats any length in the display unit; `shown` formats a figure that is already on the shown grid; `minimum` is the studio minimum as shown.
  */
 export type Formatters = { length: (mm: number, r?: "nearest" | "down" | "up") => string; shown: (mm: number) => string; minimum: () => string };

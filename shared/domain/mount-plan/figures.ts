@@ -1,6 +1,6 @@
 /**
  * The figures a plan shows: every length in one unit, rounded once, so that the parts add up to
- * the whole on each axis (docs/trade-reference.md §9):
+ * the whole on each axis (docs/trade.md §9):
  *   sheet  = overlap left + window + overlap right
  *   outer  = border left  + window + border right
  *   sight  = rebate − 2 × lip

@@ -1,5 +1,5 @@
 /**
- * Board yield and cutting list (docs/trade-reference.md §11): how many blanks a full board sheet gives, and how a
+ * Board yield and cutting list (docs/trade.md §11): how many blanks a full board sheet gives, and how a
  * batch of blanks packs onto the fewest sheets, with guillotine (edge-to-edge) cuts and blade kerf.
  *
  * The two algorithms live in yield/: blanksPerSheet (blanks-per-sheet.ts) and cuttingList

@@ -141,7 +141,7 @@ describe("lightGuidance", () => {
   });
 
   it("when a work on paper is not flagged, then it is treated as very sensitive (50 lux), the cautious default", () => {
-    // docs/trade-reference.md §7: an unflagged work on paper is treated as very sensitive; NISO Z39.79 via NEDCC: ≤ 50 lux.
+    // docs/trade.md §7: an unflagged work on paper is treated as very sensitive; NISO Z39.79 via NEDCC: ≤ 50 lux.
     for (const g of [lightGuidance([], "print"), lightGuidance([], "drawing"), lightGuidance([], "document"), lightGuidance([], "photograph", "gelatin-silver")]) {
       expect(g).toContain("50 lux");
       expect(g).not.toContain("100 lux");

@@ -4,7 +4,7 @@ import { cuttingList, type CutPiece } from "../../../shared/domain/mount-plan/yi
 import { fewestSheets } from "./support/guillotine-brute.ts";
 import { at } from "../../setup/lists.ts";
 
-// Guillotine cuts (edge to edge) with kerf: docs/trade-reference.md §11. The comparison is with an
+// Guillotine cuts (edge to edge) with kerf: docs/trade.md §11. The comparison is with an
 // exhaustive search written apart from the product (support/guillotine-brute.ts). Board sizes are
 // invented for the test; the 1120 × 815 mm full sheet is common practice (no source).
 const SHEET = { width: 1120, height: 815 };

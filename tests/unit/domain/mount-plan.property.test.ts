@@ -299,7 +299,7 @@ describe("mount plan properties", () => {
     );
   });
 
-  // ── Shown figures (docs/trade-reference.md §9): one unit, rounded once, parts adding up to the whole ──
+  // ── Shown figures (docs/trade.md §9): one unit, rounded once, parts adding up to the whole ──
   const shownCase = windowCase.chain(withBorders).chain((c) =>
     fc
       .record({

@@ -7,7 +7,7 @@ import { MM_PER_INCH } from "../../../shared/domain/units.ts";
 import { at, first } from "../../setup/lists.ts";
 
 // The studio defaults: 5 mm minimum overlap a side and 2 mm total rebate clearance, both
-// common practice (no source) and studio settings (docs/trade-reference.md §2).
+// common practice (no source) and studio settings (docs/trade.md §2).
 const CTX: PlanContext = { minOverlapMm: 5, rebateClearanceMm: 2 };
 // 1 in = 25.4 mm exactly: international yard and pound agreement, 1959; NIST Handbook 44, Appendix C.
 const IN = 25.4;
@@ -243,7 +243,7 @@ describe("custom window", () => {
   });
 
   it("when a custom window runs past the sheet's edge, then that side is an error naming the side and the field, never a warning", () => {
-    // A custom window must lie on the sheet; showing the whole sheet is a float (docs/trade-reference.md §3).
+    // A custom window must lie on the sheet; showing the whole sheet is a float (docs/trade.md §3).
     const { plan } = planOf({ unit: "mm", sheet: { width: 210, height: 297 }, window: { mode: "custom", width: 200, height: 280, left: -4, top: 8 } });
     expect(plan.overlap.left).toBe(-4);
     const off = plan.findings.filter((f) => f.code === "window-off-sheet");
@@ -311,7 +311,7 @@ describe("borders and outer size", () => {
     expect(first(low).message).toContain("40 mm");
   });
 
-  // 16 × 20 in ready-made frame (docs/trade-reference.md §8); 8 × 10 in sheet (CCI Notes 11/5); 1 in = 25.4 mm (NIST HB 44 App. C).
+  // 16 × 20 in ready-made frame (docs/trade.md §8); 8 × 10 in sheet (CCI Notes 11/5); 1 in = 25.4 mm (NIST HB 44 App. C).
   const FIT_16x20: MountPlanInput = {
     unit: "in",
     sheet: { width: 8, height: 10 },
@@ -435,7 +435,7 @@ describe("glazing weight and hanging", () => {
   });
 
   it("when the glazing is 2 mm acrylic, then it weighs 0.2 m² × 2 mm × 1.19 kg/m²/mm", () => {
-    // Acrylic (PMMA) about 1,190 kg/m³ (from memory, docs/trade-reference.md §8).
+    // Acrylic (PMMA) about 1,190 kg/m³ (from memory, docs/trade.md §8).
     const { plan } = planOf({ ...OUTER_500x400, glazing: { material: "acrylic", thickness: 2 } });
     expect(plan.glazing.weightKg).toBeCloseTo(0.476, 9);
     expect(codes(plan)).not.toContain("glass-handling");
@@ -524,7 +524,7 @@ describe("conservation checks", () => {
   });
 
   it("when the board is museum or conservation grade, then check 3 passes; not chosen warns; 'other' fails", () => {
-    // NEDCC Preservation Leaflet 4.10; docs/trade-reference.md §5: "other" fails check 3.
+    // NEDCC Preservation Leaflet 4.10; docs/trade.md §5: "other" fails check 3.
     expect(verdict("archival-boards", mat({ boardGrade: "museum" }))).toBe("pass");
     expect(verdict("archival-boards", mat({ boardGrade: "conservation" }))).toBe("pass");
     expect(verdict("archival-boards", mat({ boardGrade: undefined }))).toBe("warn");
@@ -557,7 +557,7 @@ describe("conservation checks", () => {
     });
 
     it("when a cyanotype goes on buffered board, then it fails even with a PAT-passed board", () => {
-      // Unbuffered board for cyanotype: research consensus (docs/trade-reference.md §5).
+      // Unbuffered board for cyanotype: research consensus (docs/trade.md §5).
       expect(photo("cyanotype", { patPassed: true, buffered: true })).toBe("fail");
       expect(photo("cyanotype", { patPassed: true, buffered: false })).toBe("pass");
       expect(photo("cyanotype", { patPassed: true, buffered: undefined })).toBe("warn");
@@ -654,7 +654,7 @@ describe("conservation checks", () => {
 
     it("when an unflagged work on paper or a very sensitive medium is under plain glass, then it fails too", () => {
       // An unflagged work on paper is very sensitive, the cautious default; watercolours and colour photographs
-      // are very sensitive too (NISO Z39.79 via NEDCC Preservation 101; docs/trade-reference.md §7). UV filtering for them: NEDCC 4.10.
+      // are very sensitive too (NISO Z39.79 via NEDCC Preservation 101; docs/trade.md §7). UV filtering for them: NEDCC 4.10.
       const plain = { glazing: { material: "glass" as const, thickness: 2 } };
       expect(verdict("uv-glazing", { ...plain, object: { objectType: "print" } })).toBe("fail");
       expect(verdict("uv-glazing", { ...plain, object: { objectType: "watercolour" } })).toBe("fail");

@@ -16,7 +16,7 @@ const run = (input: MountPlanInput, ctx: PlanContext = CTX) => {
 };
 const errorsOf = (input: MountPlanInput, code: string) => run(input).plan.findings.filter((f) => f.code === code);
 
-describe("geometry that cannot be built (docs/trade-reference.md §3)", () => {
+describe("geometry that cannot be built (docs/trade.md §3)", () => {
   it("when the overlap is wider than the border, then the sheet past the outer edge is an error per side at the border's field", () => {
     const f = errorsOf({ ...A4, window: { all: { mode: "overlap", overlap: 30 } }, borders: { top: 40, side: 20, bottom: 40 }, frame: { rebateLip: 1 } }, "sheet-past-outer");
     expect(f.map((x) => [x.side, x.field, x.severity])).toEqual([
@@ -56,7 +56,7 @@ describe("geometry that cannot be built (docs/trade-reference.md §3)", () => {
   });
 });
 
-describe("floats keep their reveal (docs/trade-reference.md §2)", () => {
+describe("floats keep their reveal (docs/trade.md §2)", () => {
   it("when an inch float's window is off the 1/16 step, then it rounds up and the reveal shown is at least the one asked", () => {
     // 8 1/64 × 10 in sheet with a 1/4 in reveal: 8 33/64 in rounds up to 8 9/16 in; each reveal 1/4 + 3/128 in.
     const { plan, geometry } = run({ unit: "in", sheet: { width: "8 1/64", height: 10 }, window: { all: { mode: "float", reveal: "1/4" } } });
@@ -72,7 +72,7 @@ describe("floats keep their reveal (docs/trade-reference.md §2)", () => {
   });
 });
 
-describe("hinge count (docs/trade-reference.md §6, common practice, no source)", () => {
+describe("hinge count (docs/trade.md §6, common practice, no source)", () => {
   it("when the sheet widens, then the count grows by one for each 350 mm begun past 700 mm", () => {
     expect([350, 700, 701, 1050, 1051].map((w) => hingesWanted({ width: w, height: 500 }).count)).toEqual([2, 2, 3, 3, 4]);
   });
@@ -89,7 +89,7 @@ describe("hinge count (docs/trade-reference.md §6, common practice, no source)"
   });
 });
 
-describe("light categories (docs/trade-reference.md §7)", () => {
+describe("light categories (docs/trade.md §7)", () => {
   it("when a work on paper is not flagged, then it is very sensitive and medium responsivity; a watercolour is high", () => {
     // NISO Z39.79 via NEDCC (50 lux); CIE 157:2004 as quoted, from memory (15,000 / 150,000 lux·h a year).
     expect(lightClass({ objectType: "print" })).toMatchObject({ verySensitive: true, maxLux: 50, luxHoursPerYear: 150_000 });

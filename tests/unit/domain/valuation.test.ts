@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { valuationIsOld, VALUATION_REVIEW_YEARS } from "../../../shared/domain/valuation.ts";
 import { packageSize } from "../../../shared/domain/mounting.ts";
 
-describe("valuations past review (docs/trade-reference.md §15: revaluation every 3 to 5 years is common practice, no source)", () => {
+describe("valuations past review (docs/trade.md §15: revaluation every 3 to 5 years is common practice, no source)", () => {
   const on = new Date(2026, 11, 3, 15, 30);
   it(`flags a valuation more than ${VALUATION_REVIEW_YEARS} years before the day, and not one exactly that old`, () => {
     expect(valuationIsOld("2023-12-03", on)).toBe(false);
@@ -15,7 +15,7 @@ describe("valuations past review (docs/trade-reference.md §15: revaluation ever
   });
 });
 
-describe("the size as it leaves the studio (docs/trade-reference.md §15)", () => {
+describe("the size as it leaves the studio (docs/trade.md §15)", () => {
   const result = { ok: true, geometry: { sight: { width: 400, height: 500 }, outer: { width: 410, height: 510 } } } as never;
   const data = (frame?: object) => ({ frame }) as never;
   it("is the frame's outside, sight + 2 × face width, when the face width is recorded (common practice, no source)", () => {

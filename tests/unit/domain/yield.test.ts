@@ -9,7 +9,7 @@ const IN = 25.4;
 const SHEET_32x40: Size = { width: 32 * IN, height: 40 * IN }; // 812.8 × 1016 mm
 const SHEET_40x60: Size = { width: 40 * IN, height: 60 * IN }; // 1016 × 1524 mm
 const SHEET_1120x815: Size = { width: 1120, height: 815 };
-// 16 × 20 in: a ready-made frame size (docs/trade-reference.md §8); 8 × 10 in: CCI Notes 11/5.
+// 16 × 20 in: a ready-made frame size (docs/trade.md §8); 8 × 10 in: CCI Notes 11/5.
 const BLANK_16x20: Size = { width: 16 * IN, height: 20 * IN }; // 406.4 × 508 mm
 const BLANK_8x10: Size = { width: 8 * IN, height: 10 * IN }; // 203.2 × 254 mm
 // A4 210 × 297 mm: ISO 216.
@@ -95,7 +95,7 @@ const kerfArb = fc.oneof(fc.constantFrom(0, 1, 3), mmLength(0, 5));
 
 describe("STANDARD_BOARD_SHEETS", () => {
   it("when listed, then they are 32 × 40 in and 40 × 60 in at 25.4 mm/in exactly, and 1120 × 815 mm", () => {
-    // 32 × 40 in and 40 × 60 in: suppliers' sizes (docs/trade-reference.md §11); 1 in = 25.4 mm (NIST HB 44 App. C).
+    // 32 × 40 in and 40 × 60 in: suppliers' sizes (docs/trade.md §11); 1 in = 25.4 mm (NIST HB 44 App. C).
     // 1120 × 815 mm: common practice (no source).
     const sizes = STANDARD_BOARD_SHEETS.map((s) => [s.width, s.height]);
     expect(sizes).toHaveLength(3);

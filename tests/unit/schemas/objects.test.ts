@@ -55,7 +55,7 @@ describe("ObjectCreateSchema", () => {
     expect(fieldsOf({ ...VALID, sheetWidthMm: "210" })).toEqual({ sheetWidthMm: "Sheet width: enter a length." });
   });
 
-  it("when the sheet is larger than 3 m (the planner's bound, docs/trade-reference.md §10), then it is refused", () => {
+  it("when the sheet is larger than 3 m (the planner's bound, docs/trade.md §10), then it is refused", () => {
     expect(fieldsOf({ ...VALID, sheetWidthMm: 3001 })).toEqual({ sheetWidthMm: "Sheet width must be at most 3000 mm." });
   });
 

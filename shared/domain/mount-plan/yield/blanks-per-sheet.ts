@@ -1,5 +1,5 @@
 /**
- * How many blanks of one size a full board sheet gives (docs/trade-reference.md §11): an exact search
+ * How many blanks of one size a full board sheet gives (docs/trade.md §11): an exact search
  * over guillotine (edge-to-edge) cuts at "normal pattern" positions, bounded by a count of cuts tried.
  */
 import { EPS, fitCount, item, requireKerf, requirePositive, type Placement, type Size } from "./common.ts";

@@ -1,5 +1,5 @@
 /**
- * What the two board-yield algorithms share (docs/trade-reference.md §11): sizes and placements,
+ * What the two board-yield algorithms share (docs/trade.md §11): sizes and placements,
  * the float allowance, input checks, and the kerf trick both pack in.
  *
  * A cut removes `kerf` mm and blanks need no kerf at the sheet's outer edge,
@@ -22,7 +22,7 @@ export const EPS = 1e-9;
 
 /** A full board sheet as sold. */
 export type BoardSheet = { id: string; label: string; width: number; height: number };
-/** Standard full board sheets (docs/trade-reference.md §11); never empty, the first is the default. */
+/** Standard full board sheets (docs/trade.md §11); never empty, the first is the default. */
 export const STANDARD_BOARD_SHEETS: [BoardSheet, ...BoardSheet[]] = [
   // 32 × 40 in and 40 × 60 in: suppliers' sizes; 1 in = 25.4 mm exactly (1959 agreement; NIST HB 44 App. C).
   { id: "32x40in", label: "32 × 40 in", width: 32 * MM_PER_INCH, height: 40 * MM_PER_INCH },

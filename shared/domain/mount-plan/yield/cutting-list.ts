@@ -1,5 +1,5 @@
 /**
- * The cutting list (docs/trade-reference.md §11): how a batch of blanks packs onto the fewest full
+ * The cutting list (docs/trade.md §11): how a batch of blanks packs onto the fewest full
  * sheets with guillotine (edge-to-edge) cuts and blade kerf. Greedy guillotine packers under several
  * rules, the single-size layouts of blanksPerSheet, and an exact search (exact-pack.ts) for small
  * batches and for the emptiest sheets of larger ones; the fewest sheets win.

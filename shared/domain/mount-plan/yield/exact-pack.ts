@@ -1,6 +1,6 @@
 /**
  * Fewest sheets: an exact search for small groups of blanks, with guillotine cuts and kerf
- * (docs/trade-reference.md §11). The cutting list (cutting-list.ts) uses it for small batches and to
+ * (docs/trade.md §11). The cutting list (cutting-list.ts) uses it for small batches and to
  * repack the emptiest sheets of larger ones.
  */
 import { EPS, item, type Placement, type Size } from "./common.ts";
