@@ -9,16 +9,19 @@ import { nth } from "./nth.ts";
 import { spawnBenchServer } from "./server.ts";
 
 // ── Mount planner: the pure computation ────────────────────────────────────
+/** The first two plans of both benches: an A4 sheet in mm, and an 8 × 10 in sheet fitted to a 16 × 20 in frame. */
+const A4_MM = { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 50 } };
+const INCH_FIT = {
+  unit: "in",
+  sheet: { width: "8", height: "10" },
+  window: { all: { mode: "overlap", overlap: "3/16" } },
+  fitOuter: { width: 16, height: 20 },
+  bottomWeightPercent: 12,
+  glazing: { material: "glass", thickness: "3/32", uvFiltering: true },
+};
 const PLAN_INPUTS = [
-  { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 50 } },
-  {
-    unit: "in",
-    sheet: { width: "8", height: "10" },
-    window: { all: { mode: "overlap", overlap: "3/16" } },
-    fitOuter: { width: 16, height: 20 },
-    bottomWeightPercent: 12,
-    glazing: { material: "glass", thickness: "3/32", uvFiltering: true },
-  },
+  A4_MM,
+  INCH_FIT,
   {
     unit: "mm",
     sheet: { width: 560, height: 760 },
@@ -58,15 +61,8 @@ export async function benchCalculateRoute({ file, dir }: { file: string; dir: st
   const bodies = PLAN_INPUTS.map((_, i) =>
     JSON.stringify(
       [
-        { unit: "mm", sheet: { width: 210, height: 297 }, window: { all: { mode: "overlap", overlap: 5 } }, borders: { all: 50 } },
-        {
-          unit: "in",
-          sheet: { width: "8", height: "10" },
-          window: { all: { mode: "overlap", overlap: "3/16" } },
-          fitOuter: { width: 16, height: 20 },
-          bottomWeightPercent: 12,
-          glazing: { material: "glass", thickness: "3/32", uvFiltering: true },
-        },
+        A4_MM,
+        INCH_FIT,
         {
           unit: "mm",
           sheet: { width: 560, height: 760 },
