@@ -212,6 +212,17 @@ export const RegisterFilterSchema = ObjectListQuerySchema.pick({
   checkDueBy: true,
 });
 
+/**
+ * The register page's address: its filter with "due for a check" as a switch (`due=1`; the day is the
+ * studio's today, added when the list is asked for), and its sort and page.
+ */
+export const RegisterAddressSchema = RegisterFilterSchema.omit({ checkDueBy: true }).extend({
+  sort: ObjectListQuerySchema.shape.sort,
+  dir: ObjectListQuerySchema.shape.dir,
+  page: ObjectListQuerySchema.shape.page,
+  due: z.literal("1").optional(),
+});
+
 /** An object as the API returns it. Valuation fields are null and `valuationVisible` false for those who may not see them. */
 export type ObjectRecord = Omit<ObjectCreate, never> & {
   id: string;

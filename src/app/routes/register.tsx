@@ -1,10 +1,9 @@
-import { z } from "zod";
 import {
   OBJECT_STATUSES,
   OBJECT_STATUS_LABELS,
   OBJECT_TYPES,
   OBJECT_TYPE_LABELS,
-  ObjectListQuerySchema,
+  RegisterAddressSchema,
   REGISTER_BOARD_GRADES,
   REGISTER_GLAZINGS,
   REGISTER_METHODS,
@@ -32,21 +31,8 @@ const PAGE_SIZE = 50;
 /** "Last mounted" opens newest first: recent mountings are the ones usually asked about. */
 const FIRST_DIR: Partial<Record<SortKey, "asc" | "desc">> = { lastMountedOn: "desc" };
 
-/** The register's address: the shared list query, with "due for a check" as a switch (the day is the studio's today). */
-const RegisterSearchSchema = ObjectListQuerySchema.pick({
-  q: true,
-  clientId: true,
-  status: true,
-  objectType: true,
-  method: true,
-  boardGrade: true,
-  glazing: true,
-  sort: true,
-  dir: true,
-  page: true,
-}).extend({
-  due: z.literal("1").optional(),
-});
+/** The register's address: the shared list query's fields, with "due for a check" as a switch (the day is the studio's today). */
+const RegisterSearchSchema = RegisterAddressSchema;
 const NAMES = { objectType: "type", clientId: "client", boardGrade: "board" } as const;
 
 export function Component() {
