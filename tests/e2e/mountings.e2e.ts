@@ -71,7 +71,8 @@ describe("correcting a completed record", () => {
     const { page, w } = await browser.signedIn("framer@reversa.test");
     // 2026-0003 carries a completed mounting in the demo studio.
     await openObject(page, baseUrl, "2026-0003");
-    await page.getByRole("link", { name: "Open the mounting record" }).click();
+    // The Mount section's button (the history lists the same link for each mounting).
+    await page.locator("#mount").getByRole("link", { name: "Open the mounting record" }).click();
     await page.getByRole("link", { name: "Correct the record" }).click();
     await page.getByRole("heading", { name: "Correct the mounting record" }).waitFor();
     await page.getByLabel("Reason for the correction").waitFor();
