@@ -1,24 +1,17 @@
 // The servers the bench measures: the app in this process (for the sequential API timings) and the server in
 // a process of its own (for loads whose generator must not share the server's event loop), both on the bench
 // database; sign-in cookies and the `measure` helper.
-import { spawn } from "node:child_process";
-import net, { type AddressInfo } from "node:net";
+import type { AddressInfo } from "node:net";
+import path from "node:path";
 import { createApp } from "../../server/app.ts";
 import type { DbHandle } from "../../server/db/client.ts";
 import { loadConfig } from "../../server/lib/config.ts";
 import { BENCH_HISTORY_KEY, BENCH_HISTORY_KEY_TEXT } from "./fixtures.ts";
 import { nth } from "./nth.ts";
+import { freePort, startServer } from "../lib/spawn-server.ts";
 
 /** The auth secret both servers sign sessions with. */
 const BENCH_AUTH_SECRET = "bench-secret-bench-secret-bench-secret-0000";
-
-export const freePort = () =>
-  new Promise<number>((resolve) => {
-    const s = net.createServer().listen(0, "127.0.0.1", () => {
-      const p = (s.address() as AddressInfo).port;
-      s.close(() => resolve(p));
-    });
-  });
 
 /** The app in this process on the bench database, listening on loopback. */
 export async function startInProcessApp(file: string, database: DbHandle) {
@@ -66,38 +59,12 @@ export async function measure(base: string, runs: number, label: string, url: st
   console.log(`${label.padEnd(44)} p50 ${p(0.5).padStart(6)} ms   p95 ${p(0.95).padStart(6)} ms`);
 }
 
-/** The server in its own process on the bench database, signed in as the framer. */
+/** The server in its own process on the bench database (scripts/lib/spawn-server.ts), signed in as the framer. */
 export async function spawnBenchServer(file: string) {
-  const port = await freePort();
-  const child = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], {
-    env: {
-      ...process.env,
-      NODE_ENV: "test",
-      PORT: String(port),
-      HOST: "127.0.0.1",
-      DATABASE_URL: file,
-      SEED_DEMO: "false",
-      LOG_LEVEL: "silent",
-      LOGIN_RATE_LIMIT: "1000",
-      BETTER_AUTH_SECRET: BENCH_AUTH_SECRET,
-      HISTORY_KEY: BENCH_HISTORY_KEY_TEXT,
-    },
-    stdio: ["ignore", "ignore", "inherit"],
-  });
-  const base = `http://127.0.0.1:${port}`;
-  for (let i = 0; ; i++) {
-    try {
-      if ((await fetch(`${base}/api/health`)).ok) break;
-    } catch {
-      /* starting */
-    }
-    if (i > 150) throw new Error("bench server did not start");
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  const cookie = await cookieFor(base, "framer@bench.test");
-  const stop = async () => {
-    child.kill("SIGTERM");
-    await new Promise((done) => child.once("exit", done));
-  };
-  return { base, cookie, stop };
+  const server = await startServer(
+    { DATABASE_URL: file, SEED_DEMO: "false", LOG_LEVEL: "silent", BETTER_AUTH_SECRET: BENCH_AUTH_SECRET, HISTORY_KEY: BENCH_HISTORY_KEY_TEXT },
+    path.dirname(file),
+  );
+  const cookie = await cookieFor(server.baseUrl, "framer@bench.test");
+  return { base: server.baseUrl, cookie, stop: () => server.stop() };
 }

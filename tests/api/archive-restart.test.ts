@@ -4,7 +4,7 @@ import path from "node:path";
 import Database from "better-sqlite3";
 import { afterAll, describe, expect, it } from "vitest";
 import { pollUntil } from "../setup/poll.ts";
-import { signInCookie, startServer, type RunningServer } from "../setup/spawn-server.ts";
+import { signInCookie, startServer, type RunningServer } from "../../scripts/lib/spawn-server.ts";
 import { DEMO_PASSWORD } from "../../server/db/seed.ts";
 
 // Archive jobs live in SQLite (export_jobs), so a server that dies mid-build leaves a row behind. On the

@@ -5,7 +5,7 @@ import { spawnSync, spawn } from "node:child_process";
 import Database from "better-sqlite3";
 import sharp from "sharp";
 import { afterAll, describe, expect, it } from "vitest";
-import { signInCookie, startServer, type RunningServer } from "../setup/spawn-server.ts";
+import { signInCookie, startServer, type RunningServer } from "../../scripts/lib/spawn-server.ts";
 import { DEMO_PASSWORD } from "../../server/db/seed.ts";
 
 const work = fs.mkdtempSync(path.join(os.tmpdir(), "reversa-backup-test-"));

@@ -11,7 +11,7 @@ import { DEMO_PASSWORD, seedDemo } from "../../server/db/seed.ts";
 import { useHistoryKey } from "../../server/features/history/history.chain.ts";
 import { Text } from "../../server/lib/pdf/text.tsx";
 import { closeRenderPool, renderPdf, renderPoolStats, RENDER_THREADS } from "../../server/features/documents/render-pool.ts";
-import { signInCookie, startServer, type RunningServer } from "../setup/spawn-server.ts";
+import { signInCookie, startServer, type RunningServer } from "../../scripts/lib/spawn-server.ts";
 import { at } from "../setup/lists.ts";
 
 afterAll(closeRenderPool);

@@ -1,6 +1,6 @@
 import fs from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { signInCookie, startServer, type RunningServer } from "../setup/spawn-server.ts";
+import { signInCookie, startServer, type RunningServer } from "../../scripts/lib/spawn-server.ts";
 import { DEMO_PASSWORD } from "../../server/db/seed.ts";
 
 // The real server in its own process, so its memory and its answers are measured as a client sees them.

@@ -4,7 +4,7 @@ import path from "node:path";
 import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { agentFor, createTestApp, makeObject, makeStudio, type Agent } from "../setup/test-app.ts";
-import { startServer } from "../setup/spawn-server.ts";
+import { startServer } from "../../scripts/lib/spawn-server.ts";
 import { createStorage } from "../../server/lib/storage.ts";
 import { sweepAfterCrash } from "../../server/lib/sweep.ts";
 import { photos } from "../../server/db/schema.ts";

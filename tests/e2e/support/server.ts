@@ -1,6 +1,6 @@
 import fs from "node:fs";
 import type { TestProject } from "vitest/node";
-import { startServer, type RunningServer } from "../../setup/spawn-server.ts";
+import { startServer, type RunningServer } from "../../../scripts/lib/spawn-server.ts";
 
 declare module "vitest" {
   export interface ProvidedContext {
